@@ -1,0 +1,16 @@
+/** Physical constants and product defaults, each with its source. */
+
+/**
+ * Mean Earth radius R1 = (2a + b) / 3 of WGS 84 in km (Moritz, "Geodetic Reference
+ * System 1980", Bulletin Géodésique 54, 1980; IUGG mean radius 6371.0088 km).
+ */
+export const EARTH_MEAN_RADIUS_KM = 6371.0088;
+
+/** Road circuity over the great circle: 1.3 is a common rule of thumb (common practice). */
+export const DEFAULT_DETOUR_FACTOR = 1.3;
+
+/** Average urban/regional van speed used when a vehicle gives none (common practice). */
+export const DEFAULT_SPEED_KMH = 40;
+
+/** Minutes in a day. */
+export const DAY_MIN = 1440;

@@ -1,0 +1,189 @@
+/**
+ * The routing model shared by every layer: stops, vehicles, the problem they form,
+ * and the plan (solved routes) the solver returns. Pure data, no behaviour.
+ *
+ * Times are minutes from the planning day's midnight; distances are kilometres;
+ * loads are numbers per load dimension (for example kg and crates).
+ */
+
+/** A point on the Earth in decimal degrees (WGS 84). */
+export interface LatLon {
+  readonly lat: number;
+  readonly lon: number;
+}
+
+/** A window for the start of service, minutes from midnight; `latestMin >= earliestMin`. */
+export interface TimeWindow {
+  readonly earliestMin: number;
+  readonly latestMin: number;
+}
+
+/** One customer visit to plan. */
+export interface Stop {
+  /** The user's id, unique in the problem. */
+  readonly id: string;
+  readonly name: string;
+  /** Index into `Problem.locations`. */
+  readonly location: number;
+  /** Demand per load dimension; same length as `Problem.loadDimensions`. */
+  readonly demand: readonly number[];
+  /**
+   * Allowed windows for the start of service, sorted, not overlapping; at least one.
+   * A stop without a window has one window `[0, +Infinity]`.
+   */
+  readonly windows: readonly TimeWindow[];
+  readonly serviceMin: number;
+  /**
+   * Cost of leaving this stop unserved. `undefined` means the stop must be served:
+   * the solver then uses a cost far above any route cost.
+   */
+  readonly unservedCost?: number;
+  /** Features a vehicle must have to serve this stop (e.g. "fridge"). */
+  readonly requiredFeatures?: readonly string[];
+}
+
+/** One vehicle (one driver shift). */
+export interface Vehicle {
+  readonly id: string;
+  /** Capacity per load dimension; same length as `Problem.loadDimensions`. */
+  readonly capacity: readonly number[];
+  /** Index into `Problem.locations` where the shift starts and ends. */
+  readonly startLocation: number;
+  readonly endLocation: number;
+  /** Shift bounds, minutes from midnight; `shiftEndMin > shiftStartMin` (rolled over midnight). */
+  readonly shiftStartMin: number;
+  readonly shiftEndMin: number;
+  /** Cost when the vehicle is used at all. */
+  readonly fixedCost: number;
+  readonly costPerKm: number;
+  /** Cost per hour of duty (from leaving the start depot to returning). */
+  readonly costPerHour: number;
+  /**
+   * Travel speed; travel minutes = `Matrix.travelMin * (Problem.referenceSpeedKmh / speedKmh)`.
+   * Ignored (treated as the reference speed) when the matrix came from the user.
+   */
+  readonly speedKmh: number;
+  readonly features?: readonly string[];
+  /** Maximum number of stops on the route; `undefined` means no limit. */
+  readonly maxStops?: number;
+}
+
+/**
+ * Travel between locations, row-major `L x L` (`from * size + to`).
+ * `travelMin` is at `Problem.referenceSpeedKmh`.
+ */
+export interface Matrix {
+  readonly size: number;
+  readonly distanceKm: Float64Array;
+  readonly travelMin: Float64Array;
+  /** True when the user supplied the matrix: vehicle speeds then do not rescale it. */
+  readonly userSupplied: boolean;
+}
+
+/** How the cost of a plan is compared. */
+export type Objective =
+  /** Fixed + per-km + per-hour costs + unserved costs, one number. */
+  | "weighted"
+  /** Fewest vehicles first, then the weighted cost (Solomon's benchmark convention). */
+  | "hierarchical";
+
+/** A complete routing problem, ready for the solver. */
+export interface Problem {
+  /** Every location: depots and stops share one index space. Names are for messages. */
+  readonly locations: readonly (LatLon & { readonly name?: string })[];
+  readonly stops: readonly Stop[];
+  readonly vehicles: readonly Vehicle[];
+  /** Names of the load dimensions, e.g. ["kg"] or ["kg", "crates"]. */
+  readonly loadDimensions: readonly string[];
+  readonly matrix: Matrix;
+  /** The speed `matrix.travelMin` was computed at (km/h). */
+  readonly referenceSpeedKmh: number;
+  /**
+   * Hard windows: arriving after `latestMin` is infeasible.
+   * Soft windows: allowed, at `lateCostPerMin` per minute late.
+   */
+  readonly hardWindows: boolean;
+  readonly lateCostPerMin: number;
+  readonly objective: Objective;
+}
+
+/** A defect of a problem or of user data, as data (never thrown). */
+export interface Issue {
+  /** Where: a sheet name, or a model path such as "stops[3]". */
+  readonly sheet: string;
+  /** A cell address ("E7") or a field name; "" when it concerns the whole table. */
+  readonly cell: string;
+  /** What is wrong and how to fix it. */
+  readonly message: string;
+}
+
+/** One served stop in a route, with its timing. */
+export interface Visit {
+  /** Index into `Problem.stops`. */
+  readonly stop: number;
+  readonly arrivalMin: number;
+  readonly waitMin: number;
+  readonly startMin: number;
+  readonly departureMin: number;
+  /** Load on board after this stop, per dimension (deliveries: falls along the route). */
+  readonly loadAfter: readonly number[];
+  readonly legKm: number;
+  /** Cumulative distance from the start depot to this stop. */
+  readonly totalKm: number;
+  /** Minutes after the latest start of the window used (0 when on time). */
+  readonly lateMin: number;
+}
+
+/** The route of one vehicle. Every vehicle has one, possibly empty. */
+export interface Route {
+  /** Index into `Problem.vehicles`. */
+  readonly vehicle: number;
+  readonly visits: readonly Visit[];
+  /** Departure from the start depot and arrival at the end depot. */
+  readonly departureMin: number;
+  readonly returnMin: number;
+  /** Load leaving the depot per dimension (sum of the route's demands). */
+  readonly load: readonly number[];
+  readonly distanceKm: number;
+  readonly drivingMin: number;
+  /** From departure to return. */
+  readonly dutyMin: number;
+  readonly waitMin: number;
+  readonly lateMin: number;
+  /** Return after the shift end, in minutes (0 when back in time). */
+  readonly overtimeMin: number;
+  /** Load over capacity summed over dimensions (0 when within capacity). */
+  readonly excessLoad: number;
+  /** Fixed + distance + duty cost (+ late cost under soft windows); 0 for an empty route. */
+  readonly cost: number;
+}
+
+/** A stop the plan does not serve, and why. */
+export interface Unassigned {
+  readonly stop: number;
+  readonly reason: string;
+}
+
+/** Totals of a plan. */
+export interface PlanTotals {
+  readonly vehiclesUsed: number;
+  readonly distanceKm: number;
+  readonly drivingMin: number;
+  readonly dutyMin: number;
+  readonly waitMin: number;
+  readonly lateMin: number;
+  /** Route costs + unserved costs. */
+  readonly cost: number;
+  readonly unassigned: number;
+}
+
+/** The solved routes. */
+export interface Plan {
+  readonly routes: readonly Route[];
+  readonly unassigned: readonly Unassigned[];
+  readonly totals: PlanTotals;
+  /** True when no capacity, window (hard), shift or max-stops rule is broken. */
+  readonly feasible: boolean;
+  /** Every broken rule, in words, e.g. "Van 2: 14 kg over capacity". Empty when feasible. */
+  readonly violations: readonly string[];
+}

@@ -1,0 +1,84 @@
+/**
+ * The options of `solve` and of the cooling-schedule preview, with their defaults in one place.
+ * Pure types and constants: the engine that reads them lives in `anneal/`.
+ */
+
+/** Acceptance rule of an uphill change dE > 0 at temperature T. */
+export type AcceptanceRule =
+  /** Metropolis et al. (1953): P = exp(-dE / T); dE <= 0 always accepted. */
+  | "metropolis"
+  /** Logistic (Barker 1965): P = 1 / (1 + exp(dE / T)), for every dE. */
+  | "logistic";
+
+/**
+ * A cooling schedule. `t0` and `tEnd` are optional: when absent they come from calibration
+ * (target acceptance `p0` at the start and `pEnd` at the end of the mean uphill change).
+ */
+export type CoolingSpec =
+  /** T <- alpha * T every `movesPerLevel` moves. */
+  | { readonly kind: "geometric"; readonly alpha: number; readonly movesPerLevel: number; readonly t0?: number }
+  /** T falls linearly from t0 to tEnd in `steps` equal steps, each held for budget/steps moves. */
+  | { readonly kind: "linear"; readonly steps: number; readonly t0?: number; readonly tEnd?: number }
+  /** Lundy & Mees (1986): T <- T / (1 + beta * T) every move. */
+  | { readonly kind: "lundyMees"; readonly beta: number; readonly t0?: number }
+  /** T(f) = t0 * (tEnd / t0)^f with f the fraction of the budget (moves or seconds) used. */
+  | { readonly kind: "timeFraction"; readonly t0?: number; readonly tEnd?: number };
+
+/** How long a run may go: a move budget (reproducible) or seconds (needs `now`). */
+export type Budget = { readonly moves: number } | { readonly seconds: number };
+
+/** Something with an `aborted` flag: an AbortSignal fits. */
+export interface AbortFlag {
+  readonly aborted: boolean;
+}
+
+/** What a run reports while it goes. */
+export interface Progress {
+  readonly moves: number;
+  /** Fraction of the budget used, 0..1. */
+  readonly fraction: number;
+  readonly temperature: number;
+  readonly currentCost: number;
+  /** Best feasible cost so far; `Infinity` while none is feasible. */
+  readonly bestCost: number;
+  /** Share of the moves accepted since the previous report, 0..1. */
+  readonly acceptanceRate: number;
+  readonly elapsedMs: number;
+}
+
+/** Options of `solve`. */
+export interface SolveOptions {
+  /** Seed of the one generator every random choice draws from. */
+  readonly seed: number | string;
+  readonly budget: Budget;
+  readonly rule: AcceptanceRule;
+  readonly cooling: CoolingSpec;
+  /** Target acceptance probability of the mean uphill change at the start (default 0.5). */
+  readonly p0: number;
+  /** ... and at the end (default 0.001). */
+  readonly pEnd: number;
+  /** Random moves sampled for calibration (default 300). */
+  readonly calibrationSamples: number;
+  /** Granular neighbourhood size k (default 20). */
+  readonly neighbours: number;
+  /** Milliseconds clock; required for a `seconds` budget and for progress pacing. */
+  readonly now?: () => number;
+  /** Called at most every `progressEveryMs` (default 100 ms; needs `now`). */
+  readonly onProgress?: (progress: Progress) => void;
+  readonly progressEveryMs: number;
+  readonly signal?: AbortFlag;
+}
+
+/** Defaults of `SolveOptions`. Values are common practice unless a source is named. */
+export const SOLVE_DEFAULTS: Omit<SolveOptions, "now" | "onProgress" | "signal"> = {
+  seed: 1,
+  budget: { moves: 2_000_000 },
+  rule: "metropolis",
+  // A geometric factor of 0.94 is a usual choice (common practice).
+  cooling: { kind: "timeFraction" },
+  p0: 0.5,
+  pEnd: 0.001,
+  calibrationSamples: 300,
+  neighbours: 20,
+  progressEveryMs: 100,
+};
