@@ -1,0 +1,55 @@
+import type { AcceptanceRule, CoolingSpec } from "../core/options.js";
+
+/**
+ * Everything a user can set for one scenario run: from CLI flags, the optional
+ * `Settings` sheet, or the pane. Defaults in `PLAN_SETTINGS_DEFAULTS`.
+ */
+export interface PlanSettings {
+  /** Road distance over great-circle distance (default 1.3, common practice). */
+  readonly detourFactor: number;
+  /** Speed of vehicles that give none (default 40 km/h). */
+  readonly speedKmh: number;
+  /** Service minutes of stops that give none. */
+  readonly serviceMin: number;
+  readonly hardWindows: boolean;
+  /** Cost per minute late under soft windows. */
+  readonly lateCostPerMin: number;
+  readonly rule: AcceptanceRule;
+  readonly cooling: CoolingSpec;
+  readonly p0: number;
+  readonly pEnd: number;
+  readonly seed: number;
+  /** Run length: seconds (wall clock) or, when `moves` is set, a move budget (reproducible). */
+  readonly seconds: number;
+  readonly moves?: number;
+  readonly objective: "weighted" | "hierarchical";
+}
+
+/** Defaults of `PlanSettings` (common practice unless noted). */
+export const PLAN_SETTINGS_DEFAULTS: PlanSettings = {
+  detourFactor: 1.3,
+  speedKmh: 40,
+  serviceMin: 5,
+  hardWindows: true,
+  lateCostPerMin: 1,
+  rule: "metropolis",
+  cooling: { kind: "timeFraction" },
+  p0: 0.5,
+  pEnd: 0.001,
+  seed: 1,
+  seconds: 10,
+  objective: "weighted",
+};
+
+/** What a plan sheet records about the run that made it (the settings block). */
+export interface RunRecord {
+  readonly scenario: string;
+  /** When the run finished, as an Excel serial date-time (ECMA-376 1900 system). */
+  readonly createdSerial: number;
+  readonly settings: PlanSettings;
+  readonly moves: number;
+  readonly runSeconds: number;
+  /** Sheet and range the stops and fleet were read from, e.g. "Stops!A1:J81". */
+  readonly stopsSource: string;
+  readonly fleetSource: string;
+}
