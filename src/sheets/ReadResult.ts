@@ -1,0 +1,44 @@
+import type { Issue, Problem } from "../core/model.js";
+import type { CellValue } from "./grid.js";
+import type { PlanSettings } from "./PlanSettings.js";
+
+/** A header the reader recognised: the user's text, the field it maps to, the column letter. */
+export interface ColumnMatch {
+  readonly header: string;
+  /** Canonical field, e.g. "latitude", "earliest", or "extra" for a carried-through column. */
+  readonly field: string;
+  /** Column letter in the sheet, e.g. "E". */
+  readonly column: string;
+}
+
+/** Where a stop came from and the user's own columns carried through to the plan. */
+export interface StopRow {
+  /** Index into `Problem.stops`. */
+  readonly stop: number;
+  /** 1-based sheet row number. */
+  readonly sheetRow: number;
+  /** Unrecognised columns of this row, keyed by header text (order as in `extraHeaders`). */
+  readonly extra: Readonly<Record<string, CellValue>>;
+}
+
+/** Result of reading the input tables. */
+export type ReadResult =
+  | {
+      readonly ok: true;
+      readonly problem: Problem;
+      readonly settings: PlanSettings;
+      readonly stopRows: readonly StopRow[];
+      /** Headers of carried-through stop columns, in sheet order. */
+      readonly extraHeaders: readonly string[];
+      readonly stopColumns: readonly ColumnMatch[];
+      readonly fleetColumns: readonly ColumnMatch[];
+      /** Non-blocking notes (e.g. a stop no vehicle can carry: it will be reported unassigned). */
+      readonly warnings: readonly Issue[];
+    }
+  | {
+      readonly ok: false;
+      /** Every defect found, all at once. Nothing is solved or written. */
+      readonly issues: readonly Issue[];
+      readonly stopColumns: readonly ColumnMatch[];
+      readonly fleetColumns: readonly ColumnMatch[];
+    };
