@@ -1,0 +1,65 @@
+import type { AcceptanceRule, CoolingSpec } from "../options.js";
+import { acceptanceProbability } from "./acceptanceProbability.js";
+import { calibrateTemperatures } from "./calibrateTemperatures.js";
+import { resolveCooling, temperatureAt } from "./resolveCooling.js";
+
+/** One point of a cooling profile. */
+export interface ProfilePoint {
+  /** Share of the run, 0..1. */
+  readonly fraction: number;
+  readonly moves: number;
+  readonly temperature: number;
+  /** Probability of accepting the mean uphill change at this temperature. */
+  readonly pAccept: number;
+}
+
+/** Options of `profile`. */
+export interface ProfileOptions {
+  /** Target acceptance of the mean uphill change at the start (default 0.5). */
+  readonly p0: number;
+  /** ... and at the end (default 0.001). */
+  readonly pEnd: number;
+  /** Points from fraction 0 to 1 inclusive (default 101). */
+  readonly points: number;
+}
+
+const DEFAULTS: ProfileOptions = { p0: 0.5, pEnd: 0.001, points: 101 };
+
+/**
+ * Preview a cooling schedule before a run: the temperature and the probability of accepting the
+ * mean uphill change at evenly spaced points of the run. The run itself uses the same
+ * `calibrateTemperatures`, `resolveCooling` and `temperatureAt`, so the preview is exact for a
+ * move budget (for a seconds budget, pass the expected number of moves).
+ *
+ * @param spec - the cooling schedule (its own t0/tEnd win over the calibrated ones)
+ * @param rule - acceptance rule
+ * @param meanUphill - mean sampled uphill cost change (> 0)
+ * @param budgetMoves - moves in the run (>= 1)
+ * @param options - targets and number of points
+ * @returns `points` profile points, fraction 0 first
+ * @throws RangeError on parameters outside their ranges
+ * @example profile({ kind: "timeFraction" }, "metropolis", 20, 1000, { points: 3 })[2].pAccept // => 0.001
+ */
+export function profile(
+  spec: CoolingSpec,
+  rule: AcceptanceRule,
+  meanUphill: number,
+  budgetMoves: number,
+  options: Partial<ProfileOptions> = {},
+): ProfilePoint[] {
+  const o = { ...DEFAULTS, ...options };
+  if (!(budgetMoves >= 1)) throw new RangeError(`budgetMoves must be >= 1, got ${budgetMoves}`);
+  if (!(o.points >= 2)) throw new RangeError(`points must be >= 2, got ${o.points}`);
+  const { t0, tEnd } = calibrateTemperatures(meanUphill, rule, o.p0, o.pEnd);
+  const cooling = resolveCooling(spec, { t0, tEnd, budgetMoves });
+  const out: ProfilePoint[] = [];
+  const n = Math.floor(o.points);
+  for (let i = 0; i < n; i++) {
+    const fraction = i / (n - 1);
+    // The last point is the state after the final move, so it reaches the end temperature.
+    const moves = Math.round(fraction * budgetMoves);
+    const temperature = temperatureAt(cooling, moves, fraction);
+    out.push({ fraction, moves, temperature, pAccept: acceptanceProbability(rule, meanUphill, temperature) });
+  }
+  return out;
+}

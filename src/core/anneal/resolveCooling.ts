@@ -1,0 +1,101 @@
+import type { CoolingSpec } from "../options.js";
+
+/** A cooling schedule with every number fixed, ready for `temperatureAt`. */
+export type ResolvedCooling =
+  | { readonly kind: "geometric"; readonly t0: number; readonly alpha: number; readonly movesPerLevel: number }
+  | { readonly kind: "linear"; readonly t0: number; readonly tEnd: number; readonly steps: number }
+  | { readonly kind: "lundyMees"; readonly t0: number; readonly beta: number }
+  | { readonly kind: "timeFraction"; readonly t0: number; readonly tEnd: number };
+
+/**
+ * Fix the numbers of a cooling schedule: a `t0`/`tEnd` given in the spec wins over the
+ * calibrated ones passed in `t`.
+ *
+ * @param spec - the user's schedule
+ * @param t - calibrated start and end temperatures (cost units) and the move budget
+ * @returns the resolved schedule
+ * @throws RangeError on a parameter outside its range (alpha in (0,1), movesPerLevel >= 1,
+ *   steps >= 1, beta > 0, temperatures > 0)
+ * @example resolveCooling({ kind: "geometric", alpha: 0.94, movesPerLevel: 100 }, { t0: 50, tEnd: 1, budgetMoves: 1e4 })
+ * // => { kind: "geometric", t0: 50, alpha: 0.94, movesPerLevel: 100 }
+ */
+export function resolveCooling(
+  spec: CoolingSpec,
+  t: { readonly t0: number; readonly tEnd: number; readonly budgetMoves: number },
+): ResolvedCooling {
+  const t0 = spec.t0 ?? t.t0;
+  if (!(t0 > 0)) throw new RangeError(`t0 must be > 0, got ${t0}`);
+  switch (spec.kind) {
+    case "geometric":
+      if (!(spec.alpha > 0 && spec.alpha < 1)) throw new RangeError(`alpha must be in (0, 1), got ${spec.alpha}`);
+      if (!(spec.movesPerLevel >= 1)) throw new RangeError(`movesPerLevel must be >= 1, got ${spec.movesPerLevel}`);
+      return { kind: "geometric", t0, alpha: spec.alpha, movesPerLevel: Math.floor(spec.movesPerLevel) };
+    case "linear": {
+      const tEnd = positive(spec.tEnd ?? t.tEnd, "tEnd");
+      if (!(spec.steps >= 1)) throw new RangeError(`steps must be >= 1, got ${spec.steps}`);
+      return { kind: "linear", t0, tEnd, steps: Math.floor(spec.steps) };
+    }
+    case "lundyMees":
+      if (!(spec.beta > 0)) throw new RangeError(`beta must be > 0, got ${spec.beta}`);
+      return { kind: "lundyMees", t0, beta: spec.beta };
+    case "timeFraction":
+      return { kind: "timeFraction", t0, tEnd: positive(spec.tEnd ?? t.tEnd, "tEnd") };
+  }
+}
+
+/**
+ * Temperature after `moves` moves, a fraction `fraction` (0..1) of the way through the run.
+ * Every schedule is a closed form, so a run, a preview and a test agree exactly:
+ * - geometric: T = t0 * alpha^floor(moves / L) (Kirkpatrick et al. 1983);
+ * - linear steps: T falls from t0 to tEnd in `steps` equal levels over the run (level = floor(f * steps));
+ * - Lundy-Mees: T_k = T_{k-1} / (1 + beta T_{k-1}), i.e. T = t0 / (1 + beta t0 moves)
+ *   (Lundy & Mees 1986, "Convergence of an annealing algorithm", Math. Programming 34:111);
+ * - time fraction: T = t0 (tEnd / t0)^f.
+ *
+ * @param cooling - a resolved schedule
+ * @param moves - moves made so far (>= 0)
+ * @param fraction - share of the budget used, clipped to 0..1
+ * @returns the temperature (cost units, > 0)
+ * @example temperatureAt({ kind: "timeFraction", t0: 100, tEnd: 1 }, 0, 0.5) // => 10
+ */
+export function temperatureAt(cooling: ResolvedCooling, moves: number, fraction: number): number {
+  const f = fraction <= 0 ? 0 : fraction >= 1 ? 1 : fraction;
+  switch (cooling.kind) {
+    case "geometric":
+      return cooling.t0 * Math.pow(cooling.alpha, Math.floor(moves / cooling.movesPerLevel));
+    case "linear": {
+      if (cooling.steps === 1) return cooling.t0;
+      const level = Math.min(cooling.steps - 1, Math.floor(f * cooling.steps));
+      return cooling.t0 + ((cooling.tEnd - cooling.t0) * level) / (cooling.steps - 1);
+    }
+    case "lundyMees":
+      return cooling.t0 / (1 + cooling.beta * cooling.t0 * moves);
+    case "timeFraction":
+      return cooling.t0 * Math.pow(cooling.tEnd / cooling.t0, f);
+  }
+}
+
+/**
+ * The geometric factor that takes t0 to tEnd in `budgetMoves` moves at `movesPerLevel` per level,
+ * for the "calibrate" choice of a geometric schedule.
+ *
+ * @example alphaToReach(100, 1, 100, 10_000) // => 0.9550 (100 levels)
+ */
+export function alphaToReach(t0: number, tEnd: number, movesPerLevel: number, budgetMoves: number): number {
+  const levels = Math.max(1, Math.floor(budgetMoves / movesPerLevel));
+  return Math.pow(tEnd / t0, 1 / levels);
+}
+
+/**
+ * The Lundy-Mees beta that takes t0 to tEnd in `budgetMoves` moves: beta = (t0 - tEnd) / (n t0 tEnd).
+ *
+ * @example betaToReach(100, 1, 99) // => 0.01
+ */
+export function betaToReach(t0: number, tEnd: number, budgetMoves: number): number {
+  return (t0 - tEnd) / (Math.max(1, budgetMoves) * t0 * tEnd);
+}
+
+function positive(value: number, name: string): number {
+  if (!(value > 0)) throw new RangeError(`${name} must be > 0, got ${value}`);
+  return value;
+}
