@@ -1,0 +1,207 @@
+import ExcelJS from "exceljs";
+import type { RouteChart, SheetGrid } from "../../sheets/grid.js";
+import type { SheetRead, WorkbookPort } from "../WorkbookPort.js";
+import { rawCellValue } from "./rawCellValue.js";
+import { writeGrid } from "./writeGrid.js";
+
+/**
+ * Name of the very hidden sheet that holds the add-in's key/value settings in a file.
+ * Excel's own per-add-in store (`workbook.settings`) is not reachable from a file library,
+ * so files carry the same keys as `Key | Value` rows on a sheet users cannot unhide from
+ * the Excel UI ("veryHidden", ECMA-376 Part 1, 18.18.68 ST_SheetState).
+ */
+export const SETTINGS_SHEET = "kiln-settings";
+
+/** Excel's longest cell text (Excel specifications and limits: 32,767 characters). */
+const MAX_CELL_TEXT = 32_767;
+
+/**
+ * A `WorkbookPort` over an .xlsx file held in memory, through exceljs. It takes and gives
+ * bytes (no file system), so the CLI and the standalone page share it.
+ *
+ * exceljs cannot write charts: `addSheet` writes the grid and records the sheet in
+ * `skippedCharts` instead of drawing the route chart (the Excel adapter draws it).
+ *
+ * @example
+ * const book = await ExcelJsWorkbook.fromBuffer(bytes);
+ * const stops = await book.readSheet("Stops"); // { sheet: "Stops", row: 0, col: 0, values: [...] }
+ * const out = await book.toBuffer();
+ */
+export class ExcelJsWorkbook implements WorkbookPort {
+  /** Sheets whose route chart was not drawn because exceljs cannot write charts. */
+  readonly skippedCharts: string[] = [];
+
+  private constructor(private readonly book: ExcelJS.Workbook) {}
+
+  /**
+   * Open an .xlsx file from its bytes.
+   *
+   * @param data - the file's content
+   * @returns the workbook
+   * @throws TypeError when `data` is not bytes; exceljs' error when the bytes are not an .xlsx file
+   * @example const book = await ExcelJsWorkbook.fromBuffer(await readFile("plan.xlsx"));
+   */
+  static async fromBuffer(data: ArrayBuffer | Uint8Array): Promise<ExcelJsWorkbook> {
+    if (!(data instanceof ArrayBuffer) && !(data instanceof Uint8Array)) {
+      throw new TypeError("data must be an ArrayBuffer or Uint8Array");
+    }
+    const book = new ExcelJS.Workbook();
+    // exceljs accepts an ArrayBuffer in both Node and the browser (JSZip reads it).
+    const bytes = data instanceof Uint8Array ? toArrayBuffer(data) : data;
+    await book.xlsx.load(bytes);
+    return new ExcelJsWorkbook(book);
+  }
+
+  /**
+   * A new workbook from plain tables, one sheet each (for CSV input).
+   *
+   * @param sheets - sheet names and their rows; values are strings, numbers, booleans, or empty (null/undefined/"")
+   * @returns the workbook
+   * @throws RangeError on an invalid or repeated sheet name; TypeError on a value of another type
+   * @example ExcelJsWorkbook.fromGrids([{ name: "Stops", values: [["Stop", "Latitude"], ["S1", 52.1]] }])
+   */
+  static fromGrids(sheets: readonly { readonly name: string; readonly values: readonly (readonly unknown[])[] }[]): ExcelJsWorkbook {
+    const result = new ExcelJsWorkbook(new ExcelJS.Workbook());
+    for (const sheet of sheets) {
+      const ws = result.newSheet(sheet.name);
+      sheet.values.forEach((row, r) => {
+        row.forEach((value, c) => {
+          if (value === null || value === undefined || value === "") return;
+          if (typeof value !== "string" && typeof value !== "number" && typeof value !== "boolean") {
+            throw new TypeError(`sheets["${sheet.name}"].values[${r}][${c}] must be a string, number or boolean`);
+          }
+          ws.getCell(r + 1, c + 1).value = value;
+        });
+      });
+    }
+    return result;
+  }
+
+  /**
+   * The workbook as .xlsx bytes.
+   *
+   * @returns the file's content
+   * @example await writeFile("out.xlsx", await book.toBuffer());
+   */
+  async toBuffer(): Promise<Uint8Array> {
+    const out = await this.book.xlsx.writeBuffer();
+    return new Uint8Array(out as ArrayBuffer);
+  }
+
+  /** Pin the file's created/modified dates (for reproducible files such as the demo). */
+  setDocumentDates(created: Date, modified: Date = created): void {
+    this.book.created = created;
+    this.book.modified = modified;
+  }
+
+  async listSheets(): Promise<string[]> {
+    return this.book.worksheets.map((ws) => ws.name);
+  }
+
+  async readSheet(name: string): Promise<SheetRead | undefined> {
+    const ws = this.findSheet(name);
+    if (!ws) return undefined;
+    let top = Infinity, left = Infinity, bottom = -1, right = -1;
+    ws.eachRow({ includeEmpty: false }, (row, r) => {
+      row.eachCell({ includeEmpty: false }, (cell, c) => {
+        if (rawCellValue(cell.value) === "") return;
+        top = Math.min(top, r);
+        bottom = Math.max(bottom, r);
+        left = Math.min(left, c);
+        right = Math.max(right, c);
+      });
+    });
+    if (bottom < 0) return { sheet: ws.name, row: 0, col: 0, values: [] };
+    const values: (number | string | boolean)[][] = [];
+    for (let r = top; r <= bottom; r++) {
+      const row = ws.getRow(r);
+      const line: (number | string | boolean)[] = [];
+      for (let c = left; c <= right; c++) line.push(rawCellValue(row.getCell(c).value));
+      values.push(line);
+    }
+    return { sheet: ws.name, row: top - 1, col: left - 1, values };
+  }
+
+  async addSheet(name: string, grid: SheetGrid, chart?: RouteChart): Promise<void> {
+    const ws = this.newSheet(name);
+    writeGrid(ws, grid, 1);
+    if (chart) this.skippedCharts.push(ws.name);
+  }
+
+  async appendRows(name: string, header: SheetGrid, rows: SheetGrid): Promise<void> {
+    let ws = this.findSheet(name);
+    if (!ws) {
+      ws = this.newSheet(name);
+      writeGrid(ws, header, 1);
+    }
+    writeGrid(ws, rows, lastUsedRow(ws) + 1, { layout: false });
+  }
+
+  async readSettings(): Promise<Record<string, string>> {
+    const ws = this.findSheet(SETTINGS_SHEET);
+    const settings: Record<string, string> = {};
+    if (!ws) return settings;
+    ws.eachRow({ includeEmpty: false }, (row, r) => {
+      if (r === 1) return; // header
+      const key = rawCellValue(row.getCell(1).value);
+      if (key === "") return;
+      settings[String(key)] = String(rawCellValue(row.getCell(2).value));
+    });
+    return settings;
+  }
+
+  async writeSetting(key: string, value: string): Promise<void> {
+    if (typeof key !== "string" || key === "") throw new TypeError("key must be a non-empty string");
+    if (typeof value !== "string") throw new TypeError("value must be a string");
+    if (value.length > MAX_CELL_TEXT) throw new RangeError(`value must be at most ${MAX_CELL_TEXT} characters, got ${value.length}`);
+    let ws = this.findSheet(SETTINGS_SHEET);
+    if (!ws) {
+      ws = this.newSheet(SETTINGS_SHEET);
+      ws.state = "veryHidden";
+      writeGrid(ws, { values: [["Key", "Value"]], boldRows: [0] }, 1);
+    }
+    let target = lastUsedRow(ws) + 1;
+    ws.eachRow({ includeEmpty: false }, (row, r) => {
+      if (r > 1 && rawCellValue(row.getCell(1).value) === key) target = r;
+    });
+    // Text format so a value such as "=1" or "0012" comes back exactly as written.
+    writeGrid(ws, { values: [[key, value]], numberFormats: [["@", "@"]] }, target, { layout: false });
+  }
+
+  private findSheet(name: string): ExcelJS.Worksheet | undefined {
+    const wanted = name.toLowerCase();
+    return this.book.worksheets.find((ws) => ws.name.toLowerCase() === wanted);
+  }
+
+  private newSheet(name: string): ExcelJS.Worksheet {
+    checkSheetName(name);
+    if (this.findSheet(name)) throw new RangeError(`name "${name}" is already a sheet of this workbook (see uniqueSheetName)`);
+    return this.book.addWorksheet(name);
+  }
+}
+
+/** Excel's sheet-name rules: 1..31 characters, none of : \ / ? * [ ], not starting or ending with '. */
+function checkSheetName(name: string): void {
+  if (typeof name !== "string" || name.length < 1 || name.length > 31) {
+    throw new RangeError(`name must be 1..31 characters, got "${String(name)}"`);
+  }
+  if (/[:\\/?*[\]]/.test(name) || name.startsWith("'") || name.endsWith("'")) {
+    throw new RangeError(`name "${name}" contains a character Excel forbids in sheet names`);
+  }
+}
+
+function lastUsedRow(ws: ExcelJS.Worksheet): number {
+  let last = 0;
+  ws.eachRow({ includeEmpty: false }, (row, r) => {
+    row.eachCell({ includeEmpty: false }, (cell) => {
+      if (rawCellValue(cell.value) !== "") last = Math.max(last, r);
+    });
+  });
+  return last;
+}
+
+function toArrayBuffer(bytes: Uint8Array): ArrayBuffer {
+  const copy = new Uint8Array(bytes.byteLength);
+  copy.set(bytes);
+  return copy.buffer;
+}
