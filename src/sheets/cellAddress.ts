@@ -1,0 +1,34 @@
+/**
+ * The column letters of a 0-based column index, as Excel names columns (A..Z, AA..ZZ, AAA..).
+ *
+ * @param col0 - 0-based column index (0 = "A")
+ * @returns the column letters
+ * @throws RangeError when `col0` is not a non-negative integer
+ * @example columnLetter(26) // => "AA"
+ */
+export function columnLetter(col0: number): string {
+  if (!Number.isInteger(col0) || col0 < 0) throw new RangeError(`col0 must be an integer >= 0, got ${col0}`);
+  // Bijective base 26: there is no zero digit, so shift by one at every place.
+  let n = col0 + 1;
+  let letters = "";
+  while (n > 0) {
+    const rem = (n - 1) % 26;
+    letters = String.fromCharCode(65 + rem) + letters;
+    n = Math.floor((n - 1) / 26);
+  }
+  return letters;
+}
+
+/**
+ * The A1-style address of a cell from 0-based row and column indexes.
+ *
+ * @param row0 - 0-based row index (0 = row 1)
+ * @param col0 - 0-based column index (0 = column A)
+ * @returns the address, e.g. "E7"
+ * @throws RangeError when an index is not a non-negative integer
+ * @example cellAddress(6, 4) // => "E7"
+ */
+export function cellAddress(row0: number, col0: number): string {
+  if (!Number.isInteger(row0) || row0 < 0) throw new RangeError(`row0 must be an integer >= 0, got ${row0}`);
+  return `${columnLetter(col0)}${row0 + 1}`;
+}
