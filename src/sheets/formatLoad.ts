@@ -11,10 +11,10 @@ import { safeText } from "./safeText.js";
  * @param dimensions - names of the load dimensions (same length)
  * @returns a number, a safe text, or null
  * @throws RangeError when the lengths differ
- * @example loadCell([120, 8], ["kg", "crates"]) // => "120 kg / 8 crates"
- * @example loadCell([120], ["kg"]) // => 120
+ * @example formatLoad([120, 8], ["kg", "crates"]) // => "120 kg / 8 crates"
+ * @example formatLoad([120], ["kg"]) // => 120
  */
-export function loadCell(load: readonly number[], dimensions: readonly string[]): CellValue {
+export function formatLoad(load: readonly number[], dimensions: readonly string[]): CellValue {
   if (load.length !== dimensions.length) {
     throw new RangeError(`loadCell: load has ${load.length} values for ${dimensions.length} dimensions`);
   }

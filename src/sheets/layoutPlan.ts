@@ -1,0 +1,152 @@
+import type { Plan, Problem } from "../core/model.js";
+import { CAUTION_TEXT } from "./caution.js";
+import { columnWidths } from "./columnWidths.js";
+import { formatCooling, formatRule } from "./formatCooling.js";
+import type { CellBlock, CellValue, RouteChart, SheetGrid } from "./grid.js";
+import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
+import type { RunRecord } from "./PlanSettings.js";
+import type { StopRow } from "./ReadResult.js";
+import { LATITUDE_COL, LONGITUDE_COL, routeTableRows, type FormattedRow } from "./routeTableRows.js";
+import { safeText } from "./safeText.js";
+
+/** A scenario sheet as data: the grid, the route chart and where the route table sits. */
+export interface PlanLayout {
+  readonly grid: SheetGrid;
+  readonly chart: RouteChart;
+  /** The route table: header row plus one row per stop and depot. */
+  readonly routeTable: CellBlock;
+}
+
+/** Input of `layoutPlan`. */
+export interface LayoutPlanInput {
+  readonly problem: Problem;
+  readonly plan: Plan;
+  readonly run: RunRecord;
+  /** Where each stop came from, with its carried-through columns (e.g. Phone). */
+  readonly stopRows?: readonly StopRow[];
+  /** Headers of the carried-through columns, in sheet order. */
+  readonly extraHeaders?: readonly string[];
+}
+
+/** Labels of the settings block (one label row, one value row). */
+export const SETTINGS_LABELS = [
+  "Scenario", "Created", "Seed", "Cooling schedule", "Acceptance rule", "Moves", "Run seconds",
+  "Stops source", "Fleet source", "Detour factor", "Speed km/h", "Windows",
+] as const;
+
+/** Labels of the totals block. */
+export const TOTALS_LABELS = [
+  "Vehicles used", "Km", "Driving hours", "Duty hours", "Waiting hours", "Late min", "Cost", "Unassigned",
+] as const;
+
+/** Header of the unassigned table. */
+export const UNASSIGNED_HEADER = ["Stop", "Name", "Reason"] as const;
+
+/**
+ * Lay out a scenario sheet (DESIGN.md §5), top to bottom: a title, the caution line, the
+ * settings block, the totals block, the route table and the unassigned table.
+ *
+ * The two blocks are written across (a bold label row over a value row) rather than down,
+ * so the route-table header lands on row 7 and `freezeRows = 7` keeps title, caution,
+ * totals and column headers in view while the dispatcher scrolls the stops; Excel freezes
+ * from the top of the sheet, so stacked blocks would freeze 20+ rows and leave little room.
+ *
+ * Times are Excel day fractions (`hh:mm`, past midnight > 1), durations `[h]:mm`, km rounded
+ * to 0.1 (`0.0`), created as a date-time serial (`yyyy-mm-dd hh:mm`). Every user text goes
+ * through `safeText` and gets the text format `@` (ids such as "3-4" would otherwise also
+ * turn into dates). The chart has one XY series per used vehicle over its Longitude (x) and
+ * Latitude (y) cells, depot rows included so the loop closes, anchored right of the table.
+ *
+ * @param input - problem, plan, run record, and optionally the stop rows and extra headers
+ * @returns the grid, the chart spec and the route-table block
+ * @throws TypeError when problem, plan or run is missing; RangeError when the plan refers
+ *   to a vehicle, stop or location the problem lacks
+ * @example layoutPlan({ problem, plan, run }).grid.values[6][0] // => "Vehicle"
+ */
+export function layoutPlan(input: LayoutPlanInput): PlanLayout {
+  const { problem, plan, run } = input ?? ({} as LayoutPlanInput);
+  if (!problem || !plan || !run) throw new TypeError("layoutPlan: input.problem, input.plan and input.run are required");
+  const table = routeTableRows(problem, plan, input.stopRows ?? [], input.extraHeaders ?? []);
+  const width = Math.max(table.header.length, SETTINGS_LABELS.length, TOTALS_LABELS.length);
+
+  const rows: FormattedRow[] = [];
+  const bold: number[] = [];
+  const add = (row: FormattedRow, isBold = false): number => {
+    if (isBold) bold.push(rows.length);
+    rows.push(row);
+    return rows.length - 1;
+  };
+  const titleRow = add(textRow([`Kiln plan: ${run.scenario}`]), true);
+  const cautionRow = add(textRow([CAUTION_TEXT]));
+  add(textRow(SETTINGS_LABELS), true);
+  add(settingsValues(run));
+  add(textRow(TOTALS_LABELS), true);
+  add(totalsValues(plan));
+  const headerRow = add(textRow(table.header), true);
+  for (const r of table.rows) add(r);
+  add(textRow([]));
+  add(textRow(UNASSIGNED_HEADER), true);
+  for (const u of plan.unassigned) {
+    const stop = problem.stops[u.stop];
+    if (!stop) throw new RangeError(`layoutPlan: unassigned stop ${u.stop} is outside the problem`);
+    add(textRow([safeText(stop.id), safeText(stop.name), safeText(u.reason)]));
+  }
+
+  const values = rows.map((r) => pad(r.values, width, null));
+  const numberFormats = rows.map((r) => pad(r.formats, width, null));
+  const first = headerRow + 1;
+  const series = table.routes.map((r) => ({
+    name: r.name,
+    x: { row: first + r.first, col: LONGITUDE_COL, rows: r.count, cols: 1 },
+    y: { row: first + r.first, col: LATITUDE_COL, rows: r.count, cols: 1 },
+  }));
+  const routeTable: CellBlock = { row: headerRow, col: 0, rows: 1 + table.rows.length, cols: table.header.length };
+  return {
+    grid: {
+      values,
+      numberFormats,
+      columnWidths: columnWidths(values, numberFormats, [titleRow, cautionRow]),
+      freezeRows: headerRow + 1,
+      boldRows: bold,
+    },
+    chart: {
+      title: `Routes: ${run.scenario} (longitude, latitude)`,
+      series,
+      anchor: { row: headerRow, col: routeTable.col + routeTable.cols + 1 },
+    },
+    routeTable,
+  };
+}
+
+function settingsValues(run: RunRecord): FormattedRow {
+  const s = run.settings;
+  return cellRow([
+    [safeText(run.scenario), F.text], [run.createdSerial, F.dateTime], [s.seed, null],
+    [formatCooling(s.cooling), F.text], [formatRule(s.rule), F.text], [run.moves, F.integer],
+    [roundTo(run.runSeconds, 1), F.minutes], [safeText(run.stopsSource), F.text], [safeText(run.fleetSource), F.text],
+    [s.detourFactor, F.factor], [s.speedKmh, null],
+    [s.hardWindows ? "hard" : `soft, ${s.lateCostPerMin} per min late`, F.text],
+  ]);
+}
+
+function totalsValues(plan: Plan): FormattedRow {
+  const t = plan.totals;
+  return cellRow([
+    [t.vehiclesUsed, F.integer], [roundTo(t.distanceKm, 1), F.km], [dayFraction(t.drivingMin), F.duration],
+    [dayFraction(t.dutyMin), F.duration], [dayFraction(t.waitMin), F.duration], [roundTo(t.lateMin, 1), F.minutes],
+    [roundTo(t.cost, 2), F.money], [t.unassigned, F.integer],
+  ]);
+}
+
+/** A row of text cells, all marked `@`; user text in it was made safe by the caller. */
+function textRow(texts: readonly string[]): FormattedRow {
+  return { values: [...texts], formats: texts.map(() => F.text) };
+}
+
+function cellRow(cells: readonly (readonly [CellValue, string | null])[]): FormattedRow {
+  return { values: cells.map((c) => c[0]), formats: cells.map((c) => c[1]) };
+}
+
+function pad<T>(row: readonly T[], width: number, fill: T): T[] {
+  return [...row, ...new Array<T>(Math.max(0, width - row.length)).fill(fill)];
+}
