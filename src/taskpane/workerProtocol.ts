@@ -1,0 +1,235 @@
+/**
+ * The messages between the pane and its solver Web Worker, and the engine host that answers
+ * them. Pure: the worker file only wires `createEngineHost` to `postMessage`, a clock and a
+ * deferral, so the whole protocol runs (and is tested) in Node without a browser.
+ *
+ * A run is sliced: the host calls `solver.step(sliceMoves)`, then yields through `defer`, so a
+ * `stop` message that arrived meanwhile is seen before the next slice (the worker's event loop
+ * delivers it between two deferred callbacks).
+ */
+import type { Issue, Problem } from "../core/model.js";
+import type { AcceptanceRule, CoolingSpec, Progress, SolveOptions } from "../core/options.js";
+import { createSolver, type SolveResult, type Solver } from "../core/solve.js";
+import { validateProblem } from "../core/validateProblem.js";
+import { sampleMeanUphill } from "../core/anneal/sampleMeanUphill.js";
+import { profile, type ProfilePoint } from "../core/anneal/profile.js";
+import { describeProfile } from "../core/anneal/describeProfile.js";
+
+/** The solve options that cross the worker boundary (plain data: no clock, callback or signal). */
+export type WorkerSolveOptions = Partial<Omit<SolveOptions, "now" | "onProgress" | "signal">>;
+
+/** Messages from the pane to the worker. */
+export type ToWorker =
+  | { readonly type: "start"; readonly runId: number; readonly problem: Problem; readonly options: WorkerSolveOptions }
+  | { readonly type: "stop"; readonly runId: number }
+  | {
+      readonly type: "sample";
+      readonly requestId: number;
+      readonly problem: Problem;
+      readonly seed?: number | string;
+      readonly samples?: number;
+    }
+  | {
+      readonly type: "preview";
+      readonly requestId: number;
+      readonly cooling: CoolingSpec;
+      readonly rule: AcceptanceRule;
+      readonly meanUphill: number;
+      readonly budgetMoves: number;
+      readonly p0?: number;
+      readonly pEnd?: number;
+      readonly points?: number;
+    };
+
+/** Messages from the worker to the pane. */
+export type FromWorker =
+  | { readonly type: "progress"; readonly runId: number; readonly progress: Progress }
+  | { readonly type: "result"; readonly runId: number; readonly result: SolveResult; readonly stopped: boolean }
+  | { readonly type: "sampled"; readonly requestId: number; readonly meanUphill: number; readonly samples: number }
+  | {
+      readonly type: "previewed";
+      readonly requestId: number;
+      readonly points: readonly ProfilePoint[];
+      readonly reading: string;
+    }
+  | {
+      readonly type: "error";
+      /** The run or request the error belongs to; absent for an unreadable message. */
+      readonly runId?: number;
+      readonly requestId?: number;
+      readonly message: string;
+      /** Problem defects found by `validateProblem`; empty for other errors. */
+      readonly issues: readonly Issue[];
+    };
+
+/** What the engine host needs from its surroundings. */
+export interface EngineHostDeps {
+  /** Send a message to the pane. */
+  readonly post: (message: FromWorker) => void;
+  /** Milliseconds clock (the worker passes `performance.now`). */
+  readonly now: () => number;
+  /** Run `callback` later, after pending messages are handled (the worker passes `setTimeout(cb, 0)`). */
+  readonly defer: (callback: () => void) => void;
+  /** Moves per slice between two looks at the message queue (default 20 000). */
+  readonly sliceMoves?: number;
+  /** Least milliseconds between two progress messages (default 200). */
+  readonly progressEveryMs?: number;
+}
+
+/** The engine host: feed it every message the worker receives. */
+export interface EngineHost {
+  /** Handle one incoming message; never throws (failures come back as `error` messages). */
+  handle(message: unknown): void;
+  /** True while a run is going. */
+  readonly busy: boolean;
+}
+
+/**
+ * Create the engine host that answers `ToWorker` messages with `FromWorker` messages.
+ * One run at a time: a `start` while a run goes stops the old run first (its result is posted).
+ *
+ * @param deps - messaging, clock and deferral (see `EngineHostDeps`)
+ * @returns the host
+ * @throws TypeError when `deps.post`, `deps.now` or `deps.defer` is not a function
+ * @example
+ * const host = createEngineHost({ post: (m) => self.postMessage(m), now: () => performance.now(), defer: (cb) => setTimeout(cb, 0) });
+ * self.onmessage = (e) => host.handle(e.data);
+ */
+export function createEngineHost(deps: EngineHostDeps): EngineHost {
+  for (const key of ["post", "now", "defer"] as const) {
+    if (typeof deps[key] !== "function") throw new TypeError(`deps.${key} must be a function`);
+  }
+  const sliceMoves = Math.max(1, Math.floor(deps.sliceMoves ?? 20_000));
+  const progressEveryMs = deps.progressEveryMs ?? 200;
+  let run: { runId: number; solver: Solver; stopRequested: boolean; lastProgressMs: number } | undefined;
+
+  const post = (message: FromWorker): void => {
+    try {
+      deps.post(message);
+    } catch (err) {
+      // A message that cannot be cloned must not kill the worker loop.
+      console.error("kiln worker: could not post", message.type, err);
+    }
+  };
+  const fail = (ids: { runId?: number; requestId?: number }, err: unknown, issues: readonly Issue[] = []): void => {
+    post({ type: "error", ...ids, message: errorMessage(err), issues });
+  };
+
+  const finish = (stopped: boolean): void => {
+    const current = run;
+    if (!current) return;
+    run = undefined;
+    try {
+      post({ type: "result", runId: current.runId, result: current.solver.result(), stopped });
+    } catch (err) {
+      fail({ runId: current.runId }, err);
+    }
+  };
+
+  const slice = (runId: number): void => {
+    const current = run;
+    if (!current || current.runId !== runId) return;
+    if (current.stopRequested) return finish(true);
+    try {
+      const done = current.solver.step(sliceMoves);
+      const nowMs = deps.now();
+      if (done || nowMs - current.lastProgressMs >= progressEveryMs) {
+        current.lastProgressMs = nowMs;
+        post({ type: "progress", runId, progress: { ...current.solver.progress } });
+      }
+      if (done) return finish(false);
+    } catch (err) {
+      run = undefined;
+      return fail({ runId }, err);
+    }
+    deps.defer(() => slice(runId));
+  };
+
+  const start = (msg: Extract<ToWorker, { type: "start" }>): void => {
+    if (run) finish(true);
+    const issues = safeValidate(msg.problem);
+    if (issues.length > 0) {
+      return fail({ runId: msg.runId }, `The problem has ${issues.length} defect(s); nothing was solved.`, issues);
+    }
+    let solver: Solver;
+    try {
+      solver = createSolver(msg.problem, { ...msg.options, now: deps.now });
+    } catch (err) {
+      return fail({ runId: msg.runId }, err);
+    }
+    run = { runId: msg.runId, solver, stopRequested: false, lastProgressMs: -Infinity };
+    deps.defer(() => slice(msg.runId));
+  };
+
+  const handle = (message: unknown): void => {
+    const msg = message as ToWorker | undefined;
+    const ids = idsOf(message);
+    try {
+      switch (msg?.type) {
+        case "start":
+          return start(msg);
+        case "stop":
+          if (run && run.runId === msg.runId) run.stopRequested = true;
+          return;
+        case "sample": {
+          const issues = safeValidate(msg.problem);
+          if (issues.length > 0) return fail(ids, "The problem has defects; nothing was sampled.", issues);
+          const sampled = sampleMeanUphill(msg.problem, {
+            ...(msg.seed !== undefined ? { seed: msg.seed } : {}),
+            ...(msg.samples !== undefined ? { samples: msg.samples } : {}),
+          });
+          return post({ type: "sampled", requestId: msg.requestId, ...sampled });
+        }
+        case "preview": {
+          const points = profile(msg.cooling, msg.rule, msg.meanUphill, msg.budgetMoves, {
+            ...(msg.p0 !== undefined ? { p0: msg.p0 } : {}),
+            ...(msg.pEnd !== undefined ? { pEnd: msg.pEnd } : {}),
+            ...(msg.points !== undefined ? { points: msg.points } : {}),
+          });
+          return post({ type: "previewed", requestId: msg.requestId, points, reading: describeProfile(points, msg.rule) });
+        }
+        default:
+          return fail(ids, `Unknown message ${JSON.stringify(typeOf(message))}: expected start, stop, sample or preview.`);
+      }
+    } catch (err) {
+      fail(ids, err);
+    }
+  };
+
+  return {
+    handle,
+    get busy() {
+      return run !== undefined;
+    },
+  };
+}
+
+function safeValidate(problem: unknown): Issue[] {
+  if (problem === null || typeof problem !== "object") {
+    return [{ sheet: "problem", cell: "", message: "No problem was sent: expected a Problem object." }];
+  }
+  try {
+    return validateProblem(problem as Problem);
+  } catch (err) {
+    return [{ sheet: "problem", cell: "", message: errorMessage(err) }];
+  }
+}
+
+function typeOf(message: unknown): unknown {
+  return message !== null && typeof message === "object" ? (message as { type?: unknown }).type ?? null : null;
+}
+
+function idsOf(message: unknown): { runId?: number; requestId?: number } {
+  if (message === null || typeof message !== "object") return {};
+  const m = message as { runId?: unknown; requestId?: unknown };
+  return {
+    ...(typeof m.runId === "number" ? { runId: m.runId } : {}),
+    ...(typeof m.requestId === "number" ? { requestId: m.requestId } : {}),
+  };
+}
+
+function errorMessage(err: unknown): string {
+  if (typeof err === "string") return err;
+  if (err instanceof Error) return err.message;
+  return String(err);
+}
