@@ -150,3 +150,21 @@ describe("ExcelJsWorkbook writing", () => {
     expect((await again.readSheet("Stops"))!.values).toEqual([["Stop", "Lat"], ["S1", 52.5], ["=x", ""]]);
   });
 });
+
+describe("ExcelJsWorkbook.setDocumentDates", () => {
+  it("gives equal bytes for equal content, and the file still opens in exceljs", async () => {
+    const make = async (): Promise<Uint8Array> => {
+      const book = ExcelJsWorkbook.fromGrids([{ name: "Stops", values: [["Stop"], ["S1"]] }]);
+      book.setDocumentDates(new Date(Date.UTC(2026, 0, 5, 18)));
+      return book.toBuffer();
+    };
+    const a = await make();
+    await new Promise((r) => setTimeout(r, 2100)); // DOS times step by 2 s: make sure the clock moved on
+    const b = await make();
+    expect(Buffer.from(a).equals(Buffer.from(b))).toBe(true);
+    const fresh = new ExcelJS.Workbook();
+    await fresh.xlsx.load(a.buffer.slice(a.byteOffset, a.byteOffset + a.byteLength) as ArrayBuffer);
+    expect(fresh.getWorksheet("Stops")!.getCell("A2").value).toBe("S1");
+    expect(fresh.created.toISOString()).toBe("2026-01-05T18:00:00.000Z");
+  });
+});

@@ -1,6 +1,7 @@
 import ExcelJS from "exceljs";
 import type { RouteChart, SheetGrid } from "../../sheets/grid.js";
 import type { SheetRead, WorkbookPort } from "../WorkbookPort.js";
+import { pinZipDates } from "./pinZipDates.js";
 import { rawCellValue } from "./rawCellValue.js";
 import { writeGrid } from "./writeGrid.js";
 
@@ -30,6 +31,7 @@ const MAX_CELL_TEXT = 32_767;
 export class ExcelJsWorkbook implements WorkbookPort {
   /** Sheets whose route chart was not drawn because exceljs cannot write charts. */
   readonly skippedCharts: string[] = [];
+  private pinnedDate: Date | undefined;
 
   private constructor(private readonly book: ExcelJS.Workbook) {}
 
@@ -78,20 +80,30 @@ export class ExcelJsWorkbook implements WorkbookPort {
   }
 
   /**
-   * The workbook as .xlsx bytes.
+   * The workbook as .xlsx bytes. After `setDocumentDates`, the archive's entry times are
+   * pinned to the modified date too, so equal content gives equal bytes.
    *
    * @returns the file's content
    * @example await writeFile("out.xlsx", await book.toBuffer());
    */
   async toBuffer(): Promise<Uint8Array> {
     const out = await this.book.xlsx.writeBuffer();
-    return new Uint8Array(out as ArrayBuffer);
+    const bytes = new Uint8Array(out as ArrayBuffer);
+    return this.pinnedDate ? pinZipDates(bytes, this.pinnedDate) : bytes;
   }
 
-  /** Pin the file's created/modified dates (for reproducible files such as the demo). */
+  /**
+   * Fix the file's created/modified dates (document properties and ZIP entry times), for
+   * reproducible files such as the demo.
+   *
+   * @param created - creation date-time (UTC)
+   * @param modified - last-modified date-time (UTC), default `created`
+   * @example book.setDocumentDates(new Date(Date.UTC(2026, 0, 5)));
+   */
   setDocumentDates(created: Date, modified: Date = created): void {
     this.book.created = created;
     this.book.modified = modified;
+    this.pinnedDate = modified;
   }
 
   async listSheets(): Promise<string[]> {
