@@ -1,0 +1,264 @@
+/**
+ * Offline checks of manifest.xml (`office-addin-manifest validate` posts to an online
+ * service, so it cannot run here). Sources of the rules:
+ * - XML 1.0 (W3C Recommendation, 5th ed.): well-formedness (§2.1, §3.1 tag balance and
+ *   unique attributes, §4.1 character and entity references, §2.5 comments) and
+ *   Namespaces in XML 1.0 (W3C): every prefix used is declared.
+ * - The Office add-in manifest schema as summarised in ../shared/OFFICE-NOTES.md: element
+ *   order of OfficeApp, Hosts/Workbook, ReadWriteDocument, VersionOverrides V1_0,
+ *   ShowTaskpane, icon sizes 16/32/80, short strings <= 125 and long strings <= 250 chars.
+ * - RFC 4122 (GUID text form 8-4-4-4-12 hex digits).
+ * - PNG specification (W3C 2003) §11.2.2: IHDR is the first chunk; width and height are
+ *   big-endian 32-bit integers at byte offsets 16 and 20 of the file.
+ */
+import { describe, expect, it } from "vitest";
+import { existsSync, readFileSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+
+const ROOT = fileURLToPath(new URL("../../", import.meta.url));
+const MANIFEST_TEXT = readFileSync(`${ROOT}manifest.xml`, "utf8");
+
+interface XmlElement {
+  readonly name: string;
+  readonly attrs: ReadonlyMap<string, string>;
+  readonly children: XmlElement[];
+  text: string;
+}
+
+describe("strict XML well-formedness check (XML 1.0, W3C) rejects what it must", () => {
+  const bad: [string, string][] = [
+    ["unclosed element", "<a><b></a>"],
+    ["mismatched end tag", "<a></b>"],
+    ["unquoted attribute", "<a x=1/>"],
+    ["duplicate attribute", '<a x="1" x="2"/>'],
+    ["unknown entity", "<a>&nbsp;</a>"],
+    ["bare ampersand", "<a>fish & chips</a>"],
+    ["< inside an attribute value", '<a x="<"/>'],
+    ["two root elements", "<a/><b/>"],
+    ["text after the root", "<a/>text"],
+    ["undeclared namespace prefix", "<a><bt:b/></a>"],
+    ["double hyphen inside a comment", "<a><!-- x -- y --></a>"],
+  ];
+  for (const [why, xml] of bad) {
+    it(`rejects ${why}`, () => expect(() => parseXml(xml)).toThrow());
+  }
+  it("accepts entities, character references, comments and a declaration", () => {
+    const root = parseXml('<?xml version="1.0"?><!-- c --><a xmlns:p="urn:x" v="&lt;&#65;&#x42;"><p:b>&amp;</p:b></a>');
+    expect(root.attrs.get("v")).toBe("<AB");
+    expect(root.children[0]?.text).toBe("&");
+  });
+});
+
+describe("manifest.xml (Office add-in manifest rules, OFFICE-NOTES.md)", () => {
+  const root = parseXml(MANIFEST_TEXT);
+  const all = flatten(root);
+  const child = (el: XmlElement, name: string): XmlElement | undefined => el.children.find((c) => c.name === name);
+
+  it("is a TaskPaneApp OfficeApp in the 1.1 namespace", () => {
+    expect(root.name).toBe("OfficeApp");
+    expect(root.attrs.get("xmlns")).toBe("http://schemas.microsoft.com/office/appforoffice/1.1");
+    expect(root.attrs.get("xsi:type")).toBe("TaskPaneApp");
+  });
+
+  it("has the required top-level elements in the enforced order", () => {
+    const order = ["Id", "AlternateID", "Version", "ProviderName", "DefaultLocale", "DisplayName", "Description",
+      "IconUrl", "HighResolutionIconUrl", "SupportUrl", "AppDomains", "Hosts", "Requirements", "DefaultSettings",
+      "Permissions", "VersionOverrides"];
+    const names = root.children.map((c) => c.name);
+    for (const n of names) expect(order, `unexpected element ${n}`).toContain(n);
+    const ranks = names.map((n) => order.indexOf(n));
+    expect(ranks).toEqual([...ranks].sort((a, b) => a - b));
+    for (const required of order.filter((n) => n !== "AlternateID")) expect(names).toContain(required);
+  });
+
+  it("has an RFC 4122 GUID as Id that is not all zeros, and version 1.0.0.0", () => {
+    const id = child(root, "Id")?.text.trim() ?? "";
+    expect(id).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i);
+    expect(id.replace(/[-0]/g, "")).not.toBe("");
+    expect(child(root, "Version")?.text.trim()).toBe("1.0.0.0");
+  });
+
+  it("names the provider and the add-in, within the length limits", () => {
+    expect(child(root, "ProviderName")?.text.trim()).toBe("Kiln Route Planner contributors");
+    expect(child(root, "DisplayName")?.attrs.get("DefaultValue")).toBe("Kiln Route Planner");
+    expect((child(root, "DisplayName")?.attrs.get("DefaultValue") ?? "").length).toBeLessThanOrEqual(125);
+    const description = child(root, "Description")?.attrs.get("DefaultValue") ?? "";
+    expect(description.length).toBeGreaterThan(0);
+    expect(description.length).toBeLessThanOrEqual(250);
+  });
+
+  it("targets workbooks, asks for ExcelApi 1.4 and read/write document access", () => {
+    const host = child(child(root, "Hosts")!, "Host");
+    expect(host?.attrs.get("Name")).toBe("Workbook");
+    const set = flatten(child(root, "Requirements")!).find((e) => e.name === "Set");
+    expect(set?.attrs.get("Name")).toBe("ExcelApi");
+    expect(set?.attrs.get("MinVersion")).toBe("1.4");
+    expect(child(root, "Permissions")?.text.trim()).toBe("ReadWriteDocument");
+    expect(child(child(root, "DefaultSettings")!, "SourceLocation")?.attrs.get("DefaultValue"))
+      .toBe("https://localhost:3000/taskpane.html");
+  });
+
+  it("uses HTTPS for every URL", () => {
+    const urls: string[] = [];
+    for (const el of all) {
+      for (const [k, v] of el.attrs) if (/^[a-z]+:\/\//i.test(v) && !k.startsWith("xmlns")) urls.push(v);
+      if (/^[a-z]+:\/\//i.test(el.text.trim())) urls.push(el.text.trim());
+    }
+    expect(urls.length).toBeGreaterThan(5);
+    for (const u of urls) expect(u, u).toMatch(/^https:\/\//);
+  });
+
+  it("has VersionOverrides V1_0 with a ShowTaskpane button in a Home-tab group", () => {
+    const vo = child(root, "VersionOverrides")!;
+    expect(vo.attrs.get("xsi:type")).toBe("VersionOverridesV1_0");
+    const tab = flatten(vo).find((e) => e.name === "OfficeTab");
+    expect(tab?.attrs.get("id")).toBe("TabHome");
+    const button = flatten(tab!).find((e) => e.name === "Control");
+    expect(button?.attrs.get("xsi:type")).toBe("Button");
+    expect(flatten(button!).find((e) => e.name === "Action")?.attrs.get("xsi:type")).toBe("ShowTaskpane");
+  });
+
+  it("defines every referenced resid exactly once in Resources, each within its length limit", () => {
+    const resources = child(child(root, "VersionOverrides")!, "Resources")!;
+    const defined = new Map<string, { kind: string; value: string }>();
+    for (const group of resources.children) {
+      for (const item of group.children) {
+        const id = item.attrs.get("id") ?? "";
+        expect(defined.has(id), `duplicate id ${id}`).toBe(false);
+        defined.set(id, { kind: group.name, value: item.attrs.get("DefaultValue") ?? "" });
+      }
+    }
+    const referenced = all.map((e) => e.attrs.get("resid")).filter((r): r is string => r !== undefined);
+    expect(referenced.length).toBeGreaterThan(5);
+    for (const r of referenced) expect(defined.has(r), `resid ${r} is not defined`).toBe(true);
+    for (const [id, { kind, value }] of defined) {
+      expect(value.length, id).toBeGreaterThan(0);
+      if (kind === "bt:ShortStrings") expect(value.length, id).toBeLessThanOrEqual(125);
+      if (kind === "bt:LongStrings") expect(value.length, id).toBeLessThanOrEqual(250);
+    }
+  });
+
+  it("references icon files that exist in assets/ at the declared pixel sizes (PNG IHDR)", () => {
+    const resources = child(child(root, "VersionOverrides")!, "Resources")!;
+    const images = new Map(child(resources, "bt:Images")!.children.map((i) => [i.attrs.get("id") ?? "", i.attrs.get("DefaultValue") ?? ""]));
+    const wanted: [string, number][] = [
+      [child(root, "IconUrl")!.attrs.get("DefaultValue")!, 32],
+      [child(root, "HighResolutionIconUrl")!.attrs.get("DefaultValue")!, 64],
+    ];
+    for (const img of all.filter((e) => e.name === "bt:Image" && e.attrs.has("resid"))) {
+      wanted.push([images.get(img.attrs.get("resid")!)!, Number(img.attrs.get("size"))]);
+    }
+    expect(new Set(wanted.map(([, s]) => s))).toEqual(new Set([16, 32, 64, 80]));
+    for (const [url, size] of wanted) {
+      const path = new URL(url).pathname;
+      expect(path).toMatch(/^\/assets\/[\w.-]+\.png$/);
+      const file = `${ROOT}${path.slice(1)}`;
+      expect(existsSync(file), file).toBe(true);
+      expect(pngSize(readFileSync(file)), path).toEqual({ width: size, height: size });
+    }
+  });
+});
+
+function flatten(el: XmlElement): XmlElement[] {
+  return [el, ...el.children.flatMap(flatten)];
+}
+
+function pngSize(bytes: Buffer): { width: number; height: number } {
+  const signature = [137, 80, 78, 71, 13, 10, 26, 10];
+  if (!signature.every((b, i) => bytes[i] === b)) throw new Error("not a PNG file");
+  if (bytes.toString("latin1", 12, 16) !== "IHDR") throw new Error("IHDR is not the first chunk");
+  return { width: bytes.readUInt32BE(16), height: bytes.readUInt32BE(20) };
+}
+
+const NAME = /^[A-Za-z_][\w.:-]*/;
+const PREDEFINED: Record<string, string> = { lt: "<", gt: ">", amp: "&", quot: '"', apos: "'" };
+
+/** A small strict XML 1.0 parser: throws on any well-formedness error it knows of. */
+function parseXml(xml: string): XmlElement {
+  let i = 0;
+  const stack: { el: XmlElement; prefixes: Set<string> }[] = [];
+  let root: XmlElement | undefined;
+  const fail = (why: string): never => { throw new Error(`XML error at offset ${i}: ${why}`); };
+  if (xml.startsWith("<?xml")) {
+    const end = xml.indexOf("?>");
+    if (end < 0) fail("unterminated XML declaration");
+    i = end + 2;
+  }
+  while (i < xml.length) {
+    if (xml.startsWith("<!--", i)) {
+      const end = xml.indexOf("-->", i + 4);
+      if (end < 0) fail("unterminated comment");
+      if (xml.slice(i + 4, end).includes("--")) fail("'--' inside a comment");
+      i = end + 3;
+    } else if (xml.startsWith("<![CDATA[", i)) {
+      if (stack.length === 0) fail("CDATA outside the root element");
+      const end = xml.indexOf("]]>", i);
+      if (end < 0) fail("unterminated CDATA");
+      stack[stack.length - 1]!.el.text += xml.slice(i + 9, end);
+      i = end + 3;
+    } else if (xml.startsWith("<?", i) || xml.startsWith("<!", i)) {
+      fail("processing instruction or declaration not allowed here");
+    } else if (xml.startsWith("</", i)) {
+      const m = NAME.exec(xml.slice(i + 2));
+      if (!m) fail("bad end tag");
+      const close = xml.indexOf(">", i);
+      if (close < 0 || xml.slice(i + 2 + m![0].length, close).trim() !== "") fail("bad end tag");
+      const open = stack.pop();
+      if (!open || open.el.name !== m![0]) fail(`end tag </${m![0]}> does not match <${open?.el.name ?? ""}>`);
+      i = close + 1;
+    } else if (xml[i] === "<") {
+      if (root && stack.length === 0) fail("second root element");
+      const m = NAME.exec(xml.slice(i + 1));
+      if (!m) fail("bad start tag");
+      i += 1 + m![0].length;
+      const attrs = new Map<string, string>();
+      for (;;) {
+        const ws = /^\s*/.exec(xml.slice(i))![0];
+        i += ws.length;
+        if (xml.startsWith("/>", i) || xml[i] === ">") break;
+        if (ws.length === 0) fail("attributes must be separated by white space");
+        const a = /^([A-Za-z_][\w.:-]*)\s*=\s*(["'])/.exec(xml.slice(i));
+        if (!a) fail("attribute without a quoted value");
+        i += a![0].length;
+        const end = xml.indexOf(a![2]!, i);
+        if (end < 0) fail("unterminated attribute value");
+        const raw = xml.slice(i, end);
+        if (raw.includes("<")) fail("'<' in an attribute value");
+        if (attrs.has(a![1]!)) fail(`duplicate attribute ${a![1]}`);
+        attrs.set(a![1]!, decode(raw, fail));
+        i = end + 1;
+      }
+      const prefixes = new Set(stack.length ? stack[stack.length - 1]!.prefixes : ["xml"]);
+      for (const k of attrs.keys()) if (k.startsWith("xmlns:")) prefixes.add(k.slice(6));
+      for (const n of [m![0], ...attrs.keys()]) {
+        const p = n.includes(":") ? n.slice(0, n.indexOf(":")) : undefined;
+        if (p !== undefined && p !== "xmlns" && !prefixes.has(p)) fail(`undeclared prefix ${p}`);
+      }
+      const el: XmlElement = { name: m![0], attrs, children: [], text: "" };
+      if (stack.length) stack[stack.length - 1]!.el.children.push(el);
+      else root = el;
+      if (xml.startsWith("/>", i)) i += 2;
+      else { i += 1; stack.push({ el, prefixes }); }
+    } else {
+      const next = xml.indexOf("<", i);
+      const raw = xml.slice(i, next < 0 ? xml.length : next);
+      if (stack.length === 0) {
+        if (raw.trim() !== "") fail("text outside the root element");
+      } else stack[stack.length - 1]!.el.text += decode(raw, fail);
+      i += raw.length;
+    }
+  }
+  if (stack.length) fail(`unclosed element <${stack[stack.length - 1]!.el.name}>`);
+  if (!root) fail("no root element");
+  return root!;
+}
+
+function decode(raw: string, fail: (why: string) => never): string {
+  return raw.replace(/&([^;\s&<]*)(;?)/g, (_, ref: string, semi: string) => {
+    if (semi !== ";") fail(`bare '&' or unterminated reference &${ref}`);
+    if (ref in PREDEFINED) return PREDEFINED[ref]!;
+    const num = /^#(?:x([0-9a-fA-F]+)|([0-9]+))$/.exec(ref);
+    if (!num) fail(`unknown entity &${ref};`);
+    return String.fromCodePoint(num![1] ? parseInt(num![1], 16) : Number(num![2]));
+  });
+}
