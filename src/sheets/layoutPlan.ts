@@ -71,6 +71,7 @@ export function layoutPlan(input: LayoutPlanInput): PlanLayout {
 
   const rows: FormattedRow[] = [];
   const bold: number[] = [];
+  const reasonRows: number[] = [];
   const add = (row: FormattedRow, isBold = false): number => {
     if (isBold) bold.push(rows.length);
     rows.push(row);
@@ -89,7 +90,7 @@ export function layoutPlan(input: LayoutPlanInput): PlanLayout {
   for (const u of plan.unassigned) {
     const stop = problem.stops[u.stop];
     if (!stop) throw new RangeError(`layoutPlan: unassigned stop ${u.stop} is outside the problem`);
-    add(textRow([safeText(stop.id), safeText(stop.name), safeText(u.reason)]));
+    reasonRows.push(add(textRow([safeText(stop.id), safeText(stop.name), safeText(u.reason)])));
   }
 
   const values = rows.map((r) => pad(r.values, width, null));
@@ -105,7 +106,7 @@ export function layoutPlan(input: LayoutPlanInput): PlanLayout {
     grid: {
       values,
       numberFormats,
-      columnWidths: columnWidths(values, numberFormats, [titleRow, cautionRow]),
+      columnWidths: columnWidths(withoutReasons(values, reasonRows), numberFormats, [titleRow, cautionRow]),
       freezeRows: headerRow + 1,
       boldRows: bold,
     },
@@ -149,4 +150,9 @@ function cellRow(cells: readonly (readonly [CellValue, string | null])[]): Forma
 
 function pad<T>(row: readonly T[], width: number, fill: T): T[] {
   return [...row, ...new Array<T>(Math.max(0, width - row.length)).fill(fill)];
+}
+
+/** Reasons are long sentences with empty cells to their right to spill into: they must not widen the Stop column. */
+function withoutReasons(values: readonly (readonly CellValue[])[], reasonRows: readonly number[]): CellValue[][] {
+  return values.map((row, r) => (reasonRows.includes(r) ? row.map((v, c) => (c === 2 ? null : v)) : [...row]));
 }
