@@ -1,0 +1,332 @@
+import type { RouteChart, SheetGrid } from "../../sheets/grid.js";
+import type { SheetRead, WorkbookPort } from "../WorkbookPort.js";
+import { OfficeActionError, isItemNotFound } from "./OfficeActionError.js";
+import { geographyFromCell, type GeographyCell } from "./geographyFromCell.js";
+import { planGridWrite } from "./planGridWrite.js";
+import { queueGridWrite } from "./queueGridWrite.js";
+import { queueRouteChart } from "./queueRouteChart.js";
+import { blockContains, parseRangeAddress } from "./rangeAddress.js";
+
+/** Options of `ExcelWorkbook`. */
+export interface ExcelWorkbookOptions {
+  /** Cells per sync above which writes are split into row chunks (default 20 000). */
+  readonly chunkCells?: number;
+  /** Told, in a sentence for the pane, when a feature is skipped because this Excel lacks it. */
+  readonly onNotice?: (message: string) => void;
+}
+
+/** Which optional features this Excel supports (requirement sets, OFFICE-NOTES.md). */
+export interface ExcelCapabilities {
+  /** Chart series from ranges, ExcelApi 1.7. */
+  readonly charts: boolean;
+  /** `freezePanes`, ExcelApi 1.7. */
+  readonly freezePanes: boolean;
+  /** `range.getTables`, ExcelApi 1.9. */
+  readonly tables: boolean;
+  /** `valuesAsJson` (Geography linked entities), ExcelApi 1.16. */
+  readonly geography: boolean;
+}
+
+/** The selected block, or the whole Excel table it lies in. */
+export interface SelectionRead {
+  readonly read: SheetRead;
+  /** Sheet-qualified address as Excel reports it, e.g. "Stops!A1:J81". */
+  readonly address: string;
+  /** Set when the selection lay inside an Excel table and the whole table was read. */
+  readonly tableName?: string;
+}
+
+/** Coordinates found in Geography cells, or why none could be read. */
+export type GeographyRead =
+  | { readonly available: false; readonly reason: string }
+  | {
+      readonly available: true;
+      readonly sheet: string;
+      /** 0-based row and column of `cells[0][0]`. */
+      readonly row: number;
+      readonly col: number;
+      readonly cells: readonly (readonly GeographyCell[])[];
+    };
+
+/**
+ * `WorkbookPort` over Office.js, the only code that touches the `Excel` and `Office` globals.
+ * Follows STYLE.md §8: one `Excel.run` per call, only the properties read are loaded, one
+ * sync per read and one per write (plus one per row chunk above `chunkCells`). It writes
+ * only to sheets it creates, and to the end of the Compare sheet in `appendRows`.
+ *
+ * @example
+ * const book = new ExcelWorkbook({ onNotice: (m) => pane.note(m) });
+ * const stops = await book.readSheet("Stops"); // { sheet: "Stops", row: 0, col: 0, values: [...] }
+ */
+export class ExcelWorkbook implements WorkbookPort {
+  readonly #chunkCells: number | undefined;
+  readonly #notice: (message: string) => void;
+
+  /** @param options - chunk threshold and the notice callback */
+  constructor(options: ExcelWorkbookOptions = {}) {
+    this.#chunkCells = options.chunkCells;
+    this.#notice = options.onNotice ?? (() => undefined);
+  }
+
+  /** Optional features of the running Excel; all false outside Office. */
+  capabilities(): ExcelCapabilities {
+    const has = (version: string): boolean =>
+      typeof Office !== "undefined" && Office.context?.requirements?.isSetSupported("ExcelApi", version) === true;
+    return { charts: has("1.7"), freezePanes: has("1.7"), tables: has("1.9"), geography: has("1.16") };
+  }
+
+  /** Sheet names in tab order. @throws OfficeActionError when Excel fails */
+  async listSheets(): Promise<string[]> {
+    return this.#run("list the sheets", async (context) => {
+      const sheets = context.workbook.worksheets;
+      sheets.load("items/name");
+      await context.sync();
+      return sheets.items.map((s) => s.name);
+    });
+  }
+
+  /** The used range of `name` (values only), or `undefined` when no such sheet exists. */
+  async readSheet(name: string): Promise<SheetRead | undefined> {
+    return this.#run(`read the sheet "${name}"`, async (context) => {
+      const used = await readUsedRange(context, name, "isNullObject, values, rowIndex, columnIndex");
+      if (used === undefined) return undefined;
+      if (used.isNullObject) return { sheet: name, row: 0, col: 0, values: [] };
+      return { sheet: name, row: used.rowIndex, col: used.columnIndex, values: used.values };
+    });
+  }
+
+  /**
+   * Adds the sheet `name` and writes `grid` at A1, then the route chart when Excel has
+   * ExcelApi 1.7 (otherwise a notice). If a write fails the half-written sheet is deleted.
+   * @throws RangeError when `name` breaks Excel's sheet-name rules
+   * @throws OfficeActionError when the name is taken or Excel fails
+   */
+  async addSheet(name: string, grid: SheetGrid, chart?: RouteChart): Promise<void> {
+    checkSheetName(name);
+    const plan = planGridWrite(grid, { chunkCells: this.#chunkCells });
+    const caps = this.capabilities();
+    await this.#run(`add the sheet "${name}"`, async (context) => {
+      const existing = context.workbook.worksheets.getItemOrNullObject(name);
+      existing.load("isNullObject");
+      await context.sync();
+      if (!existing.isNullObject) throw new Error(`a sheet named "${name}" already exists; choose a free name`);
+      await this.#writeNewSheet(context, name, async (sheet) => {
+        await queueGridWrite(context, sheet, plan, { freeze: caps.freezePanes });
+        if (chart && chart.series.length > 0) {
+          if (caps.charts) queueRouteChart(sheet, chart);
+          else this.#notice(`The route chart on "${name}" was skipped: it needs Excel with ExcelApi 1.7 or later.`);
+        }
+      });
+      if (!caps.freezePanes && plan.freezeRows > 0) this.#notice(`Header rows of "${name}" are not frozen: that needs ExcelApi 1.7.`);
+    });
+  }
+
+  /**
+   * Appends `rows` below the last used row of `name`; creates the sheet with `header` first
+   * when it does not exist (and writes `header` first when the sheet is empty).
+   * @throws OfficeActionError when Excel fails
+   */
+  async appendRows(name: string, header: SheetGrid, rows: SheetGrid): Promise<void> {
+    checkSheetName(name);
+    const caps = this.capabilities();
+    await this.#run(`append rows to the sheet "${name}"`, async (context) => {
+      const used = await readUsedRange(context, name, "isNullObject, rowIndex, rowCount");
+      const start = used === undefined || used.isNullObject ? 0 : used.rowIndex + used.rowCount;
+      const headerPlan = start === 0 ? planGridWrite(header, { chunkCells: this.#chunkCells }) : undefined;
+      const rowsPlan = planGridWrite(rows, { startRow: start + (headerPlan?.rows ?? 0), chunkCells: this.#chunkCells });
+      const write = async (sheet: Excel.Worksheet): Promise<void> => {
+        if (headerPlan) await queueGridWrite(context, sheet, headerPlan, { freeze: caps.freezePanes && used === undefined });
+        await queueGridWrite(context, sheet, rowsPlan, { freeze: false });
+      };
+      if (used === undefined) await this.#writeNewSheet(context, name, write);
+      else {
+        await write(context.workbook.worksheets.getItem(name));
+        await context.sync();
+      }
+    });
+  }
+
+  /** The add-in's settings of this workbook (`workbook.settings`, ExcelApi 1.4), as text. */
+  async readSettings(): Promise<Record<string, string>> {
+    return this.#run("read the add-in settings", async (context) => {
+      const settings = context.workbook.settings;
+      settings.load("items");
+      await context.sync();
+      const out: Record<string, string> = {};
+      for (const item of settings.items) out[item.key] = typeof item.value === "string" ? item.value : JSON.stringify(item.value);
+      return out;
+    });
+  }
+
+  /** Stores (adds or replaces) one setting. @throws TypeError when `key` is empty */
+  async writeSetting(key: string, value: string): Promise<void> {
+    if (typeof key !== "string" || key === "") throw new TypeError("key must be a non-empty string");
+    if (typeof value !== "string") throw new TypeError("value must be a string");
+    await this.#run(`store the setting "${key}"`, async (context) => {
+      context.workbook.settings.add(key, value);
+      await context.sync();
+    });
+  }
+
+  /**
+   * Reads the selected block, or the whole Excel table it lies inside (ExcelApi 1.9;
+   * without it, the plain selection). Two syncs only when a table is involved.
+   * @throws OfficeActionError when several blocks are selected or Excel fails
+   */
+  async readSelection(): Promise<SelectionRead> {
+    const caps = this.capabilities();
+    return this.#run("read the selection (select one block of cells)", async (context) => {
+      const range = context.workbook.getSelectedRange();
+      range.load("address, values, rowIndex, columnIndex");
+      const sheet = range.worksheet;
+      sheet.load("name");
+      const tables = caps.tables ? range.getTables(false) : undefined;
+      tables?.load("items/name");
+      await context.sync();
+      const selection = toRead(sheet.name, range);
+      const table = tables?.items[0];
+      if (table) {
+        const whole = table.getRange();
+        whole.load("address, values, rowIndex, columnIndex");
+        await context.sync();
+        const tableRead = toRead(sheet.name, whole);
+        if (blockContains(blockOf(tableRead), blockOf(selection))) {
+          return { read: tableRead, address: whole.address, tableName: table.name };
+        }
+      }
+      return { read: selection, address: range.address };
+    });
+  }
+
+  /**
+   * Reads a sheet-qualified range such as "Stops!A1:J81".
+   * @throws RangeError when `address` is not sheet-qualified A1 style
+   * @throws OfficeActionError when the sheet does not exist or Excel fails
+   */
+  async readRange(address: string): Promise<SheetRead> {
+    const parsed = parseRangeAddress(address);
+    if (!parsed) throw new RangeError(`address must look like "Stops!A1:J81", got "${address}"`);
+    return this.#run(`read ${address}`, async (context) => {
+      const range = context.workbook.worksheets.getItem(parsed.sheet).getRange(parsed.range);
+      range.load("values, rowIndex, columnIndex");
+      await context.sync();
+      return toRead(parsed.sheet, range);
+    });
+  }
+
+  /**
+   * Reads Geography (linked entity) cells of `address` through `valuesAsJson` (ExcelApi 1.16)
+   * and returns their latitude/longitude where the entity exposes them.
+   * @throws RangeError when `address` is not sheet-qualified A1 style
+   */
+  async readGeography(address: string): Promise<GeographyRead> {
+    const parsed = parseRangeAddress(address);
+    if (!parsed) throw new RangeError(`address must look like "Stops!C2:C81", got "${address}"`);
+    if (!this.capabilities().geography) {
+      return { available: false, reason: "Geography cells need Excel with ExcelApi 1.16 (Microsoft 365); type latitude and longitude into two columns instead." };
+    }
+    return this.#run(`read the Geography cells of ${address}`, async (context) => {
+      const range = context.workbook.worksheets.getItem(parsed.sheet).getRange(parsed.range);
+      range.load("valuesAsJson, rowIndex, columnIndex");
+      await context.sync();
+      const cells = range.valuesAsJson.map((row) => row.map((cell) => geographyFromCell(cell)));
+      return { available: true, sheet: parsed.sheet, row: range.rowIndex, col: range.columnIndex, cells };
+    });
+  }
+
+  /**
+   * Activates `sheet` and selects `cell` (for clickable issue addresses); an empty `cell`
+   * only activates the sheet.
+   * @throws RangeError when `cell` is not an A1 cell or range address
+   */
+  async selectCell(sheet: string, cell: string): Promise<void> {
+    if (cell !== "" && !/^[A-Z]{1,3}[0-9]{1,7}(:[A-Z]{1,3}[0-9]{1,7})?$/i.test(cell)) {
+      throw new RangeError(`cell must be an A1 address such as "E7", got "${cell}"`);
+    }
+    await this.#run(`select ${sheet}!${cell}`, async (context) => {
+      const ws = context.workbook.worksheets.getItem(sheet);
+      ws.activate();
+      if (cell !== "") ws.getRange(cell).select();
+      await context.sync();
+    });
+  }
+
+  /** Name of the active worksheet. */
+  async activeSheetName(): Promise<string> {
+    return this.#run("find the active sheet", async (context) => {
+      const ws = context.workbook.worksheets.getActiveWorksheet();
+      ws.load("name");
+      await context.sync();
+      return ws.name;
+    });
+  }
+
+  /** Adds `name`, runs `write`, syncs; on failure deletes the sheet again in a new batch. */
+  async #writeNewSheet(context: Excel.RequestContext, name: string, write: (sheet: Excel.Worksheet) => Promise<void>): Promise<void> {
+    try {
+      await write(context.workbook.worksheets.add(name));
+      await context.sync();
+    } catch (error) {
+      const removed = await deleteSheetIfPresent(context, name);
+      throw new OfficeActionError(
+        `write the sheet "${name}" (${removed ? "the half-written sheet was removed" : "remove the half-written sheet by hand"})`,
+        error,
+      );
+    }
+  }
+
+  async #run<T>(action: string, batch: (context: Excel.RequestContext) => Promise<T>): Promise<T> {
+    try {
+      return await Excel.run(batch);
+    } catch (error) {
+      if (error instanceof OfficeActionError || error instanceof RangeError || error instanceof TypeError) throw error;
+      throw new OfficeActionError(action, error);
+    }
+  }
+}
+
+/** Loads the used range of a sheet in one sync; `undefined` when the sheet does not exist. */
+async function readUsedRange(context: Excel.RequestContext, name: string, properties: string): Promise<Excel.Range | undefined> {
+  const used = context.workbook.worksheets.getItem(name).getUsedRangeOrNullObject(true);
+  used.load(properties);
+  try {
+    await context.sync();
+  } catch (error) {
+    if (isItemNotFound(error)) return undefined;
+    throw error;
+  }
+  return used;
+}
+
+async function deleteSheetIfPresent(context: Excel.RequestContext, name: string): Promise<boolean> {
+  try {
+    const sheet = context.workbook.worksheets.getItemOrNullObject(name);
+    sheet.load("isNullObject");
+    await context.sync();
+    if (!sheet.isNullObject) {
+      sheet.delete();
+      await context.sync();
+    }
+    return true;
+  } catch {
+    return false; // the original failure is the one to report
+  }
+}
+
+function toRead(sheet: string, range: Excel.Range): SheetRead {
+  return { sheet, row: range.rowIndex, col: range.columnIndex, values: range.values };
+}
+
+function blockOf(read: SheetRead): { row: number; col: number; rows: number; cols: number } {
+  return { row: read.row, col: read.col, rows: read.values.length, cols: read.values[0]?.length ?? 0 };
+}
+
+/** Excel's sheet-name rules (not in the Office.js docs, OFFICE-NOTES.md): enforced here. */
+function checkSheetName(name: string): void {
+  if (typeof name !== "string" || name.length === 0 || name.length > 31) {
+    throw new RangeError(`name must be 1 to 31 characters, got "${String(name)}"`);
+  }
+  if (/[:\\/?*[\]]/.test(name) || name.startsWith("'") || name.endsWith("'")) {
+    throw new RangeError(`name "${name}" contains a character Excel forbids in sheet names (: \\ / ? * [ ] or a leading/trailing ')`);
+  }
+}
