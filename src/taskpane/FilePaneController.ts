@@ -1,0 +1,95 @@
+/**
+ * The pane outside Office (standalone page): open an .xlsx or .csv files, pick the stops and
+ * fleet sheets from drop-downs, optimize, write the plan into the in-memory workbook and
+ * download it. Nothing leaves the machine.
+ */
+import { SCENARIO_SETTINGS_PREFIX } from "../sheets/scenarioSettingsKey.js";
+import { ExcelJsWorkbook, SETTINGS_SHEET } from "../workbook/exceljs/ExcelJsWorkbook.js";
+import { findInputSheets } from "../workbook/findInputSheets.js";
+import { openWorkbookFiles } from "./openWorkbookFiles.js";
+import { PaneController } from "./PaneController.js";
+
+/** The standalone page's pane. */
+export class FilePaneController extends PaneController {
+  private book: ExcelJsWorkbook;
+  private downloadName = "kiln.plan.xlsx";
+  private downloadUrl: string | undefined;
+
+  constructor() {
+    const book = ExcelJsWorkbook.fromGrids([]);
+    super({ mode: "file", port: book });
+    this.book = book;
+  }
+
+  override init(): void {
+    super.init();
+    const d = this.dom;
+    d.fileSection.hidden = false;
+    d.stopsSummary.textContent = "Open a workbook file first.";
+    d.fleetSummary.textContent = "Open a workbook file first.";
+    d.fileInput.addEventListener("change", this.guard("Open file", () => this.open([...(d.fileInput.files ?? [])])));
+    d.stopsSheet.addEventListener("change", this.guard("Choose the stops sheet", () => this.pickSheets()));
+    d.fleetSheet.addEventListener("change", this.guard("Choose the fleet sheet", () => this.pickSheets()));
+  }
+
+  private async open(files: File[]): Promise<void> {
+    const d = this.dom;
+    const opened = await openWorkbookFiles(files);
+    if ("error" in opened) return this.showError(opened.error);
+    d.error.hidden = true;
+    this.book = opened.book;
+    this.downloadName = opened.downloadName;
+    d.fileName.textContent = opened.label;
+    await this.setSource({ mode: "file", port: opened.book });
+    const found = await findInputSheets(opened.book);
+    await this.fillSheetLists(found.stops, found.fleet);
+    await this.pickSheets();
+  }
+
+  /** Fill the drop-downs with the workbook's sheets, keeping or setting the chosen ones. */
+  private async fillSheetLists(stops?: string, fleet?: string): Promise<void> {
+    const d = this.dom;
+    const names = (await this.book.listSheets()).filter((n) => n !== SETTINGS_SHEET);
+    const settings = await this.book.readSettings();
+    const planSheets = names.filter((n) => settings[SCENARIO_SETTINGS_PREFIX + n] !== undefined);
+    const fill = (select: HTMLSelectElement, options: readonly string[], wanted: string | undefined, empty: string) => {
+      const keep = wanted ?? select.value;
+      select.replaceChildren(new Option(empty, ""), ...options.map((n) => new Option(n, n)));
+      select.value = options.includes(keep) ? keep : "";
+    };
+    fill(d.stopsSheet, names, stops, "— choose the stops sheet —");
+    fill(d.fleetSheet, names, fleet, "— choose the fleet sheet —");
+    fill(d.rerunSheet, planSheets, undefined, planSheets.length ? "— choose a plan sheet —" : "no plan sheets yet");
+  }
+
+  private async pickSheets(): Promise<void> {
+    const d = this.dom;
+    const read = async (name: string) => (name ? await this.book.readSheet(name) : undefined);
+    const stops = await read(d.stopsSheet.value);
+    const fleet = await read(d.fleetSheet.value);
+    this.stops = stops && this.picked(stops);
+    this.fleet = fleet && this.picked(fleet);
+    await this.refreshRead();
+  }
+
+  protected override async write(): Promise<{ sheetName: string } | undefined> {
+    const out = await super.write();
+    if (!out) return out;
+    const d = this.dom;
+    const bytes = await this.book.toBuffer();
+    if (this.downloadUrl) URL.revokeObjectURL(this.downloadUrl);
+    const blob = new Blob([bytes as BlobPart], { type: "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" });
+    this.downloadUrl = URL.createObjectURL(blob);
+    d.download.href = this.downloadUrl;
+    d.download.download = this.downloadName;
+    d.download.textContent = `Download ${this.downloadName}`;
+    d.download.hidden = false;
+    d.writeStatus.textContent += " Download the workbook to keep it.";
+    await this.fillSheetLists();
+    return out;
+  }
+
+  protected override async rerunSheet(): Promise<string | undefined> {
+    return this.dom.rerunSheet.value || undefined;
+  }
+}

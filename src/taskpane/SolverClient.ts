@@ -1,0 +1,114 @@
+/**
+ * The pane's side of the solver worker: starts runs, forwards stop, and turns sample requests
+ * into promises. Only plain data crosses (the Problem's typed arrays are structured-cloned).
+ */
+import type { Issue, Problem } from "../core/model.js";
+import type { Progress } from "../core/options.js";
+import type { SolveResult } from "../core/solve.js";
+import type { FromWorker, ToWorker, WorkerSolveOptions } from "./workerProtocol.js";
+
+/** Callbacks of one run. */
+export interface RunHandlers {
+  onProgress(progress: Progress): void;
+  onResult(result: SolveResult, stopped: boolean): void;
+  onError(message: string, issues: readonly Issue[]): void;
+}
+
+/** A failure reported by the worker, with the problem defects it found. */
+export class WorkerError extends Error {
+  constructor(message: string, readonly issues: readonly Issue[]) {
+    super(message);
+    this.name = "WorkerError";
+  }
+}
+
+/** Talks to one solver worker. */
+export class SolverClient {
+  private readonly worker: Worker;
+  private nextId = 1;
+  private run: { runId: number; handlers: RunHandlers } | undefined;
+  private readonly requests = new Map<number, { resolve: (m: FromWorker) => void; reject: (e: Error) => void }>();
+
+  constructor() {
+    this.worker = new Worker(new URL("./solverWorker.ts", import.meta.url));
+    this.worker.onmessage = (e: MessageEvent<FromWorker>) => this.receive(e.data);
+    this.worker.onerror = (e) => {
+      const message = `The solver worker failed: ${e.message || "unknown error"}`;
+      this.run?.handlers.onError(message, []);
+      this.run = undefined;
+      for (const r of this.requests.values()) r.reject(new Error(message));
+      this.requests.clear();
+    };
+  }
+
+  /** True while a run goes. */
+  get running(): boolean {
+    return this.run !== undefined;
+  }
+
+  /**
+   * Start a run (a run already going is stopped first; its result still arrives).
+   *
+   * @param problem - the problem to solve
+   * @param options - serialisable solve options (seed, budget, rule, cooling, p0, pEnd)
+   * @param handlers - progress, result and error callbacks
+   * @returns the run id
+   */
+  start(problem: Problem, options: WorkerSolveOptions, handlers: RunHandlers): number {
+    const runId = this.nextId++;
+    this.run = { runId, handlers };
+    this.post({ type: "start", runId, problem, options });
+    return runId;
+  }
+
+  /** Ask the running run to stop after its current slice; the best plan so far comes back as its result. */
+  stop(): void {
+    if (this.run) this.post({ type: "stop", runId: this.run.runId });
+  }
+
+  /**
+   * Sample the mean uphill cost change of random moves from the first plan (for calibration and the preview).
+   *
+   * @param problem - the problem
+   * @param seed - seed of the sampling
+   * @returns the mean uphill change (cost units) and the number of samples
+   * @throws WorkerError (as a rejected promise) when the problem has defects
+   */
+  sample(problem: Problem, seed: number | string): Promise<{ meanUphill: number; samples: number }> {
+    const requestId = this.nextId++;
+    return new Promise<FromWorker>((resolve, reject) => {
+      this.requests.set(requestId, { resolve, reject });
+      this.post({ type: "sample", requestId, problem, seed });
+    }).then((m) => {
+      if (m.type === "sampled") return { meanUphill: m.meanUphill, samples: m.samples };
+      if (m.type === "error") throw new WorkerError(m.message, m.issues);
+      throw new Error(`Unexpected reply ${m.type} to a sample request`);
+    });
+  }
+
+  private post(message: ToWorker): void {
+    this.worker.postMessage(message);
+  }
+
+  private receive(m: FromWorker): void {
+    if (m.type === "sampled" || m.type === "previewed" || (m.type === "error" && m.requestId !== undefined)) {
+      const id = m.requestId;
+      const pending = id !== undefined ? this.requests.get(id) : undefined;
+      if (pending && id !== undefined) {
+        this.requests.delete(id);
+        pending.resolve(m);
+      }
+      return;
+    }
+    const run = this.run;
+    if (!run || !("runId" in m) || m.runId !== run.runId) return;
+    if (m.type === "progress") run.handlers.onProgress(m.progress);
+    else if (m.type === "result") {
+      this.run = undefined;
+      run.handlers.onResult(m.result, m.stopped);
+    } else if (m.type === "error") {
+      this.run = undefined;
+      run.handlers.onError(m.message, m.issues);
+    }
+  }
+}

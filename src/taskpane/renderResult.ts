@@ -1,0 +1,64 @@
+/**
+ * The result's status line, totals and broken rules (the map is drawn by `RouteMap`).
+ */
+import type { Problem } from "../core/model.js";
+import type { SolveResult } from "../core/solve.js";
+import type { PaneDom } from "./paneDom.js";
+
+/**
+ * Show the totals of a run.
+ *
+ * @param dom - the pane's elements
+ * @param problem - the solved problem
+ * @param result - the run's result
+ * @param stopped - true when the user stopped the run early
+ * @example renderResult(dom, read.problem, result, false)
+ */
+export function renderResult(dom: PaneDom, problem: Problem, result: SolveResult, stopped: boolean): void {
+  const { plan, stats } = result;
+  const t = plan.totals;
+  const status = dom.resultStatus;
+  const how = stopped ? "Stopped early; best plan so far" : "Finished";
+  status.textContent = plan.feasible
+    ? `${how}: every rule kept (${stats.moves.toLocaleString("en")} moves).`
+    : `${how}: this plan breaks ${plan.violations.length} rule(s); see below.`;
+  status.className = plan.feasible ? "status ok" : "status bad";
+  status.dataset.feasible = String(plan.feasible);
+  const rows: [string, string][] = [
+    ["Vehicles", `${t.vehiclesUsed} of ${problem.vehicles.length}`],
+    ["Distance", `${t.distanceKm.toFixed(1)} km`],
+    ["Driving", hours(t.drivingMin)],
+    ["Duty", hours(t.dutyMin)],
+    ["Waiting", hours(t.waitMin)],
+    ["Late", `${Math.round(t.lateMin)} min`],
+    ["Cost", t.cost.toLocaleString("en", { maximumFractionDigits: 2 })],
+    ["Unserved", String(t.unassigned)],
+  ];
+  dom.totals.replaceChildren(
+    ...rows.flatMap(([k, v]) => {
+      const dt = document.createElement("dt");
+      dt.textContent = k;
+      const dd = document.createElement("dd");
+      dd.textContent = v;
+      return [dt, dd];
+    }),
+  );
+  dom.violations.replaceChildren(
+    ...plan.violations.map((v) => {
+      const li = document.createElement("li");
+      li.textContent = v;
+      return li;
+    }),
+    ...plan.unassigned.map((u) => {
+      const li = document.createElement("li");
+      li.className = "warning";
+      const stop = problem.stops[u.stop];
+      li.textContent = `${stop ? stop.name || stop.id : `stop ${u.stop}`} not served: ${u.reason}`;
+      return li;
+    }),
+  );
+}
+
+function hours(minutes: number): string {
+  return `${(minutes / 60).toFixed(1)} h`;
+}

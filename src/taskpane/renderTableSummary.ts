@@ -1,0 +1,75 @@
+/**
+ * The summary under a picked table: its address, the columns recognised and the row count,
+ * and the table's errors with clickable cell addresses.
+ */
+import type { Issue } from "../core/model.js";
+import type { ColumnMatch } from "../sheets/ReadResult.js";
+
+/**
+ * Show a table's summary and issues.
+ *
+ * @param summary - the summary element (replaced)
+ * @param list - the issues list (replaced)
+ * @param table - the address and data rows of the table, or undefined when none is picked
+ * @param columns - the columns the reader recognised
+ * @param issues - the errors (and, with `warning: true`, notes) about this table
+ * @param onCell - called with (sheet, cell) when an address is clicked; absent: addresses are plain text
+ * @example renderTableSummary(summaryEl, listEl, { address: "Stops!A1:J81", rows: 80 }, cols, [], undefined)
+ */
+export function renderTableSummary(
+  summary: HTMLElement,
+  list: HTMLElement,
+  table: { readonly address: string; readonly rows: number } | undefined,
+  columns: readonly ColumnMatch[],
+  issues: readonly (Issue & { readonly warning?: boolean })[],
+  onCell: ((sheet: string, cell: string) => void) | undefined,
+): void {
+  summary.replaceChildren();
+  list.replaceChildren();
+  if (!table) {
+    summary.textContent = "No range chosen yet.";
+    return;
+  }
+  const head = document.createElement("div");
+  const address = document.createElement("strong");
+  address.textContent = table.address;
+  head.append(address, ` · ${table.rows} data row${table.rows === 1 ? "" : "s"}`);
+  summary.append(head);
+  if (columns.length > 0) {
+    const cols = document.createElement("div");
+    cols.className = "cols";
+    for (const c of columns) {
+      const chip = document.createElement("span");
+      chip.className = c.field === "extra" ? "col extra" : "col";
+      chip.title = c.field === "extra" ? `${c.header}: carried through to the plan` : `${c.header} → ${c.field}`;
+      chip.textContent = `${c.column}: ${c.header}`;
+      cols.append(chip);
+    }
+    summary.append(cols);
+  }
+  for (const issue of issues) {
+    const item = document.createElement("li");
+    if (issue.warning) item.className = "warning";
+    if (issue.cell) {
+      const where = `${issue.sheet}!${issue.cell}`;
+      if (onCell && /^[A-Z]{1,3}[0-9]+$/.test(issue.cell)) {
+        const link = document.createElement("button");
+        link.type = "button";
+        link.className = "link cell";
+        link.textContent = where;
+        link.title = "Select this cell";
+        link.addEventListener("click", () => onCell(issue.sheet, issue.cell));
+        item.append(link);
+      } else {
+        const code = document.createElement("span");
+        code.className = "cell";
+        code.textContent = where;
+        item.append(code);
+      }
+    }
+    // Messages usually start with their own address; do not repeat it.
+    const prefix = `${issue.sheet}!${issue.cell}:`;
+    item.append(issue.message.startsWith(prefix) ? issue.message.slice(prefix.length).trimStart() : issue.message);
+    list.append(item);
+  }
+}
