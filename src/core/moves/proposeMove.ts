@@ -1,0 +1,292 @@
+import type { Random } from "../anneal/createRandom.js";
+import type { Neighbours } from "../neighbours/buildNeighbours.js";
+import { MAX_PIECES, RESULT_COUNT, RESULT_SIZE, type SearchState } from "./SearchState.js";
+
+/** The kinds of move the search draws. */
+export const MoveKind = {
+  relocateAfter: 0,
+  relocateBefore: 1,
+  swap: 2,
+  twoOpt: 3,
+  orOpt: 4,
+  insertFromPool: 5,
+  removeToPool: 6,
+  swapWithPool: 7,
+  openRoute: 8,
+} as const;
+
+/** A proposed move: the new content of one or two routes as pieces, and pool changes. */
+export class Move {
+  kind = 0;
+  vA = -1;
+  mA = 0;
+  readonly piecesA = new Int32Array(4 * MAX_PIECES);
+  vB = -1;
+  mB = 0;
+  readonly piecesB = new Int32Array(4 * MAX_PIECES);
+  /** Stop that leaves the pool (-1 none) and stop that enters it (-1 none). */
+  poolIn = -1;
+  poolOut = -1;
+  /** Change of the penalised total cost. */
+  delta = 0;
+  /** Change of the number of used vehicles. */
+  usedDelta = 0;
+}
+
+/**
+ * Draw one random move from the granular neighbourhood: a stop u at random, one of its
+ * k nearest partners v, then a move that relates u and v (relocate, swap, 2-opt, 2-opt*,
+ * or-opt of 2-3 stops, optionally reversed; pool moves; opening an empty route), and
+ * compute its cost change without touching the routes.
+ *
+ * @param state - current solution
+ * @param nb - neighbour lists
+ * @param rng - the run's generator
+ * @param mv - filled in
+ * @returns false when the drawn combination is not a valid move (nothing to evaluate)
+ * @example if (proposeMove(state, nb, rng, mv) && mv.delta < 0) applyMove(state, mv)
+ */
+export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv: Move, active?: Int32Array): boolean {
+  const cp = state.cp;
+  const u = active ? active[rng.int(active.length)]! : rng.int(cp.n);
+  if (state.routeOf[u]! < -1) return false;
+  const v = nb.list[u * nb.k + rng.int(nb.k)]!;
+  if (v < 0) return false;
+  mv.poolIn = -1;
+  mv.poolOut = -1;
+  mv.vB = -1;
+  mv.mB = 0;
+  const ru = state.routeOf[u]!;
+  const rv = state.routeOf[v]!;
+  const A = mv.piecesA;
+  const B = mv.piecesB;
+  const V = cp.vehicleCount;
+  if (ru < 0) {
+    if (rv < 0) return false;
+    // Insert u from the pool next to v.
+    if (!cp.compatible[u * V + rv]) return false;
+    const q = state.posOf[v]!;
+    const len = state.routes[rv]!.len;
+    const after = rng.next() < 0.5;
+    const cut = after ? q : q - 1;
+    let m = 0;
+    m = piece(A, m, rv, 1, cut, 0);
+    m = single(A, m, u);
+    m = piece(A, m, rv, cut + 1, len, 0);
+    mv.kind = MoveKind.insertFromPool;
+    mv.vA = rv;
+    mv.mA = m;
+    mv.poolIn = u;
+    return finish(state, mv);
+  }
+  const p = state.posOf[u]!;
+  const ra = state.routes[ru]!;
+  const a = ra.len;
+  const roll = rng.next();
+  if (cp.optional[u] && roll < 0.05) {
+    let m = piece(A, 0, ru, 1, p - 1, 0);
+    if (rv === -1) {
+      // Serve v instead of u.
+      if (!cp.compatible[v * V + ru]) return false;
+      m = single(A, m, v);
+      mv.kind = MoveKind.swapWithPool;
+      mv.poolIn = v;
+    } else {
+      mv.kind = MoveKind.removeToPool;
+    }
+    mv.vA = ru;
+    mv.mA = piece(A, m, ru, p + 1, a, 0);
+    mv.poolOut = u;
+    return finish(state, mv);
+  }
+  if (roll < 0.07 && state.used < V) {
+    // Open an empty route with u.
+    const w = rng.int(V);
+    if (state.routes[w]!.len !== 0 || !cp.compatible[u * V + w]) return false;
+    let m = piece(A, 0, ru, 1, p - 1, 0);
+    m = piece(A, m, ru, p + 1, a, 0);
+    mv.kind = MoveKind.openRoute;
+    mv.vA = ru;
+    mv.mA = m;
+    mv.vB = w;
+    mv.mB = piece(B, 0, ru, p, p, 0);
+    return finish(state, mv);
+  }
+  if (rv < 0) return false;
+  const q = state.posOf[v]!;
+  const rb = state.routes[rv]!;
+  const b = rb.len;
+  const kind = rng.int(5);
+  mv.kind = kind;
+  if (ru !== rv) {
+    mv.vA = ru;
+    mv.vB = rv;
+    switch (kind) {
+      case MoveKind.relocateAfter:
+      case MoveKind.relocateBefore: {
+        if (!cp.compatible[u * V + rv]) return false;
+        const cut = kind === MoveKind.relocateAfter ? q : q - 1;
+        mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), ru, p + 1, a, 0);
+        let m = piece(B, 0, rv, 1, cut, 0);
+        m = piece(B, m, ru, p, p, 0);
+        mv.mB = piece(B, m, rv, cut + 1, b, 0);
+        break;
+      }
+      case MoveKind.swap: {
+        if (!cp.compatible[u * V + rv] || !cp.compatible[v * V + ru]) return false;
+        let m = piece(A, 0, ru, 1, p - 1, 0);
+        m = piece(A, m, rv, q, q, 0);
+        mv.mA = piece(A, m, ru, p + 1, a, 0);
+        m = piece(B, 0, rv, 1, q - 1, 0);
+        m = piece(B, m, ru, p, p, 0);
+        mv.mB = piece(B, m, rv, q + 1, b, 0);
+        break;
+      }
+      case MoveKind.twoOpt: {
+        // 2-opt*: exchange tails so that u is followed by v (or v by u).
+        if (rng.next() < 0.5) {
+          if (!fits(state, rv, q, b, ru) || !fits(state, ru, p + 1, a, rv)) return false;
+          mv.mA = piece(A, piece(A, 0, ru, 1, p, 0), rv, q, b, 0);
+          mv.mB = piece(B, piece(B, 0, rv, 1, q - 1, 0), ru, p + 1, a, 0);
+        } else {
+          if (!fits(state, ru, p, a, rv) || !fits(state, rv, q + 1, b, ru)) return false;
+          mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), rv, q + 1, b, 0);
+          mv.mB = piece(B, piece(B, 0, rv, 1, q, 0), ru, p, a, 0);
+        }
+        break;
+      }
+      default: {
+        const c = 2 + rng.int(2);
+        if (p + c - 1 > a || !fits(state, ru, p, p + c - 1, rv)) return false;
+        const rev = rng.next() < 0.5 ? 1 : 0;
+        mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), ru, p + c, a, 0);
+        let m = piece(B, 0, rv, 1, q, 0);
+        m = piece(B, m, ru, p, p + c - 1, rev);
+        mv.mB = piece(B, m, rv, q + 1, b, 0);
+      }
+    }
+    return finish(state, mv);
+  }
+  mv.vA = ru;
+  let m = 0;
+  switch (kind) {
+    case MoveKind.relocateAfter:
+    case MoveKind.relocateBefore: {
+      const cut = kind === MoveKind.relocateAfter ? q : q - 1;
+      if (cut === p || cut === p - 1) return false;
+      if (p < cut) {
+        m = piece(A, m, ru, 1, p - 1, 0);
+        m = piece(A, m, ru, p + 1, cut, 0);
+        m = piece(A, m, ru, p, p, 0);
+        m = piece(A, m, ru, cut + 1, a, 0);
+      } else {
+        m = piece(A, m, ru, 1, cut, 0);
+        m = piece(A, m, ru, p, p, 0);
+        m = piece(A, m, ru, cut + 1, p - 1, 0);
+        m = piece(A, m, ru, p + 1, a, 0);
+      }
+      break;
+    }
+    case MoveKind.swap: {
+      const lo = Math.min(p, q);
+      const hi = Math.max(p, q);
+      m = piece(A, m, ru, 1, lo - 1, 0);
+      m = piece(A, m, ru, hi, hi, 0);
+      m = piece(A, m, ru, lo + 1, hi - 1, 0);
+      m = piece(A, m, ru, lo, lo, 0);
+      m = piece(A, m, ru, hi + 1, a, 0);
+      break;
+    }
+    case MoveKind.twoOpt: {
+      // Reverse the stretch between them so that the lower one is followed by the other.
+      const lo = Math.min(p, q);
+      const hi = Math.max(p, q);
+      const from = p < q ? p + 1 : q + 1;
+      const to = p < q ? q : p;
+      if (to <= from) return false;
+      m = piece(A, m, ru, 1, from - 1, 0);
+      m = piece(A, m, ru, from, to, 1);
+      m = piece(A, m, ru, to + 1, a, 0);
+      break;
+    }
+    default: {
+      const c = 2 + rng.int(2);
+      const end = p + c - 1;
+      if (end > a || (q >= p && q <= end)) return false;
+      const rev = rng.next() < 0.5 ? 1 : 0;
+      if (q === p - 1 && !rev) return false;
+      if (q < p) {
+        m = piece(A, m, ru, 1, q, 0);
+        m = piece(A, m, ru, p, end, rev);
+        m = piece(A, m, ru, q + 1, p - 1, 0);
+        m = piece(A, m, ru, end + 1, a, 0);
+      } else {
+        m = piece(A, m, ru, 1, p - 1, 0);
+        m = piece(A, m, ru, end + 1, q, 0);
+        m = piece(A, m, ru, p, end, rev);
+        m = piece(A, m, ru, q + 1, a, 0);
+      }
+    }
+  }
+  mv.mA = m;
+  return finish(state, mv);
+}
+
+/**
+ * Apply a move that `proposeMove` evaluated last (its route results are still in `state.out`).
+ *
+ * @param state - current solution, changed in place
+ * @param mv - the move
+ */
+export function applyMove(state: SearchState, mv: Move): void {
+  if (mv.poolIn >= 0) state.removeFromPool(mv.poolIn);
+  state.apply(mv.vA, mv.piecesA, mv.mA, mv.vB, mv.piecesB, mv.mB);
+  if (mv.poolOut >= 0) state.addToPool(mv.poolOut);
+}
+
+function finish(state: SearchState, mv: Move): boolean {
+  const cA = state.evaluate(mv.vA, mv.piecesA, mv.mA, 0);
+  let delta = cA - state.routeCost(mv.vA);
+  let used = (state.out[RESULT_COUNT]! > 0 ? 1 : 0) - (state.routeCount(mv.vA) > 0 ? 1 : 0);
+  if (mv.vB >= 0) {
+    const cB = state.evaluate(mv.vB, mv.piecesB, mv.mB, 1);
+    delta += cB - state.routeCost(mv.vB);
+    used += (state.out[RESULT_SIZE + RESULT_COUNT]! > 0 ? 1 : 0) - (state.routeCount(mv.vB) > 0 ? 1 : 0);
+  }
+  const cp = state.cp;
+  if (mv.poolIn >= 0) delta -= cp.unservedCost[mv.poolIn]!;
+  if (mv.poolOut >= 0) delta += cp.unservedCost[mv.poolOut]!;
+  mv.usedDelta = used;
+  mv.delta = delta + state.vehicleWeight * used;
+  return true;
+}
+
+/** Append piece (route, i..j) when not empty; returns the new count. */
+function piece(buf: Int32Array, m: number, route: number, i: number, j: number, rev: number): number {
+  if (i > j) return m;
+  const o = 4 * m;
+  buf[o] = route;
+  buf[o + 1] = i;
+  buf[o + 2] = j;
+  buf[o + 3] = rev;
+  return m + 1;
+}
+
+function single(buf: Int32Array, m: number, stop: number): number {
+  const o = 4 * m;
+  buf[o] = -1;
+  buf[o + 1] = stop;
+  buf[o + 2] = stop;
+  buf[o + 3] = 0;
+  return m + 1;
+}
+
+/** May every stop at positions i..j of route r go on vehicle w? */
+function fits(state: SearchState, r: number, i: number, j: number, w: number): boolean {
+  const cp = state.cp;
+  if (!cp.anyIncompatible) return true;
+  const nodes = state.routes[r]!.nodes;
+  const V = cp.vehicleCount;
+  for (let p = i; p <= j; p++) if (!cp.compatible[nodes[p]! * V + w]) return false;
+  return true;
+}

@@ -1,0 +1,168 @@
+import type { CompiledProblem } from "./compileProblem.js";
+
+/**
+ * One vehicle's route during the search, with prefix and suffix segment summaries
+ * (duration, time warp, earliest and latest start; Vidal, Crainic, Gendreau & Prins 2013,
+ * "A hybrid genetic algorithm with adaptive diversity management for a large class of
+ * vehicle routing problems with time-windows", Computers & Operations Research 40(1)).
+ *
+ * Position 0 is the start depot, 1..len the stops, len+1 the end depot.
+ * `pre*[i]` summarises positions 0..i (start depot included); `suf*[i]` summarises
+ * stops i..len (end depot excluded, so lateness at the end depot stays separable).
+ * Additive quantities (distance, travel, service, load, windowed-stop count) are prefix sums.
+ */
+export class RouteArrays {
+  capacity = 0;
+  len = 0;
+  nodes: Int32Array = new Int32Array(0);
+  locs: Int32Array = new Int32Array(0);
+  preD: Float64Array = new Float64Array(0);
+  preTW: Float64Array = new Float64Array(0);
+  preE: Float64Array = new Float64Array(0);
+  preL: Float64Array = new Float64Array(0);
+  sufD: Float64Array = new Float64Array(0);
+  sufTW: Float64Array = new Float64Array(0);
+  sufE: Float64Array = new Float64Array(0);
+  sufL: Float64Array = new Float64Array(0);
+  /** Sum over k=1..i of the leg (k-1 -> k): forward, and reversed (k -> k-1). */
+  cumDist: Float64Array = new Float64Array(0);
+  cumDistR: Float64Array = new Float64Array(0);
+  cumTrav: Float64Array = new Float64Array(0);
+  cumTravR: Float64Array = new Float64Array(0);
+  cumSvc: Float64Array = new Float64Array(0);
+  cumWin: Int32Array = new Int32Array(0);
+  /** `(len + 2) * dims` prefix loads. */
+  preLoad: Float64Array = new Float64Array(0);
+
+  /**
+   * @param cp - the compiled problem
+   * @param vehicle - index of the vehicle that drives this route
+   */
+  constructor(
+    readonly cp: CompiledProblem,
+    readonly vehicle: number,
+  ) {
+    this.ensure(8);
+  }
+
+  /**
+   * Replace the stops of the route and rebuild every summary in O(len).
+   *
+   * @param stops - stop indices in visiting order (read from `from` up to `count`)
+   * @example route.assign(Int32Array.of(3, 1), 2)
+   */
+  assign(stops: Int32Array | readonly number[], count: number = stops.length): void {
+    this.ensure(count);
+    this.len = count;
+    for (let i = 0; i < count; i++) this.nodes[i + 1] = stops[i]!;
+    this.rebuild();
+  }
+
+  /** Recompute all summaries from `nodes[1..len]`. */
+  rebuild(): void {
+    const cp = this.cp;
+    const v = this.vehicle;
+    const len = this.len;
+    const L = cp.locationCount;
+    const f = cp.travelFactor[v]!;
+    const dims = cp.dims;
+    const T = cp.travelMin;
+    const Dm = cp.distanceKm;
+    const locs = this.locs;
+    locs[0] = cp.startLoc[v]!;
+    this.nodes[0] = -1;
+    this.nodes[len + 1] = -1;
+    for (let i = 1; i <= len; i++) locs[i] = cp.stopLoc[this.nodes[i]!]!;
+    locs[len + 1] = cp.endLoc[v]!;
+    const { preD, preTW, preE, preL, preLoad, cumDist, cumDistR, cumTrav, cumTravR, cumSvc, cumWin } = this;
+    preD[0] = 0;
+    preTW[0] = 0;
+    preE[0] = cp.shiftStartMin[v]!;
+    preL[0] = cp.shiftEndMin[v]!;
+    cumDist[0] = cumDistR[0] = cumTrav[0] = cumTravR[0] = cumSvc[0] = 0;
+    cumWin[0] = 0;
+    for (let d = 0; d < dims; d++) preLoad[d] = 0;
+    for (let i = 1; i <= len; i++) {
+      const s = this.nodes[i]!;
+      const a = locs[i - 1]!;
+      const b = locs[i]!;
+      const t = T[a * L + b]! * f;
+      cumTrav[i] = cumTrav[i - 1]! + t;
+      cumTravR[i] = cumTravR[i - 1]! + T[b * L + a]! * f;
+      cumDist[i] = cumDist[i - 1]! + Dm[a * L + b]!;
+      cumDistR[i] = cumDistR[i - 1]! + Dm[b * L + a]!;
+      cumSvc[i] = cumSvc[i - 1]! + cp.serviceMin[s]!;
+      cumWin[i] = cumWin[i - 1]! + cp.windowed[s]!;
+      for (let d = 0; d < dims; d++) preLoad[i * dims + d] = preLoad[(i - 1) * dims + d]! + cp.demand[s * dims + d]!;
+      // Concatenation (Vidal et al. 2013): prefix(i-1) then stop i.
+      const D1 = preD[i - 1]!;
+      const TW1 = preTW[i - 1]!;
+      const E1 = preE[i - 1]!;
+      const L1 = preL[i - 1]!;
+      const e2 = cp.earliestMin[s]!;
+      const l2 = cp.latestMin[s]!;
+      const delta = D1 - TW1 + t;
+      const wt = Math.max(e2 - delta - L1, 0);
+      const tw = Math.max(E1 + delta - l2, 0);
+      preD[i] = D1 + cp.serviceMin[s]! + t + wt;
+      preTW[i] = TW1 + tw;
+      preE[i] = Math.max(e2 - delta, E1) - wt;
+      preL[i] = Math.min(l2 - delta, L1) + tw;
+    }
+    const { sufD, sufTW, sufE, sufL } = this;
+    if (len > 0) {
+      const s = this.nodes[len]!;
+      sufD[len] = cp.serviceMin[s]!;
+      sufTW[len] = 0;
+      sufE[len] = cp.earliestMin[s]!;
+      sufL[len] = cp.latestMin[s]!;
+    }
+    for (let i = len - 1; i >= 1; i--) {
+      const s = this.nodes[i]!;
+      const t = cumTrav[i + 1]! - cumTrav[i]!;
+      const D1 = cp.serviceMin[s]!;
+      const E1 = cp.earliestMin[s]!;
+      const L1 = cp.latestMin[s]!;
+      const D2 = sufD[i + 1]!;
+      const TW2 = sufTW[i + 1]!;
+      const e2 = sufE[i + 1]!;
+      const l2 = sufL[i + 1]!;
+      const delta = D1 + t;
+      const wt = Math.max(e2 - delta - L1, 0);
+      const tw = Math.max(E1 + delta - l2, 0);
+      sufD[i] = D1 + D2 + t + wt;
+      sufTW[i] = TW2 + tw;
+      sufE[i] = Math.max(e2 - delta, E1) - wt;
+      sufL[i] = Math.min(l2 - delta, L1) + tw;
+    }
+  }
+
+  /** Grow the arrays so that `count` stops fit (allocates only when growing). */
+  ensure(count: number): void {
+    if (count <= this.capacity) return;
+    const cap = Math.max(count, this.capacity * 2, 8);
+    const size = cap + 2;
+    const F = (k: number): Float64Array => new Float64Array(k);
+    const I = (k: number): Int32Array => new Int32Array(k);
+    const nodes = I(size);
+    nodes.set(this.nodes);
+    this.nodes = nodes;
+    this.locs = I(size);
+    this.preD = F(size);
+    this.preTW = F(size);
+    this.preE = F(size);
+    this.preL = F(size);
+    this.sufD = F(size);
+    this.sufTW = F(size);
+    this.sufE = F(size);
+    this.sufL = F(size);
+    this.cumDist = F(size);
+    this.cumDistR = F(size);
+    this.cumTrav = F(size);
+    this.cumTravR = F(size);
+    this.cumSvc = F(size);
+    this.cumWin = I(size);
+    this.preLoad = F(size * this.cp.dims);
+    this.capacity = cap;
+  }
+}

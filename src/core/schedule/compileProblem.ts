@@ -1,0 +1,206 @@
+import type { Problem } from "../model.js";
+
+/**
+ * A problem flattened into typed arrays for the search: one index space for stops
+ * (0..n-1) and vehicles (0..V-1), window hulls, demands with an extra "stop count"
+ * dimension that carries `maxStops`, per-vehicle travel factors and a compatibility table.
+ */
+export interface CompiledProblem {
+  readonly problem: Problem;
+  /** Number of stops, vehicles, locations. */
+  readonly n: number;
+  readonly vehicleCount: number;
+  readonly locationCount: number;
+  /** Load dimensions of the problem plus one (stop count, capacity `maxStops`). */
+  readonly dims: number;
+  readonly travelMin: Float64Array;
+  readonly distanceKm: Float64Array;
+  readonly stopLoc: Int32Array;
+  readonly serviceMin: Float64Array;
+  /** Window hull [first earliest, last latest]; -Infinity/+Infinity for a stop that is never binding. */
+  readonly earliestMin: Float64Array;
+  readonly latestMin: Float64Array;
+  /** 1 when the stop's window can bind (finite hull or several windows). */
+  readonly windowed: Uint8Array;
+  /** `n * dims` demands; the last dimension is 1 (one stop). */
+  readonly demand: Float64Array;
+  /** Typical demand per dimension: load excess is measured in these units. */
+  readonly loadScale: Float64Array;
+  /** Cost of leaving the stop unserved; `mustServeCost` for a stop that must be served. */
+  readonly unservedCost: Float64Array;
+  readonly optional: Uint8Array;
+  readonly mustServeCost: number;
+  readonly startLoc: Int32Array;
+  readonly endLoc: Int32Array;
+  readonly shiftStartMin: Float64Array;
+  readonly shiftEndMin: Float64Array;
+  readonly fixedCost: Float64Array;
+  readonly costPerKm: Float64Array;
+  readonly costPerHour: Float64Array;
+  /** Multiplier of `travelMin` for each vehicle (reference speed / own speed). */
+  readonly travelFactor: Float64Array;
+  /** `V * dims` capacities; the last dimension is `maxStops` (or Infinity). */
+  readonly capacity: Float64Array;
+  /** `n * V`: 1 when vehicle v may serve stop s (features, capacity, reachable in its shift). */
+  readonly compatible: Uint8Array;
+  /** True when some stop/vehicle pair is incompatible (moves must then check). */
+  readonly anyIncompatible: boolean;
+  readonly hardWindows: boolean;
+  readonly lateCostPerMin: number;
+  readonly hierarchical: boolean;
+  /** Why a stop can never be served ("" when it can). */
+  readonly unservableReason: readonly string[];
+}
+
+/**
+ * Flatten a (validated) problem for the search.
+ *
+ * @param problem - a problem without `validateProblem` issues
+ * @returns the compiled arrays; stops no vehicle can serve carry a reason in words
+ * @throws RangeError when the problem has no vehicle
+ * @example compileProblem(problem).compatible[s * V + v] // => 1 when v may serve s
+ */
+export function compileProblem(problem: Problem): CompiledProblem {
+  const n = problem.stops.length;
+  const V = problem.vehicles.length;
+  if (V < 1) throw new RangeError("problem.vehicles must not be empty");
+  const L = problem.matrix.size;
+  const baseDims = problem.loadDimensions.length;
+  const dims = baseDims + 1;
+  const m = problem.matrix;
+  const minShiftStart = Math.min(...problem.vehicles.map((v) => v.shiftStartMin));
+  const stopLoc = new Int32Array(n);
+  const serviceMin = new Float64Array(n);
+  const earliestMin = new Float64Array(n);
+  const latestMin = new Float64Array(n);
+  const windowed = new Uint8Array(n);
+  const demand = new Float64Array(n * dims);
+  const loadScale = new Float64Array(dims).fill(1);
+  const unservedCost = new Float64Array(n);
+  const optional = new Uint8Array(n);
+  problem.stops.forEach((s, i) => {
+    stopLoc[i] = s.location;
+    serviceMin[i] = s.serviceMin;
+    const first = s.windows[0];
+    const last = s.windows[s.windows.length - 1];
+    const e = first ? first.earliestMin : 0;
+    const l = last ? last.latestMin : Infinity;
+    // A single window that opens before any shift and never closes cannot bind:
+    // -Infinity/+Infinity lets reversed segments be summarised from prefix sums.
+    const open = s.windows.length <= 1 && e <= minShiftStart && l === Infinity;
+    earliestMin[i] = open ? -Infinity : e;
+    latestMin[i] = open ? Infinity : l;
+    windowed[i] = open ? 0 : 1;
+    for (let d = 0; d < baseDims; d++) demand[i * dims + d] = s.demand[d] ?? 0;
+    demand[i * dims + baseDims] = 1;
+    if (s.unservedCost !== undefined) {
+      optional[i] = 1;
+      unservedCost[i] = s.unservedCost;
+    }
+  });
+  for (let d = 0; d < baseDims; d++) {
+    let sum = 0;
+    let count = 0;
+    for (let i = 0; i < n; i++) {
+      const q = demand[i * dims + d]!;
+      if (q > 0) {
+        sum += q;
+        count++;
+      }
+    }
+    loadScale[d] = count > 0 ? sum / count : 1;
+  }
+  const vs = problem.vehicles;
+  const startLoc = Int32Array.from(vs, (v) => v.startLocation);
+  const endLoc = Int32Array.from(vs, (v) => v.endLocation);
+  const shiftStartMin = Float64Array.from(vs, (v) => v.shiftStartMin);
+  const shiftEndMin = Float64Array.from(vs, (v) => v.shiftEndMin);
+  const fixedCost = Float64Array.from(vs, (v) => v.fixedCost);
+  const costPerKm = Float64Array.from(vs, (v) => v.costPerKm);
+  const costPerHour = Float64Array.from(vs, (v) => v.costPerHour);
+  const travelFactor = Float64Array.from(vs, (v) => (m.userSupplied ? 1 : problem.referenceSpeedKmh / v.speedKmh));
+  const capacity = new Float64Array(V * dims);
+  vs.forEach((v, k) => {
+    for (let d = 0; d < baseDims; d++) capacity[k * dims + d] = v.capacity[d] ?? 0;
+    capacity[k * dims + baseDims] = v.maxStops ?? Infinity;
+  });
+  let maxRow = 0;
+  for (let i = 0; i < L * L; i++) if (m.distanceKm[i]! > maxRow && Number.isFinite(m.distanceKm[i]!)) maxRow = m.distanceKm[i]!;
+  let maxTravel = 0;
+  for (let i = 0; i < L * L; i++) if (m.travelMin[i]! > maxTravel && Number.isFinite(m.travelMin[i]!)) maxTravel = m.travelMin[i]!;
+  const maxFactor = Math.max(...travelFactor);
+  let routeBound = 0;
+  for (let k = 0; k < V; k++) routeBound += fixedCost[k]!;
+  const maxKm = Math.max(...costPerKm);
+  const maxHour = Math.max(...costPerHour);
+  let serviceSum = 0;
+  for (let i = 0; i < n; i++) serviceSum += serviceMin[i]!;
+  routeBound += (n + V) * (maxKm * maxRow + (maxHour * maxTravel * maxFactor) / 60) + (maxHour * serviceSum) / 60;
+  // Far above any plan's route cost, so a stop without unserved cost is always worth serving.
+  const mustServeCost = 1000 * (routeBound + 1);
+  for (let i = 0; i < n; i++) if (!optional[i]) unservedCost[i] = mustServeCost;
+
+  const compatible = new Uint8Array(n * V);
+  const unservableReason: string[] = [];
+  let anyIncompatible = false;
+  for (let i = 0; i < n; i++) {
+    const s = problem.stops[i]!;
+    let featureOk = 0;
+    let capOk = 0;
+    let ok = 0;
+    for (let k = 0; k < V; k++) {
+      const v = vs[k]!;
+      const feats = s.requiredFeatures ?? [];
+      if (!feats.every((f) => (v.features ?? []).includes(f))) continue;
+      featureOk++;
+      let fits = capacity[k * dims + baseDims]! >= 1;
+      for (let d = 0; d < baseDims; d++) if (demand[i * dims + d]! > capacity[k * dims + d]!) fits = false;
+      if (!fits) continue;
+      capOk++;
+      if (problem.hardWindows && !reachable(problem, i, k, travelFactor[k]!)) continue;
+      compatible[i * V + k] = 1;
+      ok++;
+    }
+    if (ok < V) anyIncompatible = true;
+    unservableReason.push(ok > 0 ? "" : reasonFor(problem, i, featureOk, capOk));
+  }
+  return {
+    problem, n, vehicleCount: V, locationCount: L, dims,
+    travelMin: m.travelMin, distanceKm: m.distanceKm, stopLoc, serviceMin, earliestMin, latestMin, windowed,
+    demand, loadScale, unservedCost, optional, mustServeCost, startLoc, endLoc, shiftStartMin, shiftEndMin,
+    fixedCost, costPerKm, costPerHour, travelFactor, capacity, compatible, anyIncompatible,
+    hardWindows: problem.hardWindows, lateCostPerMin: problem.lateCostPerMin,
+    hierarchical: problem.objective === "hierarchical", unservableReason,
+  };
+}
+
+/** Can vehicle k reach stop i inside one of its windows and be back by the shift end (direct trip)? */
+function reachable(problem: Problem, i: number, k: number, factor: number): boolean {
+  const s = problem.stops[i]!;
+  const v = problem.vehicles[k]!;
+  const L = problem.matrix.size;
+  const arrive = v.shiftStartMin + problem.matrix.travelMin[v.startLocation * L + s.location]! * factor;
+  for (const w of s.windows) {
+    if (arrive > w.latestMin) continue;
+    const back = Math.max(arrive, w.earliestMin) + s.serviceMin + problem.matrix.travelMin[s.location * L + v.endLocation]! * factor;
+    if (back <= v.shiftEndMin + 1e-9) return true;
+  }
+  return false;
+}
+
+function reasonFor(problem: Problem, i: number, featureOk: number, capOk: number): string {
+  const s = problem.stops[i]!;
+  if (featureOk === 0) {
+    return `needs ${(s.requiredFeatures ?? []).join(", ")}, which no vehicle has`;
+  }
+  if (capOk === 0) {
+    const dims = problem.loadDimensions;
+    for (let d = 0; d < dims.length; d++) {
+      const largest = Math.max(...problem.vehicles.map((v) => v.capacity[d] ?? 0));
+      const q = s.demand[d] ?? 0;
+      if (q > largest) return `demand ${q} ${dims[d]} is more than the largest capacity, ${largest} ${dims[d]}`;
+    }
+    return "no vehicle may take another stop (max stops)";
+  }
+  return "its time window cannot be reached within any vehicle's shift (even as the only stop)";
+}

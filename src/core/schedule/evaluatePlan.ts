@@ -1,0 +1,197 @@
+import type { Plan, Problem, Route, Unassigned, Visit } from "../model.js";
+
+/**
+ * Evaluate routes from scratch: exact timing with every window of every stop, loads,
+ * distances, costs, totals and each broken rule in words. Independent of the search's
+ * summaries, so it serves as their check and as the source of every reported number.
+ *
+ * Timing (time-warp convention of Vidal et al. 2013): service starts at the arrival or at
+ * the opening of the first window still open, with waiting allowed; an arrival after the
+ * last window closes is late by that much and service is booked at the close (time warp),
+ * and lateness at the end depot is overtime. The vehicle departs at the shift start
+ * delayed by the waiting it can absorb without being later anywhere, so waiting before
+ * the first stop is not paid. Duty = return - departure; cost = fixed (when used) +
+ * km x costPerKm + duty hours x costPerHour (+ late minutes x lateCostPerMin under soft windows).
+ *
+ * @param problem - the problem the routes belong to
+ * @param routes - `routes[v]` = stop indices of vehicle v in visiting order (one entry per vehicle)
+ * @param unassigned - stops left out, with reasons; stops missing from both get "not in any route"
+ * @returns the plan
+ * @throws RangeError when `routes` does not have one entry per vehicle or a stop index is out of range or repeated
+ * @example evaluatePlan(problem, [[0, 2], [1]]).totals.distanceKm // => total km of both routes
+ */
+export function evaluatePlan(
+  problem: Problem,
+  routes: readonly (readonly number[])[],
+  unassigned: readonly Unassigned[] = [],
+): Plan {
+  const n = problem.stops.length;
+  if (routes.length !== problem.vehicles.length) {
+    throw new RangeError(`routes must have ${problem.vehicles.length} entries (one per vehicle), got ${routes.length}`);
+  }
+  const seen = new Uint8Array(n);
+  for (const r of routes) {
+    for (const s of r) {
+      if (!(Number.isInteger(s) && s >= 0 && s < n)) throw new RangeError(`routes holds stop index ${s}, outside 0..${n - 1}`);
+      if (seen[s]) throw new RangeError(`routes holds stop index ${s} twice`);
+      seen[s] = 1;
+    }
+  }
+  const violations: string[] = [];
+  const planRoutes = routes.map((r, v) => evaluateRoute(problem, v, r, violations));
+  const left: Unassigned[] = [];
+  for (const u of unassigned) {
+    if (!seen[u.stop]) {
+      seen[u.stop] = 1;
+      left.push(u);
+    }
+  }
+  for (let s = 0; s < n; s++) if (!seen[s]) left.push({ stop: s, reason: "not in any route" });
+  let unservedCost = 0;
+  for (const u of left) {
+    const stop = problem.stops[u.stop]!;
+    if (stop.unservedCost === undefined) violations.push(`Stop ${stop.id} is not served: ${u.reason}`);
+    else unservedCost += stop.unservedCost;
+  }
+  const sum = (f: (r: Route) => number): number => planRoutes.reduce((a, r) => a + f(r), 0);
+  return {
+    routes: planRoutes,
+    unassigned: left,
+    totals: {
+      vehiclesUsed: planRoutes.filter((r) => r.visits.length > 0).length,
+      distanceKm: sum((r) => r.distanceKm),
+      drivingMin: sum((r) => r.drivingMin),
+      dutyMin: sum((r) => r.dutyMin),
+      waitMin: sum((r) => r.waitMin),
+      lateMin: sum((r) => r.lateMin),
+      cost: sum((r) => r.cost) + unservedCost,
+      unassigned: left.length,
+    },
+    feasible: violations.length === 0,
+    violations,
+  };
+}
+
+function evaluateRoute(problem: Problem, v: number, stops: readonly number[], violations: string[]): Route {
+  const veh = problem.vehicles[v]!;
+  const m = problem.matrix;
+  const L = m.size;
+  const factor = m.userSupplied ? 1 : problem.referenceSpeedKmh / veh.speedKmh;
+  const dims = problem.loadDimensions.length;
+  const load = new Array<number>(dims).fill(0);
+  for (const s of stops) for (let d = 0; d < dims; d++) load[d] = load[d]! + (problem.stops[s]!.demand[d] ?? 0);
+  if (stops.length === 0) {
+    const t = veh.shiftStartMin;
+    return {
+      vehicle: v, visits: [], departureMin: t, returnMin: t, load, distanceKm: 0, drivingMin: 0, dutyMin: 0,
+      waitMin: 0, lateMin: 0, overtimeMin: 0, excessLoad: 0, cost: 0,
+    };
+  }
+  // First pass from the shift start: how much later could we leave without being later anywhere?
+  const first = simulate(problem, veh, stops, factor, veh.shiftStartMin);
+  const delay = Math.min(first.slack, first.waitMin);
+  const sim = delay > 0 ? simulate(problem, veh, stops, factor, veh.shiftStartMin + delay) : first;
+  let excessLoad = 0;
+  for (let d = 0; d < dims; d++) {
+    const over = load[d]! - (veh.capacity[d] ?? 0);
+    if (over > 1e-9) {
+      excessLoad += over;
+      violations.push(`${veh.id}: ${round(over)} ${problem.loadDimensions[d]} over capacity`);
+    }
+  }
+  const visits: Visit[] = [];
+  let onBoard = load.slice();
+  let totalKm = 0;
+  let prev = veh.startLocation;
+  for (let k = 0; k < stops.length; k++) {
+    const s = problem.stops[stops[k]!]!;
+    const legKm = m.distanceKm[prev * L + s.location]!;
+    totalKm += legKm;
+    onBoard = onBoard.map((q, d) => q - (s.demand[d] ?? 0));
+    const t = sim.times[k]!;
+    visits.push({ stop: stops[k]!, ...t, loadAfter: onBoard, legKm, totalKm });
+    if (t.lateMin > 1e-9 && problem.hardWindows) {
+      violations.push(`${veh.id}: arrives ${round(t.lateMin)} min late at stop ${s.id}`);
+    }
+    const missing = (s.requiredFeatures ?? []).filter((f) => !(veh.features ?? []).includes(f));
+    if (missing.length > 0) violations.push(`${veh.id} lacks ${missing.join(", ")} needed at stop ${s.id}`);
+    prev = s.location;
+  }
+  const distanceKm = totalKm + m.distanceKm[prev * L + veh.endLocation]!;
+  if (sim.overtimeMin > 1e-9) violations.push(`${veh.id}: back ${round(sim.overtimeMin)} min after the shift end`);
+  if (veh.maxStops !== undefined && stops.length > veh.maxStops) {
+    violations.push(`${veh.id}: ${stops.length} stops, more than its maximum of ${veh.maxStops}`);
+  }
+  const lateMin = sim.times.reduce((a, t) => a + t.lateMin, 0);
+  const dutyMin = sim.returnMin - sim.departureMin;
+  const cost =
+    veh.fixedCost + veh.costPerKm * distanceKm + (veh.costPerHour * dutyMin) / 60 +
+    (problem.hardWindows ? 0 : problem.lateCostPerMin * lateMin);
+  return {
+    vehicle: v, visits, departureMin: sim.departureMin, returnMin: sim.returnMin, load, distanceKm,
+    drivingMin: sim.drivingMin, dutyMin, waitMin: sim.waitMin, lateMin, overtimeMin: sim.overtimeMin, excessLoad, cost,
+  };
+}
+
+interface Timing {
+  readonly arrivalMin: number;
+  readonly waitMin: number;
+  readonly startMin: number;
+  readonly departureMin: number;
+  readonly lateMin: number;
+}
+
+/** Forward pass from a departure time; `slack` = how much later it could leave without more lateness. */
+function simulate(problem: Problem, veh: Problem["vehicles"][number], stops: readonly number[], factor: number, departMin: number) {
+  const m = problem.matrix;
+  const L = m.size;
+  let t = departMin;
+  let prev = veh.startLocation;
+  let waitBefore = 0;
+  let slack = Infinity;
+  let propagates = true;
+  let drivingMin = 0;
+  const times: Timing[] = [];
+  for (const index of stops) {
+    const s = problem.stops[index]!;
+    const travel = m.travelMin[prev * L + s.location]! * factor;
+    drivingMin += travel;
+    const arrivalMin = t + travel;
+    const w = s.windows.find((x) => x.latestMin >= arrivalMin);
+    let startMin: number;
+    let lateMin = 0;
+    if (w) {
+      startMin = Math.max(arrivalMin, w.earliestMin);
+      if (propagates) slack = Math.min(slack, waitBefore + (w.latestMin - arrivalMin));
+    } else {
+      const close = s.windows.length > 0 ? s.windows[s.windows.length - 1]!.latestMin : arrivalMin;
+      lateMin = arrivalMin - close;
+      startMin = close;
+      // Any later arrival here is later still; past a warp, delays no longer propagate.
+      if (propagates) slack = Math.min(slack, waitBefore);
+      propagates = false;
+    }
+    const waitMin = startMin > arrivalMin ? startMin - arrivalMin : 0;
+    waitBefore += waitMin;
+    times.push({ arrivalMin, waitMin, startMin, departureMin: startMin + s.serviceMin, lateMin });
+    t = startMin + s.serviceMin;
+    prev = s.location;
+  }
+  const back = m.travelMin[prev * L + veh.endLocation]! * factor;
+  drivingMin += back;
+  const arriveEnd = t + back;
+  let overtimeMin = 0;
+  let returnMin = arriveEnd;
+  if (arriveEnd > veh.shiftEndMin) {
+    overtimeMin = arriveEnd - veh.shiftEndMin;
+    returnMin = veh.shiftEndMin;
+    if (propagates) slack = Math.min(slack, waitBefore);
+  } else if (propagates) {
+    slack = Math.min(slack, waitBefore + (veh.shiftEndMin - arriveEnd));
+  }
+  return { times, departureMin: departMin, returnMin, drivingMin, waitMin: waitBefore, overtimeMin, slack: Math.max(0, slack) };
+}
+
+function round(x: number): number {
+  return Math.round(x * 100) / 100;
+}
