@@ -1,0 +1,178 @@
+import type { Issue } from "../core/model.js";
+import type { ColumnMatch } from "./ReadResult.js";
+import { columnLetter, cellAddress } from "./cellAddress.js";
+import { plainCell } from "./cellValue.js";
+
+/** Which input table a header row belongs to. */
+export type TableKind = "stops" | "fleet";
+
+/** One recognised header: the field, and its load dimension or window number when it has one. */
+export interface HeaderField {
+  /** Base field, e.g. "latitude", "demand", "earliest", "shiftStart". */
+  readonly base: string;
+  /** Unit word of a load column ("kg" of "Demand kg"); absent for a plain "Demand". */
+  readonly dimension?: string;
+  /** Window number of repeated Earliest/Latest pairs (1 for the first). */
+  readonly index?: number;
+}
+
+/** Header columns of a table, 0-based column indexes within the read range. */
+export interface TableColumns {
+  /** Field key ("latitude", "demand:kg", "earliest:2") -> column index. */
+  readonly fields: ReadonlyMap<string, number>;
+  readonly matches: readonly ColumnMatch[];
+  /** Unrecognised columns, carried through, in sheet order. */
+  readonly extras: readonly { readonly header: string; readonly col: number }[];
+  readonly issues: readonly Issue[];
+}
+
+// Synonyms as normalised keys (lower-case letters and digits only). Common trade words;
+// none is taken from a particular product.
+const STOP_SYNONYMS: Record<string, readonly string[]> = {
+  id: ["stop", "stopid", "stopno", "stopnumber", "stopcode", "id", "code", "ref", "reference", "customerid", "customercode", "customerno", "no"],
+  name: ["name", "stopname", "customer", "customername", "client", "clientname", "company", "site", "sitename", "recipient"],
+  address: ["address", "streetaddress", "street", "fulladdress", "addr", "deliveryaddress", "postaladdress"],
+  latitude: ["latitude", "lat", "y", "latdeg", "latitudedeg"],
+  longitude: ["longitude", "lon", "lng", "long", "x", "londeg", "longitudedeg"],
+  coordinates: ["coordinates", "coords", "coord", "latlon", "latlng", "latlong", "latitudelongitude", "location", "position", "gps", "geo", "point"],
+  demand: ["demand", "qty", "quantity", "weight", "load", "amount", "volume", "units", "size", "delivery", "order"],
+  earliest: ["earliest", "earliesttime", "earliestarrival", "earlieststart", "from", "start", "windowstart", "twstart", "timewindowstart", "ready", "readytime", "open", "opens", "opening", "opentime", "after", "notbefore", "windowopen", "windowfrom"],
+  latest: ["latest", "latesttime", "latestarrival", "lateststart", "to", "end", "windowend", "twend", "timewindowend", "due", "duetime", "duedate", "close", "closes", "closing", "closetime", "before", "notafter", "windowclose", "windowto", "deadline"],
+  windows: ["window", "windows", "timewindow", "timewindows", "tw", "hours", "openinghours", "deliverywindow", "deliverywindows", "slot", "slots"],
+  serviceMin: ["servicemin", "service", "servicetime", "servicemins", "serviceminutes", "servicetimemin", "dwell", "dwelltime", "dwellmin", "stoptime", "stopmin", "stopminutes", "duration", "handling", "handlingtime", "handlingmin", "unloading", "unloadingmin"],
+  priority: ["priority", "unservedcost", "penalty", "skipcost", "dropcost", "missedcost", "optionalcost"],
+  features: ["features", "requiredfeatures", "requires", "required", "skills", "requirements", "needs", "equipment"],
+};
+
+const FLEET_SYNONYMS: Record<string, readonly string[]> = {
+  id: ["vehicle", "vehicleid", "vehiclename", "van", "truck", "lorry", "car", "driver", "drivername", "name", "id", "unit", "rig"],
+  count: ["count", "number", "howmany", "vehicles", "copies", "fleetsize", "numberofvehicles", "n", "qty", "quantity"],
+  capacity: ["capacity", "cap", "maxload", "payload", "capacitylimit", "loadlimit"],
+  startLatitude: ["startlatitude", "startlat", "depotlatitude", "depotlat", "latitude", "lat", "originlat", "originlatitude", "homelat", "homelatitude", "fromlat", "fromlatitude"],
+  startLongitude: ["startlongitude", "startlon", "startlng", "startlong", "depotlongitude", "depotlon", "depotlng", "depotlong", "longitude", "lon", "lng", "long", "originlon", "originlng", "originlongitude", "homelon", "homelng", "homelongitude", "fromlon", "fromlng", "fromlongitude"],
+  endLatitude: ["endlatitude", "endlat", "returnlatitude", "returnlat", "enddepotlatitude", "enddepotlat", "destinationlat", "destinationlatitude", "tolat", "tolatitude"],
+  endLongitude: ["endlongitude", "endlon", "endlng", "endlong", "returnlongitude", "returnlon", "returnlng", "enddepotlongitude", "enddepotlon", "enddepotlng", "destinationlon", "destinationlng", "destinationlongitude", "tolon", "tolng", "tolongitude"],
+  startCoordinates: ["depot", "startdepot", "startlocation", "depotlocation", "startcoordinates", "depotcoordinates", "origin", "home", "startlatlon", "depotlatlon", "startpoint", "coordinates", "location"],
+  endCoordinates: ["enddepot", "endlocation", "returndepot", "returnlocation", "endcoordinates", "destination", "endlatlon", "endpoint"],
+  shiftStart: ["shiftstart", "start", "starttime", "from", "begin", "shiftbegin", "dutystart", "availablefrom", "workstart", "earliest", "shiftfrom"],
+  shiftEnd: ["shiftend", "end", "endtime", "to", "finish", "shiftfinish", "dutyend", "availableuntil", "until", "workend", "latest", "shiftto"],
+  fixedCost: ["fixedcost", "fixed", "fixedcosts", "costfixed", "costperday", "daycost", "dailycost", "usecost", "costperuse", "vehiclecost"],
+  costPerKm: ["costperkm", "costkm", "kmcost", "perkm", "costperkilometre", "costperkilometer", "kmrate", "ratekm", "rateperkm", "distancecost"],
+  costPerHour: ["costperhour", "costhour", "hourcost", "perhour", "hourly", "hourlycost", "hourlyrate", "ratehour", "rateperhour", "wage", "timecost", "costperh"],
+  speedKmh: ["speedkmh", "speed", "kmh", "averagespeed", "avgspeed", "speedkph", "kph"],
+  maxStops: ["maxstops", "stopslimit", "maximumstops", "stoplimit", "maxdrops", "maxvisits", "maxdeliveries", "stopsmax"],
+  features: ["features", "skills", "equipment", "capabilities", "tags", "has"],
+};
+
+/** Fields whose header may carry a unit word (a load dimension). */
+const DIMENSIONED: Record<TableKind, string> = { stops: "demand", fleet: "capacity" };
+/** Fields that may repeat as numbered pairs. */
+const NUMBERED = new Set(["earliest", "latest", "windows"]);
+
+/**
+ * Header text as lower-case words (letters and digits); punctuation and spacing do not count.
+ *
+ * @param text - a header as typed
+ * @returns its words, e.g. ["speed", "km", "h"] for "Speed km/h"
+ * @example headerWords(" Service (min) ") // => ["service", "min"]
+ */
+export function headerWords(text: string): string[] {
+  return text.toLowerCase().normalize("NFKD").replace(/[\u0300-\u036f]/g, "").split(/[^a-z0-9]+/).filter((w) => w !== "");
+}
+
+/**
+ * The field a header names, case-, space- and punctuation-insensitively, with common synonyms
+ * (lat/lng/lon/long, from/to, ready/due, service/dwell, qty/weight, van/truck/driver, ...).
+ *
+ * @param text - the header as typed
+ * @param kind - the table it heads
+ * @returns the field, or `undefined` for a column to carry through
+ * @example matchHeader("Demand (kg)", "stops") // => { base: "demand", dimension: "kg" }
+ */
+export function matchHeader(text: string, kind: TableKind): HeaderField | undefined {
+  const words = headerWords(text);
+  if (words.length === 0) return undefined;
+  const table = kind === "stops" ? STOP_SYNONYMS : FLEET_SYNONYMS;
+  const exact = lookup(table, words.join(""));
+  if (exact !== undefined) return { base: exact };
+  // "Earliest 2", "Window 3": a numbered repeat of a window column.
+  const numbered = /^(.*?)(\d+)$/.exec(words.join(""));
+  if (numbered && numbered[1] !== "") {
+    const base = lookup(table, numbered[1]!);
+    if (base !== undefined && NUMBERED.has(base)) return { base, index: Number(numbered[2]) };
+  }
+  // "Demand kg", "Capacity crates": a load column with its unit word.
+  const dimensioned = DIMENSIONED[kind];
+  for (let k = words.length - 1; k >= 1; k--) {
+    if (table[dimensioned]!.includes(words.slice(0, k).join(""))) {
+      return { base: dimensioned, dimension: words.slice(k).join(" ") };
+    }
+  }
+  return undefined;
+}
+
+/**
+ * Map the header row of a table to fields; unknown headers become carried-through columns.
+ * Repeated window headers without a number ("Earliest", "Latest", "Earliest", "Latest")
+ * count as the 2nd, 3rd... pair; any other field named twice is an issue.
+ *
+ * @param header - the header row's raw values
+ * @param kind - the table it heads
+ * @param where - sheet name and the sheet's 0-based row/col of `header[0]`
+ * @returns the columns, with issues for fields named twice
+ * @example mapColumns(["Stop", "Lat", "Lng", "Phone"], "stops", { sheet: "Stops", row: 0, col: 0 }).extras
+ * // => [{ header: "Phone", col: 3 }]
+ */
+export function mapColumns(
+  header: readonly unknown[],
+  kind: TableKind,
+  where: { readonly sheet: string; readonly row: number; readonly col: number },
+): TableColumns {
+  const fields = new Map<string, number>();
+  const matches: ColumnMatch[] = [];
+  const extras: { header: string; col: number }[] = [];
+  const issues: Issue[] = [];
+  const repeats = new Map<string, number>();
+  header.forEach((raw, c) => {
+    const v = plainCell(raw);
+    const text = v === null ? "" : String(v).trim();
+    if (text === "") return;
+    const column = columnLetter(where.col + c);
+    const hit = matchHeader(text, kind);
+    if (hit === undefined) {
+      extras.push({ header: text, col: c });
+      matches.push({ header: text, field: "extra", column });
+      return;
+    }
+    let index = hit.index;
+    if (NUMBERED.has(hit.base) && index === undefined) {
+      index = (repeats.get(hit.base) ?? 0) + 1;
+      repeats.set(hit.base, index);
+    }
+    const key = fieldKey(hit.base, hit.dimension, index);
+    const before = fields.get(key);
+    if (before !== undefined) {
+      issues.push({
+        sheet: where.sheet,
+        cell: cellAddress(where.row, where.col + c),
+        message: `${where.sheet}!${cellAddress(where.row, where.col + c)}: header "${text}" names the same field as column ${columnLetter(where.col + before)}; rename or delete one of the two columns.`,
+      });
+      return;
+    }
+    fields.set(key, c);
+    matches.push({ header: text, field: key, column });
+  });
+  return { fields, matches, extras, issues };
+}
+
+/** "demand:kg", "earliest:2", or the base alone for a plain or first column. */
+export function fieldKey(base: string, dimension?: string, index?: number): string {
+  if (dimension !== undefined) return `${base}:${dimension}`;
+  if (index !== undefined && index > 1) return `${base}:${index}`;
+  return base;
+}
+
+function lookup(table: Record<string, readonly string[]>, key: string): string | undefined {
+  for (const [field, keys] of Object.entries(table)) if (keys.includes(key)) return field;
+  return undefined;
+}

@@ -1,0 +1,155 @@
+import { DAY_MIN } from "../core/constants.js";
+import type { Issue, LatLon } from "../core/model.js";
+import type { SheetRead } from "../workbook/WorkbookPort.js";
+import { plainCell } from "./cellValue.js";
+import type { TableColumns } from "./matchHeaders.js";
+import { readDegrees } from "./parseCoordinate.js";
+import { parseFeatures } from "./parseFeatures.js";
+import { parseLatLon } from "./parseLatLon.js";
+import { cellIssue, readTable } from "./readTable.js";
+import { rowReader, type RowReader } from "./rowReader.js";
+
+/** Cost per km of a vehicle row that gives none, so that a fleet without costs minimises km. */
+export const DEFAULT_COST_PER_KM = 1;
+
+/** One vehicle as read (after `Count` expansion), before it is placed in a `Problem`. */
+export interface ParsedVehicle {
+  readonly id: string;
+  /** Capacity per load column: "" for a plain Capacity column, else the unit word. */
+  readonly capacity: ReadonlyMap<string, number>;
+  readonly start: LatLon;
+  readonly end: LatLon;
+  readonly shiftStartMin: number;
+  readonly shiftEndMin: number;
+  readonly fixedCost: number;
+  readonly costPerKm: number;
+  readonly costPerHour: number;
+  /** `undefined` when blank (the settings speed applies). */
+  readonly speedKmh?: number;
+  readonly maxStops?: number;
+  readonly features?: readonly string[];
+  /** 0-based sheet row of the fleet row it came from. */
+  readonly sheetRow0: number;
+}
+
+/** What `parseFleet` found. */
+export interface ParsedFleet {
+  readonly vehicles: readonly ParsedVehicle[];
+  readonly columns: TableColumns | undefined;
+  readonly headerRow0: number;
+  readonly col0: number;
+  /** Unit words of the capacity columns ("" for a plain Capacity), in sheet order. */
+  readonly dimensions: readonly string[];
+  readonly issues: readonly Issue[];
+}
+
+/**
+ * Read the fleet table: one row per vehicle type, expanded by `Count`.
+ *
+ * Columns (DESIGN.md §5): Vehicle, Count, Capacity (or Capacity kg, ...), Start latitude,
+ * Start longitude (or one Depot column with "lat, lon"), End latitude, End longitude (blank:
+ * back to the start depot), Shift start, Shift end (blank: 00:00 and 24:00; an end before the
+ * start rolls over midnight), Fixed cost (blank 0), Cost per km (blank 1), Cost per hour
+ * (blank 0), Speed km/h (blank: the settings speed), Max stops, Features. A Count of 2 or more
+ * makes "Van A 1", "Van A 2", ...; a Count of 0 leaves the row out; blank keeps one vehicle
+ * with the row's name. Without a Vehicle column vehicles are named "Vehicle 1", "Vehicle 2"...
+ *
+ * @param read - the fleet range
+ * @returns the vehicles and every issue found
+ * @example parseFleet({ sheet: "Fleet", row: 0, col: 0, values: [["Van", "Count", "Lat", "Lon"], ["A", 2, 45, 4]] }).vehicles.map((v) => v.id)
+ * // => ["A 1", "A 2"]
+ */
+export function parseFleet(read: SheetRead): ParsedFleet {
+  const { table, issues } = readTable(read, "fleet");
+  const base = { vehicles: [], columns: table?.columns, headerRow0: table?.headerRow0 ?? read.row, col0: read.col, dimensions: [] };
+  if (!table) return { ...base, issues };
+  const f = table.columns.fields;
+  if (!(f.has("startLatitude") && f.has("startLongitude")) && !f.has("startCoordinates")) {
+    issues.push(cellIssue(read.sheet, table.headerRow0, read.col, `the header row has no depot coordinate columns; add Start latitude and Start longitude columns in decimal degrees (or one Depot column holding "lat, lon").`));
+    return { ...base, issues };
+  }
+  const dimensions = [...f.keys()].filter((k) => k === "capacity" || k.startsWith("capacity:")).map((k) => (k === "capacity" ? "" : k.slice(9)));
+  const vehicles: ParsedVehicle[] = [];
+  const seen = new Map<string, number>();
+  table.rows.forEach((row, ordinal) => {
+    const r = rowReader(table, row, issues);
+    const before = issues.length;
+    const name = r.text("id") ?? `Vehicle ${ordinal + 1}`;
+    const count = r.num("count", "count", { min: 0, integer: true, example: "3" }) ?? 1;
+    const capacity = new Map<string, number>();
+    for (const dim of dimensions) {
+      const key = dim === "" ? "capacity" : `capacity:${dim}`;
+      const label = dim === "" ? "capacity" : `capacity (${dim})`;
+      if (r.blank(key) && !r.excelErrorAt(key)) r.fail(key, `${label} is missing for vehicle "${name}"; type how much it can carry, such as 800.`);
+      capacity.set(dim, r.num(key, label, { min: 0, example: "800" }) ?? 0);
+    }
+    const start = readPoint(r, "startLatitude", "startLongitude", "startCoordinates", "start depot");
+    const endGiven = ["endLatitude", "endLongitude", "endCoordinates"].some((k) => r.has(k) && !r.blank(k));
+    const end = endGiven ? readPoint(r, "endLatitude", "endLongitude", "endCoordinates", "end depot") : start;
+    const shiftStartMin = r.time("shiftStart", "shift start") ?? 0;
+    let shiftEndMin = r.time("shiftEnd", "shift end") ?? DAY_MIN;
+    if (shiftEndMin < shiftStartMin) shiftEndMin += DAY_MIN;
+    if (shiftEndMin === shiftStartMin && !r.blank("shiftEnd")) {
+      r.fail("shiftEnd", `the shift of vehicle "${name}" ends when it starts; type a later shift end.`);
+    }
+    const fixedCost = r.num("fixedCost", "fixed cost", { min: 0, example: "50" }) ?? 0;
+    const costPerKm = r.num("costPerKm", "cost per km", { min: 0, example: "0.4" }) ?? DEFAULT_COST_PER_KM;
+    const costPerHour = r.num("costPerHour", "cost per hour", { min: 0, example: "25" }) ?? 0;
+    const speedKmh = r.num("speedKmh", "speed (km/h)", { above: 0, example: "40" });
+    const maxStops = r.num("maxStops", "max stops", { min: 1, integer: true, example: "20" });
+    const featureText = r.text("features");
+    if (issues.length > before || start === undefined || end === undefined) return;
+    for (let k = 1; k <= count; k++) {
+      const id = count > 1 ? `${name} ${k}` : name;
+      const first = seen.get(id);
+      if (first !== undefined) {
+        r.fail("id", `vehicle name "${id}" is used twice (also from row ${first}); give every vehicle its own name.`);
+        continue;
+      }
+      seen.set(id, r.sheetRow);
+      vehicles.push({
+        id, capacity, start, end, shiftStartMin, shiftEndMin, fixedCost, costPerKm, costPerHour,
+        ...(speedKmh !== undefined ? { speedKmh } : {}),
+        ...(maxStops !== undefined ? { maxStops } : {}),
+        ...(featureText !== undefined ? { features: parseFeatures(featureText) } : {}),
+        sheetRow0: row.sheetRow0,
+      });
+    }
+  });
+  return { ...base, vehicles, dimensions, issues };
+}
+
+/** A depot point from a latitude/longitude pair or one "lat, lon" column. */
+function readPoint(r: RowReader, latKey: string, lonKey: string, pairKey: string, what: string): LatLon | undefined {
+  const pairBlank = (!r.has(latKey) || r.blank(latKey)) && (!r.has(lonKey) || r.blank(lonKey));
+  if (pairBlank && r.has(pairKey) && !r.blank(pairKey)) {
+    if (r.excelErrorAt(pairKey)) return undefined;
+    const p = parseLatLon(r.raw(pairKey));
+    if (p === undefined || Math.abs(p.lat) > 90 || Math.abs(p.lon) > 180) {
+      r.fail(pairKey, `the ${what} ${JSON.stringify(String(plainCell(r.raw(pairKey))))} is not "latitude, longitude"; type decimal degrees such as "45.76, 4.83" (latitude -90..90, longitude -180..180).`);
+      return undefined;
+    }
+    return p;
+  }
+  const lat = axis(r, r.has(latKey) ? latKey : pairKey, "lat", what);
+  const lon = axis(r, r.has(lonKey) ? lonKey : pairKey, "lon", what);
+  return lat === undefined || lon === undefined ? undefined : { lat, lon };
+}
+
+function axis(r: RowReader, key: string, which: "lat" | "lon", what: string): number | undefined {
+  const word = which === "lat" ? "latitude" : "longitude";
+  if (r.blank(key)) {
+    r.fail(key, `the ${what} ${word} is empty; fill it in decimal degrees (such as ${which === "lat" ? "45.76" : "4.83"}).`);
+    return undefined;
+  }
+  if (r.excelErrorAt(key)) return undefined;
+  const d = readDegrees(r.raw(key), which);
+  const limit = which === "lat" ? 90 : 180;
+  if (d === undefined) {
+    r.fail(key, `${what} ${word} ${JSON.stringify(String(plainCell(r.raw(key))))} is not a coordinate; type decimal degrees such as ${which === "lat" ? "45.76" : "4.83"}.`);
+  } else if (Math.abs(d) > limit) {
+    r.fail(key, `${what} ${word} ${d} is outside -${limit}..${limit}; type decimal degrees${which === "lat" ? ", north positive" : ", east positive"}.`);
+    return undefined;
+  }
+  return d;
+}

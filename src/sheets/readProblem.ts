@@ -1,0 +1,200 @@
+import { buildMatrix, userMatrix } from "../core/geo/buildMatrix.js";
+import type { Issue, LatLon, Problem, Stop, Vehicle } from "../core/model.js";
+import type { SheetRead } from "../workbook/WorkbookPort.js";
+import { formatClock } from "./formatClock.js";
+import { parseFleet, type ParsedFleet } from "./parseFleet.js";
+import { parseMatrixSheet } from "./parseMatrixSheet.js";
+import { parseSettingsSheet } from "./parseSettingsSheet.js";
+import { parseStops, type ParsedStops } from "./parseStops.js";
+import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "./PlanSettings.js";
+import type { ReadResult, StopRow } from "./ReadResult.js";
+import { cellIssue } from "./readTable.js";
+
+/** Name of the one load dimension when neither Demand nor Capacity carries a unit word. */
+export const PLAIN_DIMENSION = "load";
+
+/**
+ * Read the stops and fleet tables (and the optional Settings and matrix sheets) into a
+ * `Problem`, or report every defect at once. Nothing here throws on user data.
+ *
+ * Settings: `overrides` (CLI flags, the pane) over the Settings sheet over
+ * `PLAN_SETTINGS_DEFAULTS`. Locations: the distinct depot points of the fleet first (by equal
+ * coordinates, named after the first vehicle using them, "Depot (Van A)"), then one per stop.
+ * The matrix is `buildMatrix(locations, { detourFactor, speedKmh })`, or the matrix sheet's km
+ * (`userMatrix`) when one is given. Load dimensions pair Demand <unit> with Capacity <unit>;
+ * a plain Demand and a plain Capacity make one dimension named "load".
+ *
+ * Checks beyond single cells: a stop whose every window lies outside every vehicle's shift
+ * (an issue under hard windows, a warning under soft ones, where it can be served late); a
+ * stop whose demand no vehicle can carry, or whose features no vehicle has (warnings: the
+ * solver reports it unassigned).
+ *
+ * @param input - the tables as read from the workbook
+ * @param overrides - settings that win over the Settings sheet
+ * @returns `{ ok: true, problem, ... }` or `{ ok: false, issues }`
+ * @example readProblem({ stops, fleet }).ok // => true when the tables are clean
+ */
+export function readProblem(
+  input: { stops: SheetRead; fleet: SheetRead; settings?: SheetRead; matrix?: SheetRead },
+  overrides: Partial<PlanSettings> = {},
+): ReadResult {
+  const issues: Issue[] = [];
+  const warnings: Issue[] = [];
+  const fromSheet = input.settings ? parseSettingsSheet(input.settings) : { settings: {}, issues: [] };
+  issues.push(...fromSheet.issues);
+  const settings: PlanSettings = { ...PLAN_SETTINGS_DEFAULTS, ...defined(fromSheet.settings), ...defined(overrides) };
+  issues.push(...checkSettings(settings, overrides));
+  const stops = parseStops(input.stops);
+  const fleet = parseFleet(input.fleet);
+  issues.push(...stops.issues, ...fleet.issues);
+  const stopColumns = stops.columns?.matches ?? [];
+  const fleetColumns = fleet.columns?.matches ?? [];
+  const dims = pairDimensions(input, stops, fleet, issues);
+  if (fleet.vehicles.length === 0 && fleet.issues.length === 0) {
+    issues.push(cellIssue(input.fleet.sheet, fleet.headerRow0, input.fleet.col, "no vehicle is available (every Count is 0); give at least one row a Count of 1 or more."));
+  }
+  if (issues.length > 0 || dims === undefined) return { ok: false, issues, stopColumns, fleetColumns };
+
+  const locations: (LatLon & { name?: string })[] = [];
+  const depotNames: string[][] = [];
+  const depotIndex = (p: LatLon, vehicleId: string): number => {
+    let i = locations.findIndex((l) => l.lat === p.lat && l.lon === p.lon);
+    if (i < 0) {
+      i = locations.push({ lat: p.lat, lon: p.lon, name: `Depot (${vehicleId})` }) - 1;
+      depotNames.push([`Depot (${vehicleId})`]);
+    }
+    depotNames[i]!.push(vehicleId);
+    return i;
+  };
+  const vehicles: Vehicle[] = fleet.vehicles.map((v) => ({
+    id: v.id,
+    capacity: dims.map((d) => (d.fleet === undefined ? Infinity : v.capacity.get(d.fleet) ?? 0)),
+    startLocation: depotIndex(v.start, v.id),
+    endLocation: depotIndex(v.end, v.id),
+    shiftStartMin: v.shiftStartMin,
+    shiftEndMin: v.shiftEndMin,
+    fixedCost: v.fixedCost,
+    costPerKm: v.costPerKm,
+    costPerHour: v.costPerHour,
+    speedKmh: v.speedKmh ?? settings.speedKmh,
+    ...(v.features !== undefined ? { features: v.features } : {}),
+    ...(v.maxStops !== undefined ? { maxStops: v.maxStops } : {}),
+  }));
+  if (depotNames.length === 1) depotNames[0]!.push("Depot");
+  const depots = locations.length;
+  const problemStops: Stop[] = stops.stops.map((s, i) => {
+    locations.push({ lat: s.position.lat, lon: s.position.lon, name: s.name });
+    return {
+      id: s.id,
+      name: s.name,
+      location: depots + i,
+      demand: dims.map((d) => (d.stops === undefined ? 0 : s.demand.get(d.stops) ?? 0)),
+      windows: s.windows,
+      serviceMin: s.serviceMin ?? settings.serviceMin,
+      ...(s.unservedCost !== undefined ? { unservedCost: s.unservedCost } : {}),
+      ...(s.requiredFeatures !== undefined ? { requiredFeatures: s.requiredFeatures } : {}),
+    };
+  });
+  let matrix = buildMatrix(locations, { detourFactor: settings.detourFactor, speedKmh: settings.speedKmh });
+  if (input.matrix) {
+    const names = [...depotNames, ...problemStops.map((s) => [s.id])];
+    const m = parseMatrixSheet(input.matrix, names);
+    if (m.distanceKm === undefined) return { ok: false, issues: m.issues, stopColumns, fleetColumns };
+    matrix = userMatrix(m.distanceKm, undefined, settings.speedKmh);
+  }
+  const problem: Problem = {
+    locations, stops: problemStops, vehicles, loadDimensions: dims.map((d) => d.name), matrix,
+    referenceSpeedKmh: settings.speedKmh, hardWindows: settings.hardWindows,
+    lateCostPerMin: settings.lateCostPerMin, objective: settings.objective,
+  };
+  checkServable(problem, stops, input.stops.sheet, issues, warnings);
+  if (issues.length > 0) return { ok: false, issues, stopColumns, fleetColumns };
+  const stopRows: StopRow[] = stops.stops.map((s, i) => ({ stop: i, sheetRow: s.sheetRow, extra: s.extra }));
+  return { ok: true, problem, settings, stopRows, extraHeaders: stops.extraHeaders, stopColumns, fleetColumns, warnings };
+}
+
+/** One load dimension: its name and the unit word of its stop and fleet columns. */
+interface Dimension {
+  readonly name: string;
+  readonly stops?: string;
+  readonly fleet?: string;
+}
+
+function pairDimensions(
+  input: { stops: SheetRead; fleet: SheetRead },
+  stops: ParsedStops,
+  fleet: ParsedFleet,
+  issues: Issue[],
+): Dimension[] | undefined {
+  if (!stops.columns || !fleet.columns) return undefined;
+  const sd = stops.dimensions;
+  const fd = fleet.dimensions;
+  if (sd.length === 1 && fd.length === 1 && (sd[0] === "" || fd[0] === "" || sd[0] === fd[0])) {
+    return [{ name: sd[0] || fd[0] || PLAIN_DIMENSION, stops: sd[0]!, fleet: fd[0]! }];
+  }
+  if (sd.length > 0 && fd.length === 0) {
+    issues.push(cellIssue(input.fleet.sheet, fleet.headerRow0, input.fleet.col, `the stops have a demand column but the fleet has no Capacity column; add ${sd.map((d) => (d === "" ? "Capacity" : `Capacity ${d}`)).join(" and ")}.`));
+    return undefined;
+  }
+  const out: Dimension[] = [];
+  let ok = true;
+  for (const d of sd) {
+    if (fd.includes(d)) {
+      out.push({ name: d === "" ? PLAIN_DIMENSION : d, stops: d, fleet: d });
+      continue;
+    }
+    const col = stops.columns.fields.get(d === "" ? "demand" : `demand:${d}`) ?? 0;
+    issues.push(cellIssue(input.stops.sheet, stops.headerRow0, stops.col0 + col, `demand column ${d === "" ? "Demand" : `"Demand ${d}"`} has no matching capacity column on the fleet (which has ${fd.map((f) => (f === "" ? "Capacity" : `Capacity ${f}`)).join(", ")}); name the pair with the same unit word, such as Demand kg and Capacity kg.`));
+    ok = false;
+  }
+  for (const f of fd) if (!sd.includes(f)) out.push({ name: f === "" ? PLAIN_DIMENSION : f, fleet: f });
+  return ok ? out : undefined;
+}
+
+function checkServable(problem: Problem, stops: ParsedStops, sheet: string, issues: Issue[], warnings: Issue[]): void {
+  const f = stops.columns!.fields;
+  const windowCol = f.get("earliest") ?? f.get("windows") ?? f.get("latest") ?? 0;
+  const demandCol = [...f.entries()].find(([k]) => k === "demand" || k.startsWith("demand:"))?.[1] ?? 0;
+  const vs = problem.vehicles;
+  const firstShift = Math.min(...vs.map((v) => v.shiftStartMin));
+  const lastShift = Math.max(...vs.map((v) => v.shiftEndMin));
+  problem.stops.forEach((s, i) => {
+    const row0 = stops.stops[i]!.sheetRow0;
+    const overlaps = s.windows.some((w) => vs.some((v) => w.latestMin >= v.shiftStartMin && w.earliestMin <= v.shiftEndMin));
+    if (!overlaps) {
+      const when = s.windows.map((w) => `${formatClock(w.earliestMin)}-${formatClock(w.latestMin)}`).join(", ");
+      const side = s.windows.every((w) => w.latestMin < firstShift)
+        ? `closes before any vehicle's shift starts (first shift start ${formatClock(firstShift)})`
+        : s.windows.every((w) => w.earliestMin > lastShift)
+          ? `opens after every vehicle's shift ends (last shift end ${formatClock(lastShift)})`
+          : "falls outside every vehicle's shift";
+      const issue = cellIssue(sheet, row0, stops.col0 + windowCol, `the time window of stop "${s.id}" (${when}) ${side}; widen the window or change a shift.`);
+      (problem.hardWindows ? issues : warnings).push(problem.hardWindows ? issue : { ...issue, message: `${issue.message} With soft windows it can only be served late.` });
+    }
+    const carriable = vs.some((v) => s.demand.every((d, k) => d <= (v.capacity[k] ?? 0)));
+    if (!carriable) {
+      warnings.push(cellIssue(sheet, row0, stops.col0 + demandCol, `the demand of stop "${s.id}" (${s.demand.map((d, k) => `${d} ${problem.loadDimensions[k]}`).join(", ")}) exceeds every vehicle's capacity; it will be left unassigned unless you split the stop into smaller ones or add a larger vehicle.`));
+    }
+    const need = s.requiredFeatures ?? [];
+    if (need.length > 0 && !vs.some((v) => need.every((x) => (v.features ?? []).includes(x)))) {
+      warnings.push(cellIssue(sheet, row0, stops.col0 + (f.get("features") ?? 0), `no vehicle has all the features stop "${s.id}" requires (${need.join(", ")}); it will be left unassigned unless a vehicle lists them under Features.`));
+    }
+  });
+}
+
+function checkSettings(s: PlanSettings, overrides: Partial<PlanSettings>): Issue[] {
+  const out: Issue[] = [];
+  const bad = (field: keyof PlanSettings, message: string): void => {
+    const sheet = field in overrides ? "options" : "Settings";
+    out.push({ sheet, cell: field, message: `${sheet} ${field}: ${message}` });
+  };
+  if (!(s.detourFactor >= 1)) bad("detourFactor", `detour factor ${s.detourFactor} is below 1; use 1 or more, such as 1.3.`);
+  if (!(s.speedKmh > 0)) bad("speedKmh", `speed ${s.speedKmh} km/h must be above 0, such as 40.`);
+  if (!(s.serviceMin >= 0)) bad("serviceMin", `service time ${s.serviceMin} min must be 0 or more.`);
+  if (!(s.lateCostPerMin >= 0)) bad("lateCostPerMin", `late cost ${s.lateCostPerMin} per minute must be 0 or more.`);
+  return out;
+}
+
+function defined<T extends object>(o: T): Partial<T> {
+  return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as Partial<T>;
+}

@@ -1,0 +1,78 @@
+import type { Issue } from "../core/model.js";
+import type { SheetRead } from "../workbook/WorkbookPort.js";
+import { cellAddress } from "./cellAddress.js";
+import { isBlank } from "./cellValue.js";
+import { findHeaderRow } from "./findHeaderRow.js";
+import { mapColumns, type TableColumns, type TableKind } from "./matchHeaders.js";
+
+/** A data row of a table: its raw cells and where it sits. */
+export interface TableRow {
+  /** 0-based row index in the sheet. */
+  readonly sheetRow0: number;
+  readonly cells: readonly unknown[];
+}
+
+/** A table found in a sheet range: header columns and the non-blank rows below it. */
+export interface Table {
+  readonly sheet: string;
+  /** 0-based column of the range's first cell in the sheet. */
+  readonly col0: number;
+  /** 0-based sheet row of the header. */
+  readonly headerRow0: number;
+  readonly columns: TableColumns;
+  readonly rows: readonly TableRow[];
+}
+
+/**
+ * Find the header row of a range, map its columns, and collect the rows below it
+ * (blank rows are skipped, not the end of the table).
+ *
+ * @param read - the sheet range as read
+ * @param kind - which table is expected
+ * @returns the table, or issues when the range is empty, has no header row or no data rows
+ * @example readTable({ sheet: "Stops", row: 0, col: 0, values: [["Stop", "Lat", "Lon"], ["a", 1, 2]] }, "stops").table?.rows.length // => 1
+ */
+export function readTable(read: SheetRead, kind: TableKind): { table?: Table; issues: Issue[] } {
+  const what = kind === "stops" ? "stops" : "vehicles";
+  const first = cellAddress(read.row, read.col);
+  if (read.values.every((row) => row.every(isBlank))) {
+    return {
+      issues: [{ sheet: read.sheet, cell: first, message: `${read.sheet}: the sheet is empty; add a header row and one row per ${kind === "stops" ? "stop" : "vehicle"} below it.` }],
+    };
+  }
+  const h = findHeaderRow(read.values, kind);
+  if (h === undefined) {
+    const examples = kind === "stops" ? "Stop, Name, Latitude, Longitude, Demand, Earliest, Latest" : "Vehicle, Capacity, Start latitude, Start longitude, Shift start, Shift end";
+    return {
+      issues: [{ sheet: read.sheet, cell: first, message: `${read.sheet}: no header row found in the first 30 rows; put headers such as ${examples} above the ${what}.` }],
+    };
+  }
+  const headerRow0 = read.row + h;
+  const columns = mapColumns(read.values[h] ?? [], kind, { sheet: read.sheet, row: headerRow0, col: read.col });
+  const rows: TableRow[] = [];
+  for (let r = h + 1; r < read.values.length; r++) {
+    const cells = read.values[r] ?? [];
+    if (!cells.every(isBlank)) rows.push({ sheetRow0: read.row + r, cells });
+  }
+  const issues = [...columns.issues];
+  if (rows.length === 0) {
+    const below = cellAddress(headerRow0 + 1, read.col);
+    issues.push({ sheet: read.sheet, cell: below, message: `${read.sheet}!${below}: the table has a header row but no ${what}; add one row per ${kind === "stops" ? "stop" : "vehicle"} from row ${headerRow0 + 2} down.` });
+  }
+  return { table: { sheet: read.sheet, col0: read.col, headerRow0, columns, rows }, issues };
+}
+
+/**
+ * An issue about one cell, its message prefixed with "Sheet!A1: ".
+ *
+ * @param sheet - sheet name
+ * @param row0 - 0-based sheet row
+ * @param col0 - 0-based sheet column
+ * @param message - what is wrong and how to fix it
+ * @returns the issue
+ * @example cellIssue("Stops", 6, 4, "latitude 123.4 is outside -90..90").message // => "Stops!E7: latitude 123.4 is outside -90..90"
+ */
+export function cellIssue(sheet: string, row0: number, col0: number, message: string): Issue {
+  const cell = cellAddress(row0, col0);
+  return { sheet, cell, message: `${sheet}!${cell}: ${message}` };
+}
