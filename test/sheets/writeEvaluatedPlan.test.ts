@@ -47,3 +47,18 @@ describe("layoutPlan of a plan from evaluatePlan", () => {
     expect(totals[7]).toBe(1);
   });
 });
+
+describe("layoutPlan of a plan that serves nothing", () => {
+  const reasons = problem.stops.map((_, stop) => ({ stop, reason: "no vehicle available" }));
+  const plan = evaluatePlan(problem, [[], [], []], reasons);
+  const layout = layoutPlan({ problem, plan, run });
+
+  it("keeps the route-table header with no rows, an empty chart, and lists every stop as unassigned", () => {
+    expect(layout.routeTable.rows).toBe(1);
+    expect(layout.chart.series).toEqual([]);
+    const values = layout.grid.values;
+    const h = values.findIndex((row, i) => i > layout.routeTable.row && row[0] === "Stop" && row[2] === "Reason");
+    expect(values.slice(h + 1).map((r) => r[0])).toEqual(["S1", "S2", "3-4", "S4", "S5"]);
+    expect(values[5]![0]).toBe(0);
+  });
+});
