@@ -106,10 +106,22 @@ export class ExcelJsWorkbook implements WorkbookPort {
     this.pinnedDate = modified;
   }
 
+  /**
+   * Sheet names in tab order, hidden ones included (as Excel's worksheet collection lists them).
+   * @example await book.listSheets() // => ["Stops", "Fleet", "Settings"]
+   */
   async listSheets(): Promise<string[]> {
     return this.book.worksheets.map((ws) => ws.name);
   }
 
+  /**
+   * The used range of a sheet as raw values (see `rawCellValue`): from the first to the last
+   * row and column holding a value; formatted but empty cells do not count.
+   *
+   * @param name - sheet name, matched ignoring case
+   * @returns the values with their 0-based offset, or `undefined` when there is no such sheet
+   * @example await book.readSheet("Stops") // => { sheet: "Stops", row: 0, col: 0, values: [["Stop", ...], ...] }
+   */
   async readSheet(name: string): Promise<SheetRead | undefined> {
     const ws = this.findSheet(name);
     if (!ws) return undefined;
@@ -134,12 +146,31 @@ export class ExcelJsWorkbook implements WorkbookPort {
     return { sheet: ws.name, row: top - 1, col: left - 1, values };
   }
 
+  /**
+   * Add a sheet at the end and write the grid at A1. The chart is not drawn (exceljs cannot
+   * write charts); the sheet is listed in `skippedCharts` instead.
+   *
+   * @param name - a free, valid sheet name (see `uniqueSheetName`)
+   * @param grid - values and their formats
+   * @param chart - the route chart the Excel adapter would draw
+   * @throws RangeError when the name is taken or invalid; TypeError on a value that is not a cell value
+   * @example await book.addSheet("Plan", layout.grid, layout.chart)
+   */
   async addSheet(name: string, grid: SheetGrid, chart?: RouteChart): Promise<void> {
     const ws = this.newSheet(name);
     writeGrid(ws, grid, 1);
     if (chart) this.skippedCharts.push(ws.name);
   }
 
+  /**
+   * Append rows below the last row holding a value; create the sheet with `header` (and its
+   * widths and frozen rows) first when it does not exist.
+   *
+   * @param name - sheet name, matched ignoring case
+   * @param header - written only when the sheet is created
+   * @param rows - the rows to append, with their formats
+   * @example await book.appendRows("Compare", layoutCompareHeader(), layoutCompareRow(run, plan))
+   */
   async appendRows(name: string, header: SheetGrid, rows: SheetGrid): Promise<void> {
     let ws = this.findSheet(name);
     if (!ws) {
@@ -149,6 +180,11 @@ export class ExcelJsWorkbook implements WorkbookPort {
     writeGrid(ws, rows, lastUsedRow(ws) + 1, { layout: false });
   }
 
+  /**
+   * The key/value rows of the very hidden settings sheet (`SETTINGS_SHEET`).
+   * @returns every stored key and its text; `{}` when the file has none
+   * @example await book.readSettings() // => { "kiln.scenario.Plan": "{...}" }
+   */
   async readSettings(): Promise<Record<string, string>> {
     const ws = this.findSheet(SETTINGS_SHEET);
     const settings: Record<string, string> = {};
@@ -162,6 +198,14 @@ export class ExcelJsWorkbook implements WorkbookPort {
     return settings;
   }
 
+  /**
+   * Store one key on the very hidden settings sheet, replacing its row when the key exists.
+   *
+   * @param key - non-empty key
+   * @param value - text of at most 32,767 characters (Excel's cell limit)
+   * @throws TypeError on a missing key or a non-string value; RangeError on a too long value
+   * @example await book.writeSetting(scenarioSettingsKey("Plan"), JSON.stringify(run))
+   */
   async writeSetting(key: string, value: string): Promise<void> {
     if (typeof key !== "string" || key === "") throw new TypeError("key must be a non-empty string");
     if (typeof value !== "string") throw new TypeError("value must be a string");
