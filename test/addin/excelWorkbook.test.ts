@@ -1,0 +1,416 @@
+/**
+ * The Office.js adapter against office-addin-mock (Microsoft's mock of the Office.js
+ * object model: `load`, `sync`, and "Error, property was not loaded" for what was not
+ * loaded). The mock has no collections and does not reach objects created at run time
+ * (OFFICE-NOTES.md), so sheets added by the adapter are plain recorders: every assignment
+ * and call lands in `log`, and each range checks, like Excel, that a 2-D array assigned to
+ * it has exactly its size (Office.js `Range.values` contract).
+ */
+import { afterEach, describe, expect, it } from "vitest";
+import { OfficeMockObject } from "office-addin-mock";
+import { ExcelWorkbook } from "../../src/workbook/excel/ExcelWorkbook.js";
+import { OfficeActionError } from "../../src/workbook/excel/OfficeActionError.js";
+import type { SheetGrid, RouteChart } from "../../src/sheets/grid.js";
+
+type Entry = [string, ...unknown[]];
+const NOT_LOADED = /property was not loaded|context\.sync\(\) was not called/;
+
+interface Fake {
+  log: Entry[];
+  syncs: () => number;
+  /** Make the n-th sync from now (1 = the next) reject with this error. */
+  failSync: (n: number, error: unknown) => void;
+  notices: string[];
+}
+
+let fake: Fake;
+
+function a1Size(address: string): { rows: number; cols: number } {
+  const parts = address.split(":").map((p) => /^([A-Z]+)(\d+)$/.exec(p)!);
+  const col = (s: string) => [...s].reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0);
+  const [a, b] = [parts[0]!, parts[1] ?? parts[0]!];
+  return { rows: Number(b[2]) - Number(a[2]) + 1, cols: col(b[1]!) - col(a[1]!) + 1 };
+}
+
+function recordingRange(log: Entry[], sheet: string, address: string): unknown {
+  const sized = (what: string, v: unknown[][]) => {
+    if (/^[A-Z]+:[A-Z]+$/.test(address)) return;
+    const { rows, cols } = a1Size(address);
+    if (v.length !== rows || v.some((r) => r.length !== cols)) throw new Error(`InvalidArgument: ${what} of ${address} is not ${rows}x${cols}`);
+  };
+  return {
+    set numberFormat(v: unknown[][]) { sized("numberFormat", v); log.push(["numberFormat", sheet, address, v]); },
+    set values(v: unknown[][]) { sized("values", v); log.push(["values", sheet, address, v]); },
+    format: {
+      set columnWidth(v: number) { log.push(["columnWidth", sheet, address, v]); },
+      font: { set bold(v: boolean) { log.push(["bold", sheet, address, v]); } },
+    },
+    select() { log.push(["select", sheet, address]); },
+  };
+}
+
+function recordingSeries(log: Entry[], name: string | undefined): unknown {
+  return {
+    set name(v: string) { log.push(["series.name", v]); },
+    setXAxisValues(r: unknown) { log.push(["series.x", name, r]); },
+    setValues(r: unknown) { log.push(["series.y", name, r]); },
+  };
+}
+
+function recordingSheet(log: Entry[], name: string): unknown {
+  return {
+    getRange: (address: string) => recordingRange(log, name, address),
+    freezePanes: { freezeRows: (n: number) => log.push(["freezeRows", name, n]) },
+    activate: () => log.push(["activate", name]),
+    charts: {
+      add: (type: string, source: unknown, by: string) => {
+        log.push(["charts.add", type, source, by]);
+        return {
+          title: { set text(v: string) { log.push(["chart.title", v]); } },
+          setPosition: (cell: string) => log.push(["chart.position", cell]),
+          set width(v: number) { log.push(["chart.width", v]); },
+          set height(v: number) { log.push(["chart.height", v]); },
+          series: {
+            getItemAt: (i: number) => { log.push(["series.getItemAt", i]); return recordingSeries(log, "#0"); },
+            add: (n: string) => { log.push(["series.add", n]); return recordingSeries(log, n); },
+          },
+        };
+      },
+    },
+  };
+}
+
+interface Setup {
+  sheets?: Record<string, { values: unknown[][]; rowIndex?: number; columnIndex?: number } | "empty">;
+  excelApi?: string;
+  selection?: { sheet: string; address: string; values: unknown[][]; rowIndex: number; columnIndex: number };
+  table?: { name: string; address: string; values: unknown[][]; rowIndex: number; columnIndex: number };
+  settings?: { key: string; value: unknown }[];
+  /** Ranges readable through getItem(sheet).getRange(address), keyed "Sheet!A1:B2". */
+  ranges?: Record<string, Record<string, unknown>>;
+}
+
+function install(setup: Setup): ExcelWorkbook {
+  const log: Entry[] = [];
+  const present = new Set(Object.keys(setup.sheets ?? {}));
+  let syncCount = 0;
+  const failures = new Map<number, unknown>();
+  const used: Record<string, unknown> = {};
+  for (const [name, s] of Object.entries(setup.sheets ?? {})) {
+    used[name] = s === "empty"
+      ? { isNullObject: true, values: [], rowIndex: 0, columnIndex: 0, rowCount: 0 }
+      : { isNullObject: false, values: s.values, rowIndex: s.rowIndex ?? 0, columnIndex: s.columnIndex ?? 0, rowCount: s.values.length };
+  }
+  const sel = setup.selection ?? { sheet: "Stops", address: "Stops!A1:B2", values: [["Stop", "Name"], ["S1", "Bakery"]], rowIndex: 0, columnIndex: 0 };
+  const seed = {
+    context: {
+      workbook: {
+        worksheets: {
+          used,
+          nullSheet: { isNullObject: true },
+          liveSheet: { isNullObject: false, delete: function () { log.push(["delete", this.lastName]); }, lastName: "" },
+          active: { name: "Fleet" },
+          ranges: setup.ranges ?? {},
+          missingRange: { isNullObject: false, values: [], valuesAsJson: [], rowIndex: 0, columnIndex: 0, rowCount: 0 },
+          items: [...present].map((name) => ({ name })),
+          load: function (this: OfficeMockObject, arg: unknown) {
+            log.push(["worksheets.load", arg]);
+            return OfficeMockObject.prototype.load.call(this, "items");
+          },
+          getItemOrNullObject: function (this: Record<string, Record<string, unknown>>, name: string) {
+            log.push(["getItemOrNullObject", name]);
+            if (!present.has(name)) return this.nullSheet;
+            (this.liveSheet as { lastName?: string }).lastName = name;
+            return this.liveSheet;
+          },
+          getItem: function (this: Record<string, Record<string, unknown>>, name: string) {
+            log.push(["getItem", name]);
+            if (!present.has(name)) failures.set(syncCount + 1, { code: "ItemNotFound", message: "The requested resource doesn't exist.", debugInfo: { errorLocation: "WorksheetCollection.getItem" } });
+            const book = this;
+            return {
+              ...(recordingSheet(log, name) as object),
+              getUsedRangeOrNullObject: (valuesOnly: boolean) => {
+                log.push(["getUsedRangeOrNullObject", name, valuesOnly]);
+                return present.has(name) ? book.used![name] : book.missingRange;
+              },
+              getRange: (address: string) => {
+                if (!present.has(name)) return book.missingRange;
+                return book.ranges![`${name}!${address}`] ?? recordingRange(log, name, address);
+              },
+            };
+          },
+          add: function (name: string) { log.push(["add", name]); present.add(name); return recordingSheet(log, name); },
+          getActiveWorksheet: function (this: Record<string, unknown>) { return this.active; },
+        },
+        settings: {
+          items: setup.settings ?? [],
+          add: function (key: string, value: unknown) { log.push(["settings.add", key, value]); },
+        },
+        tableRange: { address: setup.table?.address ?? "", values: setup.table?.values ?? [], rowIndex: setup.table?.rowIndex ?? 0, columnIndex: setup.table?.columnIndex ?? 0 },
+        tables: {
+          // Collection items are plain data in the mock; their getRange hands back the pre-seeded range.
+          items: setup.table ? [{ name: setup.table.name, getRange: () => seedRoot.context.workbook.tableRange }] : [],
+          load: function (this: OfficeMockObject, arg: unknown) { log.push(["tables.load", arg]); return OfficeMockObject.prototype.load.call(this, "items"); },
+        },
+        selection: {
+          address: sel.address, values: sel.values, rowIndex: sel.rowIndex, columnIndex: sel.columnIndex,
+          worksheet: { name: sel.sheet },
+          getTables: function (fullyContained: boolean) { log.push(["getTables", fullyContained]); return seedRoot.context.workbook.tables; },
+        },
+        getSelectedRange: function (this: Record<string, unknown>) { log.push(["getSelectedRange"]); return this.selection; },
+      },
+    },
+    run: async function (this: { context: unknown }, cb: (c: unknown) => unknown) { return cb(this.context); },
+  };
+  const mock = new OfficeMockObject(seed) as unknown as typeof seed & { context: { sync: () => Promise<void> } };
+  const seedRoot = mock;
+  const original = mock.context.sync.bind(mock.context);
+  mock.context.sync = async () => {
+    syncCount++;
+    log.push(["sync"]);
+    const failure = failures.get(syncCount);
+    if (failure !== undefined) { failures.delete(syncCount); throw failure; }
+    await original();
+  };
+  Object.assign(mock, { ChartType: { xyscatterLines: "XYScatterLines" }, ChartSeriesBy: { columns: "Columns" } });
+  const max = setup.excelApi ?? "1.16";
+  const num = (v: string) => v.split(".").map(Number) as [number, number];
+  const atLeast = (v: string) => { const [a, b] = num(max); const [c, d] = num(v); return a > c || (a === c && b >= d); };
+  Object.assign(globalThis, {
+    Excel: mock,
+    Office: { context: { requirements: { isSetSupported: (name: string, v: string) => name === "ExcelApi" && atLeast(v) } } },
+  });
+  const notices: string[] = [];
+  fake = { log, syncs: () => syncCount, failSync: (n, e) => failures.set(syncCount + n, e), notices };
+  return new ExcelWorkbook({ onNotice: (m) => notices.push(m) });
+}
+
+function neverNotLoaded(value: unknown): void {
+  expect(JSON.stringify(value)).not.toMatch(NOT_LOADED);
+  for (const entry of fake.log) expect(JSON.stringify(entry) ?? "").not.toMatch(NOT_LOADED);
+}
+
+const entries = (kind: string) => fake.log.filter((e) => e[0] === kind);
+
+afterEach(() => { Reflect.deleteProperty(globalThis, "Excel"); Reflect.deleteProperty(globalThis, "Office"); });
+
+describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFICE-NOTES.md)", () => {
+  it("readSelection returns the selected values, address and position after one sync", async () => {
+    const book = install({ excelApi: "1.7", selection: { sheet: "Stops", address: "Stops!B3:C4", values: [["S1", 52.1], ["S2", 52.2]], rowIndex: 2, columnIndex: 1 } });
+    const got = await book.readSelection();
+    expect(got).toEqual({ read: { sheet: "Stops", row: 2, col: 1, values: [["S1", 52.1], ["S2", 52.2]] }, address: "Stops!B3:C4" });
+    expect(fake.syncs()).toBe(1);
+    expect(entries("getTables")).toEqual([]); // ExcelApi 1.9 missing: plain selection, no table lookup
+    neverNotLoaded(got);
+  });
+
+  it("readSelection widens a selection inside an Excel table to the whole table (ExcelApi 1.9)", async () => {
+    const book = install({
+      selection: { sheet: "Stops", address: "Stops!B3", values: [["Bakery"]], rowIndex: 2, columnIndex: 1 },
+      table: { name: "StopsTable", address: "Stops!A1:C4", values: [["Stop", "Name", "Lat"], ["S1", "Mill", 1], ["S2", "Bakery", 2], ["S3", "Dock", 3]], rowIndex: 0, columnIndex: 0 },
+    });
+    const got = await book.readSelection();
+    expect(got.tableName).toBe("StopsTable");
+    expect(got.address).toBe("Stops!A1:C4");
+    expect(got.read.values).toHaveLength(4);
+    expect(entries("tables.load")).toEqual([["tables.load", "items/name"]]);
+    expect(fake.syncs()).toBe(2);
+    neverNotLoaded(got);
+  });
+
+  it("readSheet reads the used range (values only) and reports where it starts", async () => {
+    const book = install({ sheets: { Fleet: { values: [["Vehicle", "Count"], ["Van", 2]], rowIndex: 3, columnIndex: 1 } } });
+    const got = await book.readSheet("Fleet");
+    expect(got).toEqual({ sheet: "Fleet", row: 3, col: 1, values: [["Vehicle", "Count"], ["Van", 2]] });
+    expect(entries("getUsedRangeOrNullObject")).toEqual([["getUsedRangeOrNullObject", "Fleet", true]]);
+    expect(fake.syncs()).toBe(1);
+    neverNotLoaded(got);
+  });
+
+  it("readSheet gives undefined for a missing sheet (Office error code ItemNotFound) and [] for an empty one", async () => {
+    const book = install({ sheets: { Blank: "empty" } });
+    expect(await book.readSheet("Nope")).toBeUndefined();
+    expect(await book.readSheet("Blank")).toEqual({ sheet: "Blank", row: 0, col: 0, values: [] });
+  });
+
+  it("listSheets loads only the names; activeSheetName reads the active sheet", async () => {
+    const book = install({ sheets: { Stops: "empty", Fleet: "empty" } });
+    expect(await book.listSheets()).toEqual(["Stops", "Fleet"]);
+    expect(entries("worksheets.load")).toEqual([["worksheets.load", "items/name"]]);
+    expect(await book.activeSheetName()).toBe("Fleet");
+  });
+
+  it("readRange reads a sheet-qualified address and rejects a malformed one", async () => {
+    const book = install({ sheets: { "Bob's van": "empty" }, ranges: { "Bob's van!B2:C3": { values: [[1, 2], [3, 4]], rowIndex: 1, columnIndex: 1 } } });
+    const got = await book.readRange("'Bob''s van'!B2:C3");
+    expect(got).toEqual({ sheet: "Bob's van", row: 1, col: 1, values: [[1, 2], [3, 4]] });
+    expect(fake.syncs()).toBe(1);
+    neverNotLoaded(got);
+    await expect(book.readRange("A1:B2")).rejects.toThrow(RangeError);
+    await expect(book.readRange("Gone!A1:B2")).rejects.toThrow(/Could not read Gone!A1:B2: .*ItemNotFound/);
+  });
+});
+
+describe("writing a scenario sheet (office-addin-mock recorders; batching per STYLE.md §8)", () => {
+  const grid: SheetGrid = {
+    values: [["Scenario", "=SUM(A1)", null], ["Vehicle", "Longitude", "Latitude"], ["Van 1", 10.7, 59.9], ["Van 1", 10.8, 59.95], ["Van 2", 10.6, 59.8], ["Van 2", 10.65, 59.85]],
+    numberFormats: [[null, null, null], [null, null, null], [null, "0.0000", "0.0000"], [null, "0.0000", "0.0000"], [null, "0.0000", "0.0000"], [null, "0.0000", "0.0000"]],
+    columnWidths: [12, 10, 10],
+    freezeRows: 2,
+    boldRows: [0, 1],
+  };
+  const chart: RouteChart = {
+    title: "Routes",
+    series: [
+      { name: "Van 1", x: { row: 2, col: 1, rows: 2, cols: 1 }, y: { row: 2, col: 2, rows: 2, cols: 1 } },
+      { name: "Van 2", x: { row: 4, col: 1, rows: 2, cols: 1 }, y: { row: 4, col: 2, rows: 2, cols: 1 } },
+    ],
+    anchor: { row: 0, col: 5 },
+  };
+
+  it("checks the name, then writes formats before values, widths, bold, frozen rows and the chart in one sync", async () => {
+    const book = install({ sheets: { Stops: "empty" } });
+    await book.addSheet("Run 1", grid, chart);
+    expect(fake.syncs()).toBe(2); // one read (is the name free?) and one write
+    const kinds = fake.log.map((e) => e[0]);
+    expect(kinds.slice(0, 3)).toEqual(["getItemOrNullObject", "sync", "add"]);
+    expect(kinds.indexOf("numberFormat")).toBeLessThan(kinds.indexOf("values"));
+    expect(kinds.lastIndexOf("sync")).toBe(kinds.length - 1);
+    const [, , address, values] = entries("values")[0]!;
+    expect(address).toBe("A1:C6");
+    expect((values as unknown[][])[0]).toEqual(["Scenario", "'=SUM(A1)", ""]);
+    const formats = entries("numberFormat")[0]![3] as string[][];
+    expect(formats[0]).toEqual(["@", "@", "General"]);
+    expect(formats[2]).toEqual(["@", "0.0000", "0.0000"]);
+    // 12 characters -> 12 * 7 + 5 = 89 px -> 66.75 pt (ECMA-376 column width, 96 dpi)
+    expect(entries("columnWidth")).toEqual([["columnWidth", "Run 1", "A:A", 66.75], ["columnWidth", "Run 1", "B:B", 56.25], ["columnWidth", "Run 1", "C:C", 56.25]]);
+    expect(entries("bold").map((e) => e[2])).toEqual(["A1:C1", "A2:C2"]);
+    expect(entries("freezeRows")).toEqual([["freezeRows", "Run 1", 2]]);
+  });
+
+  it("draws an XY scatter-with-lines chart with one series per vehicle from cell ranges (ExcelApi 1.7)", async () => {
+    const book = install({});
+    await book.addSheet("Run 1", grid, chart);
+    const add = entries("charts.add")[0]!;
+    expect(add[1]).toBe("XYScatterLines");
+    expect(add[3]).toBe("Columns");
+    expect(entries("series.getItemAt")).toEqual([["series.getItemAt", 0]]);
+    expect(entries("series.name")).toEqual([["series.name", "Van 1"]]);
+    expect(entries("series.add")).toEqual([["series.add", "Van 2"]]);
+    expect(entries("series.x")).toHaveLength(2);
+    expect(entries("series.y")).toHaveLength(2);
+    expect(entries("chart.title")).toEqual([["chart.title", "Routes"]]);
+    expect(entries("chart.position")).toEqual([["chart.position", "F1"]]);
+    expect(fake.notices).toEqual([]);
+  });
+
+  it("skips the chart and frozen rows on ExcelApi 1.4 and says so", async () => {
+    const book = install({ excelApi: "1.4" });
+    await book.addSheet("Run 1", grid, chart);
+    expect(entries("charts.add")).toEqual([]);
+    expect(entries("freezeRows")).toEqual([]);
+    expect(fake.notices.join(" ")).toMatch(/chart .* skipped: it needs .*ExcelApi 1\.7/);
+    expect(entries("values")).toHaveLength(1);
+  });
+
+  it("splits a large grid into row chunks with one sync each, formats before values in every chunk", async () => {
+    install({});
+    const rows = Array.from({ length: 10 }, (_, r) => [`S${r}`, r, r * 2]);
+    const small = new ExcelWorkbook({ chunkCells: 9 }); // 3 rows of 3 cells per chunk
+    await small.addSheet("Big", { values: rows });
+    expect(entries("values").map((e) => e[2])).toEqual(["A1:C3", "A4:C6", "A7:C9", "A10:C10"]);
+    expect(fake.syncs()).toBe(1 + 4);
+    const kinds = fake.log.filter((e) => ["numberFormat", "values", "sync"].includes(e[0])).map((e) => e[0]);
+    expect(kinds).toEqual(["sync", ...Array(4).fill(["numberFormat", "values", "sync"]).flat()]);
+  });
+
+  it("never sends user text that starts with = + - @ as a formula: format '@' and Excel's text prefix", async () => {
+    const book = install({});
+    await book.addSheet("Inject", { values: [["=SUM(A1)", "+1", "-x", "@cmd", "plain", 5]] });
+    expect(entries("values")[0]![3]).toEqual([["'=SUM(A1)", "'+1", "'-x", "'@cmd", "plain", 5]]);
+    expect(entries("numberFormat")[0]![3]).toEqual([["@", "@", "@", "@", "@", "General"]]);
+  });
+
+  it("a failing write sync deletes the half-written sheet in a new batch and keeps Office's debugInfo", async () => {
+    const book = install({});
+    fake.failSync(2, { code: "InvalidArgument", message: "The argument is invalid.", debugInfo: { errorLocation: "Range.values" } });
+    const error = await book.addSheet("Run 2", grid, chart).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(OfficeActionError);
+    expect((error as OfficeActionError).message).toMatch(/Could not write the sheet "Run 2" \(the half-written sheet was removed\): The argument is invalid\. \(InvalidArgument\)/);
+    expect((error as OfficeActionError).debugInfo).toEqual({ errorLocation: "Range.values" });
+    expect(entries("delete")).toEqual([["delete", "Run 2"]]);
+    const kinds = fake.log.map((e) => e[0]);
+    expect(kinds.indexOf("delete")).toBeGreaterThan(kinds.indexOf("add"));
+    expect(kinds[kinds.length - 1]).toBe("sync"); // the deletion was synced
+  });
+
+  it("refuses a taken name and one Excel forbids, without adding anything", async () => {
+    const book = install({ sheets: { "Run 1": "empty" } });
+    await expect(book.addSheet("Run 1", grid)).rejects.toThrow(/already exists/);
+    await expect(book.addSheet("Run [2]", grid)).rejects.toThrow(RangeError);
+    await expect(book.addSheet("x".repeat(32), grid)).rejects.toThrow(RangeError);
+    expect(entries("add")).toEqual([]);
+  });
+});
+
+describe("the Compare sheet (office-addin-mock)", () => {
+  const header: SheetGrid = { values: [["Scenario", "Km"]], boldRows: [0], freezeRows: 1 };
+  const row: SheetGrid = { values: [["Run 3", 41.5]] };
+
+  it("appends below the last used row, without rewriting the header, in one read and one write", async () => {
+    const book = install({ sheets: { Compare: { values: [["Scenario", "Km"], ["Run 1", 40], ["Run 2", 38]], rowIndex: 0 } } });
+    await book.appendRows("Compare", header, row);
+    expect(entries("values")).toEqual([["values", "Compare", "A4:B4", [["Run 3", 41.5]]]]);
+    expect(entries("add")).toEqual([]);
+    expect(fake.syncs()).toBe(2);
+  });
+
+  it("creates a missing Compare sheet with the header first", async () => {
+    const book = install({});
+    await book.appendRows("Compare", header, row);
+    expect(entries("add")).toEqual([["add", "Compare"]]);
+    expect(entries("values").map((e) => [e[2], e[3]])).toEqual([["A1:B1", [["Scenario", "Km"]]], ["A2:B2", [["Run 3", 41.5]]]]);
+    expect(entries("freezeRows")).toEqual([["freezeRows", "Compare", 1]]);
+  });
+});
+
+describe("settings, selection of issue cells, Geography cells (office-addin-mock)", () => {
+  it("writeSetting stores through workbook.settings.add in one sync; readSettings returns text", async () => {
+    const book = install({ settings: [{ key: "kiln.scenario.Run 1", value: '{"seed":1}' }, { key: "n", value: 3 }] });
+    await book.writeSetting("kiln.scenario.Run 2", '{"seed":2}');
+    expect(entries("settings.add")).toEqual([["settings.add", "kiln.scenario.Run 2", '{"seed":2}']]);
+    expect(fake.syncs()).toBe(1);
+    const got = await book.readSettings();
+    expect(got).toEqual({ "kiln.scenario.Run 1": '{"seed":1}', n: "3" });
+    neverNotLoaded(got);
+  });
+
+  it("selectCell activates the sheet and selects the cell; rejects a non-address", async () => {
+    const book = install({ sheets: { Stops: "empty" } });
+    await book.selectCell("Stops", "E7");
+    expect(fake.log.filter((e) => e[0] === "activate" || e[0] === "select")).toEqual([["activate", "Stops"], ["select", "Stops", "E7"]]);
+    await expect(book.selectCell("Stops", "=E7")).rejects.toThrow(RangeError);
+  });
+
+  it("readGeography says it is unavailable below ExcelApi 1.16", async () => {
+    const book = install({ excelApi: "1.9" });
+    const got = await book.readGeography("Stops!C2:C3");
+    expect(got.available).toBe(false);
+    expect(fake.syncs()).toBe(0);
+  });
+
+  it("readGeography reads valuesAsJson linked entities (shape of Excel.LinkedEntityCellValue in @types/office-js)", async () => {
+    const book = install({
+      sheets: { Stops: "empty" },
+      ranges: {
+        "Stops!C2:C3": {
+          valuesAsJson: [[{ type: "LinkedEntity", text: "Oslo", properties: { Latitude: { type: "Double", basicValue: 59.91 }, Longitude: { type: "Double", basicValue: 10.75 } } }], [{ type: "String", basicValue: "Depot" }]],
+          rowIndex: 1, columnIndex: 2,
+        },
+      },
+    });
+    const got = await book.readGeography("Stops!C2:C3");
+    expect(got).toEqual({ available: true, sheet: "Stops", row: 1, col: 2, cells: [[{ kind: "place", label: "Oslo", at: { lat: 59.91, lon: 10.75 } }], [{ kind: "notEntity" }]] });
+    expect(fake.syncs()).toBe(1);
+  });
+});
