@@ -1,0 +1,196 @@
+/**
+ * End to end in a real browser (Debian's Chromium through playwright-core, never a downloaded
+ * one): the built standalone page opens the demo workbook, previews a schedule change, runs,
+ * stops early, writes and downloads the workbook; exceljs (the reference reader) then checks the
+ * downloaded file. Skips with a printed reason when Chromium is absent, fails under CI.
+ */
+import { execFileSync } from "node:child_process";
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync } from "node:fs";
+import type { Server } from "node:http";
+import { tmpdir } from "node:os";
+import { join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import ExcelJS from "exceljs";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { serveStatic } from "../../scripts/serveStatic.js";
+
+const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
+const DIST = join(ROOT, "dist");
+const DEMO = join(ROOT, "demo", "kiln-demo.xlsx");
+const ARTIFACTS = join(ROOT, "test-artifacts");
+
+function findChromium(): string | undefined {
+  try {
+    const found = execFileSync("which", ["chromium"], { encoding: "utf8" }).trim();
+    if (found) return found;
+  } catch {
+    // not on PATH: try Debian's usual location below
+  }
+  return existsSync("/usr/bin/chromium") ? "/usr/bin/chromium" : undefined;
+}
+
+const CHROMIUM = findChromium();
+if (!CHROMIUM) {
+  if (process.env.CI) throw new Error("Chromium is required under CI: install Debian's chromium package (/usr/bin/chromium).");
+  console.warn("Skipping the browser test: no Chromium found (which chromium, /usr/bin/chromium).");
+}
+
+/** Newest modification time under `dir` (ms). */
+function newest(dir: string): number {
+  let t = 0;
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    const p = join(dir, entry.name);
+    t = Math.max(t, entry.isDirectory() ? newest(p) : statSync(p).mtimeMs);
+  }
+  return t;
+}
+
+function ensureBuild(): void {
+  const built = join(DIST, "taskpane.html");
+  const sources = Math.max(newest(join(ROOT, "src")), statSync(join(ROOT, "webpack.config.cjs")).mtimeMs);
+  if (existsSync(built) && statSync(built).mtimeMs >= sources) return;
+  execFileSync(process.execPath, [join(ROOT, "node_modules", "webpack", "bin", "webpack.js"), "--mode", "production"], {
+    cwd: ROOT,
+    stdio: "inherit",
+    timeout: 600_000,
+  });
+}
+
+/** The demo workbook, or (until the demo exists) a small one built here with invented rows. */
+async function inputWorkbook(): Promise<{ path: string; cleanup: () => void }> {
+  if (existsSync(DEMO)) return { path: DEMO, cleanup: () => undefined };
+  const dir = mkdtempSync(join(tmpdir(), "kiln-input-"));
+  const wb = new ExcelJS.Workbook();
+  const stops = wb.addWorksheet("Stops");
+  stops.addRow(["Stop", "Name", "Latitude", "Longitude", "Demand", "Earliest", "Latest", "Service min"]);
+  const spots = [[53.96, -1.08], [53.97, -1.1], [53.95, -1.06], [53.98, -1.07], [53.94, -1.09], [53.965, -1.12]];
+  spots.forEach(([lat, lon], i) => stops.addRow([`S${i + 1}`, `Shop ${i + 1}`, lat, lon, 10, "08:00", "12:00", 5]));
+  const fleet = wb.addWorksheet("Fleet");
+  fleet.addRow(["Vehicle", "Capacity", "Start latitude", "Start longitude", "Shift start", "Shift end"]);
+  fleet.addRow(["Van A", 40, 53.959, -1.081, "07:00", "14:00"]);
+  fleet.addRow(["Van B", 40, 53.959, -1.081, "07:00", "14:00"]);
+  const path = join(dir, "kiln-demo.xlsx");
+  await wb.xlsx.writeFile(path);
+  return { path, cleanup: () => rmSync(dir, { recursive: true, force: true }) };
+}
+
+async function sheetValues(wb: ExcelJS.Workbook, name: string): Promise<unknown[][]> {
+  const ws = wb.getWorksheet(name);
+  if (!ws) return [];
+  const rows: unknown[][] = [];
+  ws.eachRow({ includeEmpty: true }, (row, n) => {
+    rows[n - 1] = (row.values as unknown[]).slice(1).map((v) => (v instanceof Date ? v.toISOString() : v));
+  });
+  return rows;
+}
+
+describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
+  let server: Server | undefined;
+  let baseUrl = "";
+  let context: BrowserContext | undefined;
+  let page: Page;
+  let userDataDir = "";
+
+  beforeAll(async () => {
+    ensureBuild();
+    ({ server, url: baseUrl } = await serveStatic(DIST));
+    userDataDir = mkdtempSync(join(tmpdir(), "kiln-chromium-"));
+    context = await chromium.launchPersistentContext(userDataDir, {
+      executablePath: CHROMIUM!,
+      headless: true,
+      args: ["--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+      viewport: { width: 360, height: 900 },
+      acceptDownloads: true,
+    });
+    page = context.pages()[0] ?? (await context.newPage());
+    page.on("pageerror", (err) => console.error("page error:", err.message));
+  }, 600_000);
+
+  afterAll(async () => {
+    await context?.close();
+    await new Promise<void>((ok) => (server ? server.close(() => ok()) : ok()));
+    if (userDataDir) rmSync(userDataDir, { recursive: true, force: true });
+  });
+
+  it("opens a workbook, previews, optimizes, stops early and downloads scenario + Compare with inputs unchanged (checked with exceljs)", async () => {
+    const input = await inputWorkbook();
+    try {
+      // Block everything but our own server: nothing may leave the machine.
+      const outside: string[] = [];
+      await page.route("**/*", (route) => {
+        const url = route.request().url();
+        if (url.startsWith(baseUrl) || url.startsWith("blob:") || url.startsWith("data:")) return route.continue();
+        outside.push(url);
+        return route.abort();
+      });
+      await page.goto(`${baseUrl}/taskpane.html`);
+      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+      await expect(page.locator("#caution").textContent()).resolves.toMatch(/estimates/i);
+
+      await page.setInputFiles("#file-input", input.path);
+      await expect.poll(() => page.locator("#stops-summary").textContent(), { timeout: 30_000 }).toMatch(/data rows?/);
+      await expect.poll(() => page.locator("#fleet-summary").textContent(), { timeout: 30_000 }).toMatch(/data rows?/);
+      await expect(page.locator("#stops-issues li:not(.warning)").count()).resolves.toBe(0);
+      await page.waitForSelector("#cooling-reading.ok", { timeout: 60_000 });
+      const before = await page.locator("#cooling-plot").getAttribute("data-profile");
+      const readingBefore = await page.locator("#cooling-reading").textContent();
+
+      // A geometric schedule that cools fast must draw a different profile.
+      await page.selectOption("#schedule", "geometric");
+      await page.fill("#alpha", "0.5");
+      await page.fill("#moves-per-level", "1000");
+      await page.locator("#moves-per-level").dispatchEvent("change");
+      await expect.poll(() => page.locator("#cooling-plot").getAttribute("data-profile")).not.toBe(before);
+      await expect.poll(() => page.locator("#cooling-reading").textContent()).not.toBe(readingBefore);
+      await page.selectOption("#schedule", "timeFraction");
+
+      await page.fill("#seconds", "60");
+      await page.locator("#seconds").dispatchEvent("change");
+      await expect(page.locator("#optimize").isEnabled()).resolves.toBe(true);
+      await page.click("#optimize");
+      await expect.poll(async () => Number(await page.locator("#convergence-plot").getAttribute("data-points")), { timeout: 60_000 }).toBeGreaterThanOrEqual(3);
+      // The page answers while the worker runs: the Stop button is enabled and clickable.
+      await expect(page.locator("#stop").isEnabled()).resolves.toBe(true);
+      const width = await page.locator("#progress-bar").evaluate((el) => (el as HTMLElement).style.width);
+      expect(Number.parseFloat(width)).toBeGreaterThan(0);
+      await page.click("#stop");
+      await page.waitForSelector("#result-section:not([hidden])", { timeout: 60_000 });
+      await expect(page.locator("#optimize-section").getAttribute("data-state")).resolves.toBe("stopped");
+      await expect(page.locator("#result-status").textContent()).resolves.toMatch(/Stopped early/);
+      const routes = JSON.parse((await page.locator("#route-map").getAttribute("data-routes")) ?? "[]") as { stops: string[] }[];
+      expect(routes.length).toBeGreaterThan(0);
+
+      mkdirSync(ARTIFACTS, { recursive: true });
+      await page.screenshot({ path: join(ARTIFACTS, "pane-after-run.png"), fullPage: true });
+
+      await page.click("#write");
+      await page.waitForSelector("#download:not([hidden])", { timeout: 60_000 });
+      const [download] = await Promise.all([page.waitForEvent("download"), page.click("#download")]);
+      expect(download.suggestedFilename()).toBe("kiln-demo.plan.xlsx");
+      const saved = join(userDataDir, "downloaded.xlsx");
+      await download.saveAs(saved);
+      await page.setViewportSize({ width: 1000, height: 900 });
+      await page.screenshot({ path: join(ARTIFACTS, "pane-wide.png"), fullPage: true });
+
+      const original = new ExcelJS.Workbook();
+      await original.xlsx.readFile(input.path);
+      const out = new ExcelJS.Workbook();
+      await out.xlsx.readFile(saved);
+      const names = out.worksheets.map((w) => w.name);
+      expect(names).toContain("Plan 1");
+      expect(names).toContain("Compare");
+      for (const sheet of original.worksheets.map((w) => w.name)) {
+        expect(await sheetValues(out, sheet)).toEqual(await sheetValues(original, sheet));
+      }
+      const compare = await sheetValues(out, "Compare");
+      expect(compare[0]?.[0]).toBe("Scenario");
+      expect(compare[1]?.[0]).toBe("Plan 1");
+      const plan = await sheetValues(out, "Plan 1");
+      expect(plan.flat().some((v) => typeof v === "string" && /estimates/i.test(v))).toBe(true);
+      expect(outside).toEqual([]);
+    } finally {
+      input.cleanup();
+    }
+  }, 600_000);
+});
