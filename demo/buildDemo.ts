@@ -66,7 +66,7 @@ function settingsGrid(): SheetGrid {
       ["Detour factor", 1.3, "road km over straight-line km (a common rule of thumb)"],
       ["Speed km/h", 40, "for vans that give no speed"],
       ["Service min", 6, "for stops that give no service minutes"],
-      ["Hard windows", "yes", "no = allow late arrivals at the late cost"],
+      ["Windows", "hard", "soft = allow late arrivals at the late cost"],
       ["Late cost per min", 2, "used only when windows are soft"],
       ["Acceptance rule", "metropolis", "metropolis or logistic"],
       ["Cooling schedule", "time", "geometric, linear, lundy-mees or time"],
