@@ -1,0 +1,119 @@
+import type { Issue } from "../core/model.js";
+import type { SolveResult } from "../core/solve.js";
+import { cellAddress } from "../sheets/cellAddress.js";
+import { excelSerialFromDate } from "../sheets/excelSerial.js";
+import { COMPARE_SHEET, layoutCompareHeader, layoutCompareRow } from "../sheets/layoutCompare.js";
+import { layoutPlan } from "../sheets/layoutPlan.js";
+import type { PlanSettings, RunRecord } from "../sheets/PlanSettings.js";
+import { readProblem } from "../sheets/readProblem.js";
+import type { ReadResult } from "../sheets/ReadResult.js";
+import { scenarioSettingsKey } from "../sheets/scenarioSettingsKey.js";
+import { uniqueSheetName } from "../sheets/uniqueSheetName.js";
+import type { SheetRead, WorkbookPort } from "./WorkbookPort.js";
+
+/** Which sheets hold the input of a run. */
+export interface ScenarioRequest {
+  readonly stopsSheet: string;
+  readonly fleetSheet: string;
+  readonly settingsSheet?: string;
+  /** Optional sheet with a user distance/time matrix (an optional addition to the shared API). */
+  readonly matrixSheet?: string;
+  readonly overrides?: Partial<PlanSettings>;
+}
+
+/** What `writeScenarioResult` needs besides the port. */
+export interface ScenarioOutput {
+  readonly read: ReadResult & { readonly ok: true };
+  readonly result: SolveResult;
+  /** The name the user gave the scenario (the sheet name is made unique from it). */
+  readonly scenario: string;
+  readonly createdAt: Date;
+  readonly runSeconds: number;
+  /** Where the input came from, e.g. "Stops!A1:N85". */
+  readonly stopsSource: string;
+  readonly fleetSource: string;
+}
+
+/**
+ * First half of a scenario run, shared by the CLI and the pane: read the input sheets through
+ * any `WorkbookPort` and turn them into a problem (or a list of issues). A missing sheet is a
+ * user issue, not an exception; nothing in the workbook is changed.
+ *
+ * @param port - the workbook
+ * @param request - sheet names and setting overrides (CLI flags or pane fields)
+ * @returns the reader's result: `ok: true` with the problem, or every issue at once
+ * @example const read = await readScenarioInput(book, { stopsSheet: "Stops", fleetSheet: "Fleet" });
+ */
+export async function readScenarioInput(port: WorkbookPort, request: ScenarioRequest): Promise<ReadResult> {
+  if (!port || !request) throw new TypeError("readScenarioInput: port and request are required");
+  const names = await port.listSheets();
+  const issues: Issue[] = [];
+  const need = async (name: string | undefined, what: string): Promise<SheetRead | undefined> => {
+    if (name === undefined) return undefined;
+    const read = await port.readSheet(name);
+    if (!read) {
+      issues.push({
+        sheet: name,
+        cell: "",
+        message: `${name}: no sheet of that name holds the ${what}; sheets in this workbook: ${names.join(", ") || "(none)"}; choose the ${what} sheet by name`,
+      });
+    }
+    return read;
+  };
+  const stops = await need(request.stopsSheet, "stops");
+  const fleet = await need(request.fleetSheet, "fleet");
+  const settings = await need(request.settingsSheet, "settings");
+  const matrix = await need(request.matrixSheet, "distance matrix");
+  if (!stops || !fleet || issues.length > 0) return { ok: false, issues, stopColumns: [], fleetColumns: [] };
+  return readProblem(
+    { stops, fleet, ...(settings ? { settings } : {}), ...(matrix ? { matrix } : {}) },
+    request.overrides,
+  );
+}
+
+/**
+ * Second half of a scenario run: write the plan to a new, uniquely named scenario sheet (with
+ * its route chart where the adapter can draw one), append a row to the Compare sheet, and store
+ * the run record as JSON under `scenarioSettingsKey(sheetName)`. Input sheets are not touched.
+ *
+ * @param port - the workbook
+ * @param input - the read result, the solver's result and the run's bookkeeping
+ * @returns the name of the sheet written
+ * @throws TypeError when an argument is missing (a programming mistake)
+ * @example const { sheetName } = await writeScenarioResult(book, { read, result, scenario: "Monday", ... }); // "Monday"
+ */
+export async function writeScenarioResult(port: WorkbookPort, input: ScenarioOutput): Promise<{ sheetName: string }> {
+  if (!port || !input?.read?.ok || !input.result) throw new TypeError("writeScenarioResult: port, input.read (ok) and input.result are required");
+  const sheetName = uniqueSheetName(input.scenario, await port.listSheets());
+  const run: RunRecord = {
+    scenario: sheetName,
+    createdSerial: excelSerialFromDate(input.createdAt),
+    settings: input.read.settings,
+    moves: input.result.stats.moves,
+    runSeconds: input.runSeconds,
+    stopsSource: input.stopsSource,
+    fleetSource: input.fleetSource,
+  };
+  const { problem, stopRows, extraHeaders } = input.read;
+  const layout = layoutPlan({ problem, plan: input.result.plan, run, stopRows, extraHeaders });
+  await port.addSheet(sheetName, layout.grid, layout.chart);
+  await port.appendRows(COMPARE_SHEET, layoutCompareHeader(), layoutCompareRow(run, input.result.plan));
+  await port.writeSetting(scenarioSettingsKey(sheetName), JSON.stringify(run));
+  return { sheetName };
+}
+
+/**
+ * The A1-style range a sheet read covers, for the run record ("Stops!A1:N85").
+ *
+ * @param read - a sheet read
+ * @returns sheet and range; just the sheet name when the read is empty
+ * @example sourceOf({ sheet: "Stops", row: 0, col: 0, values: [["a", "b"]] }) // => "Stops!A1:B1"
+ */
+export function sourceOf(read: SheetRead): string {
+  const rows = read.values.length;
+  const cols = Math.max(0, ...read.values.map((r) => r.length));
+  // Excel quotes sheet names that are not plain words in references ('My stops'!A1), doubling quotes.
+  const sheet = /^[A-Za-z_][A-Za-z0-9_.]*$/.test(read.sheet) ? read.sheet : `'${read.sheet.replace(/'/g, "''")}'`;
+  if (rows === 0 || cols === 0) return sheet;
+  return `${sheet}!${cellAddress(read.row, read.col)}:${cellAddress(read.row + rows - 1, read.col + cols - 1)}`;
+}
