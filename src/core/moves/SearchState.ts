@@ -42,6 +42,10 @@ export class SearchState {
   /** Results of the last `evaluate` per slot. */
   readonly out = new Float64Array(2 * R_SIZE);
   used = 0;
+  /** Running sums over routes of unpenalised cost and violation; stops that must be served but sit in the pool. */
+  realSum = 0;
+  violSum = 0;
+  mustInPool = 0;
   private readonly load: Float64Array;
   private readonly tmp: Int32Array[];
 
@@ -91,17 +95,17 @@ export class SearchState {
 
   /** Cost without penalties (routes + pool), the plan's reported cost. */
   realCost(): number {
-    let sum = this.poolCost;
-    for (let v = 0; v < this.routes.length; v++) sum += this.rStats[v * R_SIZE + R_REAL]!;
-    return sum;
+    return this.realSum + this.poolCost;
+  }
+
+  /** True when no route breaks a rule and no must-serve stop waits in the pool. */
+  isFeasible(): boolean {
+    return this.violSum < 1e-7 && this.mustInPool === 0;
   }
 
   /** Sum of violations (late minutes under hard windows, overtime, excess load, must-serve stops in the pool). */
   violation(): number {
-    let sum = 0;
-    for (let v = 0; v < this.routes.length; v++) sum += this.rStats[v * R_SIZE + R_VIOL]!;
-    for (let k = 0; k < this.poolSize; k++) if (!this.cp.optional[this.pool[k]!]) sum += 1;
-    return sum;
+    return this.violSum + this.mustInPool;
   }
 
   /** Time-warp minutes (hard windows + overtime) and load excess of the current routes. */
@@ -120,9 +124,13 @@ export class SearchState {
   setWeights(wTime: number, wLoad: number): void {
     this.wTime = wTime;
     this.wLoad = wLoad;
+    this.realSum = 0;
+    this.violSum = 0;
     for (let v = 0; v < this.routes.length; v++) {
       const o = v * R_SIZE;
       this.rStats[o + R_COST] = this.penalised(v, this.rStats, o);
+      this.realSum += this.rStats[o + R_REAL]!;
+      this.violSum += this.rStats[o + R_VIOL]!;
     }
   }
 
@@ -281,6 +289,7 @@ export class SearchState {
     this.pool[this.poolSize++] = s;
     this.routeOf[s] = -1;
     this.poolCost += this.cp.unservedCost[s]!;
+    if (!this.cp.optional[s]) this.mustInPool++;
   }
 
   /** Take stop `s` out of the pool (the caller puts it on a route). */
@@ -292,6 +301,7 @@ export class SearchState {
     this.poolIndex[lastStop] = k;
     this.poolIndex[s] = -1;
     this.poolCost -= this.cp.unservedCost[s]!;
+    if (!this.cp.optional[s]) this.mustInPool--;
     if (this.poolSize === 0) this.poolCost = 0;
   }
 
@@ -333,7 +343,12 @@ export class SearchState {
       this.routeOf[s] = v;
       this.posOf[s] = p;
     }
-    this.rStats.set(this.out.subarray(slot * R_SIZE, slot * R_SIZE + R_SIZE), v * R_SIZE);
+    const o = v * R_SIZE;
+    this.realSum -= this.rStats[o + R_REAL]!;
+    this.violSum -= this.rStats[o + R_VIOL]!;
+    this.rStats.set(this.out.subarray(slot * R_SIZE, slot * R_SIZE + R_SIZE), o);
+    this.realSum += this.rStats[o + R_REAL]!;
+    this.violSum += this.rStats[o + R_VIOL]!;
     this.used += (count > 0 ? 1 : 0) - (wasUsed ? 1 : 0);
   }
 
@@ -358,5 +373,9 @@ export class SearchState {
 
 /** Index of the stop count in the route results (for callers that read `out`). */
 export const RESULT_COUNT = R_COUNT;
+/** Index of the violation measure in the route results. */
+export const RESULT_VIOL = R_VIOL;
+/** Index of the unpenalised cost in the route results. */
+export const RESULT_REAL = R_REAL;
 /** Stride of one slot in `SearchState.out`. */
 export const RESULT_SIZE = R_SIZE;

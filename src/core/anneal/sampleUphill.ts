@@ -1,0 +1,42 @@
+import type { Random } from "./createRandom.js";
+import { Move, proposeMove } from "../moves/proposeMove.js";
+import type { SearchState } from "../moves/SearchState.js";
+import type { Neighbours } from "../neighbours/buildNeighbours.js";
+
+/**
+ * Mean cost increase of random uphill moves from the current solution (moves are only
+ * evaluated, never applied). Moves that change the number of vehicles under the
+ * hierarchical objective, or that drop a stop which must be served, are left out: their
+ * size says nothing about the landscape the temperature has to match.
+ *
+ * @param state - current solution (unchanged)
+ * @param nb - neighbour lists
+ * @param rng - the run's generator
+ * @param samples - moves to draw (valid or not)
+ * @param active - the stops the search may move
+ * @returns mean uphill change (1 when no uphill move was seen) and the number of uphill moves used
+ */
+export function sampleUphill(
+  state: SearchState,
+  nb: Neighbours,
+  rng: Random,
+  samples: number,
+  active: Int32Array,
+): { meanUphill: number; samples: number } {
+  if (active.length === 0) return { meanUphill: 1, samples: 0 };
+  const mv = new Move();
+  const limit = state.cp.mustServeCost / 10;
+  let sum = 0;
+  let count = 0;
+  const tries = Math.max(samples, 1) * 20;
+  for (let k = 0; k < tries && count < samples; k++) {
+    if (!proposeMove(state, nb, rng, mv, active)) continue;
+    const d = mv.delta - state.vehicleWeight * mv.usedDelta;
+    if (state.vehicleWeight > 0 && mv.usedDelta !== 0) continue;
+    if (d > 1e-12 && d < limit) {
+      sum += d;
+      count++;
+    }
+  }
+  return { meanUphill: count > 0 ? sum / count : 1, samples: count };
+}

@@ -1,0 +1,123 @@
+import type { Neighbours } from "../neighbours/buildNeighbours.js";
+import { RESULT_SIZE, RESULT_VIOL, type SearchState } from "../moves/SearchState.js";
+
+/** Routes up to this length are tried at every position; longer ones next to the stop's neighbours. */
+const FULL_SCAN_LEN = 60;
+
+/**
+ * A first plan by sequential cheapest insertion (Solomon 1987, "Algorithms for the vehicle
+ * routing and scheduling problems with time window constraints", Operations Research 35(2),
+ * in its simplest form): stops far from the depots first; each goes where it adds the least
+ * cost without breaking a rule, into a route already in use when the objective is
+ * hierarchical, else into a new route; when nothing fits, where it costs least with penalties.
+ * An optional stop stays unserved when serving it costs more than its unserved cost.
+ *
+ * @param state - a state whose servable stops are all in the pool; changed in place
+ * @param nb - neighbour lists (candidate positions in long routes)
+ * @example constructPlan(state, nb); state.poolSize // => optional stops not worth serving
+ */
+export function constructPlan(state: SearchState, nb: Neighbours): void {
+  const cp = state.cp;
+  const V = cp.vehicleCount;
+  const L = cp.locationCount;
+  const order: number[] = [];
+  for (let s = 0; s < cp.n; s++) if (state.routeOf[s] === -1) order.push(s);
+  const far = (s: number): number => {
+    let best = Infinity;
+    for (let v = 0; v < V; v++) best = Math.min(best, cp.travelMin[cp.startLoc[v]! * L + cp.stopLoc[s]!]!);
+    return best;
+  };
+  const key = order.map((s) => -far(s));
+  const idx = order.map((_, i) => i).sort((a, b) => key[a]! - key[b]! || order[a]! - order[b]!);
+  const pieces = new Int32Array(12);
+  const rStatsViol = (v: number): number => state.rStats[v * RESULT_SIZE + RESULT_VIOL]!;
+  for (const i of idx) {
+    const s = order[i]!;
+    let bestFeasible = Infinity;
+    let bestFeasibleAt = -1;
+    let bestFeasibleRoute = -1;
+    let bestAny = Infinity;
+    let bestAnyAt = -1;
+    let bestAnyRoute = -1;
+    let openCost = Infinity;
+    let openRoute = -1;
+    const tryAt = (v: number, cut: number): void => {
+      const r = state.routes[v]!;
+      let m = 0;
+      if (cut >= 1) m = put(pieces, m, v, 1, cut);
+      pieces[4 * m] = -1;
+      pieces[4 * m + 1] = s;
+      pieces[4 * m + 2] = s;
+      pieces[4 * m + 3] = 0;
+      m++;
+      if (cut < r.len) m = put(pieces, m, v, cut + 1, r.len);
+      const delta = state.evaluate(v, pieces, m, 0) - state.routeCost(v);
+      const addedViol = state.out[RESULT_VIOL]! - rStatsViol(v);
+      if (r.len === 0) {
+        if (addedViol < 1e-9 && delta < openCost) {
+          openCost = delta;
+          openRoute = v;
+        }
+      } else if (addedViol < 1e-9 && delta < bestFeasible) {
+        bestFeasible = delta;
+        bestFeasibleAt = cut;
+        bestFeasibleRoute = v;
+      }
+      const withVehicle = delta + (r.len === 0 ? state.vehicleWeight : 0);
+      if (withVehicle < bestAny) {
+        bestAny = withVehicle;
+        bestAnyAt = cut;
+        bestAnyRoute = v;
+      }
+    };
+    let triedEmpty = false;
+    for (let v = 0; v < V; v++) {
+      if (!cp.compatible[s * V + v]) continue;
+      const r = state.routes[v]!;
+      if (r.len === 0) {
+        // Identical empty vehicles give the same result: the first compatible one stands for all.
+        if (!triedEmpty || cp.anyIncompatible) tryAt(v, 0);
+        triedEmpty = true;
+      } else if (r.len <= FULL_SCAN_LEN) {
+        for (let cut = 0; cut <= r.len; cut++) tryAt(v, cut);
+      } else {
+        tryAt(v, 0);
+        for (let k = 0; k < nb.k; k++) {
+          const w = nb.list[s * nb.k + k]!;
+          if (w >= 0 && state.routeOf[w] === v) {
+            tryAt(v, state.posOf[w]!);
+            tryAt(v, state.posOf[w]! - 1);
+          }
+        }
+      }
+    }
+    let route = -1;
+    let at = 0;
+    let cost = Infinity;
+    if (bestFeasibleRoute >= 0 && (cp.hierarchical || bestFeasible <= openCost)) {
+      route = bestFeasibleRoute;
+      at = bestFeasibleAt;
+      cost = bestFeasible;
+    } else if (openRoute >= 0) {
+      route = openRoute;
+      cost = openCost;
+    } else if (bestAnyRoute >= 0) {
+      route = bestAnyRoute;
+      at = bestAnyAt;
+      cost = bestAny;
+    }
+    if (route < 0 || (cp.optional[s] && cost > cp.unservedCost[s]!)) continue;
+    const r = state.routes[route]!;
+    const stops = Array.from(r.nodes.subarray(1, r.len + 1));
+    stops.splice(at, 0, s);
+    state.setRoute(route, stops);
+  }
+}
+
+function put(buf: Int32Array, m: number, v: number, i: number, j: number): number {
+  buf[4 * m] = v;
+  buf[4 * m + 1] = i;
+  buf[4 * m + 2] = j;
+  buf[4 * m + 3] = 0;
+  return m + 1;
+}
