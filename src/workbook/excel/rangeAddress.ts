@@ -11,12 +11,13 @@ import type { CellBlock } from "../../sheets/grid.js";
  * @param row0 - 0-based row
  * @param col0 - 0-based column
  * @returns e.g. "B3"
- * @throws RangeError when a coordinate is not a non-negative integer
+ * @throws RangeError when a coordinate is not an integer inside Excel's grid
+ *   (1 048 576 rows by 16 384 columns, Excel specifications and limits)
  * @example cellA1(2, 1) // "B3"
  */
 export function cellA1(row0: number, col0: number): string {
-  if (!Number.isInteger(row0) || row0 < 0) throw new RangeError(`row0 must be a non-negative integer, got ${row0}`);
-  if (!Number.isInteger(col0) || col0 < 0) throw new RangeError(`col0 must be a non-negative integer, got ${col0}`);
+  if (!Number.isInteger(row0) || row0 < 0 || row0 >= MAX_ROWS) throw new RangeError(`row0 must be an integer in 0..${MAX_ROWS - 1}, got ${row0}`);
+  if (!Number.isInteger(col0) || col0 < 0 || col0 >= MAX_COLS) throw new RangeError(`col0 must be an integer in 0..${MAX_COLS - 1}, got ${col0}`);
   let letters = "";
   for (let c = col0 + 1; c > 0; c = Math.floor((c - 1) / 26)) letters = String.fromCharCode(65 + ((c - 1) % 26)) + letters;
   return `${letters}${row0 + 1}`;
@@ -57,3 +58,6 @@ export function blockContains(outer: CellBlock, inner: CellBlock): boolean {
   return inner.row >= outer.row && inner.col >= outer.col &&
     inner.row + inner.rows <= outer.row + outer.rows && inner.col + inner.cols <= outer.col + outer.cols;
 }
+
+const MAX_ROWS = 1_048_576;
+const MAX_COLS = 16_384;
