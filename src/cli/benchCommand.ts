@@ -1,0 +1,173 @@
+import { readFile } from "node:fs/promises";
+import { basename, extname } from "node:path";
+import { detectFormat } from "../core/formats/detectFormat.js";
+import { parseSolomon, type SolomonInstance } from "../core/formats/parseSolomon.js";
+import { parseTsplib, type TsplibInstance } from "../core/formats/parseTsplib.js";
+import { solomonRoutesDistance } from "../core/formats/solomonRoutesDistance.js";
+import { solomonToProblem } from "../core/formats/solomonToProblem.js";
+import { tsplibToProblem } from "../core/formats/tsplibToProblem.js";
+import { tsplibTourLength } from "../core/formats/tsplibTourLength.js";
+import type { Issue, Plan, Problem } from "../core/model.js";
+import type { Budget } from "../core/options.js";
+import { solve, type RunStats } from "../core/solve.js";
+import type { CliIO } from "./CliIO.js";
+import { numberOption, parseArgs } from "./parseArgs.js";
+
+/** Seconds per instance when neither `--seconds` nor `--moves` is given. */
+const DEFAULT_SECONDS = 10;
+
+/** A benchmark file read and recognised. */
+export type BenchInstance =
+  | { readonly format: "tsplib"; readonly name: string; readonly inst: TsplibInstance }
+  | { readonly format: "solomon"; readonly name: string; readonly inst: SolomonInstance };
+
+/** The JSON line of a Solomon instance (DESIGN.md §6). */
+export interface SolomonBenchRecord {
+  instance: string; format: "solomon"; seed: number; seconds: number; moves: number;
+  vehicles: number; distance: number; feasible: boolean; routes: number[][];
+}
+
+/** The JSON line of a TSPLIB instance (DESIGN.md §6). */
+export interface TsplibBenchRecord {
+  instance: string; format: "tsplib"; seed: number; seconds: number; moves: number;
+  length: number; tour: number[];
+}
+
+/** Usage text of `kiln bench`. */
+export const BENCH_USAGE = `kiln bench FILE... [--seconds S | --moves K] [--seed N]
+  Solve TSPLIB (.tsp) or Solomon VRPTW files (format told by content) and print one JSON
+  object per line. --seconds S per instance (default ${DEFAULT_SECONDS}), or --moves K for a
+  reproducible run; --seed N (default 1).`;
+
+/**
+ * `kiln bench FILE... [--seconds S] [--seed N] [--moves K]`: solves each file and prints
+ * one JSON object per line on stdout (DESIGN.md §6). Every file is read and checked before
+ * any is solved, so all input errors are reported at once.
+ *
+ * @param args - the arguments after `bench`
+ * @param io - output streams and clock
+ * @returns exit code: 0 ok, 2 input errors (one per line on stderr), 1 anything else
+ * @example await runBench(["burma14.tsp", "--moves", "20000"], io) // => 0, prints {"instance":"burma14",...}
+ */
+export async function runBench(args: string[], io: CliIO): Promise<number> {
+  const parsed = parseArgs(args, { values: ["seconds", "seed", "moves"], flags: ["help"] });
+  if (parsed.flags.has("help")) {
+    io.stdout(BENCH_USAGE + "\n");
+    return 0;
+  }
+  const seconds = numberOption(parsed, "seconds", { min: 0 });
+  const moves = numberOption(parsed, "moves", { min: 1, integer: true });
+  const seed = numberOption(parsed, "seed", { min: 0, integer: true }) ?? 1;
+  if (seconds !== undefined && moves !== undefined) parsed.errors.push("use --seconds or --moves, not both");
+  if (parsed.positional.length === 0) parsed.errors.push("no FILE given; usage: " + BENCH_USAGE.split("\n")[0]);
+  const errors = [...parsed.errors];
+  const loaded: BenchInstance[] = [];
+  for (const path of parsed.positional) {
+    const result = await loadBenchFile(path);
+    if ("errors" in result) errors.push(...result.errors);
+    else loaded.push(result);
+  }
+  if (errors.length > 0) {
+    for (const e of errors) io.stderr(e + "\n");
+    return 2;
+  }
+  const budget: Budget = moves !== undefined ? { moves } : { seconds: seconds ?? DEFAULT_SECONDS };
+  for (const instance of loaded) {
+    const { record } = benchInstance(instance, { seed, budget, now: io.now, progress: io.isTTY ? io.stderr : undefined });
+    io.stdout(JSON.stringify(record) + "\n");
+  }
+  return 0;
+}
+
+/**
+ * Reads a benchmark file and recognises its format; problems come back as messages
+ * ("burma15.tsp: file not found"), never thrown.
+ *
+ * @param path - file path as the user typed it
+ * @returns the instance (named after the file without extension) or the error lines
+ * @example await loadBenchFile("missing.tsp") // => { errors: ["missing.tsp: file not found"] }
+ */
+export async function loadBenchFile(path: string): Promise<BenchInstance | { errors: string[] }> {
+  let text: string;
+  try {
+    text = await readFile(path, "utf8");
+  } catch (e) {
+    return { errors: [`${path}: ${readError(e)}`] };
+  }
+  const name = basename(path, extname(path));
+  const format = detectFormat(text);
+  const where = (i: Issue): string => `${path}: ${i.cell ? i.cell + ": " : ""}${i.message}`;
+  if (format === "tsplib") {
+    const inst = parseTsplib(text);
+    return inst.issues.length > 0 ? { errors: inst.issues.map(where) } : { format, name, inst };
+  }
+  if (format === "solomon") {
+    const inst = parseSolomon(text);
+    return inst.issues.length > 0 ? { errors: inst.issues.map(where) } : { format, name, inst };
+  }
+  return { errors: [`${path}: unknown format; expected a TSPLIB file (DIMENSION and NODE_COORD_SECTION) or a Solomon VRPTW file (VEHICLE and CUSTOMER blocks)`] };
+}
+
+/**
+ * Solves one benchmark instance with the engine and builds its JSON record: routes and
+ * tours in the file's numbering, lengths recomputed from the file (TSPLIB: by its
+ * EDGE_WEIGHT_TYPE; Solomon: Euclidean in double precision), not taken from the solver.
+ *
+ * @param instance - a loaded instance
+ * @param options - seed, budget, clock, and an optional sink for progress lines
+ * @returns the record and the engine's run statistics
+ * @throws RangeError when the solver leaves a TSP node out (a solver defect, not user data)
+ * @example benchInstance(burma14, { seed: 1, budget: { moves: 20000 }, now: () => performance.now() }).record.length // => 3323
+ */
+export function benchInstance(
+  instance: BenchInstance,
+  options: { seed: number; budget: Budget; now: () => number; progress?: ((s: string) => void) | undefined },
+): { record: SolomonBenchRecord | TsplibBenchRecord; stats: RunStats; plan: Plan } {
+  const problem: Problem = instance.format === "tsplib" ? tsplibToProblem(instance.inst) : solomonToProblem(instance.inst);
+  const sink = options.progress;
+  const result = solve(problem, {
+    seed: options.seed,
+    budget: options.budget,
+    now: options.now,
+    ...(sink
+      ? { onProgress: (p) => sink(`\r${instance.name}: ${Math.round(p.fraction * 100)}% best ${fmt(p.bestCost)} T ${fmt(p.temperature)}   `) }
+      : {}),
+  });
+  if (sink) sink("\n");
+  const { plan, stats } = result;
+  const seconds = Math.round(stats.elapsedMs) / 1000;
+  const routes = plan.routes
+    .filter((r) => r.visits.length > 0)
+    .map((r) => r.visits.map((v) => Number(problem.stops[v.stop]!.id)));
+  if (instance.format === "tsplib") {
+    const tour = [1, ...(routes[0] ?? [])];
+    if (tour.length !== instance.inst.dimension) {
+      throw new RangeError(`solver returned a tour of ${tour.length} of ${instance.inst.dimension} nodes for ${instance.name}`);
+    }
+    const record: TsplibBenchRecord = {
+      instance: instance.name, format: "tsplib", seed: options.seed, seconds, moves: stats.moves,
+      length: tsplibTourLength(instance.inst, tour), tour,
+    };
+    return { record, stats, plan };
+  }
+  const record: SolomonBenchRecord = {
+    instance: instance.name, format: "solomon", seed: options.seed, seconds, moves: stats.moves,
+    vehicles: routes.length,
+    distance: solomonRoutesDistance(instance.inst, routes),
+    feasible: plan.feasible && plan.unassigned.length === 0,
+    routes,
+  };
+  return { record, stats, plan };
+}
+
+function readError(e: unknown): string {
+  const code = (e as { code?: unknown } | null)?.code;
+  if (code === "ENOENT") return "file not found";
+  if (code === "EISDIR") return "is a folder, not a file";
+  if (code === "EACCES" || code === "EPERM") return "permission denied";
+  return `cannot be read (${typeof code === "string" ? code : String((e as Error)?.message ?? e)})`;
+}
+
+function fmt(x: number): string {
+  return Number.isFinite(x) ? x.toFixed(1) : "-";
+}

@@ -1,0 +1,45 @@
+import { describe, expect, it } from "vitest";
+import { parseSolomon } from "../../src/core/formats/parseSolomon.js";
+import { solomonRoutesDistance } from "../../src/core/formats/solomonRoutesDistance.js";
+import { solomonToProblem } from "../../src/core/formats/solomonToProblem.js";
+import { solve } from "../../src/core/solve.js";
+import { benchmarksAvailable, benchmarkText } from "./benchmarksDir.js";
+import { checkSolomonPlan, readRawSolomon } from "./solomonChecker.js";
+
+// Solomon (1987) instances of three classes: clustered, random, random-clustered long horizon.
+const INSTANCES = ["C101", "R101", "RC201"];
+const MOVES = 60_000;
+
+describe.skipIf(!benchmarksAvailable("Solomon feasibility"))("Solomon (1987) plans pass an independent checker", () => {
+  for (const name of INSTANCES) {
+    it(`${name}: every customer once, capacity, windows, depot due date; distance recomputed to 1e-6`, () => {
+      const text = benchmarkText(`solomon/${name}.txt`);
+      const inst = parseSolomon(text);
+      expect(inst.issues).toEqual([]);
+      const raw = readRawSolomon(text);
+      expect(inst.customers.length).toBe(raw.rows.length);
+      const problem = solomonToProblem(inst);
+      for (const seed of [1, 2]) {
+        const { plan } = solve(problem, { seed, budget: { moves: MOVES } });
+        const routes = plan.routes
+          .filter((r) => r.visits.length > 0)
+          .map((r) => r.visits.map((v) => Number(problem.stops[v.stop]!.id)));
+        const check = checkSolomonPlan(raw, routes);
+        expect(check.violations, `${name} seed ${seed}`).toEqual([]);
+        expect(plan.feasible).toBe(true);
+        expect(plan.unassigned).toEqual([]);
+        expect(Math.abs(plan.totals.distanceKm - check.distance)).toBeLessThan(1e-6);
+        expect(Math.abs(solomonRoutesDistance(inst, routes) - check.distance)).toBeLessThan(1e-6);
+      }
+    });
+  }
+
+  it("the checker itself rejects broken plans (C101: one route for all, a customer left out)", () => {
+    const raw = readRawSolomon(benchmarkText("solomon/C101.txt"));
+    const ids = raw.rows.slice(1).map((r) => r[0]!);
+    const oneRoute = checkSolomonPlan(raw, [ids]).violations.join("; ");
+    expect(oneRoute).toContain("over capacity 200");
+    expect(oneRoute).toContain("after its due date");
+    expect(checkSolomonPlan(raw, ids.slice(1).map((id) => [id])).violations.join("; ")).toContain("customer 1 served 0 times");
+  });
+});
