@@ -2,7 +2,7 @@ import { buildMatrix, userMatrix } from "../core/geo/buildMatrix.js";
 import type { Issue, LatLon, Problem, Stop, Vehicle } from "../core/model.js";
 import type { SheetRead } from "../workbook/WorkbookPort.js";
 import { formatClock } from "./formatClock.js";
-import { parseFleet, type ParsedFleet } from "./parseFleet.js";
+import { parseFleet, type ParsedFleet, type ParsedVehicle } from "./parseFleet.js";
 import { parseMatrixSheet } from "./parseMatrixSheet.js";
 import { parseSettingsSheet } from "./parseSettingsSheet.js";
 import { parseStops, type ParsedStops } from "./parseStops.js";
@@ -53,6 +53,7 @@ export function readProblem(
   if (fleet.vehicles.length === 0 && fleet.issues.length === 0) {
     issues.push(cellIssue(input.fleet.sheet, fleet.headerRow0, input.fleet.col, "no vehicle is available (every Count is 0); give at least one row a Count of 1 or more."));
   }
+  checkServable(stops, fleet.vehicles, dims, settings.hardWindows, input.stops.sheet, issues, warnings);
   if (issues.length > 0 || dims === undefined) return { ok: false, issues, stopColumns, fleetColumns };
 
   const locations: (LatLon & { name?: string })[] = [];
@@ -107,8 +108,6 @@ export function readProblem(
     referenceSpeedKmh: settings.speedKmh, hardWindows: settings.hardWindows,
     lateCostPerMin: settings.lateCostPerMin, objective: settings.objective,
   };
-  checkServable(problem, stops, input.stops.sheet, issues, warnings);
-  if (issues.length > 0) return { ok: false, issues, stopColumns, fleetColumns };
   const stopRows: StopRow[] = stops.stops.map((s, i) => ({ stop: i, sheetRow: s.sheetRow, extra: s.extra }));
   return { ok: true, problem, settings, stopRows, extraHeaders: stops.extraHeaders, stopColumns, fleetColumns, warnings };
 }
@@ -151,15 +150,23 @@ function pairDimensions(
   return ok ? out : undefined;
 }
 
-function checkServable(problem: Problem, stops: ParsedStops, sheet: string, issues: Issue[], warnings: Issue[]): void {
-  const f = stops.columns!.fields;
+/** Stops no vehicle can serve, judged on the rows that were read cleanly. */
+function checkServable(
+  stops: ParsedStops,
+  vs: readonly ParsedVehicle[],
+  dims: readonly Dimension[] | undefined,
+  hardWindows: boolean,
+  sheet: string,
+  issues: Issue[],
+  warnings: Issue[],
+): void {
+  if (vs.length === 0 || !stops.columns) return;
+  const f = stops.columns.fields;
   const windowCol = f.get("earliest") ?? f.get("windows") ?? f.get("latest") ?? 0;
   const demandCol = [...f.entries()].find(([k]) => k === "demand" || k.startsWith("demand:"))?.[1] ?? 0;
-  const vs = problem.vehicles;
   const firstShift = Math.min(...vs.map((v) => v.shiftStartMin));
   const lastShift = Math.max(...vs.map((v) => v.shiftEndMin));
-  problem.stops.forEach((s, i) => {
-    const row0 = stops.stops[i]!.sheetRow0;
+  for (const s of stops.stops) {
     const overlaps = s.windows.some((w) => vs.some((v) => w.latestMin >= v.shiftStartMin && w.earliestMin <= v.shiftEndMin));
     if (!overlaps) {
       const when = s.windows.map((w) => `${formatClock(w.earliestMin)}-${formatClock(w.latestMin)}`).join(", ");
@@ -168,18 +175,24 @@ function checkServable(problem: Problem, stops: ParsedStops, sheet: string, issu
         : s.windows.every((w) => w.earliestMin > lastShift)
           ? `opens after every vehicle's shift ends (last shift end ${formatClock(lastShift)})`
           : "falls outside every vehicle's shift";
-      const issue = cellIssue(sheet, row0, stops.col0 + windowCol, `the time window of stop "${s.id}" (${when}) ${side}; widen the window or change a shift.`);
-      (problem.hardWindows ? issues : warnings).push(problem.hardWindows ? issue : { ...issue, message: `${issue.message} With soft windows it can only be served late.` });
+      const text = `the time window of stop "${s.id}" (${when}) ${side}; widen the window or change a shift.`;
+      // Under soft windows a stop can still be served late, so it only deserves a warning.
+      if (hardWindows) issues.push(cellIssue(sheet, s.sheetRow0, stops.col0 + windowCol, text));
+      else warnings.push(cellIssue(sheet, s.sheetRow0, stops.col0 + windowCol, `${text} With soft windows it can only be served late.`));
     }
-    const carriable = vs.some((v) => s.demand.every((d, k) => d <= (v.capacity[k] ?? 0)));
-    if (!carriable) {
-      warnings.push(cellIssue(sheet, row0, stops.col0 + demandCol, `the demand of stop "${s.id}" (${s.demand.map((d, k) => `${d} ${problem.loadDimensions[k]}`).join(", ")}) exceeds every vehicle's capacity; it will be left unassigned unless you split the stop into smaller ones or add a larger vehicle.`));
+    if (dims !== undefined && dims.length > 0) {
+      const demand = dims.map((d) => (d.stops === undefined ? 0 : s.demand.get(d.stops) ?? 0));
+      const carriable = vs.some((v) => dims.every((d, k) => d.fleet === undefined || demand[k]! <= (v.capacity.get(d.fleet) ?? 0)));
+      if (!carriable) {
+        const amounts = demand.map((x, k) => `${x} ${dims[k]!.name}`).join(", ");
+        warnings.push(cellIssue(sheet, s.sheetRow0, stops.col0 + demandCol, `the demand of stop "${s.id}" (${amounts}) exceeds every vehicle's capacity; it will be left unassigned unless you split the stop into smaller ones or add a larger vehicle.`));
+      }
     }
     const need = s.requiredFeatures ?? [];
     if (need.length > 0 && !vs.some((v) => need.every((x) => (v.features ?? []).includes(x)))) {
-      warnings.push(cellIssue(sheet, row0, stops.col0 + (f.get("features") ?? 0), `no vehicle has all the features stop "${s.id}" requires (${need.join(", ")}); it will be left unassigned unless a vehicle lists them under Features.`));
+      warnings.push(cellIssue(sheet, s.sheetRow0, stops.col0 + (f.get("features") ?? 0), `no vehicle has all the features stop "${s.id}" requires (${need.join(", ")}); it will be left unassigned unless a vehicle lists them under Features.`));
     }
-  });
+  }
 }
 
 function checkSettings(s: PlanSettings, overrides: Partial<PlanSettings>): Issue[] {
