@@ -1,6 +1,7 @@
 import { pathToFileURL } from "node:url";
 import { BENCH_USAGE, runBench } from "./benchCommand.js";
 import type { CliIO } from "./CliIO.js";
+import { SOLVE_USAGE, runSolve } from "./solveCommand.js";
 
 /** A `kiln` subcommand: what `--help` shows and the function that runs it. */
 export interface Command {
@@ -14,6 +15,7 @@ export interface Command {
 /** The subcommands of `kiln`, by name. Add a command by adding an entry. */
 export const commands: Record<string, Command> = {
   bench: { summary: "solve TSPLIB or Solomon benchmark files, one JSON line each", usage: BENCH_USAGE, run: runBench },
+  solve: { summary: "plan routes from a workbook's Stops and Fleet into a new workbook", usage: SOLVE_USAGE, run: runSolve },
 };
 
 /**
