@@ -66,6 +66,8 @@ const FLEET_SYNONYMS: Record<string, readonly string[]> = {
 
 /** Fields whose header may carry a unit word (a load dimension). */
 const DIMENSIONED: Record<TableKind, string> = { stops: "demand", fleet: "capacity" };
+/** Fields where a second matching column is carried through instead of being an issue. */
+const DESCRIPTIVE = new Set(["id", "name", "address"]);
 /** Fields that may repeat as numbered pairs. */
 const NUMBERED = new Set(["earliest", "latest", "windows"]);
 
@@ -114,7 +116,8 @@ export function matchHeader(text: string, kind: TableKind): HeaderField | undefi
 /**
  * Map the header row of a table to fields; unknown headers become carried-through columns.
  * Repeated window headers without a number ("Earliest", "Latest", "Earliest", "Latest")
- * count as the 2nd, 3rd... pair; any other field named twice is an issue.
+ * count as the 2nd, 3rd... pair; a second id, name or address column is carried through;
+ * any other field named twice is an issue.
  *
  * @param header - the header row's raw values
  * @param kind - the table it heads
@@ -151,6 +154,12 @@ export function mapColumns(
     }
     const key = fieldKey(hit.base, hit.dimension, index);
     const before = fields.get(key);
+    if (before !== undefined && DESCRIPTIVE.has(key)) {
+      // A second id or name column ("Stop" and "Customer ID") is harmless: show it beside the stop.
+      extras.push({ header: text, col: c });
+      matches.push({ header: text, field: "extra", column });
+      return;
+    }
     if (before !== undefined) {
       issues.push({
         sheet: where.sheet,

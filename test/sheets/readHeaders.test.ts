@@ -1,0 +1,93 @@
+// Header matching rules; the synonyms are common words of the delivery trade (common practice).
+import { describe, expect, it } from "vitest";
+import { findHeaderRow } from "../../src/sheets/findHeaderRow.js";
+import { mapColumns, matchHeader } from "../../src/sheets/matchHeaders.js";
+import { parseSettingsSheet } from "../../src/sheets/parseSettingsSheet.js";
+import { plainCell } from "../../src/sheets/cellValue.js";
+import { parseWindows, mergeWindows } from "../../src/sheets/parseWindows.js";
+
+describe("matchHeader", () => {
+  it("ignores case, spaces and punctuation", () => {
+    expect(matchHeader("  LATITUDE ", "stops")).toEqual({ base: "latitude" });
+    expect(matchHeader("Service (min)", "stops")).toEqual({ base: "serviceMin" });
+    expect(matchHeader("speed_km/h", "fleet")).toEqual({ base: "speedKmh" });
+    expect(matchHeader("Cost-per-KM", "fleet")).toEqual({ base: "costPerKm" });
+  });
+  it("knows the common synonyms of the stops table", () => {
+    const cases: [string, string][] = [
+      ["lat", "latitude"], ["lng", "longitude"], ["lon", "longitude"], ["Long", "longitude"],
+      ["From", "earliest"], ["To", "latest"], ["Window start", "earliest"], ["Window end", "latest"],
+      ["Ready time", "earliest"], ["Due", "latest"], ["Dwell", "serviceMin"], ["Stop time", "serviceMin"],
+      ["Service", "serviceMin"], ["Qty", "demand"], ["Quantity", "demand"], ["Weight", "demand"],
+      ["Stop ID", "id"], ["Customer", "name"], ["Lat, Lon", "coordinates"], ["Required features", "features"],
+      ["Unserved cost", "priority"],
+    ];
+    for (const [text, base] of cases) expect(matchHeader(text, "stops")?.base, text).toBe(base);
+  });
+  it("knows the common synonyms of the fleet table", () => {
+    const cases: [string, string][] = [
+      ["Van", "id"], ["Truck", "id"], ["Driver", "id"], ["Count", "count"], ["Depot lat", "startLatitude"],
+      ["Start lng", "startLongitude"], ["Return lat", "endLatitude"], ["End long", "endLongitude"],
+      ["Depot", "startCoordinates"], ["Shift start", "shiftStart"], ["Finish", "shiftEnd"], ["Fixed cost", "fixedCost"],
+      ["Hourly rate", "costPerHour"], ["Max stops", "maxStops"], ["Payload", "capacity"],
+    ];
+    for (const [text, base] of cases) expect(matchHeader(text, "fleet")?.base, text).toBe(base);
+  });
+  it("reads unit words as load dimensions and numbers as repeated windows", () => {
+    expect(matchHeader("Demand kg", "stops")).toEqual({ base: "demand", dimension: "kg" });
+    expect(matchHeader("Weight (kg)", "stops")).toEqual({ base: "demand", dimension: "kg" });
+    expect(matchHeader("Capacity crates", "fleet")).toEqual({ base: "capacity", dimension: "crates" });
+    expect(matchHeader("Earliest 2", "stops")).toEqual({ base: "earliest", index: 2 });
+    expect(matchHeader("Window end 3", "stops")).toEqual({ base: "latest", index: 3 });
+    expect(matchHeader("Phone", "stops")).toBeUndefined();
+  });
+  it("maps a header row: repeated unnumbered windows become pairs, second id columns are carried, other repeats are issues", () => {
+    const cols = mapColumns(["Stop", "Customer ID", "Lat", "Lon", "Earliest", "Latest", "Earliest", "Latest", "Phone", "Latitude"], "stops", { sheet: "Stops", row: 2, col: 1 });
+    expect([...cols.fields.keys()]).toEqual(["id", "latitude", "longitude", "earliest", "latest", "earliest:2", "latest:2"]);
+    expect(cols.extras.map((x) => x.header)).toEqual(["Customer ID", "Phone"]);
+    expect(cols.issues).toHaveLength(1);
+    expect(cols.issues[0]).toMatchObject({ sheet: "Stops", cell: "K3" });
+    expect(cols.issues[0]!.message).toContain("same field as column D");
+  });
+});
+
+describe("findHeaderRow", () => {
+  it("skips blank leading rows and a title row", () => {
+    expect(findHeaderRow([[], ["Tomorrow's deliveries"], ["", ""], ["Stop", "Lat", "Lon"], ["a", 1, 2]], "stops")).toBe(3);
+    expect(findHeaderRow([["Just", "words"], [1, 2]], "stops")).toBeUndefined();
+  });
+});
+
+describe("parseSettingsSheet", () => {
+  it("fills the parameters of a schedule named alone, and reads the time schedule's temperatures", () => {
+    expect(parseSettingsSheet({ sheet: "S", row: 0, col: 0, values: [["Schedule", "linear"]] }).settings.cooling).toEqual({ kind: "linear", steps: 20 });
+    const r = parseSettingsSheet({ sheet: "S", row: 0, col: 0, values: [["schedule", "Time"], ["T0", 50], ["T end", "0.5"], ["Seconds", 3]] });
+    expect(r.issues).toEqual([]);
+    expect(r.settings).toEqual({ cooling: { kind: "timeFraction", t0: 50, tEnd: 0.5 }, seconds: 3 });
+    const lm = parseSettingsSheet({ sheet: "S", row: 0, col: 0, values: [["Schedule", "lundy mees"], ["Beta", 0.001]] });
+    expect(lm.settings.cooling).toEqual({ kind: "lundyMees", beta: 0.001 });
+  });
+  it("asks for a Schedule row when a schedule parameter stands alone", () => {
+    const r = parseSettingsSheet({ sheet: "S", row: 0, col: 0, values: [["Alpha", 0.9]] });
+    expect(r.issues[0]).toMatchObject({ sheet: "S", cell: "B1" });
+    expect(r.issues[0]!.message).toContain("needs a Schedule row");
+  });
+});
+
+describe("windows", () => {
+  it("reads 12 h ranges with 'to', rolls over midnight, and merges touching windows", () => {
+    expect(parseWindows("8 am to 10 am, 2 pm to 4 pm")).toEqual([{ earliestMin: 480, latestMin: 600 }, { earliestMin: 840, latestMin: 960 }]);
+    expect(parseWindows("22:00–02:00")).toEqual([{ earliestMin: 1320, latestMin: 1560 }]);
+    expect(parseWindows("8:00-")).toBeUndefined();
+    expect(mergeWindows([{ earliestMin: 600, latestMin: 700 }, { earliestMin: 480, latestMin: 600 }])).toEqual([{ earliestMin: 480, latestMin: 700 }]);
+  });
+});
+
+describe("plainCell", () => {
+  it("flattens the cell objects exceljs hands over (reference library shapes: Date, formula result, rich text, hyperlink)", () => {
+    expect(plainCell(new Date(Date.UTC(2025, 0, 1, 18)))).toBe(45658.75); // ECMA-376 serial, from memory
+    expect(plainCell({ formula: "A1*2", result: 4 })).toBe(4);
+    expect(plainCell({ richText: [{ text: "Ba" }, { text: "kery" }] })).toBe("Bakery");
+    expect(plainCell({ text: "site", hyperlink: "https://example.org" })).toBe("site");
+  });
+});
