@@ -100,16 +100,16 @@ function table(rows: readonly Row[]): string {
     const ours = rec.format === "tsplib" ? String(rec.length) : rec.distance.toFixed(2) + (rec.feasible ? "" : " (infeasible)");
     const vehicles = rec.format === "solomon" ? `${rec.vehicles} / ${r.referenceVehicles}` : "";
     const ref = rec.format === "tsplib" ? String(r.reference) : r.reference.toFixed(2);
-    lines.push(`| ${rec.instance} | ${ref} | ${ours} | ${r.gapPct.toFixed(2)} | ${vehicles} | ${rec.seconds.toFixed(1)} | ${Math.round(r.evaluationsPerSecond).toLocaleString("en-US")} |`);
+    lines.push(`| ${rec.instance} | ${ref} | ${ours} | ${pct(r.gapPct)} | ${vehicles} | ${rec.seconds.toFixed(1)} | ${Math.round(r.evaluationsPerSecond).toLocaleString("en-US")} |`);
   }
   const tsp = rows.filter((r) => r.record.format === "tsplib");
   const sol = rows.filter((r) => r.record.format === "solomon");
-  if (tsp.length > 0) lines.push(`| **mean TSPLIB gap** | | | ${mean(tsp.map((r) => r.gapPct)).toFixed(2)} | | | |`);
+  if (tsp.length > 0) lines.push(`| **mean TSPLIB gap** | | | ${pct(mean(tsp.map((r) => r.gapPct)))} | | | |`);
   if (sol.length > 0) {
     const ours = sol.reduce((s, r) => s + (r.record as SolomonBenchRecord).vehicles, 0);
     const best = sol.reduce((s, r) => s + (r.referenceVehicles ?? 0), 0);
     const infeasible = sol.filter((r) => !(r.record as SolomonBenchRecord).feasible).length;
-    lines.push(`| **mean Solomon gap** (distance) | | | ${mean(sol.map((r) => r.gapPct)).toFixed(2)} | | | |`);
+    lines.push(`| **mean Solomon gap** (distance) | | | ${pct(mean(sol.map((r) => r.gapPct)))} | | | |`);
     lines.push(`| **total vehicles** | | | | ${ours} / ${best} | | |`);
     if (infeasible > 0) lines.push(`| **infeasible plans** | | ${infeasible} of ${sol.length} | | | | |`);
   }
@@ -130,6 +130,11 @@ function readCsv(relative: string): [string, ...string[]][] {
 
 function gap(ours: number, reference: number): number {
   return ((ours - reference) / reference) * 100;
+}
+
+/** Two decimals, without a "-0.00" for a result a hair below a reference rounded to cents. */
+function pct(x: number): string {
+  return (Math.abs(x) < 0.005 ? 0 : x).toFixed(2);
 }
 
 function mean(xs: readonly number[]): number {
