@@ -30,7 +30,7 @@ function demoProblem(): Problem {
   }));
   const vehicle = (id: string): Vehicle => ({
     id,
-    capacity: [50],
+    capacity: [100],
     startLocation: 0,
     endLocation: 0,
     shiftStartMin: 7 * 60,
@@ -102,6 +102,7 @@ describe("worker protocol", () => {
     const plan = result.result.plan;
     const served = plan.routes.flatMap((r) => r.visits.map((v) => v.stop)).concat(plan.unassigned.map((u) => u.stop));
     expect([...served].sort((a, b) => a - b)).toEqual(problem.stops.map((_, i) => i));
+    expect(plan.violations).toEqual([]);
     expect(plan.feasible).toBe(true);
     // geolib's haversine (earth radius 6378137 m) differs from the mean radius by ~0.1%: 0.5% tolerance.
     for (const route of plan.routes) {
@@ -129,7 +130,7 @@ describe("worker protocol", () => {
     const good = demoProblem();
     const bad: Problem = {
       ...good,
-      locations: good.locations.map((l, i) => (i === 2 ? { ...l, lat: 123.4 } : l)),
+      stops: good.stops.map((s, i) => (i === 2 ? { ...s, location: 99 } : s)),
     };
     expect(() => host.handle({ type: "start", runId: 2, problem: bad, options: {} })).not.toThrow();
     while (runNext());
