@@ -11,6 +11,12 @@ import { OfficeMockObject } from "office-addin-mock";
 import { ExcelWorkbook } from "../../src/workbook/excel/ExcelWorkbook.js";
 import { OfficeActionError } from "../../src/workbook/excel/OfficeActionError.js";
 import type { SheetGrid, RouteChart } from "../../src/sheets/grid.js";
+import { readFileSync } from "node:fs";
+import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
+import { readScenarioInput, writeScenarioResult } from "../../src/workbook/scenario.js";
+import { solve } from "../../src/core/solve.js";
+import { CAUTION_TEXT } from "../../src/sheets/caution.js";
+import { scenarioSettingsKey } from "../../src/sheets/scenarioSettingsKey.js";
 
 type Entry = [string, ...unknown[]];
 const NOT_LOADED = /property was not loaded|context\.sync\(\) was not called/;
@@ -412,5 +418,40 @@ describe("settings, selection of issue cells, Geography cells (office-addin-mock
     const got = await book.readGeography("Stops!C2:C3");
     expect(got).toEqual({ available: true, sheet: "Stops", row: 1, col: 2, cells: [[{ kind: "place", label: "Oslo", at: { lat: 59.91, lon: 10.75 } }], [{ kind: "notEntity" }]] });
     expect(fake.syncs()).toBe(1);
+  });
+});
+
+describe("a whole scenario through the adapter (demo workbook read with exceljs, the reference library)", () => {
+  it("reads the inputs, then writes the plan sheet with its chart, a Compare row and the run record, loading nothing it does not read", async () => {
+    const demo = await ExcelJsWorkbook.fromBuffer(readFileSync(new URL("../../demo/kiln-demo.xlsx", import.meta.url)));
+    const sheets: Record<string, { values: unknown[][] }> = {};
+    for (const name of ["Stops", "Fleet", "Settings"]) sheets[name] = { values: (await demo.readSheet(name))!.values.map((r) => [...r]) };
+    const book = install({ sheets });
+    const read = await readScenarioInput(book, { stopsSheet: "Stops", fleetSheet: "Fleet", settingsSheet: "Settings" });
+    if (!read.ok) throw new Error(read.issues.map((i) => i.message).join("; "));
+    const readSyncs = fake.syncs();
+    const result = solve(read.problem, { seed: 7, budget: { moves: 3000 } });
+    const { sheetName } = await writeScenarioResult(book, {
+      read, result, scenario: "=Monday", createdAt: new Date(Date.UTC(2026, 0, 5, 18)), runSeconds: 1,
+      stopsSource: "Stops!A1:N85", fleetSource: "Fleet!A1:O6",
+    });
+    // listSheets 1, addSheet 2 (name check, write), appendRows 2 (missing sheet found, create), writeSetting 1
+    expect(fake.syncs() - readSyncs).toBe(6);
+    const planWrites = entries("values").filter((e) => e[1] === sheetName);
+    expect(planWrites).toHaveLength(1); // one assignment of the whole grid
+    const written = planWrites[0]![3] as unknown[][];
+    const formats = entries("numberFormat").find((e) => e[1] === sheetName)![3] as string[][];
+    expect(written.flat()).toContain(CAUTION_TEXT);
+    const scenarioCells = written.flatMap((row, r) => row.map((v, c) => ({ v, f: formats[r]![c] }))).filter((x) => String(x.v).replace(/^'/, "") === "=Monday");
+    expect(scenarioCells.length).toBeGreaterThan(0);
+    for (const cell of scenarioCells) expect(cell).toEqual({ v: "'=Monday", f: "@" });
+    const used = result.plan.routes.filter((r) => r.visits.length > 0).length;
+    expect(entries("series.name").length + entries("series.add").length).toBe(used);
+    expect(entries("add").map((e) => e[1])).toEqual([sheetName, "Compare"]);
+    expect(entries("values").filter((e) => e[1] === "Compare").map((e) => e[2])).toEqual(["A1:J1", "A2:J2"]);
+    const [, key, value] = entries("settings.add")[0]!;
+    expect(key).toBe(scenarioSettingsKey(sheetName));
+    expect(JSON.parse(value as string).scenario).toBe(sheetName);
+    neverNotLoaded(read);
   });
 });
