@@ -41,6 +41,16 @@ describe("ExcelJsWorkbook.readSheet", () => {
     expect(read!.values[0]![0] as number).toBeCloseTo(0.354, 9);
   });
 
+  it("reads 07:30 under hh:mm as exactly 450 / 1440 of a day (no rounding residue)", async () => {
+    const bytes = await bytesOf((b) => {
+      const ws = b.addWorksheet("T");
+      ws.getCell("A1").value = 450 / 1440;
+      ws.getCell("A1").numFmt = "hh:mm";
+    });
+    const read = await (await ExcelJsWorkbook.fromBuffer(bytes)).readSheet("T");
+    expect(read!.values[0]![0]).toBe(450 / 1440);
+  });
+
   it("reduces rich text, formulas, hyperlinks and errors to what Excel shows", async () => {
     const bytes = await bytesOf((b) => {
       const ws = b.addWorksheet("Mixed");

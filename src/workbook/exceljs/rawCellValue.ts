@@ -1,7 +1,7 @@
 import type ExcelJS from "exceljs";
 
-/** Days between the ECMA-376 1900-system epoch (serial 0 = 1899-12-30) and 1970-01-01. */
-const UNIX_EPOCH_SERIAL = 25569;
+/** Serial 0 of the ECMA-376 1900 system as exceljs counts it (1899-12-30, UTC). */
+const SERIAL_EPOCH_MS = Date.UTC(1899, 11, 30);
 const MS_PER_DAY = 86_400_000;
 
 /**
@@ -55,7 +55,9 @@ export function rawCellValue(value: ExcelJS.CellValue | undefined): number | str
  * @example serialFromDate(new Date(Date.UTC(1900, 2, 1))) // => 61
  */
 export function serialFromDate(d: Date): number {
-  return UNIX_EPOCH_SERIAL + d.getTime() / MS_PER_DAY;
+  // One division of whole milliseconds: 07:30 comes back as exactly 450 / 1440 of a day,
+  // where adding 25569 to a fraction of the Unix epoch would leave a 1e-12 residue.
+  return (d.getTime() - SERIAL_EPOCH_MS) / MS_PER_DAY;
 }
 
 function richTextPlain(runs: unknown): string {
