@@ -89,7 +89,8 @@ function recordingSheet(log: Entry[], name: string): unknown {
 interface Setup {
   sheets?: Record<string, { values: unknown[][]; rowIndex?: number; columnIndex?: number } | "empty">;
   excelApi?: string;
-  selection?: { sheet: string; address: string; values: unknown[][]; rowIndex: number; columnIndex: number };
+  /** `address` and `values` are the filled part; `selected` what the user selected (default: the same). */
+  selection?: { sheet: string; address: string; selected?: string; values: unknown[][]; rowIndex: number; columnIndex: number };
   table?: { name: string; address: string; values: unknown[][]; rowIndex: number; columnIndex: number };
   settings?: { key: string; value: unknown }[];
   /** Ranges readable through getItem(sheet).getRange(address), keyed "Sheet!A1:B2". */
@@ -159,8 +160,11 @@ function install(setup: Setup): ExcelWorkbook {
           load: function (this: OfficeMockObject, arg: unknown) { log.push(["tables.load", arg]); return OfficeMockObject.prototype.load.call(this, "items"); },
         },
         selection: {
-          address: sel.address, values: sel.values, rowIndex: sel.rowIndex, columnIndex: sel.columnIndex,
-          worksheet: { name: sel.sheet },
+          address: sel.selected ?? sel.address, rowIndex: sel.rowIndex, columnIndex: sel.columnIndex,
+          worksheet: { name: sel.sheet, getUsedRange: (valuesOnly: boolean) => { log.push(["getUsedRange", valuesOnly]); return "used range"; } },
+          // Excel's intersection of the selection with the used range: what the test says is filled.
+          filled: { isNullObject: sel.values.length === 0, address: sel.address, values: sel.values, rowIndex: sel.rowIndex, columnIndex: sel.columnIndex },
+          getIntersectionOrNullObject: function (this: Record<string, unknown>, other: unknown) { log.push(["getIntersectionOrNullObject", other]); return this.filled; },
           getTables: function (fullyContained: boolean) { log.push(["getTables", fullyContained]); return seedRoot.context.workbook.tables; },
         },
         getSelectedRange: function (this: Record<string, unknown>) { log.push(["getSelectedRange"]); return this.selection; },
@@ -208,6 +212,21 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
     expect(fake.syncs()).toBe(1);
     expect(entries("getTables")).toEqual([]); // ExcelApi 1.9 missing: plain selection, no table lookup
     neverNotLoaded(got);
+  });
+
+  it("readSelection of whole columns reads only the filled rows (clipped to the used range)", async () => {
+    const book = install({ excelApi: "1.7", selection: { sheet: "Fleet", selected: "Fleet!A:B", address: "Fleet!A1:B3", values: [["Vehicle", "Count"], ["Van", 2], ["Truck", 1]], rowIndex: 0, columnIndex: 0 } });
+    const got = await book.readSelection();
+    expect(got.address).toBe("Fleet!A1:B3");
+    expect(got.read.values).toHaveLength(3);
+    expect(entries("getIntersectionOrNullObject")).toEqual([["getIntersectionOrNullObject", "used range"]]);
+    expect(entries("getUsedRange")).toEqual([["getUsedRange", true]]);
+    expect(fake.syncs()).toBe(1);
+  });
+
+  it("readSelection of empty cells returns no values and the selected address", async () => {
+    const book = install({ excelApi: "1.7", selection: { sheet: "Stops", selected: "Stops!Z90", address: "", values: [], rowIndex: 89, columnIndex: 25 } });
+    expect(await book.readSelection()).toEqual({ read: { sheet: "Stops", row: 89, col: 25, values: [] }, address: "Stops!Z90" });
   });
 
   it("readSelection widens a selection inside an Excel table to the whole table (ExcelApi 1.9)", async () => {

@@ -170,31 +170,37 @@ export class ExcelWorkbook implements WorkbookPort {
 
   /**
    * Reads the selected block, or the whole Excel table it lies inside (ExcelApi 1.9;
-   * without it, the plain selection). Two syncs only when a table is involved.
+   * without it, the plain selection). The selection is clipped to the sheet's used range
+   * first, so selecting whole columns (A:N) reads only the filled rows instead of a million.
+   * Two syncs only when a table is involved.
    * @throws OfficeActionError when several blocks are selected or Excel fails
    */
   async readSelection(): Promise<SelectionRead> {
     const caps = this.capabilities();
     return this.#run("read the selection (select one block of cells)", async (context) => {
       const range = context.workbook.getSelectedRange();
-      range.load("address, values, rowIndex, columnIndex");
+      range.load("address, rowIndex, columnIndex");
       const sheet = range.worksheet;
       sheet.load("name");
+      const filled = range.getIntersectionOrNullObject(sheet.getUsedRange(true));
+      filled.load("isNullObject, address, values, rowIndex, columnIndex");
       const tables = caps.tables ? range.getTables(false) : undefined;
       tables?.load("items/name");
       await context.sync();
-      const selection = toRead(sheet.name, range);
+      const selection: SelectionRead = filled.isNullObject
+        ? { read: { sheet: sheet.name, row: range.rowIndex, col: range.columnIndex, values: [] }, address: range.address }
+        : { read: toRead(sheet.name, filled), address: filled.address };
       const table = tables?.items[0];
       if (table) {
         const whole = table.getRange();
         whole.load("address, values, rowIndex, columnIndex");
         await context.sync();
         const tableRead = toRead(sheet.name, whole);
-        if (blockContains(blockOf(tableRead), blockOf(selection))) {
+        if (selection.read.values.length > 0 && blockContains(blockOf(tableRead), blockOf(selection.read))) {
           return { read: tableRead, address: whole.address, tableName: table.name };
         }
       }
-      return { read: selection, address: range.address };
+      return selection;
     });
   }
 
