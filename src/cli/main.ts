@@ -1,6 +1,7 @@
 import { pathToFileURL } from "node:url";
 import { BENCH_USAGE, runBench } from "./benchCommand.js";
 import type { CliIO } from "./CliIO.js";
+import { PROFILE_USAGE, runProfile } from "./profileCommand.js";
 import { SOLVE_USAGE, runSolve } from "./solveCommand.js";
 
 /** A `kiln` subcommand: what `--help` shows and the function that runs it. */
@@ -16,6 +17,7 @@ export interface Command {
 export const commands: Record<string, Command> = {
   bench: { summary: "solve TSPLIB or Solomon benchmark files, one JSON line each", usage: BENCH_USAGE, run: runBench },
   solve: { summary: "plan routes from a workbook's Stops and Fleet into a new workbook", usage: SOLVE_USAGE, run: runSolve },
+  profile: { summary: "show the temperature and P(accept) profile of a schedule, without solving", usage: PROFILE_USAGE, run: runProfile },
 };
 
 /**
