@@ -174,7 +174,15 @@ export function mapColumns(
   return { fields, matches, extras, issues };
 }
 
-/** "demand:kg", "earliest:2", or the base alone for a plain or first column. */
+/**
+ * The key of a field in `TableColumns.fields`.
+ *
+ * @param base - base field, e.g. "demand"
+ * @param dimension - unit word of a load column
+ * @param index - window number (1 or absent for the first)
+ * @returns "demand:kg", "earliest:2", or the base alone for a plain or first column
+ * @example fieldKey("earliest", undefined, 2) // => "earliest:2"
+ */
 export function fieldKey(base: string, dimension?: string, index?: number): string {
   if (dimension !== undefined) return `${base}:${dimension}`;
   if (index !== undefined && index > 1) return `${base}:${index}`;

@@ -15,6 +15,8 @@ export const DEFAULT_COST_PER_KM = 1;
 /** One vehicle as read (after `Count` expansion), before it is placed in a `Problem`. */
 export interface ParsedVehicle {
   readonly id: string;
+  /** The Vehicle cell of its row before `Count` expansion ("Van A" for "Van A 2"). */
+  readonly rowName: string;
   /** Capacity per load column: "" for a plain Capacity column, else the unit word. */
   readonly capacity: ReadonlyMap<string, number>;
   readonly start: LatLon;
@@ -108,7 +110,7 @@ export function parseFleet(read: SheetRead): ParsedFleet {
       }
       seen.set(id, r.sheetRow);
       vehicles.push({
-        id, capacity, start, end, shiftStartMin, shiftEndMin, fixedCost, costPerKm, costPerHour,
+        id, rowName: name, capacity, start, end, shiftStartMin, shiftEndMin, fixedCost, costPerKm, costPerHour,
         ...(speedKmh !== undefined ? { speedKmh } : {}),
         ...(maxStops !== undefined ? { maxStops } : {}),
         ...(featureText !== undefined ? { features: parseFeatures(featureText) } : {}),

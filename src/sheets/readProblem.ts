@@ -1,4 +1,5 @@
 import { buildMatrix, userMatrix } from "../core/geo/buildMatrix.js";
+import { validateProblem } from "../core/validateProblem.js";
 import type { Issue, LatLon, Problem, Stop, Vehicle } from "../core/model.js";
 import type { SheetRead } from "../workbook/WorkbookPort.js";
 import { formatClock } from "./formatClock.js";
@@ -58,20 +59,21 @@ export function readProblem(
 
   const locations: (LatLon & { name?: string })[] = [];
   const depotNames: string[][] = [];
-  const depotIndex = (p: LatLon, vehicleId: string): number => {
+  const depotIndex = (p: LatLon, v: ParsedVehicle): number => {
     let i = locations.findIndex((l) => l.lat === p.lat && l.lon === p.lon);
     if (i < 0) {
-      i = locations.push({ lat: p.lat, lon: p.lon, name: `Depot (${vehicleId})` }) - 1;
-      depotNames.push([`Depot (${vehicleId})`]);
+      i = locations.push({ lat: p.lat, lon: p.lon, name: `Depot (${v.rowName})` }) - 1;
+      depotNames.push([`Depot (${v.rowName})`]);
     }
-    depotNames[i]!.push(vehicleId);
+    // A matrix sheet may name the depot by any vehicle starting there, or by its row name.
+    depotNames[i]!.push(v.id, v.rowName);
     return i;
   };
   const vehicles: Vehicle[] = fleet.vehicles.map((v) => ({
     id: v.id,
     capacity: dims.map((d) => (d.fleet === undefined ? Infinity : v.capacity.get(d.fleet) ?? 0)),
-    startLocation: depotIndex(v.start, v.id),
-    endLocation: depotIndex(v.end, v.id),
+    startLocation: depotIndex(v.start, v),
+    endLocation: depotIndex(v.end, v),
     shiftStartMin: v.shiftStartMin,
     shiftEndMin: v.shiftEndMin,
     fixedCost: v.fixedCost,
@@ -108,6 +110,9 @@ export function readProblem(
     referenceSpeedKmh: settings.speedKmh, hardWindows: settings.hardWindows,
     lateCostPerMin: settings.lateCostPerMin, objective: settings.objective,
   };
+  // Safety net: whatever the rows looked like, the solver only ever sees a consistent problem.
+  const model = validateProblem(problem);
+  if (model.length > 0) return { ok: false, issues: model, stopColumns, fleetColumns };
   const stopRows: StopRow[] = stops.stops.map((s, i) => ({ stop: i, sheetRow: s.sheetRow, extra: s.extra }));
   return { ok: true, problem, settings, stopRows, extraHeaders: stops.extraHeaders, stopColumns, fleetColumns, warnings };
 }
@@ -184,7 +189,7 @@ function checkServable(
       const demand = dims.map((d) => (d.stops === undefined ? 0 : s.demand.get(d.stops) ?? 0));
       const carriable = vs.some((v) => dims.every((d, k) => d.fleet === undefined || demand[k]! <= (v.capacity.get(d.fleet) ?? 0)));
       if (!carriable) {
-        const amounts = demand.map((x, k) => `${x} ${dims[k]!.name}`).join(", ");
+        const amounts = demand.map((x, k) => (dims[k]!.name === PLAIN_DIMENSION ? `${x}` : `${x} ${dims[k]!.name}`)).join(", ");
         warnings.push(cellIssue(sheet, s.sheetRow0, stops.col0 + demandCol, `the demand of stop "${s.id}" (${amounts}) exceeds every vehicle's capacity; it will be left unassigned unless you split the stop into smaller ones or add a larger vehicle.`));
       }
     }

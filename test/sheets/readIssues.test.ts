@@ -176,6 +176,15 @@ describe("readProblem reports defects by sheet and cell", () => {
     expectIssue(issues(read([OK_STOP], [OK_VAN], { matrix: bad })), "Km", "C2", `"far" is not a distance`);
   });
 
+  it("a Count of 0 leaves a row out; a fleet with no vehicle left is an issue", () => {
+    const fleet = sheet("Fleet", [["Van", "Count", "Capacity", "Lat", "Lon"], ["A", 0, 10, 45, 4], ["B", 2, 10, 45, 4]]);
+    const two = readProblem({ stops: sheet("Stops", [STOP_HEADER, OK_STOP]), fleet });
+    if (!two.ok) throw new Error(JSON.stringify(two.issues));
+    expect(two.problem.vehicles.map((v) => v.id)).toEqual(["B 1", "B 2"]);
+    const none = sheet("Fleet", [["Van", "Count", "Capacity", "Lat", "Lon"], ["A", 0, 10, 45, 4]]);
+    expectIssue(issues(readProblem({ stops: sheet("Stops", [STOP_HEADER, OK_STOP]), fleet: none })), "Fleet", "A1", "no vehicle is available");
+  });
+
   it("reports all defects of the tables at once", () => {
     const list = issues(read(
       [["S1", "A", "", 123.4, 4, "x", "", ""], ["S1", "B", "", 45, 4, 1, "", ""]],
@@ -191,7 +200,32 @@ describe("readProblem reports defects by sheet and cell", () => {
     fc.assert(
       fc.property(grid, grid, grid, (s, f, t) => {
         const r = readProblem({ stops: sheet("Stops", s), fleet: sheet("Fleet", f), settings: sheet("Settings", t) });
+        // Issues name the user's sheets; a model path ("stops[3]") would mean the reader let a defect through.
         if (!r.ok) expect(r.issues.length).toBeGreaterThan(0);
+        if (!r.ok) for (const i of r.issues) expect(["Stops", "Fleet", "Settings", "options"]).toContain(i.sheet);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it("near-valid random tables give either a consistent problem or cell issues, never model-level ones (property, fast-check)", () => {
+    const time = fc.oneof(fc.constant(""), fc.integer({ min: 0, max: 26 }).map((h) => `${h}:${h % 2 === 0 ? "00" : "30"}`), fc.double({ min: 0, max: 1, noNaN: true }));
+    const stopRow = fc.tuple(
+      fc.constantFrom("S1", "S2", "S3", "S4", "S5", ""), fc.constant("n"), fc.constant(""),
+      fc.double({ min: -100, max: 100, noNaN: true }), fc.double({ min: -200, max: 200, noNaN: true }),
+      fc.oneof(fc.integer({ min: -2, max: 120 }), fc.constant("x"), fc.constant("")), time, time,
+    );
+    const vanRow = fc.tuple(fc.constantFrom("A", "B", "C"), fc.integer({ min: -1, max: 150 }), fc.constant(45), fc.constant(4), time, time);
+    fc.assert(
+      fc.property(fc.array(stopRow, { minLength: 1, maxLength: 6 }), fc.array(vanRow, { minLength: 1, maxLength: 3 }), (srows, vrows) => {
+        const r = readProblem({ stops: sheet("Stops", [STOP_HEADER, ...srows]), fleet: sheet("Fleet", [FLEET_HEADER, ...vrows]) });
+        if (r.ok) {
+          expect(r.problem.stops.length).toBe(srows.length);
+          for (const st of r.problem.stops) expect(st.windows.every((w) => w.latestMin >= w.earliestMin)).toBe(true);
+        } else {
+          for (const i of r.issues) expect(["Stops", "Fleet"]).toContain(i.sheet);
+          for (const i of r.issues) expect(i.message.startsWith(`${i.sheet}!${i.cell}: `)).toBe(true);
+        }
       }),
       { numRuns: 300 },
     );
