@@ -1,0 +1,37 @@
+import { writeFile } from "node:fs/promises";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { runSolve } from "../../src/cli/solveCommand.js";
+import { captureIO, demoCopy } from "../workbook/harness.js";
+
+describe("kiln solve input checks", () => {
+  it("exits 2 naming the sheets there are when --stops names a missing sheet", async () => {
+    const { path } = await demoCopy();
+    const cap = captureIO();
+    expect(await runSolve([path, "--moves", "1000", "--stops", "Drops"], cap.io)).toBe(2);
+    expect(cap.err()).toMatch(/^Drops: .*Stops, Fleet, Settings, README/m);
+  });
+
+  it("exits 2 on a file that is not an .xlsx workbook, and on a missing file", async () => {
+    const { dir } = await demoCopy();
+    const text = join(dir, "stops.xlsx");
+    await writeFile(text, "Stop,Latitude\nS1,52\n");
+    const cap = captureIO();
+    expect(await runSolve([text], cap.io)).toBe(2);
+    expect(cap.err()).toMatch(/not an \.xlsx workbook/);
+    const none = captureIO();
+    expect(await runSolve([join(dir, "absent.xlsx")], none.io)).toBe(2);
+    expect(none.err()).toMatch(/cannot read the file/);
+  });
+
+  it("runs with a seconds budget on the real clock and draws progress on a terminal", async () => {
+    const { dir, path } = await demoCopy();
+    let err = "";
+    const io = { stdout: () => undefined, stderr: (s: string) => void (err += s), isTTY: true, now: () => performance.now() };
+    expect(await runSolve([path, "--seconds", "0.3", "--out", join(dir, "timed.xlsx")], io)).toBe(0);
+    // Progress comes at most every 100 ms; a 0.3 s run may end before the first report,
+    // so only the format is checked when one was drawn, and the line is cleared at the end.
+    if (err.includes("[")) expect(err).toMatch(/\r\[[#-]+\] +\d+%/);
+    expect(err).not.toMatch(/warning/i);
+  });
+});
