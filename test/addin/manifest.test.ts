@@ -138,6 +138,12 @@ describe("manifest.xml (Office add-in manifest rules, OFFICE-NOTES.md)", () => {
     }
   });
 
+  it("keeps resource ids within 32 characters and control, group and resource ids unique (manifest reference, from memory)", () => {
+    const ids = all.map((e) => e.attrs.get("id")).filter((v): v is string => v !== undefined && v !== "TabHome");
+    expect(new Set(ids).size).toBe(ids.length);
+    for (const id of ids) expect(id.length, id).toBeLessThanOrEqual(32);
+  });
+
   it("references icon files that exist in assets/ at the declared pixel sizes (PNG IHDR)", () => {
     const resources = child(child(root, "VersionOverrides")!, "Resources")!;
     const images = new Map(child(resources, "bt:Images")!.children.map((i) => [i.attrs.get("id") ?? "", i.attrs.get("DefaultValue") ?? ""]));
