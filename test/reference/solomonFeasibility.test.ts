@@ -1,9 +1,11 @@
+import { readdirSync } from "node:fs";
 import { describe, expect, it } from "vitest";
+import { detectFormat } from "../../src/core/formats/detectFormat.js";
 import { parseSolomon } from "../../src/core/formats/parseSolomon.js";
 import { solomonRoutesDistance } from "../../src/core/formats/solomonRoutesDistance.js";
 import { solomonToProblem } from "../../src/core/formats/solomonToProblem.js";
 import { solve } from "../../src/core/solve.js";
-import { benchmarksAvailable, benchmarkText } from "./benchmarksDir.js";
+import { BENCHMARKS_DIR, benchmarksAvailable, benchmarkText } from "./benchmarksDir.js";
 import { checkSolomonPlan, readRawSolomon } from "./solomonChecker.js";
 
 // Solomon (1987) instances of three classes: clustered, random, random-clustered long horizon.
@@ -33,6 +35,23 @@ describe.skipIf(!benchmarksAvailable("Solomon feasibility"))("Solomon (1987) pla
       }
     });
   }
+
+  it("every Solomon file of the folder reads as the raw numbers say (25 vehicles, depot + 100 customers)", () => {
+    const files = readdirSync(BENCHMARKS_DIR + "solomon").filter((f) => f.endsWith(".txt"));
+    expect(files.length).toBeGreaterThan(0);
+    for (const f of files) {
+      const text = benchmarkText(`solomon/${f}`);
+      expect(detectFormat(text), f).toBe("solomon");
+      const inst = parseSolomon(text);
+      const raw = readRawSolomon(text);
+      expect(inst.issues, f).toEqual([]);
+      expect(inst.name, f).toBe(f.replace(".txt", ""));
+      expect([inst.vehicleCount, inst.capacity], f).toEqual([raw.vehicles, raw.capacity]);
+      expect(inst.vehicleCount, f).toBe(25);
+      expect(inst.customers.map((c) => [c.id, c.x, c.y, c.demand, c.readyTime, c.dueDate, c.serviceTime]), f).toEqual(raw.rows);
+      expect(inst.customers, f).toHaveLength(101);
+    }
+  });
 
   it("the checker itself rejects broken plans (C101: one route for all, a customer left out)", () => {
     const raw = readRawSolomon(benchmarkText("solomon/C101.txt"));

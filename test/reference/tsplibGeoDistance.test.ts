@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { detectFormat } from "../../src/core/formats/detectFormat.js";
 import { parseTsplib } from "../../src/core/formats/parseTsplib.js";
 import { tsplibTourLength } from "../../src/core/formats/tsplibTourLength.js";
 import { tsplibDistance, tsplibGeoDegrees } from "../../src/core/geo/tsplibDistance.js";
@@ -35,7 +36,9 @@ describe.skipIf(!benchmarksAvailable("TSPLIB GEO optimal tours"))("TSPLIB95 GEO 
 
   it("every TSPLIB file of the folder parses without issues and with DIMENSION nodes", () => {
     for (const [name] of benchmarkCsv("tsplib/optimal.csv").slice(1)) {
-      const inst = parseTsplib(benchmarkText(`tsplib/${name}.tsp`));
+      const text = benchmarkText(`tsplib/${name}.tsp`);
+      expect(detectFormat(text), name).toBe("tsplib");
+      const inst = parseTsplib(text);
       expect(inst.issues, name).toEqual([]);
       expect(inst.nodes.length, name).toBe(inst.dimension);
     }
