@@ -9,6 +9,7 @@ import { GEOMETRIC_DEFAULTS, LINEAR_DEFAULT_STEPS } from "../sheets/parseSetting
 import type { PlanSettings } from "../sheets/PlanSettings.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { ExcelJsWorkbook } from "../workbook/exceljs/ExcelJsWorkbook.js";
+import { partsNotKept } from "../workbook/exceljs/zipEntryNames.js";
 import { findInputSheets } from "../workbook/findInputSheets.js";
 import { readScenarioInput, sourceOf, writeScenarioResult } from "../workbook/scenario.js";
 import type { CliIO } from "./CliIO.js";
@@ -60,6 +61,9 @@ export async function runSolve(args: string[], io: CliIO): Promise<number> {
   const out = await outputPath(inputPath, parsed.values.get("out"));
   if ("error" in out) return reportErrors(io, [out.error]);
   for (const w of read.warnings) io.stderr(`warning: ${formatIssue(w)}\n`);
+  if (prepared.notKept.length > 0) {
+    io.stderr(`warning: ${parsed.positional[0]} has ${prepared.notKept.join(", ")}; the new workbook keeps every sheet's cells but not these (the file library cannot write them). The input file itself is not changed.\n`);
+  }
 
   const s = read.settings;
   const bar = progressBar(io);
@@ -116,6 +120,8 @@ export interface PreparedRun {
   readonly inputPath: string;
   readonly sheets: { readonly stops: string; readonly fleet: string; readonly settings?: string };
   readonly read: ReadResult & { readonly ok: true };
+  /** What the input holds that a copy saved through exceljs loses ("charts", ...). */
+  readonly notKept: readonly string[];
 }
 
 /**
@@ -159,7 +165,7 @@ export async function prepareRun(parsed: ParsedArgs): Promise<PreparedRun | { er
   const cooling = applyScheduleFlags(read.settings.cooling, scheduleFlags);
   if ("error" in cooling) return { errors: [cooling.error] };
   return {
-    book, inputPath,
+    book, inputPath, notKept: partsNotKept(bytes),
     sheets: { stops, fleet, ...(settings ? { settings } : {}) },
     read: { ...read, settings: { ...read.settings, cooling: cooling.spec } },
   };

@@ -1,3 +1,5 @@
+import { findEndOfCentralDirectory } from "./zipEntryNames.js";
+
 /**
  * Set every entry's modification time in a ZIP archive (an .xlsx file is one) to one date,
  * in place, so the same workbook content always gives the same bytes.
@@ -38,13 +40,4 @@ export function pinZipDates(zip: Uint8Array, date: Date): Uint8Array {
     at += 46 + view.getUint16(at + 28, true) + view.getUint16(at + 30, true) + view.getUint16(at + 32, true);
   }
   return zip;
-}
-
-function findEndOfCentralDirectory(view: DataView): number {
-  // The record is 22 bytes plus a comment of up to 65535 bytes, at the very end.
-  const last = view.byteLength - 22;
-  for (let at = last; at >= 0 && at >= last - 65_535; at--) {
-    if (view.getUint32(at, true) === 0x06054b50) return at;
-  }
-  throw new RangeError("zip: end of central directory not found (not a ZIP archive)");
 }
