@@ -26,6 +26,8 @@ const officeFiles = [
   to: "office/",
   noErrorOnMissing: true,
   globOptions: { ignore: ["**/*.debug.js"] },
+  // Already minified by Microsoft: tell the minimizer to leave them alone (saves minutes per build).
+  info: { minimized: true },
 }));
 
 /** The HTTPS options of the dev server: office-addin-dev-certs files when present, else a self-signed cert. */
