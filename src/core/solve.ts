@@ -130,6 +130,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     if (!feasible && feasibleFound) return;
     // Feasible plans by (vehicles, cost) or cost; infeasible ones by (violation, penalised cost).
     const k1 = feasible ? (cp.hierarchical ? state.used : 0) : state.violation();
+    if (k1 > bestKey1 + 1e-9 && !(feasible && !feasibleFound)) return;
     const k2 = feasible ? state.realCost() : state.total();
     if (feasible && !feasibleFound) {
       feasibleFound = true;
@@ -247,13 +248,21 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
 
 /** A copy of the routes and pool of the best state seen. */
 class Snapshot {
-  private routes: number[][] = [];
+  private readonly routes: number[][];
   private pool: number[] = [];
 
-  constructor(private readonly cp: CompiledProblem) {}
+  constructor(private readonly cp: CompiledProblem) {
+    this.routes = Array.from({ length: cp.vehicleCount }, () => []);
+  }
 
+  /** Copy the routes changed since the previous copy (every accepted move marks its routes). */
   take(state: SearchState): void {
-    this.routes = state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1)));
+    for (let v = 0; v < state.routes.length; v++) {
+      if (!state.dirty[v]) continue;
+      const r = state.routes[v]!;
+      this.routes[v] = Array.from(r.nodes.subarray(1, r.len + 1));
+      state.dirty[v] = 0;
+    }
     this.pool = Array.from(state.pool.subarray(0, state.poolSize));
   }
 

@@ -3,6 +3,8 @@ import { RESULT_SIZE, RESULT_VIOL, type SearchState } from "../moves/SearchState
 
 /** Routes up to this length are tried at every position; longer ones next to the stop's neighbours. */
 const FULL_SCAN_LEN = 60;
+/** Fleets up to this size are tried route by route for every stop; larger ones near its neighbours first. */
+const ALL_ROUTES_UP_TO = 30;
 
 /**
  * A first plan by sequential cheapest insertion (Solomon 1987, "Algorithms for the vehicle
@@ -70,9 +72,12 @@ export function constructPlan(state: SearchState, nb: Neighbours): void {
         bestAnyRoute = v;
       }
     };
+    // Routes holding one of the stop's neighbours first; all routes only when none of them fits.
+    const seenRoute = new Set<number>();
     let triedEmpty = false;
-    for (let v = 0; v < V; v++) {
-      if (!cp.compatible[s * V + v]) continue;
+    const tryRoute = (v: number): void => {
+      if (seenRoute.has(v) || !cp.compatible[s * V + v]) return;
+      seenRoute.add(v);
       const r = state.routes[v]!;
       if (r.len === 0) {
         // Identical empty vehicles give the same result: the first compatible one stands for all.
@@ -90,7 +95,16 @@ export function constructPlan(state: SearchState, nb: Neighbours): void {
           }
         }
       }
+    };
+    for (let k = 0; k < nb.k; k++) {
+      const w = nb.list[s * nb.k + k]!;
+      if (w >= 0 && state.routeOf[w]! >= 0) tryRoute(state.routeOf[w]!);
     }
+    if (V <= ALL_ROUTES_UP_TO) for (let v = 0; v < V; v++) if (state.routes[v]!.len > 0) tryRoute(v);
+    if (bestFeasibleRoute < 0 || !cp.hierarchical) {
+      for (let v = 0; v < V && !(triedEmpty && !cp.anyIncompatible); v++) if (state.routes[v]!.len === 0) tryRoute(v);
+    }
+    if (bestFeasibleRoute < 0 && openRoute < 0) for (let v = 0; v < V; v++) if (state.routes[v]!.len > 0) tryRoute(v);
     let route = -1;
     let at = 0;
     let cost = Infinity;

@@ -42,6 +42,8 @@ export class SearchState {
   /** Results of the last `evaluate` per slot. */
   readonly out = new Float64Array(2 * R_SIZE);
   used = 0;
+  /** 1 for routes written since the last `clearDirty` (lets a snapshot copy only those). */
+  readonly dirty: Uint8Array;
   /** Running sums over routes of unpenalised cost and violation; stops that must be served but sit in the pool. */
   realSum = 0;
   violSum = 0;
@@ -66,6 +68,7 @@ export class SearchState {
     this.pool = new Int32Array(cp.n);
     this.poolIndex = new Int32Array(cp.n).fill(-1);
     this.rStats = new Float64Array(V * R_SIZE);
+    this.dirty = new Uint8Array(V).fill(1);
     this.load = new Float64Array(cp.dims);
     this.tmp = [new Int32Array(cp.n + 1), new Int32Array(cp.n + 1)];
     this.wTime = wTime;
@@ -337,6 +340,7 @@ export class SearchState {
   private write(v: number, stops: Int32Array, count: number, slot: number): void {
     const route = this.routes[v]!;
     const wasUsed = route.len > 0;
+    this.dirty[v] = 1;
     route.assign(stops, count);
     for (let p = 1; p <= count; p++) {
       const s = route.nodes[p]!;

@@ -1,0 +1,85 @@
+/**
+ * Move evaluations per second of the annealer's hot path on invented instances of 100, 1 000
+ * and 5 000 stops (demo data: stops scattered around two depots, windows, two load
+ * dimensions, vehicles of two speeds). Two figures per size: "raw" draws and evaluates moves
+ * on the first plan without applying them; "in run" is a full `solve` with a seconds budget
+ * (evaluations / elapsed, accepted moves and their route rebuilds included).
+ *
+ * Run: npx tsx bench/moveEvaluations.ts   (writes bench/out/moveEvaluations.json)
+ */
+import { mkdirSync, writeFileSync } from "node:fs";
+import { createRandom } from "../src/core/anneal/createRandom.js";
+import { initialWeights } from "../src/core/anneal/initialWeights.js";
+import { constructPlan } from "../src/core/construct/constructPlan.js";
+import { buildMatrix } from "../src/core/geo/buildMatrix.js";
+import type { Problem, Stop, Vehicle } from "../src/core/model.js";
+import { Move, proposeMove } from "../src/core/moves/proposeMove.js";
+import { SearchState } from "../src/core/moves/SearchState.js";
+import { buildNeighbours } from "../src/core/neighbours/buildNeighbours.js";
+import { compileProblem } from "../src/core/schedule/compileProblem.js";
+import { solve } from "../src/core/solve.js";
+
+function instance(n: number): Problem {
+  const rng = createRandom(`bench-${n}`);
+  const locations = [{ lat: 53.96, lon: -1.08 }, { lat: 53.99, lon: -1.0 }];
+  for (let i = 0; i < n; i++) locations.push({ lat: 53.96 + (rng.next() - 0.5) * 0.5, lon: -1.08 + (rng.next() - 0.5) * 0.8 });
+  const stops: Stop[] = Array.from({ length: n }, (_, i) => {
+    const e = 480 + rng.int(420);
+    return {
+      id: `S${i}`, name: `S${i}`, location: i + 2, demand: [1 + rng.int(20), rng.int(3)],
+      windows: [{ earliestMin: e, latestMin: e + 60 + rng.int(180) }], serviceMin: 5 + rng.int(10),
+    };
+  });
+  const vehicleCount = Math.max(2, Math.ceil(n / 12));
+  const vehicles: Vehicle[] = Array.from({ length: vehicleCount }, (_, k) => ({
+    id: `V${k}`, capacity: [150, 20], startLocation: k % 2, endLocation: k % 2, shiftStartMin: 420, shiftEndMin: 1140,
+    fixedCost: 50, costPerKm: 0.8, costPerHour: 20, speedKmh: k % 3 === 0 ? 35 : 45,
+  }));
+  return {
+    locations, stops, vehicles, loadDimensions: ["kg", "crates"], matrix: buildMatrix(locations),
+    referenceSpeedKmh: 40, hardWindows: true, lateCostPerMin: 0, objective: "weighted",
+  };
+}
+
+function raw(problem: Problem, seconds: number): number {
+  const cp = compileProblem(problem);
+  const w = initialWeights(cp);
+  const state = new SearchState(cp, w.wTime, w.wLoad);
+  const nb = buildNeighbours(cp, 20);
+  constructPlan(state, nb);
+  const rng = createRandom(1);
+  const mv = new Move();
+  const active = Int32Array.from({ length: cp.n }, (_, i) => i);
+  let evaluations = 0;
+  const start = performance.now();
+  let sink = 0;
+  while (performance.now() - start < seconds * 1000) {
+    for (let k = 0; k < 10_000; k++) {
+      if (proposeMove(state, nb, rng, mv, active)) {
+        evaluations++;
+        sink += mv.delta;
+      }
+    }
+  }
+  if (Number.isNaN(sink)) console.warn("NaN delta seen");
+  return evaluations / ((performance.now() - start) / 1000);
+}
+
+const rows: { stops: number; vehicles: number; rawPerSecond: number; inRunPerSecond: number; runCost: number; feasible: boolean }[] = [];
+for (const n of [100, 1000, 5000]) {
+  const problem = instance(n);
+  const rawPerSecond = raw(problem, 2);
+  const t = performance.now();
+  const result = solve(problem, { seed: 1, budget: { seconds: 3 }, now: () => performance.now() });
+  void t;
+  rows.push({
+    stops: n, vehicles: problem.vehicles.length, rawPerSecond: Math.round(rawPerSecond),
+    inRunPerSecond: Math.round(result.stats.evaluations / (result.stats.elapsedMs / 1000)),
+    runCost: Math.round(result.plan.totals.cost), feasible: result.plan.feasible,
+  });
+}
+console.log("| stops | vehicles | raw evaluations/s | in-run evaluations/s | 3 s plan cost | feasible |");
+console.log("|---:|---:|---:|---:|---:|:---|");
+for (const r of rows) console.log(`| ${r.stops} | ${r.vehicles} | ${r.rawPerSecond.toLocaleString("en")} | ${r.inRunPerSecond.toLocaleString("en")} | ${r.runCost} | ${r.feasible} |`);
+mkdirSync(new URL("./out/", import.meta.url), { recursive: true });
+writeFileSync(new URL("./out/moveEvaluations.json", import.meta.url), JSON.stringify({ node: process.version, rows }, null, 2));
