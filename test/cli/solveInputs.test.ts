@@ -1,7 +1,8 @@
-import { writeFile } from "node:fs/promises";
+import { readFile, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { runSolve } from "../../src/cli/solveCommand.js";
+import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { captureIO, demoCopy } from "../workbook/harness.js";
 
 describe("kiln solve input checks", () => {
@@ -33,5 +34,25 @@ describe("kiln solve input checks", () => {
     // so only the format is checked when one was drawn, and the line is cleared at the end.
     if (err.includes("[")) expect(err).toMatch(/\r\[[#-]+\] +\d+%/);
     expect(err).not.toMatch(/warning/i);
+  });
+
+  it("carries the flags into the run record stored with the scenario (over the Settings sheet's values)", async () => {
+    const { dir, path } = await demoCopy();
+    const out = join(dir, "flags.xlsx");
+    const flags = ["--moves", "3000", "--seed", "42", "--rule", "logistic", "--schedule", "geometric", "--alpha", "0.9",
+      "--level", "250", "--t0", "80", "--detour", "1.45", "--speed", "35", "--soft-windows", "--out", out];
+    expect(await runSolve([path, ...flags], captureIO().io)).toBe(0);
+    const settings = await (await ExcelJsWorkbook.fromBuffer(await readFile(out))).readSettings();
+    const record = JSON.parse(settings["kiln.scenario.Plan"]!);
+    expect(record.settings).toMatchObject({
+      seed: 42, rule: "logistic", moves: 3000, detourFactor: 1.45, speedKmh: 35, hardWindows: false,
+      cooling: { kind: "geometric", alpha: 0.9, movesPerLevel: 250, t0: 80 },
+    });
+    expect(record.moves).toBe(3000);
+    // The demo's Settings sheet says seed 7 and 1.3; without flags those values hold.
+    const plain = join(dir, "plain.xlsx");
+    expect(await runSolve([path, "--moves", "3000", "--out", plain], captureIO().io)).toBe(0);
+    const plainRecord = JSON.parse((await (await ExcelJsWorkbook.fromBuffer(await readFile(plain))).readSettings())["kiln.scenario.Plan"]!);
+    expect(plainRecord.settings).toMatchObject({ seed: 7, detourFactor: 1.3, hardWindows: true, cooling: { kind: "timeFraction" } });
   });
 });
