@@ -178,3 +178,30 @@ describe("ExcelJsWorkbook.setDocumentDates", () => {
     expect(fresh.created.toISOString()).toBe("2026-01-05T18:00:00.000Z");
   });
 });
+
+describe("ExcelJsWorkbook in a 1904-date-system workbook", () => {
+  const bytes1904 = (): Promise<Uint8Array> =>
+    bytesOf((b) => {
+      b.properties.date1904 = true;
+      const ws = b.addWorksheet("Dates");
+      ws.getCell("A1").value = new Date(Date.UTC(2025, 0, 1));
+      ws.getCell("B1").value = 0.5;
+    });
+
+  it("reads a date cell as its 1900-system serial (2025-01-01 = 45658, ECMA-376; from memory)", async () => {
+    const read = await (await ExcelJsWorkbook.fromBuffer(await bytes1904())).readSheet("Dates");
+    expect(read!.values[0]).toEqual([45658, 0.5]);
+  });
+
+  it("writes a date-time serial so that exceljs shows the same date, and leaves times of day and plain numbers alone", async () => {
+    const book = await ExcelJsWorkbook.fromBuffer(await bytes1904());
+    await book.addSheet("Out", {
+      values: [[46028 + 4 / 24, 0.25, 46028]],
+      numberFormats: [["yyyy-mm-dd hh:mm", "hh:mm", "0"]],
+    });
+    const ws = (await reload(book)).getWorksheet("Out")!;
+    expect((ws.getCell("A1").value as Date).toISOString()).toBe("2026-01-06T04:00:00.000Z");
+    expect((ws.getCell("B1").value as Date).toISOString()).toBe("1904-01-01T06:00:00.000Z");
+    expect(ws.getCell("C1").value).toBe(46028);
+  });
+});

@@ -158,7 +158,7 @@ export class ExcelJsWorkbook implements WorkbookPort {
    */
   async addSheet(name: string, grid: SheetGrid, chart?: RouteChart): Promise<void> {
     const ws = this.newSheet(name);
-    writeGrid(ws, grid, 1);
+    writeGrid(ws, grid, 1, { date1904: this.date1904 });
     if (chart) this.skippedCharts.push(ws.name);
   }
 
@@ -175,9 +175,9 @@ export class ExcelJsWorkbook implements WorkbookPort {
     let ws = this.findSheet(name);
     if (!ws) {
       ws = this.newSheet(name);
-      writeGrid(ws, header, 1);
+      writeGrid(ws, header, 1, { date1904: this.date1904 });
     }
-    writeGrid(ws, rows, lastUsedRow(ws) + 1, { layout: false });
+    writeGrid(ws, rows, lastUsedRow(ws) + 1, { layout: false, date1904: this.date1904 });
   }
 
   /**
@@ -222,6 +222,11 @@ export class ExcelJsWorkbook implements WorkbookPort {
     });
     // Text format so a value such as "=1" or "0012" comes back exactly as written.
     writeGrid(ws, { values: [[key, value]], numberFormats: [["@", "@"]] }, target, { layout: false });
+  }
+
+  /** True for a workbook in the 1904 date system (old Mac files). */
+  private get date1904(): boolean {
+    return Boolean((this.book.properties as { date1904?: boolean }).date1904);
   }
 
   private findSheet(name: string): ExcelJS.Worksheet | undefined {

@@ -1,6 +1,9 @@
 import type ExcelJS from "exceljs";
 import type { SheetGrid } from "../../sheets/grid.js";
 
+/** Days between serial 0 of the 1900 and of the 1904 date system. */
+const DAYS_1900_TO_1904 = 1462;
+
 /**
  * Write a grid into an exceljs worksheet, starting at a 1-based row (column A): values,
  * number formats, bold rows, column widths and frozen rows.
@@ -12,7 +15,9 @@ import type { SheetGrid } from "../../sheets/grid.js";
  * @param ws - the target worksheet
  * @param grid - the block to write (its strings are literal text)
  * @param startRow - 1-based sheet row of `grid.values[0]`
- * @param options - `layout: false` skips widths and frozen rows (used when appending rows)
+ * @param options - `layout: false` skips widths and frozen rows (used when appending rows);
+ *   `date1904: true` for a workbook in the 1904 date system: grid serials are 1900-system
+ *   (ECMA-376 default), so cells under a date format are shifted by 1462 days to show the same date
  * @throws TypeError when a value is not a string, number, boolean or null (a programming mistake)
  * @example writeGrid(ws, { values: [["Stop", "Name"]], boldRows: [0] }, 1) // A1:B1, bold
  */
@@ -20,7 +25,7 @@ export function writeGrid(
   ws: ExcelJS.Worksheet,
   grid: SheetGrid,
   startRow: number,
-  options: { readonly layout?: boolean } = {},
+  options: { readonly layout?: boolean; readonly date1904?: boolean } = {},
 ): void {
   if (!Number.isInteger(startRow) || startRow < 1) throw new RangeError(`startRow must be an integer >= 1, got ${startRow}`);
   const bold = new Set(grid.boldRows ?? []);
@@ -36,7 +41,8 @@ export function writeGrid(
         if (format === null && /^[=+\-@]/.test(value)) cell.numFmt = "@";
       } else if (typeof value === "number") {
         if (!Number.isFinite(value)) throw new TypeError(`grid.values[${r}][${c}] must be a finite number, got ${value}`);
-        cell.value = value;
+        // 1904 system: serial 0 is 1904-01-01, 1462 days after the 1900 system's (ECMA-376 Part 1, 18.17.4.1).
+        cell.value = options.date1904 && format !== null && isDateFormat(format) ? value - DAYS_1900_TO_1904 : value;
       } else if (typeof value === "boolean") {
         cell.value = value;
       } else {
@@ -52,4 +58,10 @@ export function writeGrid(
   });
   const freeze = grid.freezeRows ?? 0;
   if (freeze > 0) ws.views = [{ state: "frozen", xSplit: 0, ySplit: freeze, topLeftCell: `A${freeze + 1}` }];
+}
+
+/** A number format that shows a calendar date (has a year or day token outside quotes and brackets). */
+function isDateFormat(format: string): boolean {
+  const bare = format.replace(/"[^"]*"|\[[^\]]*\]|\\./g, "");
+  return /[yd]/i.test(bare);
 }
