@@ -44,15 +44,16 @@ export class ConvergencePlot {
         {
           ...this.size(),
           cursor: { drag: { x: false, y: false } },
+          legend: { live: false },
           scales: { x: { time: false } },
           axes: [
             { label: "seconds", size: 34, labelSize: 14, font, labelFont: font },
             { label: "cost", size: 56, labelSize: 14, font, labelFont: font },
           ],
           series: [
-            { label: "s", value: (_u, v) => (v == null ? "–" : v.toFixed(1)) },
-            { label: "current", stroke: "#9e9e9e", width: 1, value: (_u, v) => (v == null ? "–" : v.toFixed(1)) },
-            { label: "best", stroke: "#0f6cbd", width: 2, value: (_u, v) => (v == null ? "–" : v.toFixed(1)) },
+            { label: "seconds" },
+            { label: "current cost", stroke: "#9e9e9e", width: 1 },
+            { label: "best feasible cost", stroke: "#0f6cbd", width: 2 },
           ],
         },
         data,

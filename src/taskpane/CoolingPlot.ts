@@ -39,16 +39,17 @@ export class CoolingPlot {
         {
           ...this.size(),
           cursor: { drag: { x: false, y: false } },
+          legend: { live: false },
           scales: { x: { time: false }, T: { distr: 3 }, P: { range: [0, 1] } },
           axes: [
             { label: "% of run", size: 34, labelSize: 14, font: "11px Segoe UI, sans-serif", labelFont: "11px Segoe UI, sans-serif" },
-            { scale: "T", label: "Temperature", size: 52, labelSize: 14, font: "11px Segoe UI, sans-serif", labelFont: "11px Segoe UI, sans-serif", values: (_u, v) => v.map(compact) },
+            { scale: "T", label: "Temperature", size: 52, labelSize: 14, font: "11px Segoe UI, sans-serif", labelFont: "11px Segoe UI, sans-serif", values: (_u, splits) => splits.map((v) => (v == null ? "" : compact(v))) },
             { scale: "P", side: 1, label: "P(accept)", size: 40, labelSize: 14, grid: { show: false }, font: "11px Segoe UI, sans-serif", labelFont: "11px Segoe UI, sans-serif" },
           ],
           series: [
-            { label: "Run %", value: (_u, v) => (v == null ? "–" : `${v.toFixed(0)}%`) },
-            { label: "T", scale: "T", stroke: "#b4532a", width: 2, value: (_u, v) => (v == null ? "–" : compact(v)) },
-            { label: "P", scale: "P", stroke: "#0f6cbd", width: 2, value: (_u, v) => (v == null ? "–" : v.toFixed(3)) },
+            { label: "% of run" },
+            { label: "temperature", scale: "T", stroke: "#b4532a", width: 2 },
+            { label: "P(accept mean uphill)", scale: "P", stroke: "#0f6cbd", width: 2 },
           ],
         },
         data,

@@ -1,6 +1,8 @@
 /**
- * Which host the pane runs in. Outside Office, `Office.onReady` resolves with `host` null; when
- * office.js failed to load or never answers, a short timeout decides "standalone" instead.
+ * Which host the pane runs in. taskpane.html loads office.js only when an Office host may be
+ * around (no `Office` global: standalone at once). Outside Office, `Office.onReady` resolves with
+ * `host` null; when office.js failed to load or never answers, a short timeout decides
+ * "standalone" instead.
  */
 
 /**
