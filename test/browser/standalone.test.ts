@@ -113,7 +113,7 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
     if (userDataDir) rmSync(userDataDir, { recursive: true, force: true });
   });
 
-  it("opens a workbook, previews, optimizes, stops early and downloads scenario + Compare with inputs unchanged (checked with exceljs)", async () => {
+  it("opens a workbook, previews, optimizes, stops early, reruns into a new sheet and downloads scenario + Compare with inputs unchanged (checked with exceljs)", async () => {
     const input = await inputWorkbook();
     try {
       // Block everything but our own server: nothing may leave the machine.
@@ -166,6 +166,24 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
 
       await page.click("#write");
       await page.waitForSelector("#download:not([hidden])", { timeout: 60_000 });
+      await expect(page.locator("#write-status").textContent()).resolves.toMatch(/"Plan 1"/);
+
+      // Rerun: the stored settings of "Plan 1" come back into the form; the rerun lands in a new sheet.
+      await page.selectOption("#rerun-sheet", "Plan 1");
+      await page.fill("#seed", "9");
+      await page.selectOption("#schedule", "lundyMees");
+      await page.click("#rerun");
+      await expect.poll(() => page.locator("#rerun-status").textContent()).toMatch(/Loaded the settings of "Plan 1"/);
+      await expect(page.locator("#seed").inputValue()).resolves.toBe("1");
+      await expect(page.locator("#schedule").inputValue()).resolves.toBe("timeFraction");
+      await expect(page.locator("#seconds").inputValue()).resolves.toBe("60");
+      await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+      await page.click("#optimize");
+      await expect.poll(async () => Number(await page.locator("#convergence-plot").getAttribute("data-points")), { timeout: 60_000 }).toBeGreaterThanOrEqual(1);
+      await page.click("#stop");
+      await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+      await page.click("#write");
+      await expect.poll(() => page.locator("#write-status").textContent(), { timeout: 60_000 }).toMatch(/"Plan 1 \(2\)"/);
       const [download] = await Promise.all([page.waitForEvent("download"), page.click("#download")]);
       expect(download.suggestedFilename()).toBe("kiln-demo.plan.xlsx");
       const saved = join(userDataDir, "downloaded.xlsx");
@@ -179,6 +197,7 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
       await out.xlsx.readFile(saved);
       const names = out.worksheets.map((w) => w.name);
       expect(names).toContain("Plan 1");
+      expect(names).toContain("Plan 1 (2)");
       expect(names).toContain("Compare");
       for (const sheet of original.worksheets.map((w) => w.name)) {
         expect(await sheetValues(out, sheet)).toEqual(await sheetValues(original, sheet));
@@ -186,6 +205,7 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
       const compare = await sheetValues(out, "Compare");
       expect(compare[0]?.[0]).toBe("Scenario");
       expect(compare[1]?.[0]).toBe("Plan 1");
+      expect(compare[2]?.[0]).toBe("Plan 1 (2)");
       const plan = await sheetValues(out, "Plan 1");
       expect(plan.flat().some((v) => typeof v === "string" && /estimates/i.test(v))).toBe(true);
       expect(outside).toEqual([]);
