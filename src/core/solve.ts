@@ -5,6 +5,7 @@ import { resolveCooling, temperatureAt, type ResolvedCooling } from "./anneal/re
 import { sampleUphill } from "./anneal/sampleUphill.js";
 import { constructPlan } from "./construct/constructPlan.js";
 import type { Plan, Problem, Unassigned } from "./model.js";
+import { eliminateRoute } from "./moves/eliminateRoute.js";
 import { applyMove, Move, proposeMove } from "./moves/proposeMove.js";
 import { SearchState } from "./moves/SearchState.js";
 import { buildNeighbours } from "./neighbours/buildNeighbours.js";
@@ -56,6 +57,10 @@ const PENALTY_DOWN = 1.1;
  * a good plan, so without it the run would end on a plan slightly above its local optimum.
  */
 const QUENCH_FROM = 0.95;
+/** Under the vehicles-first objective, a feasible current plan loses its smallest route this often (moves)... */
+const ELIMINATE_EVERY = 2000;
+/** ... until this fraction of the budget, leaving the rest to shorten the routes. */
+const ELIMINATE_UNTIL = 0.85;
 /** Descent moves per stop that polish the constructed plan before calibration. */
 const DESCENT_MOVES_PER_STOP = 50;
 
@@ -203,6 +208,9 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
         }
       }
       if (moves % ADAPT_EVERY === 0) adapt();
+      if (cp.hierarchical && moves % ELIMINATE_EVERY === 0 && fraction < ELIMINATE_UNTIL && state.isFeasible()) {
+        if (eliminateRoute(state, nb, rng) >= 0) consider();
+      }
       if (moves % CLOCK_EVERY === 0) {
         if (o.signal?.aborted) {
           done = true;

@@ -1,0 +1,90 @@
+import type { Random } from "../anneal/createRandom.js";
+import type { Neighbours } from "../neighbours/buildNeighbours.js";
+import type { SearchState } from "./SearchState.js";
+
+/** Routes up to this length are tried at every position; longer ones next to the stop's neighbours. */
+const FULL_SCAN_LEN = 60;
+
+/**
+ * Route elimination for the vehicles-first objective: empty the used route with the fewest
+ * stops and put each of its stops, in random order, where it raises the penalised cost least
+ * in the other used routes (time warp and excess allowed, so the annealer can repair them
+ * afterwards, in the spirit of the route-minimisation phase of Nagata & Bräysy 2009,
+ * "A powerful route minimization heuristic for the vehicle routing problem with time windows",
+ * Operations Research Letters 37(5)). Stops no other route may take stay in the pool.
+ *
+ * @param state - current solution, changed in place
+ * @param nb - neighbour lists
+ * @param rng - the run's generator
+ * @returns the emptied route, or -1 when fewer than two routes are in use
+ */
+export function eliminateRoute(state: SearchState, nb: Neighbours, rng: Random): number {
+  const cp = state.cp;
+  const V = cp.vehicleCount;
+  let victim = -1;
+  for (let v = 0; v < V; v++) {
+    const len = state.routes[v]!.len;
+    if (len > 0 && (victim < 0 || len < state.routes[victim]!.len)) victim = v;
+  }
+  if (victim < 0 || state.used < 2) return -1;
+  const r = state.routes[victim]!;
+  const stops = Array.from(r.nodes.subarray(1, r.len + 1));
+  state.setRoute(victim, []);
+  for (const s of stops) state.addToPool(s);
+  for (let i = stops.length - 1; i > 0; i--) {
+    const j = rng.int(i + 1);
+    [stops[i], stops[j]] = [stops[j]!, stops[i]!];
+  }
+  const pieces = new Int32Array(12);
+  for (const s of stops) {
+    let best = Infinity;
+    let bestRoute = -1;
+    let bestCut = 0;
+    const tryAt = (v: number, cut: number): void => {
+      const len = state.routes[v]!.len;
+      let m = 0;
+      if (cut >= 1) m = put(pieces, m, v, 1, cut);
+      pieces[4 * m] = -1;
+      pieces[4 * m + 1] = s;
+      pieces[4 * m + 2] = s;
+      pieces[4 * m + 3] = 0;
+      m++;
+      if (cut < len) m = put(pieces, m, v, cut + 1, len);
+      const delta = state.evaluate(v, pieces, m, 0) - state.routeCost(v);
+      if (delta < best) {
+        best = delta;
+        bestRoute = v;
+        bestCut = cut;
+      }
+    };
+    for (let v = 0; v < V; v++) {
+      const route = state.routes[v]!;
+      if (v === victim || route.len === 0 || !cp.compatible[s * V + v]) continue;
+      if (route.len <= FULL_SCAN_LEN) {
+        for (let cut = 0; cut <= route.len; cut++) tryAt(v, cut);
+      } else {
+        for (let k = 0; k < nb.k; k++) {
+          const w = nb.list[s * nb.k + k]!;
+          if (w >= 0 && state.routeOf[w] === v) {
+            tryAt(v, state.posOf[w]!);
+            tryAt(v, state.posOf[w]! - 1);
+          }
+        }
+      }
+    }
+    if (bestRoute < 0) continue;
+    const route = state.routes[bestRoute]!;
+    const next = Array.from(route.nodes.subarray(1, route.len + 1));
+    next.splice(bestCut, 0, s);
+    state.setRoute(bestRoute, next);
+  }
+  return victim;
+}
+
+function put(buf: Int32Array, m: number, v: number, i: number, j: number): number {
+  buf[4 * m] = v;
+  buf[4 * m + 1] = i;
+  buf[4 * m + 2] = j;
+  buf[4 * m + 3] = 0;
+  return m + 1;
+}
