@@ -100,6 +100,9 @@ module.exports = (env, argv) => {
         chunks: ["taskpane"],
         scriptLoading: "defer",
       }),
+      // The manifest's FunctionFile and SupportUrl pages: static, no bundle.
+      new HtmlWebpackPlugin({ template: "./src/taskpane/commands.html", filename: "commands.html", chunks: [], inject: false }),
+      new HtmlWebpackPlugin({ template: "./src/taskpane/help.html", filename: "help.html", chunks: [], inject: false }),
       new CopyWebpackPlugin({
         patterns: [
           ...officeFiles,
