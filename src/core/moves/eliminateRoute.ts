@@ -6,8 +6,8 @@ import type { SearchState } from "./SearchState.js";
 const FULL_SCAN_LEN = 60;
 
 /**
- * Route elimination for the vehicles-first objective: empty the used route with the fewest
- * stops and put each of its stops, in random order, where it raises the penalised cost least
+ * Route elimination for the vehicles-first objective: empty a short used route (the shorter
+ * of two drawn at random) and put each of its stops, in random order, where it raises the penalised cost least
  * in the other used routes (time warp and excess allowed, so the annealer can repair them
  * afterwards, in the spirit of the route-minimisation phase of Nagata & Bräysy 2009,
  * "A powerful route minimization heuristic for the vehicle routing problem with time windows",
@@ -21,10 +21,19 @@ const FULL_SCAN_LEN = 60;
 export function eliminateRoute(state: SearchState, nb: Neighbours, rng: Random): number {
   const cp = state.cp;
   const V = cp.vehicleCount;
+  // Tournament of two random used routes, the shorter loses: mostly small routes, not always the same one.
   let victim = -1;
-  for (let v = 0; v < V; v++) {
-    const len = state.routes[v]!.len;
-    if (len > 0 && (victim < 0 || len < state.routes[victim]!.len)) victim = v;
+  if (state.used >= 2) {
+    for (let t = 0; t < 2; t++) {
+      let pick = rng.int(state.used);
+      for (let v = 0; v < V; v++) {
+        if (state.routes[v]!.len === 0) continue;
+        if (pick-- === 0) {
+          if (victim < 0 || state.routes[v]!.len < state.routes[victim]!.len) victim = v;
+          break;
+        }
+      }
+    }
   }
   if (victim < 0 || state.used < 2) return -1;
   const r = state.routes[victim]!;
