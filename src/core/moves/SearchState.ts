@@ -341,8 +341,18 @@ export class SearchState {
     const route = this.routes[v]!;
     const wasUsed = route.len > 0;
     this.dirty[v] = 1;
-    route.assign(stops, count);
-    for (let p = 1; p <= count; p++) {
+    let lo = 1;
+    let hi = count;
+    if (count === route.len && count > 0) {
+      // Same length (moves inside one route): rebuild from the first to the last changed position.
+      const nodes = route.nodes;
+      while (lo <= count && nodes[lo] === stops[lo - 1]) lo++;
+      while (hi >= lo && nodes[hi] === stops[hi - 1]) hi--;
+      if (lo <= hi) route.replaceRange(stops, lo, hi);
+    } else {
+      route.assign(stops, count);
+    }
+    for (let p = lo; p <= hi; p++) {
       const s = route.nodes[p]!;
       this.routeOf[s] = v;
       this.posOf[s] = p;

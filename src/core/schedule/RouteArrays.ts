@@ -58,8 +58,21 @@ export class RouteArrays {
     this.rebuild();
   }
 
-  /** Recompute all summaries from `nodes[1..len]`. */
-  rebuild(): void {
+  /**
+   * Replace stops at positions lo..hi (same length) and rebuild only what they affect:
+   * prefixes from lo on, suffixes from hi down.
+   *
+   * @param stops - the whole new sequence (0-based), `len` long
+   * @param lo - first changed position (1-based)
+   * @param hi - last changed position
+   */
+  replaceRange(stops: Int32Array, lo: number, hi: number): void {
+    for (let p = lo; p <= hi; p++) this.nodes[p] = stops[p - 1]!;
+    this.rebuild(lo, hi);
+  }
+
+  /** Recompute the summaries from `nodes[1..len]`; positions outside lo..hi are known unchanged. */
+  rebuild(lo: number = 1, hi: number = this.len): void {
     const cp = this.cp;
     const v = this.vehicle;
     const len = this.len;
@@ -72,7 +85,7 @@ export class RouteArrays {
     locs[0] = cp.startLoc[v]!;
     this.nodes[0] = -1;
     this.nodes[len + 1] = -1;
-    for (let i = 1; i <= len; i++) locs[i] = cp.stopLoc[this.nodes[i]!]!;
+    for (let i = lo; i <= hi; i++) locs[i] = cp.stopLoc[this.nodes[i]!]!;
     locs[len + 1] = cp.endLoc[v]!;
     const { preD, preTW, preE, preL, preLoad, cumDist, cumDistR, cumTrav, cumTravR, cumSvc, cumWin } = this;
     preD[0] = 0;
@@ -82,7 +95,7 @@ export class RouteArrays {
     cumDist[0] = cumDistR[0] = cumTrav[0] = cumTravR[0] = cumSvc[0] = 0;
     cumWin[0] = 0;
     for (let d = 0; d < dims; d++) preLoad[d] = 0;
-    for (let i = 1; i <= len; i++) {
+    for (let i = lo; i <= len; i++) {
       const s = this.nodes[i]!;
       const a = locs[i - 1]!;
       const b = locs[i]!;
@@ -110,14 +123,14 @@ export class RouteArrays {
       preL[i] = Math.min(l2 - delta, L1) + tw;
     }
     const { sufD, sufTW, sufE, sufL } = this;
-    if (len > 0) {
+    if (len > 0 && hi >= len) {
       const s = this.nodes[len]!;
       sufD[len] = cp.serviceMin[s]!;
       sufTW[len] = 0;
       sufE[len] = cp.earliestMin[s]!;
       sufL[len] = cp.latestMin[s]!;
     }
-    for (let i = len - 1; i >= 1; i--) {
+    for (let i = Math.min(hi, len - 1); i >= 1; i--) {
       const s = this.nodes[i]!;
       const t = cumTrav[i + 1]! - cumTrav[i]!;
       const D1 = cp.serviceMin[s]!;

@@ -156,7 +156,7 @@ function simulate(problem: Problem, veh: Problem["vehicles"][number], stops: rea
     const s = problem.stops[index]!;
     const travel = m.travelMin[prev * L + s.location]! * factor;
     drivingMin += travel;
-    const arrivalMin = t + travel;
+    let arrivalMin = t + travel;
     const w = s.windows.find((x) => x.latestMin >= arrivalMin);
     let startMin: number;
     let lateMin = 0;
@@ -171,6 +171,8 @@ function simulate(problem: Problem, veh: Problem["vehicles"][number], stops: rea
       if (propagates) slack = Math.min(slack, waitBefore);
       propagates = false;
     }
+    // A departure delayed by exactly the waiting lands on the opening up to rounding: no wait.
+    if (startMin > arrivalMin && startMin - arrivalMin < 1e-9) arrivalMin = startMin;
     const waitMin = startMin > arrivalMin ? startMin - arrivalMin : 0;
     waitBefore += waitMin;
     times.push({ arrivalMin, waitMin, startMin, departureMin: startMin + s.serviceMin, lateMin });
