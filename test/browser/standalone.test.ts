@@ -5,7 +5,7 @@
  * downloaded file. Skips with a printed reason when Chromium is absent, fails under CI.
  */
 import { execFileSync } from "node:child_process";
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync } from "node:fs";
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import type { Server } from "node:http";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
@@ -105,6 +105,9 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
     });
     page = context.pages()[0] ?? (await context.newPage());
     page.on("pageerror", (err) => console.error("page error:", err.message));
+    page.on("console", (m) => {
+      if (m.type() === "error" && !/favicon/.test(m.text())) console.error("page console:", m.text());
+    });
   }, 600_000);
 
   afterAll(async () => {
@@ -149,7 +152,15 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
       await page.locator("#seconds").dispatchEvent("change");
       await expect(page.locator("#optimize").isEnabled()).resolves.toBe(true);
       await page.click("#optimize");
-      await expect.poll(async () => Number(await page.locator("#convergence-plot").getAttribute("data-points")), { timeout: 60_000 }).toBeGreaterThanOrEqual(3);
+      try {
+        await expect.poll(async () => Number(await page.locator("#convergence-plot").getAttribute("data-points")), { timeout: 60_000 }).toBeGreaterThanOrEqual(3);
+      } catch (err) {
+        // Say what the pane showed, so a failure here can be told apart from a slow machine.
+        console.error("pane state:", await page.locator("#optimize-section").getAttribute("data-state"),
+          "| error:", await page.locator("#pane-error-text").textContent(),
+          "| elapsed:", await page.locator("#stat-elapsed").textContent());
+        throw err;
+      }
       // The page answers while the worker runs: the Stop button is enabled and clickable.
       await expect(page.locator("#stop").isEnabled()).resolves.toBe(true);
       const width = await page.locator("#progress-bar").evaluate((el) => (el as HTMLElement).style.width);
@@ -213,4 +224,38 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
       input.cleanup();
     }
   }, 600_000);
+
+  it("bad input never crashes the page: a broken file and a bad latitude are reported, nothing runs", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "kiln-bad-"));
+    try {
+      await page.setViewportSize({ width: 360, height: 900 });
+      await page.goto(`${baseUrl}/taskpane.html`);
+      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+
+      const broken = join(dir, "broken.xlsx");
+      writeFileSync(broken, "this is not a zip archive");
+      await page.setInputFiles("#file-input", broken);
+      await page.waitForSelector("#pane-error:not([hidden])", { timeout: 30_000 });
+      await expect(page.locator("#pane-error-text").textContent()).resolves.toMatch(/broken\.xlsx could not be read/);
+
+      const wb = new ExcelJS.Workbook();
+      const stops = wb.addWorksheet("Stops");
+      stops.addRow(["Stop", "Name", "Latitude", "Longitude", "Demand"]);
+      stops.addRow(["S1", "Good", 53.96, -1.08, 5]);
+      stops.addRow(["S2", "Bad", 123.4, -1.1, 5]);
+      const fleet = wb.addWorksheet("Fleet");
+      fleet.addRow(["Vehicle", "Capacity", "Start latitude", "Start longitude", "Shift start", "Shift end"]);
+      fleet.addRow(["Van A", 40, 53.959, -1.081, "07:00", "14:00"]);
+      const bad = join(dir, "bad-latitude.xlsx");
+      await wb.xlsx.writeFile(bad);
+      await page.setInputFiles("#file-input", bad);
+      // ECMA-376 / Excel A1 addressing: the latitude 123.4 sits in column C of sheet row 3.
+      await expect.poll(() => page.locator("#stops-issues").textContent(), { timeout: 30_000 }).toMatch(/Stops!C3/);
+      await expect(page.locator("#stops-issues").textContent()).resolves.toMatch(/-90\.\.90|latitude/i);
+      await expect(page.locator("#optimize").isDisabled()).resolves.toBe(true);
+      await expect(page.locator("body").getAttribute("data-ready")).resolves.toBe("true");
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 300_000);
 });
