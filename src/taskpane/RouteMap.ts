@@ -149,14 +149,18 @@ export class RouteMap {
     const km = niceStep(targetPx / pxPerKm);
     const px = km * pxPerKm;
     const x = 10, y = cssH - 10;
+    const label = `${km} km (straight line)`;
+    ctx.font = "11px Segoe UI, sans-serif";
+    // A light box keeps the scale readable over routes and depots.
+    ctx.fillStyle = "rgba(247,245,242,0.85)";
+    ctx.fillRect(x - 4, y - 18, Math.max(px, ctx.measureText(label).width + 8) + 8, 22);
     ctx.strokeStyle = "#424242";
     ctx.lineWidth = 1.5;
     ctx.beginPath();
     ctx.moveTo(x, y - 4); ctx.lineTo(x, y); ctx.lineTo(x + px, y); ctx.lineTo(x + px, y - 4);
     ctx.stroke();
     ctx.fillStyle = "#424242";
-    ctx.font = "11px Segoe UI, sans-serif";
-    ctx.fillText(`${km} km (straight line)`, x + 4, y - 5);
+    ctx.fillText(label, x + 4, y - 5);
   }
 
   private hover(x: number, y: number): void {

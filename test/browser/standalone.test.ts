@@ -258,4 +258,19 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
       rmSync(dir, { recursive: true, force: true });
     }
   }, 300_000);
+
+  it("with an Office host hint but no host, office.js loads from the build and the page falls back to the standalone pane", async () => {
+    const requested: string[] = [];
+    const listener = (req: { url(): string }) => void requested.push(req.url());
+    page.on("request", listener);
+    try {
+      // The query Office appends to a pane's URL (from memory: _host_Info=<app>$<platform>$<version>$<locale>...).
+      await page.goto(`${baseUrl}/taskpane.html?_host_Info=Excel$Web$16.01$en-US$$$$0`);
+      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+      expect(requested.some((u) => u.startsWith(`${baseUrl}/office/office.js`))).toBe(true);
+      await expect(page.locator("#mode-badge").textContent()).resolves.toMatch(/standalone/);
+    } finally {
+      page.off("request", listener);
+    }
+  }, 120_000);
 });
