@@ -186,4 +186,16 @@ describe("worker protocol", () => {
     expect(Math.exp(-sampled.meanUphill / last.temperature)).toBeCloseTo(0.001, 6);
     expect(preview.reading.length).toBeGreaterThan(10);
   });
+
+  it("one run at a time: a second start posts the first run's best plan (stopped) before the new run goes", () => {
+    const { host, sent, runNext } = harness();
+    host.handle({ type: "start", runId: 10, problem: demoProblem(), options: { seed: 1, budget: { moves: 1e9 } } });
+    runNext();
+    host.handle({ type: "start", runId: 11, problem: demoProblem(), options: { seed: 2, budget: { moves: 400 } } });
+    const first = sent.find((m) => m.type === "result");
+    expect(first?.type === "result" && first.runId === 10 && first.stopped).toBe(true);
+    for (let i = 0; i < 1000 && runNext(); i++);
+    const results = sent.filter((m) => m.type === "result");
+    expect(results.map((m) => (m.type === "result" ? [m.runId, m.stopped] : []))).toEqual([[10, true], [11, false]]);
+  });
 });

@@ -1,0 +1,46 @@
+import { describe, expect, it } from "vitest";
+import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
+import { formFromSettings, settingsFromForm, type PaneForm } from "../../src/taskpane/settingsFromForm.js";
+
+const FORM: PaneForm = {
+  scenario: "Plan 3", detour: "1.3", speed: "40", service: "5", windows: "hard", "late-cost": "1",
+  seconds: "10", seed: "1", rule: "metropolis", schedule: "timeFraction", alpha: "0.94",
+  "moves-per-level": "20000", steps: "20", beta: "0.0001", temperatures: "calibrate",
+  p0: "0.5", "p-end": "0.001", t0: "100", "t-end": "1",
+};
+
+describe("settingsFromForm", () => {
+  it("the pane's initial fields give the plan-settings defaults (detour 1.3 and 40 km/h: common practice)", () => {
+    const r = settingsFromForm(FORM);
+    expect(r.issues).toEqual([]);
+    expect(r.scenario).toBe("Plan 3");
+    expect(r.settings).toEqual({ ...PLAN_SETTINGS_DEFAULTS });
+  });
+
+  it("reports every bad field at once, naming the field and the allowed range, and never throws", () => {
+    const r = settingsFromForm({ ...FORM, detour: "0.8", speed: "", seconds: "abc" });
+    expect(r.issues.map((i) => i.cell)).toEqual(["Detour factor", "Speed", "Time limit"]);
+    expect(r.issues[0]!.message).toMatch(/between 1 and 3/);
+    expect(r.settings.detourFactor).toBe(PLAN_SETTINGS_DEFAULTS.detourFactor);
+  });
+
+  it("builds each cooling schedule with its own parameters; manual temperatures override calibration", () => {
+    expect(settingsFromForm({ ...FORM, schedule: "geometric" }).settings.cooling).toEqual({ kind: "geometric", alpha: 0.94, movesPerLevel: 20000 });
+    expect(settingsFromForm({ ...FORM, schedule: "linear", temperatures: "manual" }).settings.cooling).toEqual({ kind: "linear", steps: 20, t0: 100, tEnd: 1 });
+    expect(settingsFromForm({ ...FORM, schedule: "lundyMees" }).settings.cooling).toEqual({ kind: "lundyMees", beta: 0.0001 });
+    const upside = settingsFromForm({ ...FORM, temperatures: "manual", t0: "1", "t-end": "5" });
+    expect(upside.issues.map((i) => i.cell)).toEqual(["T end"]);
+  });
+
+  it("formFromSettings then settingsFromForm gives the stored settings back (Rerun)", () => {
+    const stored = {
+      ...PLAN_SETTINGS_DEFAULTS,
+      detourFactor: 1.4, hardWindows: false, lateCostPerMin: 2.5, seed: 42, seconds: 30, rule: "logistic" as const,
+      cooling: { kind: "geometric" as const, alpha: 0.9, movesPerLevel: 500 }, p0: 0.4, pEnd: 0.01,
+    };
+    const back = settingsFromForm(formFromSettings(stored, "Plan 7", FORM));
+    expect(back.issues).toEqual([]);
+    expect(back.scenario).toBe("Plan 7");
+    expect(back.settings).toEqual(stored);
+  });
+});
