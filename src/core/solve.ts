@@ -57,7 +57,11 @@ const PENALTY_DOWN = 1.1;
  * a good plan, so without it the run would end on a plan slightly above its local optimum.
  */
 const QUENCH_FROM = 0.95;
-/** Under the vehicles-first objective, a feasible current plan loses its smallest route this often (moves)... */
+/**
+ * Under the vehicles-first objective, a feasible current plan loses a short route after this
+ * many moves; the wait doubles after each elimination that did not lead to fewer vehicles
+ * (so a fleet already at its minimum gets time to shorten its routes)...
+ */
 const ELIMINATE_EVERY = 2000;
 /** ... until this fraction of the budget, leaving the rest to shorten the routes. */
 const ELIMINATE_UNTIL = 0.85;
@@ -149,6 +153,9 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   consider();
 
   const mv = new Move();
+  let lastElimination = 0;
+  let eliminationGap = ELIMINATE_EVERY;
+  let usedAtElimination = Infinity;
   let moves = 0;
   let evaluations = 0;
   let accepted = 0;
@@ -208,7 +215,10 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
         }
       }
       if (moves % ADAPT_EVERY === 0) adapt();
-      if (cp.hierarchical && moves % ELIMINATE_EVERY === 0 && fraction < ELIMINATE_UNTIL && state.isFeasible()) {
+      if (cp.hierarchical && moves - lastElimination >= eliminationGap && fraction < ELIMINATE_UNTIL && state.isFeasible()) {
+        if (lastElimination > 0) eliminationGap = bestKey1 < usedAtElimination ? ELIMINATE_EVERY : eliminationGap * 2;
+        usedAtElimination = bestKey1;
+        lastElimination = moves;
         if (eliminateRoute(state, nb, rng) >= 0) consider();
       }
       if (moves % CLOCK_EVERY === 0) {
