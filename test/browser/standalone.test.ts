@@ -14,6 +14,8 @@ import ExcelJS from "exceljs";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
+import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
+import { installFakeExcel } from "./fakeExcelHost.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
 const DIST = join(ROOT, "dist");
@@ -85,7 +87,24 @@ async function sheetValues(wb: ExcelJS.Workbook, name: string): Promise<unknown[
   return rows;
 }
 
-describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
+/** A sheet as Excel's `values` gives it: rectangular, "" for empty, dates and times as serials (ECMA-376 1900 system). */
+async function excelValues(path: string, sheet: string): Promise<unknown[][]> {
+  const wb = new ExcelJS.Workbook();
+  await wb.xlsx.readFile(path);
+  const rows = await sheetValues(wb, sheet);
+  const cols = rows.reduce((m, r) => Math.max(m, r?.length ?? 0), 0);
+  const epoch = Date.UTC(1899, 11, 30);
+  return rows.map((r) =>
+    Array.from({ length: cols }, (_, c) => {
+      const v = r?.[c];
+      if (v === null || v === undefined) return "";
+      if (typeof v === "string" && /^\d{4}-\d\d-\d\dT/.test(v)) return (Date.parse(v) - epoch) / 86_400_000;
+      return typeof v === "object" ? String((v as { result?: unknown }).result ?? "") : v;
+    }),
+  );
+}
+
+describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
   let server: Server | undefined;
   let baseUrl = "";
   let context: BrowserContext | undefined;
@@ -273,4 +292,59 @@ describe.skipIf(!CHROMIUM)("standalone page in Chromium", () => {
       page.off("request", listener);
     }
   }, 120_000);
+
+  it("Excel mode (fake Excel host): Use selection shows address, columns and rows; error cells select their cell; Rerun reads the stored settings", async () => {
+    const input = await inputWorkbook();
+    const excelPage = await context!.newPage();
+    try {
+      const stops = await excelValues(input.path, "Stops");
+      const fleet = await excelValues(input.path, "Fleet");
+      const latCol = (stops[0] ?? []).findIndex((h) => String(h).toLowerCase() === "latitude");
+      expect(latCol).toBeGreaterThanOrEqual(0);
+      const bad = stops.map((row, r) => (r === 2 ? row.map((v, c) => (c === latCol ? 123.4 : v)) : row));
+      const badCell = `Bad!${String.fromCharCode(65 + latCol)}3`;
+      const stored = {
+        scenario: "Plan 4", createdSerial: 46000.5, moves: 1000, runSeconds: 2, stopsSource: "Stops!A1:N85", fleetSource: "Fleet!A1:O6",
+        settings: { ...PLAN_SETTINGS_DEFAULTS, seed: 77, seconds: 25 },
+      };
+      await excelPage.addInitScript(installFakeExcel, {
+        sheets: { Stops: stops, Fleet: fleet, Bad: bad, "Plan 4": [["Scenario", "Plan 4"]] },
+        settings: { "kiln.scenario.Plan 4": JSON.stringify(stored) },
+      });
+      await excelPage.goto(`${baseUrl}/taskpane.html`);
+      await excelPage.waitForSelector("body[data-ready='true'][data-mode='excel']", { timeout: 30_000 });
+      await expect(excelPage.locator("#file-section").isHidden()).resolves.toBe(true);
+      await expect(excelPage.locator("#scenario").inputValue()).resolves.toBe("Plan 1");
+
+      const select = (sheet: string) => excelPage.evaluate((s) => ((window as unknown as { __kilnExcel: { selectSheet: string } }).__kilnExcel.selectSheet = s), sheet);
+      await select("Stops");
+      await excelPage.click("#stops-use-selection");
+      await select("Fleet");
+      await excelPage.click("#fleet-use-selection");
+      await expect.poll(() => excelPage.locator("#stops-summary").textContent(), { timeout: 30_000 }).toMatch(new RegExp(`Stops!A1:[A-Z]+${stops.length} · ${stops.length - 1} data rows`));
+      await expect(excelPage.locator("#stops-summary .col").first().textContent()).resolves.toMatch(/^A: /);
+      await excelPage.waitForSelector("#cooling-reading.ok", { timeout: 60_000 });
+      await expect(excelPage.locator("#optimize").isEnabled()).resolves.toBe(true);
+
+      // A bad latitude: the issue's address is a link that selects the cell in Excel.
+      await select("Bad");
+      await excelPage.click("#stops-use-selection");
+      const link = excelPage.locator("#stops-issues button.cell", { hasText: badCell });
+      await link.waitFor({ timeout: 30_000 });
+      await expect(excelPage.locator("#optimize").isDisabled()).resolves.toBe(true);
+      await link.click();
+      await expect.poll(() => excelPage.evaluate(() => (window as unknown as { __kilnExcel: { selected: string[] } }).__kilnExcel.selected)).toEqual([badCell]);
+
+      // Rerun on the plan sheet loads the settings stored under its name.
+      await select("Plan 4");
+      await excelPage.click("#rerun");
+      await expect.poll(() => excelPage.locator("#rerun-status").textContent()).toMatch(/Loaded the settings of "Plan 4"/);
+      await expect(excelPage.locator("#seed").inputValue()).resolves.toBe("77");
+      await expect(excelPage.locator("#seconds").inputValue()).resolves.toBe("25");
+      await expect(excelPage.locator("#pane-error").isHidden()).resolves.toBe(true);
+    } finally {
+      await excelPage.close();
+      input.cleanup();
+    }
+  }, 300_000);
 });
