@@ -43,6 +43,7 @@ export class Move {
  * @param nb - neighbour lists
  * @param rng - the run's generator
  * @param mv - filled in
+ * @param active - the stops that may move (default: all; stops no vehicle can serve are skipped anyway)
  * @returns false when the drawn combination is not a valid move (nothing to evaluate)
  * @example if (proposeMove(state, nb, rng, mv) && mv.delta < 0) applyMove(state, mv)
  */

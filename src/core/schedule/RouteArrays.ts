@@ -48,7 +48,8 @@ export class RouteArrays {
   /**
    * Replace the stops of the route and rebuild every summary in O(len).
    *
-   * @param stops - stop indices in visiting order (read from `from` up to `count`)
+   * @param stops - stop indices in visiting order
+   * @param count - how many of `stops` to take (default all)
    * @example route.assign(Int32Array.of(3, 1), 2)
    */
   assign(stops: Int32Array | readonly number[], count: number = stops.length): void {
