@@ -1,8 +1,10 @@
 /**
  * End to end in a real browser (Debian's Chromium through playwright-core, never a downloaded
- * one): the built standalone page opens the demo workbook, previews a schedule change, runs,
- * stops early, writes and downloads the workbook; exceljs (the reference reader) then checks the
- * downloaded file. Skips with a printed reason when Chromium is absent, fails under CI.
+ * one) against the built page: the standalone pane opens the demo workbook, previews a schedule
+ * change, runs, stops early, reruns, writes and downloads the workbook, and exceljs (the reference
+ * reader) checks the downloaded file; bad files and CSV input; the office.js fallback; and the
+ * Excel mode against a small fake host. Skips with a printed reason when Chromium is absent,
+ * fails under CI.
  */
 import { execFileSync } from "node:child_process";
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
@@ -277,6 +279,25 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       rmSync(dir, { recursive: true, force: true });
     }
   }, 300_000);
+
+  it("opens stops.csv + fleet.csv as two sheets and finds them by name (RFC 4180 quoting in a name)", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "kiln-csv-"));
+    try {
+      const stopsCsv = join(dir, "stops.csv");
+      const fleetCsv = join(dir, "fleet.csv");
+      writeFileSync(stopsCsv, 'Stop,Name,Latitude,Longitude,Demand\r\nS1,"Baker, North",53.96,-1.08,5\r\nS2,Mill,53.97,-1.1,5\r\n');
+      writeFileSync(fleetCsv, "Vehicle,Capacity,Start latitude,Start longitude,Shift start,Shift end\r\nVan A,40,53.959,-1.081,07:00,14:00\r\n");
+      await page.goto(`${baseUrl}/taskpane.html`);
+      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+      await page.setInputFiles("#file-input", [stopsCsv, fleetCsv]);
+      await expect.poll(() => page.locator("#stops-summary").textContent(), { timeout: 30_000 }).toMatch(/stops!A1:E3 · 2 data rows/);
+      await expect(page.locator("#fleet-summary").textContent()).resolves.toMatch(/fleet!A1:F2 · 1 data row(?!s)/);
+      await expect(page.locator("#file-name").textContent()).resolves.toBe("stops.csv + fleet.csv");
+      await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 120_000);
 
   it("with an Office host hint but no host, office.js loads from the build and the page falls back to the standalone pane", async () => {
     const requested: string[] = [];
