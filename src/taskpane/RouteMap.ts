@@ -63,6 +63,8 @@ export class RouteMap {
     this.hoverPoints = [];
     this.legend.replaceChildren();
     const drawn: { vehicle: string; stops: string[] }[] = [];
+    // The scale goes first, under routes and depots, so it never hides a depot.
+    this.drawScale(ctx, proj.pxPerKm, cssH);
 
     plan.routes.forEach((route, r) => {
       if (route.visits.length === 0) return;
@@ -103,11 +105,15 @@ export class RouteMap {
       if (firstStop) {
         const p = at(firstStop.location);
         ctx.font = "600 11px Segoe UI, sans-serif";
+        // Keep the label inside the canvas: flip it to the left of the stop near the right edge.
+        const labelW = ctx.measureText(vehicle.id).width;
+        const lx = p.x + 7 + labelW > cssW - 2 ? p.x - 7 - labelW : p.x + 7;
+        const ly = Math.max(12, p.y - 6);
         ctx.lineWidth = 3;
         ctx.strokeStyle = "rgba(255,255,255,0.9)";
-        ctx.strokeText(vehicle.id, p.x + 7, p.y - 6);
+        ctx.strokeText(vehicle.id, lx, ly);
         ctx.fillStyle = colour;
-        ctx.fillText(vehicle.id, p.x + 7, p.y - 6);
+        ctx.fillText(vehicle.id, lx, ly);
       }
       drawn.push({ vehicle: vehicle.id, stops: route.visits.map((v) => problem.stops[v.stop]?.id ?? "?") });
       const item = document.createElement("li");
@@ -140,7 +146,6 @@ export class RouteMap {
       ctx.stroke();
       this.hoverPoints.push({ x: p.x, y: p.y, text: `${stop.name || stop.id} · not served: ${u.reason}` });
     }
-    this.drawScale(ctx, proj.pxPerKm, cssH);
     this.canvas.dataset.routes = JSON.stringify(drawn);
   }
 
