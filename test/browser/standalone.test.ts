@@ -193,6 +193,21 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       const routes = JSON.parse((await page.locator("#route-map").getAttribute("data-routes")) ?? "[]") as { stops: string[] }[];
       expect(routes.length).toBeGreaterThan(0);
 
+      // Hover: sweep the canvas until the tooltip names a stop with its arrival and load.
+      const tooltip = await page.evaluate(() => {
+        const canvas = document.getElementById("route-map")!;
+        const tip = document.getElementById("map-tooltip")!;
+        const box = canvas.getBoundingClientRect();
+        for (let y = 0; y < box.height; y += 3) {
+          for (let x = 0; x < box.width; x += 3) {
+            canvas.dispatchEvent(new MouseEvent("mousemove", { clientX: box.left + x, clientY: box.top + y, bubbles: true }));
+            if (!tip.hidden && / arrives /.test(tip.textContent ?? "")) return tip.textContent;
+          }
+        }
+        return null;
+      });
+      expect(tooltip).toMatch(/ arrives \d\d:\d\d · load after \d/);
+
       mkdirSync(ARTIFACTS, { recursive: true });
       await page.screenshot({ path: join(ARTIFACTS, "pane-after-run.png"), fullPage: true });
 
