@@ -131,6 +131,26 @@ describe("solve", () => {
     expect(weighted.totals.cost).toBeLessThan(hierarchical.totals.cost);
   });
 
+  it("runs every acceptance rule and cooling schedule; a t0/tEnd given in the schedule wins over calibration", () => {
+    const problem = randomInstance(37, { stops: 25, vehicles: 3 });
+    const specs = [
+      { kind: "geometric", alpha: 0.95, movesPerLevel: 500 },
+      { kind: "linear", steps: 20 },
+      { kind: "lundyMees", beta: 0.001 },
+      { kind: "timeFraction", t0: 40, tEnd: 0.5 },
+    ] as const;
+    for (const cooling of specs) {
+      for (const rule of ["metropolis", "logistic"] as const) {
+        const r = solve(problem, { rule, cooling, budget: { moves: 15_000 } });
+        expect(everyStopOnce(problem, r.plan)).toBe(true);
+        if (cooling.kind === "timeFraction") {
+          expect(r.stats.t0).toBe(40);
+          expect(r.stats.tEnd).toBe(0.5);
+        }
+      }
+    }
+  });
+
   it("sampleMeanUphill gives a positive mean from the first plan", () => {
     const problem = randomInstance(35, { stops: 25, vehicles: 3 });
     const s = sampleMeanUphill(problem, { seed: 2, samples: 100 });
