@@ -15,8 +15,11 @@ export type AcceptanceRule =
  * (target acceptance `p0` at the start and `pEnd` at the end of the mean uphill change).
  */
 export type CoolingSpec =
-  /** T <- alpha * T every `movesPerLevel` moves. */
-  | { readonly kind: "geometric"; readonly alpha: number; readonly movesPerLevel: number; readonly t0?: number }
+  /**
+   * T <- alpha * T every `movesPerLevel` moves. Without `movesPerLevel` the levels are spread
+   * evenly over the run (moves or seconds) so that T reaches tEnd at its end.
+   */
+  | { readonly kind: "geometric"; readonly alpha: number; readonly movesPerLevel?: number; readonly t0?: number; readonly tEnd?: number }
   /** T falls linearly from t0 to tEnd in `steps` equal steps, each held for budget/steps moves. */
   | { readonly kind: "linear"; readonly steps: number; readonly t0?: number; readonly tEnd?: number }
   /** Lundy & Mees (1986): T <- T / (1 + beta * T) every move. */
@@ -55,7 +58,10 @@ export interface SolveOptions {
   readonly cooling: CoolingSpec;
   /** Target acceptance probability of the mean uphill change at the start (default 0.5). */
   readonly p0: number;
-  /** ... and at the end (default 0.001). */
+  /**
+   * ... and at the end (default 0.001), as a share of the sampled uphill moves still accepted
+   * (see `calibrateTemperatures`).
+   */
   readonly pEnd: number;
   /** Random moves sampled for calibration (default 300). */
   readonly calibrationSamples: number;

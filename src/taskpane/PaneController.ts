@@ -41,6 +41,7 @@ export class PaneController {
   protected fleet: PickedTable | undefined;
   private read: ReadResult | undefined;
   private meanUphill: number | undefined;
+  private uphill: readonly number[] = [];
   private sampledFor: ReadResult | undefined;
   private movesPerSecond = ASSUMED_MOVES_PER_SECOND;
   private last: { read: ReadResult & { ok: true }; result: SolveResult; scenario: string; runSeconds: number; written?: string } | undefined;
@@ -128,10 +129,11 @@ export class PaneController {
     if (this.sampledFor === read) return;
     this.dom.coolingReading.textContent = "Sampling cost changes…";
     try {
-      const { meanUphill } = await this.solver.sample(read.problem, read.settings.seed);
+      const { meanUphill, uphill } = await this.solver.sample(read.problem, read.settings.seed);
       if (this.read !== read) return;
       this.sampledFor = read;
       this.meanUphill = meanUphill;
+      this.uphill = uphill;
     } catch (err) {
       if (!(err instanceof WorkerError)) throw err;
       this.meanUphill = undefined;
@@ -170,7 +172,7 @@ export class PaneController {
     const s = form.settings;
     const budgetMoves = Math.max(1, Math.round(s.moves ?? s.seconds * this.movesPerSecond));
     try {
-      const points = profile(s.cooling, s.rule, this.meanUphill, budgetMoves, { p0: s.p0, pEnd: s.pEnd, points: 101 });
+      const points = profile(s.cooling, s.rule, this.meanUphill, budgetMoves, { p0: s.p0, pEnd: s.pEnd, points: 101, uphill: this.uphill });
       this.coolingPlot.show(points);
       const assumed = s.moves === undefined ? ` (about ${formatCount(budgetMoves)} moves in ${s.seconds} s)` : "";
       d.coolingReading.textContent = `${describeProfile(points, s.rule)}${assumed}`;

@@ -74,13 +74,13 @@ export class SolverClient {
    * @returns the mean uphill change (cost units) and the number of samples
    * @throws WorkerError (as a rejected promise) when the problem has defects
    */
-  sample(problem: Problem, seed: number | string): Promise<{ meanUphill: number; samples: number }> {
+  sample(problem: Problem, seed: number | string): Promise<{ meanUphill: number; samples: number; uphill: readonly number[] }> {
     const requestId = this.nextId++;
     return new Promise<FromWorker>((resolve, reject) => {
       this.requests.set(requestId, { resolve, reject });
       this.post({ type: "sample", requestId, problem, seed });
     }).then((m) => {
-      if (m.type === "sampled") return { meanUphill: m.meanUphill, samples: m.samples };
+      if (m.type === "sampled") return { meanUphill: m.meanUphill, samples: m.samples, uphill: m.uphill };
       if (m.type === "error") throw new WorkerError(m.message, m.issues);
       throw new Error(`Unexpected reply ${m.type} to a sample request`);
     });

@@ -35,6 +35,8 @@ export type ToWorker =
       readonly cooling: CoolingSpec;
       readonly rule: AcceptanceRule;
       readonly meanUphill: number;
+      /** The sampled changes behind meanUphill, so the preview calibrates tEnd as the run does. */
+      readonly uphill?: readonly number[];
       readonly budgetMoves: number;
       readonly p0?: number;
       readonly pEnd?: number;
@@ -45,7 +47,7 @@ export type ToWorker =
 export type FromWorker =
   | { readonly type: "progress"; readonly runId: number; readonly progress: Progress }
   | { readonly type: "result"; readonly runId: number; readonly result: SolveResult; readonly stopped: boolean }
-  | { readonly type: "sampled"; readonly requestId: number; readonly meanUphill: number; readonly samples: number }
+  | { readonly type: "sampled"; readonly requestId: number; readonly meanUphill: number; readonly samples: number; readonly uphill: readonly number[] }
   | {
       readonly type: "previewed";
       readonly requestId: number;
@@ -185,6 +187,7 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
             ...(msg.p0 !== undefined ? { p0: msg.p0 } : {}),
             ...(msg.pEnd !== undefined ? { pEnd: msg.pEnd } : {}),
             ...(msg.points !== undefined ? { points: msg.points } : {}),
+            ...(msg.uphill !== undefined ? { uphill: msg.uphill } : {}),
           });
           return post({ type: "previewed", requestId: msg.requestId, points, reading: describeProfile(points, msg.rule) });
         }

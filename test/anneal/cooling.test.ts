@@ -98,3 +98,30 @@ describe("profile and its reading", () => {
     expect(describeProfile(pts)).toMatch(/balanced/);
   });
 });
+
+describe("calibration on sampled changes (acceptance-ratio form, Ben-Ameur 2004)", () => {
+  it("finds the temperature at which the mean acceptance of the samples is pEnd", () => {
+    const uphill = [1, 2, 5, 50, 400];
+    const mean = uphill.reduce((a, b) => a + b, 0) / uphill.length;
+    const { tEnd } = calibrateTemperatures(mean, "metropolis", 0.5, 0.01, uphill);
+    const rate = uphill.reduce((a, d) => a + acceptanceProbability("metropolis", d, tEnd), 0) / uphill.length;
+    expect(rate).toBeCloseTo(0.01, 9);
+  });
+
+  it("is never hotter than the mean form (Jensen's inequality)", () => {
+    for (const rule of ["metropolis", "logistic"] as const) {
+      const uphill = [3, 3, 7, 90, 1200, 15];
+      const mean = uphill.reduce((a, b) => a + b, 0) / uphill.length;
+      const byMean = calibrateTemperatures(mean, rule, 0.4, 0.001);
+      const bySamples = calibrateTemperatures(mean, rule, 0.4, 0.001, uphill);
+      expect(bySamples.t0).toBe(byMean.t0);
+      expect(bySamples.tEnd).toBeLessThanOrEqual(byMean.tEnd);
+    }
+  });
+
+  it("equals the mean form when every sample is the same", () => {
+    const a = calibrateTemperatures(20, "metropolis", 0.5, 0.001, [20, 20, 20]);
+    const b = calibrateTemperatures(20, "metropolis", 0.5, 0.001);
+    expect(a.tEnd).toBeCloseTo(b.tEnd, 9);
+  });
+});

@@ -1,4 +1,4 @@
-import type { AcceptanceRule, CoolingSpec } from "../options.js";
+import { SOLVE_DEFAULTS, type AcceptanceRule, type CoolingSpec } from "../options.js";
 import { acceptanceProbability } from "./acceptanceProbability.js";
 import { calibrateTemperatures } from "./calibrateTemperatures.js";
 import { resolveCooling, temperatureAt } from "./resolveCooling.js";
@@ -17,13 +17,15 @@ export interface ProfilePoint {
 export interface ProfileOptions {
   /** Target acceptance of the mean uphill change at the start (default 0.5). */
   readonly p0: number;
-  /** ... and at the end (default 0.001). */
+  /** ... and at the end (default 0.001, as `SOLVE_DEFAULTS`). */
   readonly pEnd: number;
   /** Points from fraction 0 to 1 inclusive (default 101). */
   readonly points: number;
+  /** The sampled uphill changes behind `meanUphill`: when given, tEnd is calibrated on them as the run does. */
+  readonly uphill?: readonly number[];
 }
 
-const DEFAULTS: ProfileOptions = { p0: 0.5, pEnd: 0.001, points: 101 };
+const DEFAULTS: ProfileOptions = { p0: SOLVE_DEFAULTS.p0, pEnd: SOLVE_DEFAULTS.pEnd, points: 101 };
 
 /**
  * Preview a cooling schedule before a run: the temperature and the probability of accepting the
@@ -50,7 +52,7 @@ export function profile(
   const o = { ...DEFAULTS, ...options };
   if (!(budgetMoves >= 1)) throw new RangeError(`budgetMoves must be >= 1, got ${budgetMoves}`);
   if (!(o.points >= 2)) throw new RangeError(`points must be >= 2, got ${o.points}`);
-  const { t0, tEnd } = calibrateTemperatures(meanUphill, rule, o.p0, o.pEnd);
+  const { t0, tEnd } = calibrateTemperatures(meanUphill, rule, o.p0, o.pEnd, o.uphill);
   const cooling = resolveCooling(spec, { t0, tEnd, budgetMoves });
   const out: ProfilePoint[] = [];
   const n = Math.floor(o.points);

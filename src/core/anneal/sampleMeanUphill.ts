@@ -24,7 +24,7 @@ import { sampleUphill } from "./sampleUphill.js";
 export function sampleMeanUphill(
   problem: Problem,
   options: { seed?: number | string; samples?: number } = {},
-): { meanUphill: number; samples: number } {
+): { meanUphill: number; samples: number; uphill: number[] } {
   const samples = options.samples ?? SOLVE_DEFAULTS.calibrationSamples;
   if (!(Number.isInteger(samples) && samples >= 1)) throw new RangeError(`samples must be a positive integer, got ${samples}`);
   const issues = validateProblem(problem);

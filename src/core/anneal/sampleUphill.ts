@@ -14,7 +14,8 @@ import type { Neighbours } from "../neighbours/buildNeighbours.js";
  * @param rng - the run's generator
  * @param samples - moves to draw (valid or not)
  * @param active - the stops the search may move
- * @returns mean uphill change (1 when no uphill move was seen) and the number of uphill moves used
+ * @returns mean uphill change (1 when no uphill move was seen), the number of uphill moves used
+ *   and the changes themselves (for `calibrateTemperatures`)
  */
 export function sampleUphill(
   state: SearchState,
@@ -22,12 +23,13 @@ export function sampleUphill(
   rng: Random,
   samples: number,
   active: Int32Array,
-): { meanUphill: number; samples: number } {
-  if (active.length === 0) return { meanUphill: 1, samples: 0 };
+): { meanUphill: number; samples: number; uphill: number[] } {
+  if (active.length === 0) return { meanUphill: 1, samples: 0, uphill: [] };
   const mv = new Move();
   const limit = state.cp.mustServeCost / 10;
   let sum = 0;
   let count = 0;
+  const uphill: number[] = [];
   const tries = Math.max(samples, 1) * 20;
   for (let k = 0; k < tries && count < samples; k++) {
     if (!proposeMove(state, nb, rng, mv, active)) continue;
@@ -36,7 +38,8 @@ export function sampleUphill(
     if (d > 1e-12 && d < limit) {
       sum += d;
       count++;
+      uphill.push(d);
     }
   }
-  return { meanUphill: count > 0 ? sum / count : 1, samples: count };
+  return { meanUphill: count > 0 ? sum / count : 1, samples: count, uphill };
 }
