@@ -27,7 +27,6 @@ export const RUN_VALUE_OPTIONS = ["stops", "fleet", "settings", "rule", "schedul
  */
 export const SCHEDULE_PARAMETER_DEFAULTS = {
   alpha: GEOMETRIC_DEFAULTS.alpha,
-  movesPerLevel: GEOMETRIC_DEFAULTS.movesPerLevel,
   steps: LINEAR_DEFAULT_STEPS,
 } as const;
 
@@ -270,7 +269,8 @@ function applyScheduleFlags(base: CoolingSpec, f: ScheduleFlags): { spec: Coolin
   switch (kind) {
     case "geometric": {
       const b = same("geometric");
-      return { spec: { kind, alpha: f.alpha ?? b?.alpha ?? D.alpha, movesPerLevel: f.level ?? b?.movesPerLevel ?? D.movesPerLevel, ...withT0 } };
+      const movesPerLevel = f.level ?? b?.movesPerLevel;
+      return { spec: { kind, alpha: f.alpha ?? b?.alpha ?? D.alpha, ...(movesPerLevel !== undefined ? { movesPerLevel } : {}), ...withT0 } };
     }
     case "linear": {
       const b = same("linear");

@@ -33,7 +33,7 @@ export function formatRule(rule: AcceptanceRule): string {
 function scheduleText(spec: CoolingSpec): string {
   switch (spec?.kind) {
     case "geometric":
-      return join(`geometric a=${num(spec.alpha)} L=${num(spec.movesPerLevel)}`, spec.t0);
+      return join(`geometric a=${num(spec.alpha)} L=${spec.movesPerLevel === undefined ? "fit" : num(spec.movesPerLevel)}`, spec.t0);
     case "linear":
       return join(`linear steps=${num(spec.steps)}`, spec.t0, spec.tEnd);
     case "lundyMees":

@@ -7,8 +7,8 @@ import { parseDuration } from "./parseDuration.js";
 import type { PlanSettings } from "./PlanSettings.js";
 import { cellIssue } from "./readTable.js";
 
-/** Geometric factor and level length when a Settings sheet names the schedule only (common practice). */
-export const GEOMETRIC_DEFAULTS = { alpha: 0.94, movesPerLevel: 100 } as const;
+/** Geometric factor 0.94 (common practice); no moves per level: the levels then fit the run. */
+export const GEOMETRIC_DEFAULTS = { alpha: 0.94, movesPerLevel: undefined } as const;
 /** Number of levels of the linear schedule when none is given. */
 export const LINEAR_DEFAULT_STEPS = 20;
 
@@ -154,7 +154,7 @@ function readCooling(
       return opt({
         kind, t0,
         alpha: num("alpha", (n) => n > 0 && n < 1, "a factor between 0 and 1, such as 0.94") ?? GEOMETRIC_DEFAULTS.alpha,
-        movesPerLevel: num("movesPerLevel", (n) => Number.isInteger(n) && n >= 1, "a whole number of 1 or more, such as 100") ?? GEOMETRIC_DEFAULTS.movesPerLevel,
+        movesPerLevel: num("movesPerLevel", (n) => Number.isInteger(n) && n >= 1, "a whole number of 1 or more, such as 10000; leave it out to fit the levels to the run"),
       });
     case "linear":
       return opt({ kind, t0, tEnd, steps: num("steps", (n) => Number.isInteger(n) && n >= 1, "a whole number of 1 or more, such as 20") ?? LINEAR_DEFAULT_STEPS });

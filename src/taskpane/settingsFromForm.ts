@@ -99,7 +99,10 @@ export function settingsFromForm(form: PaneForm): FormReading {
       cooling = {
         kind: "geometric",
         alpha: num("alpha", "Factor alpha", 0.5, 0.999999, 0.94),
-        movesPerLevel: Math.round(num("moves-per-level", "Moves per level", 1, 1e9, 20_000)),
+        // Blank moves per level: the levels are spread over the run so T reaches its end value.
+        ...(String(form["moves-per-level"] ?? "").trim() === ""
+          ? {}
+          : { movesPerLevel: Math.round(num("moves-per-level", "Moves per level", 1, 1e9, 20_000)) }),
         ...withT0,
       };
       break;
@@ -143,7 +146,7 @@ export function formFromSettings(settings: PlanSettings, scenario: string, curre
     seed: String(settings.seed),
     rule: settings.rule,
     schedule: c.kind,
-    ...(c.kind === "geometric" ? { alpha: String(c.alpha), "moves-per-level": String(c.movesPerLevel) } : {}),
+    ...(c.kind === "geometric" ? { alpha: String(c.alpha), "moves-per-level": c.movesPerLevel === undefined ? "" : String(c.movesPerLevel) } : {}),
     ...(c.kind === "linear" ? { steps: String(c.steps) } : {}),
     ...(c.kind === "lundyMees" ? { beta: String(c.beta) } : {}),
     temperatures: manual ? "manual" : "calibrate",

@@ -162,7 +162,7 @@ describe("readProblem: a clean table", () => {
     expect(r.settings.detourFactor).toBe(1.5);
     expect(r.settings.speedKmh).toBe(30);
     expect(r.settings.rule).toBe("logistic");
-    expect(r.settings.cooling).toEqual({ kind: "geometric", alpha: 0.9, movesPerLevel: 100 });
+    expect(r.settings.cooling).toEqual({ kind: "geometric", alpha: 0.9 });
     expect(r.settings.seed).toBe(7);
     expect(r.settings.moves).toBe(5000);
     expect(r.problem.objective).toBe("hierarchical");

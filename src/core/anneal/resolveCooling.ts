@@ -2,7 +2,8 @@ import type { CoolingSpec } from "../options.js";
 
 /** A cooling schedule with every number fixed, ready for `temperatureAt`. */
 export type ResolvedCooling =
-  | { readonly kind: "geometric"; readonly t0: number; readonly alpha: number; readonly movesPerLevel: number }
+  /** With `movesPerLevel` the level changes every so many moves; else `levels` spread over the run. */
+  | { readonly kind: "geometric"; readonly t0: number; readonly alpha: number; readonly movesPerLevel?: number; readonly levels: number }
   | { readonly kind: "linear"; readonly t0: number; readonly tEnd: number; readonly steps: number }
   | { readonly kind: "lundyMees"; readonly t0: number; readonly beta: number }
   | { readonly kind: "timeFraction"; readonly t0: number; readonly tEnd: number };
@@ -17,7 +18,7 @@ export type ResolvedCooling =
  * @throws RangeError on a parameter outside its range (alpha in (0,1), movesPerLevel >= 1,
  *   steps >= 1, beta > 0, temperatures > 0)
  * @example resolveCooling({ kind: "geometric", alpha: 0.94, movesPerLevel: 100 }, { t0: 50, tEnd: 1, budgetMoves: 1e4 })
- * // => { kind: "geometric", t0: 50, alpha: 0.94, movesPerLevel: 100 }
+ * // => { kind: "geometric", t0: 50, alpha: 0.94, movesPerLevel: 100, levels: 64 }
  */
 export function resolveCooling(
   spec: CoolingSpec,
@@ -26,10 +27,15 @@ export function resolveCooling(
   const t0 = spec.t0 ?? t.t0;
   if (!(t0 > 0)) throw new RangeError(`t0 must be > 0, got ${t0}`);
   switch (spec.kind) {
-    case "geometric":
+    case "geometric": {
       if (!(spec.alpha > 0 && spec.alpha < 1)) throw new RangeError(`alpha must be in (0, 1), got ${spec.alpha}`);
+      const tEnd = positive(spec.tEnd ?? t.tEnd, "tEnd");
+      // Levels needed to fall from t0 to tEnd; at least one so that a hot tEnd still cools a little.
+      const levels = Math.max(1, Math.ceil(Math.log(Math.min(1, tEnd / t0)) / Math.log(spec.alpha)));
+      if (spec.movesPerLevel === undefined) return { kind: "geometric", t0, alpha: spec.alpha, levels };
       if (!(spec.movesPerLevel >= 1)) throw new RangeError(`movesPerLevel must be >= 1, got ${spec.movesPerLevel}`);
-      return { kind: "geometric", t0, alpha: spec.alpha, movesPerLevel: Math.floor(spec.movesPerLevel) };
+      return { kind: "geometric", t0, alpha: spec.alpha, movesPerLevel: Math.floor(spec.movesPerLevel), levels };
+    }
     case "linear": {
       const tEnd = positive(spec.tEnd ?? t.tEnd, "tEnd");
       if (!(spec.steps >= 1)) throw new RangeError(`steps must be >= 1, got ${spec.steps}`);
@@ -46,7 +52,8 @@ export function resolveCooling(
 /**
  * Temperature after `moves` moves, a fraction `fraction` (0..1) of the way through the run.
  * Every schedule is a closed form, so a run, a preview and a test agree exactly:
- * - geometric: T = t0 * alpha^floor(moves / L) (Kirkpatrick et al. 1983);
+ * - geometric: T = t0 * alpha^floor(moves / L) (Kirkpatrick et al. 1983); without L, the run is
+ *   cut into the `levels` needed to reach tEnd: T = t0 * alpha^min(levels, floor(f * levels));
  * - linear steps: T falls from t0 to tEnd in `steps` equal levels over the run (level = floor(f * steps));
  * - Lundy-Mees: T_k = T_{k-1} / (1 + beta T_{k-1}), i.e. T = t0 / (1 + beta t0 moves)
  *   (Lundy & Mees 1986, "Convergence of an annealing algorithm", Math. Programming 34:111);
@@ -61,8 +68,13 @@ export function resolveCooling(
 export function temperatureAt(cooling: ResolvedCooling, moves: number, fraction: number): number {
   const f = fraction <= 0 ? 0 : fraction >= 1 ? 1 : fraction;
   switch (cooling.kind) {
-    case "geometric":
-      return cooling.t0 * Math.pow(cooling.alpha, Math.floor(moves / cooling.movesPerLevel));
+    case "geometric": {
+      const level =
+        cooling.movesPerLevel === undefined
+          ? Math.min(cooling.levels, Math.floor(f * cooling.levels))
+          : Math.floor(moves / cooling.movesPerLevel);
+      return cooling.t0 * Math.pow(cooling.alpha, level);
+    }
     case "linear": {
       if (cooling.steps === 1) return cooling.t0;
       const level = Math.min(cooling.steps - 1, Math.floor(f * cooling.steps));
