@@ -125,7 +125,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   }
   descend(state, nb, rng, active, DESCENT_MOVES_PER_STOP * active.length);
   const cal = sampleUphill(state, nb, rng, o.calibrationSamples, active);
-  const temps = calibrateTemperatures(cal.meanUphill, o.rule, o.p0, o.pEnd);
+  const temps = calibrateTemperatures(cal.meanUphill, o.rule, o.p0, o.pEnd, cal.uphill);
   const cooling: ResolvedCooling = resolveCooling(o.cooling, { ...temps, budgetMoves: budgetMoves ?? 0 });
   const t0 = cooling.t0;
   const tEnd = "tEnd" in cooling ? cooling.tEnd : temperatureAt(cooling, budgetMoves ?? 0, 1);
@@ -134,8 +134,21 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   let bestKey1 = Infinity;
   let bestKey2 = Infinity;
   let feasibleFound = false;
+  // The search times a stop with several windows on their hull (first opening to last close), so
+  // a plan it finds feasible can still arrive in a gap between windows: before such a plan becomes
+  // the best feasible one, it is timed exactly.
+  const multiWindow = problem.stops.some((s) => s.windows.length > 1);
+  const isExactlyFeasible = (): boolean =>
+    evaluatePlan(problem, state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1)))).feasible;
+  const improvesFeasibleBest = (): boolean => {
+    if (!feasibleFound) return true;
+    const k1 = cp.hierarchical ? state.used : 0;
+    return k1 < bestKey1 - 1e-9 || (Math.abs(k1 - bestKey1) <= 1e-9 && state.realCost() < bestKey2 - 1e-9);
+  };
   const consider = (): void => {
-    const feasible = state.isFeasible();
+    let feasible = state.isFeasible();
+    if (!feasible && feasibleFound) return;
+    if (feasible && multiWindow && improvesFeasibleBest() && !isExactlyFeasible()) feasible = false;
     if (!feasible && feasibleFound) return;
     // Feasible plans by (vehicles, cost) or cost; infeasible ones by (violation, penalised cost).
     const k1 = feasible ? (cp.hierarchical ? state.used : 0) : state.violation();
