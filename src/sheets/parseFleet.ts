@@ -91,8 +91,10 @@ export function parseFleet(read: SheetRead): ParsedFleet {
     const shiftStartMin = r.time("shiftStart", "shift start") ?? 0;
     let shiftEndMin = r.time("shiftEnd", "shift end") ?? DAY_MIN;
     if (shiftEndMin < shiftStartMin) shiftEndMin += DAY_MIN;
-    if (shiftEndMin === shiftStartMin && !r.blank("shiftEnd")) {
-      r.fail("shiftEnd", `the shift of vehicle "${name}" ends when it starts; type a later shift end.`);
+    if (shiftEndMin === shiftStartMin) {
+      // A blank end means 24:00, so a shift that starts at 24:00 (or 0:00 with end 24:00 typed) is empty.
+      const field = r.blank("shiftEnd") ? "shiftStart" : "shiftEnd";
+      r.fail(field, `the shift of vehicle "${name}" ends when it starts; type a shift start before its shift end.`);
     }
     const fixedCost = r.num("fixedCost", "fixed cost", { min: 0, example: "50" }) ?? 0;
     const costPerKm = r.num("costPerKm", "cost per km", { min: 0, example: "0.4" }) ?? DEFAULT_COST_PER_KM;

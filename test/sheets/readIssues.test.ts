@@ -208,6 +208,11 @@ describe("readProblem reports defects by sheet and cell", () => {
     );
   });
 
+  it("a shift that starts at 24:00 with a blank end (24:00) is empty: the cell says so (found by the property below)", () => {
+    const r = read([OK_STOP], [["Late van", 100, 45.75, 4.85, "24:00", ""]]);
+    expectIssue(issues(r), "Fleet", "E2", "ends when it starts");
+  });
+
   it("near-valid random tables give either a consistent problem or cell issues, never model-level ones (property, fast-check)", () => {
     const time = fc.oneof(fc.constant(""), fc.integer({ min: 0, max: 26 }).map((h) => `${h}:${h % 2 === 0 ? "00" : "30"}`), fc.double({ min: 0, max: 1, noNaN: true }));
     const stopRow = fc.tuple(
