@@ -1,4 +1,5 @@
 import type { Neighbours } from "../neighbours/buildNeighbours.js";
+import { insertionDelta } from "../moves/insertionDelta.js";
 import { RESULT_SIZE, RESULT_VIOL, type SearchState } from "../moves/SearchState.js";
 
 /** Routes up to this length are tried at every position; longer ones next to the stop's neighbours. */
@@ -45,15 +46,7 @@ export function constructPlan(state: SearchState, nb: Neighbours): void {
     let openRoute = -1;
     const tryAt = (v: number, cut: number): void => {
       const r = state.routes[v]!;
-      let m = 0;
-      if (cut >= 1) m = put(pieces, m, v, 1, cut);
-      pieces[4 * m] = -1;
-      pieces[4 * m + 1] = s;
-      pieces[4 * m + 2] = s;
-      pieces[4 * m + 3] = 0;
-      m++;
-      if (cut < r.len) m = put(pieces, m, v, cut + 1, r.len);
-      const delta = state.evaluate(v, pieces, m, 0) - state.routeCost(v);
+      const delta = insertionDelta(state, pieces, v, cut, s);
       const addedViol = state.out[RESULT_VIOL]! - rStatsViol(v);
       if (r.len === 0) {
         if (addedViol < 1e-9 && delta < openCost) {
@@ -126,12 +119,4 @@ export function constructPlan(state: SearchState, nb: Neighbours): void {
     stops.splice(at, 0, s);
     state.setRoute(route, stops);
   }
-}
-
-function put(buf: Int32Array, m: number, v: number, i: number, j: number): number {
-  buf[4 * m] = v;
-  buf[4 * m + 1] = i;
-  buf[4 * m + 2] = j;
-  buf[4 * m + 3] = 0;
-  return m + 1;
 }

@@ -1,5 +1,6 @@
 import type { Random } from "../anneal/createRandom.js";
 import type { Neighbours } from "../neighbours/buildNeighbours.js";
+import { insertionDelta } from "./insertionDelta.js";
 import type { SearchState } from "./SearchState.js";
 
 /** Routes up to this length are tried at every position; longer ones next to the stop's neighbours. */
@@ -50,16 +51,7 @@ export function eliminateRoute(state: SearchState, nb: Neighbours, rng: Random):
     let bestRoute = -1;
     let bestCut = 0;
     const tryAt = (v: number, cut: number): void => {
-      const len = state.routes[v]!.len;
-      let m = 0;
-      if (cut >= 1) m = put(pieces, m, v, 1, cut);
-      pieces[4 * m] = -1;
-      pieces[4 * m + 1] = s;
-      pieces[4 * m + 2] = s;
-      pieces[4 * m + 3] = 0;
-      m++;
-      if (cut < len) m = put(pieces, m, v, cut + 1, len);
-      const delta = state.evaluate(v, pieces, m, 0) - state.routeCost(v);
+      const delta = insertionDelta(state, pieces, v, cut, s);
       if (delta < best) {
         best = delta;
         bestRoute = v;
@@ -88,12 +80,4 @@ export function eliminateRoute(state: SearchState, nb: Neighbours, rng: Random):
     state.setRoute(bestRoute, next);
   }
   return victim;
-}
-
-function put(buf: Int32Array, m: number, v: number, i: number, j: number): number {
-  buf[4 * m] = v;
-  buf[4 * m + 1] = i;
-  buf[4 * m + 2] = j;
-  buf[4 * m + 3] = 0;
-  return m + 1;
 }
