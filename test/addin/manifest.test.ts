@@ -95,7 +95,7 @@ describe("manifest.xml (Office add-in manifest rules, OFFICE-NOTES.md)", () => {
     expect(set?.attrs.get("MinVersion")).toBe("1.4");
     expect(child(root, "Permissions")?.text.trim()).toBe("ReadWriteDocument");
     expect(child(child(root, "DefaultSettings")!, "SourceLocation")?.attrs.get("DefaultValue"))
-      .toBe("https://localhost:3000/taskpane.html");
+      .toBe("https://localhost:3000/taskpane.html?kiln-host=office");
   });
 
   it("uses HTTPS for every URL", () => {
