@@ -3,6 +3,7 @@
  * in), error addresses select their cell, plans are written through `ExcelWorkbook`.
  */
 import { ExcelWorkbook } from "../workbook/excel/ExcelWorkbook.js";
+import { fillGeographyCoordinates } from "../sheets/fillGeographyCoordinates.js";
 import { PaneController } from "./PaneController.js";
 
 /** The Excel task pane. */
@@ -16,9 +17,15 @@ export class ExcelPaneController extends PaneController {
       port: book,
       selectCell: (sheet, cell) => book.selectCell(sheet, cell),
       activeSheetName: () => book.activeSheetName(),
-      pickSelection: async () => {
+      pickSelection: async (table) => {
         const selection = await book.readSelection();
-        return { read: selection.read, address: selection.address };
+        if (table === "fleet" || !book.capabilities().geography) return { read: selection.read, address: selection.address };
+        // Stops typed as Geography cells carry their coordinates in valuesAsJson (ExcelApi 1.16).
+        const geo = await book.readGeography(selection.address);
+        if (!geo.available) return { read: selection.read, address: selection.address };
+        const places = geo.cells.map((row) => row.map((c) => (c.kind === "place" ? c.at : undefined)));
+        // The filled copy shows Latitude/Longitude among the recognised columns; the sheet is untouched.
+        return { read: fillGeographyCoordinates(selection.read, places).read, address: selection.address };
       },
     });
     notices.show = (m) => this.showError(m);

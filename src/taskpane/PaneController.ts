@@ -68,11 +68,11 @@ export class PaneController {
     if (this.source.pickSelection) {
       const pick = this.source.pickSelection.bind(this.source);
       d.stopsUseSelection.addEventListener("click", this.guard("Use selection (stops)", async () => {
-        this.stops = await pick();
+        this.stops = await pick("stops");
         await this.refreshRead();
       }));
       d.fleetUseSelection.addEventListener("click", this.guard("Use selection (fleet)", async () => {
-        this.fleet = await pick();
+        this.fleet = await pick("fleet");
         await this.refreshRead();
       }));
     }

@@ -19,6 +19,9 @@ export interface PaneSource {
   selectCell?(sheet: string, cell: string): Promise<void>;
   /** The sheet the user is on (Excel only), for "Rerun". */
   activeSheetName?(): Promise<string>;
-  /** The selected range, or the whole table it belongs to (Excel only). */
-  pickSelection?(): Promise<PickedTable>;
+  /**
+   * The selected range, or the whole table it belongs to (Excel only). For the stops table,
+   * coordinates of Geography cells are filled in where the host exposes them.
+   */
+  pickSelection?(table: "stops" | "fleet"): Promise<PickedTable>;
 }
