@@ -17,9 +17,10 @@ import { sampleUphill } from "./sampleUphill.js";
  *
  * @param problem - a problem without `validateProblem` issues
  * @param options - seed (default 1) and number of sampled moves (default 300)
- * @returns the mean uphill change in cost units and how many uphill moves it averages
+ * @returns the mean uphill change in cost units, how many uphill moves it averages, and those
+ *   changes (`uphill`, for calibrating the end temperature as a run does)
  * @throws RangeError when the problem has issues or samples is not a positive integer
- * @example sampleMeanUphill(problem, { seed: 1 }) // => { meanUphill: 41.7, samples: 300 }
+ * @example sampleMeanUphill(problem, { seed: 1 }) // => { meanUphill: 41.7, samples: 300, uphill: [12.5, ...] }
  */
 export function sampleMeanUphill(
   problem: Problem,
