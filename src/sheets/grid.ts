@@ -4,6 +4,16 @@
  * (or at the next free row when appended).
  */
 
+/** Values read from a sheet or range, with where they sit (what every workbook adapter returns). */
+export interface SheetRead {
+  readonly sheet: string;
+  /** 0-based row and column of `values[0][0]` in the sheet (so "B3" is row 2, col 1). */
+  readonly row: number;
+  readonly col: number;
+  /** Raw values: numbers (dates as serials), strings, booleans, "" for empty. */
+  readonly values: readonly (readonly unknown[])[];
+}
+
 /** A cell value as written: text, number, boolean or empty (`null`). */
 export type CellValue = string | number | boolean | null;
 

@@ -1,6 +1,6 @@
 import { DAY_MIN } from "../core/constants.js";
 import type { Issue, LatLon } from "../core/model.js";
-import type { SheetRead } from "../workbook/WorkbookPort.js";
+import type { SheetRead } from "./grid.js";
 import { plainCell } from "./cellValue.js";
 import type { TableColumns } from "./matchHeaders.js";
 import { readDegrees } from "./parseCoordinate.js";

@@ -1,5 +1,5 @@
 import type { Issue } from "../core/model.js";
-import type { SheetRead } from "../workbook/WorkbookPort.js";
+import type { SheetRead } from "./grid.js";
 import { excelError, isBlank, plainCell, readNumber, shownValue } from "./cellValue.js";
 import { cellIssue } from "./readTable.js";
 

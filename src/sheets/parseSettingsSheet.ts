@@ -1,6 +1,6 @@
 import type { Issue } from "../core/model.js";
 import type { CoolingSpec } from "../core/options.js";
-import type { SheetRead } from "../workbook/WorkbookPort.js";
+import type { SheetRead } from "./grid.js";
 import { excelError, isBlank, plainCell, readNumber, shownValue } from "./cellValue.js";
 import { headerWords } from "./matchHeaders.js";
 import { parseDuration } from "./parseDuration.js";

@@ -7,7 +7,7 @@ import { readDegrees } from "./parseCoordinate.js";
 import { parseLatLon } from "./parseLatLon.js";
 import { mergeWindows, parseWindows, rollWindow } from "./parseWindows.js";
 import { parseFeatures } from "./parseFeatures.js";
-import type { SheetRead } from "../workbook/WorkbookPort.js";
+import type { SheetRead } from "./grid.js";
 import type { TableColumns } from "./matchHeaders.js";
 
 /** One stop row as read, before it is placed in a `Problem`. */

@@ -1,7 +1,7 @@
 import { buildMatrix, userMatrix } from "../core/geo/buildMatrix.js";
 import { validateProblem } from "../core/validateProblem.js";
 import type { Issue, LatLon, Problem, Stop, Vehicle } from "../core/model.js";
-import type { SheetRead } from "../workbook/WorkbookPort.js";
+import type { SheetRead } from "./grid.js";
 import { formatClock } from "./formatClock.js";
 import { parseFleet, type ParsedFleet, type ParsedVehicle } from "./parseFleet.js";
 import { parseMatrixSheet } from "./parseMatrixSheet.js";

@@ -1,5 +1,5 @@
 import type { Issue } from "../core/model.js";
-import type { SheetRead } from "../workbook/WorkbookPort.js";
+import type { SheetRead } from "./grid.js";
 import { cellAddress } from "./cellAddress.js";
 import { isBlank } from "./cellValue.js";
 import { findHeaderRow } from "./findHeaderRow.js";

@@ -1,14 +1,4 @@
-import type { CellValue, RouteChart, SheetGrid } from "../sheets/grid.js";
-
-/** Values read from a sheet or range, with where they sit. */
-export interface SheetRead {
-  readonly sheet: string;
-  /** 0-based row and column of `values[0][0]` in the sheet (so "B3" is row 2, col 1). */
-  readonly row: number;
-  readonly col: number;
-  /** Raw values: numbers (dates as serials), strings, booleans, "" for empty. */
-  readonly values: readonly (readonly unknown[])[];
-}
+import type { CellValue, RouteChart, SheetGrid, SheetRead } from "../sheets/grid.js";
 
 /**
  * What every front end needs from a workbook. Adapters: Office.js (Excel) and exceljs (files).
@@ -32,4 +22,4 @@ export interface WorkbookPort {
   writeSetting(key: string, value: string): Promise<void>;
 }
 
-export type { CellValue };
+export type { CellValue, SheetRead };

@@ -133,6 +133,7 @@ function install(setup: Setup): ExcelWorkbook {
           getItem: function (this: Record<string, Record<string, unknown>>, name: string) {
             log.push(["getItem", name]);
             if (!present.has(name)) failures.set(syncCount + 1, { code: "ItemNotFound", message: "The requested resource doesn't exist.", debugInfo: { errorLocation: "WorksheetCollection.getItem" } });
+            // eslint-disable-next-line @typescript-eslint/no-this-alias -- the mock's seed object is the book the arrow functions below read
             const book = this;
             return {
               ...(recordingSheet(log, name) as object),

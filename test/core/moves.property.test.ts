@@ -54,7 +54,6 @@ describe("incremental move evaluation (segment concatenation, Vidal et al. 2013)
       for (let s = 0; s < cp.n; s++) if (!(c.optional && rng.next() < 0.2)) init[rng.int(cp.vehicleCount)]!.push(s);
       init.forEach((r, v) => state.setRoute(v, r));
       const nb = buildNeighbours(cp, 6);
-      const active = Int32Array.from({ length: cp.n }, (_, i) => i);
       const mv = new Move();
       let before = penalisedFromPlan(problem, cp, state);
       expect(state.total()).toBeCloseTo(before, 6);

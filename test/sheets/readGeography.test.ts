@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import type { LatLon } from "../../src/core/model.js";
 import { fillGeographyCoordinates } from "../../src/sheets/fillGeographyCoordinates.js";
 import { readProblem } from "../../src/sheets/readProblem.js";
-import type { SheetRead } from "../../src/workbook/WorkbookPort.js";
+import type { SheetRead } from "../../src/sheets/grid.js";
 
 // Geography cells reach the sheets layer as a grid of places beside the values (the Excel adapter
 // reads them from valuesAsJson, ExcelApi 1.16). Places here are small invented test data.

@@ -4,7 +4,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Issue } from "../../src/core/model.js";
 import { readProblem } from "../../src/sheets/readProblem.js";
-import type { SheetRead } from "../../src/workbook/WorkbookPort.js";
+import type { SheetRead } from "../../src/sheets/grid.js";
 
 const sheet = (name: string, values: unknown[][], row = 0, col = 0): SheetRead => ({ sheet: name, row, col, values });
 const STOP_HEADER = ["Stop", "Name", "Address", "Latitude", "Longitude", "Demand", "Earliest", "Latest"];

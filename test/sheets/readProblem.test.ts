@@ -1,10 +1,9 @@
 // Small invented tables that check the parsing rules; the outside references are named beside
 // each check (ECMA-376 serials, common practice of the trade).
 import { describe, expect, it } from "vitest";
-import type { Issue } from "../../src/core/model.js";
 import { greatCircleKm } from "../../src/core/geo/greatCircleKm.js";
 import { readProblem } from "../../src/sheets/readProblem.js";
-import type { SheetRead } from "../../src/workbook/WorkbookPort.js";
+import type { SheetRead } from "../../src/sheets/grid.js";
 
 const sheet = (name: string, values: unknown[][], row = 0, col = 0): SheetRead => ({ sheet: name, row, col, values });
 
@@ -15,15 +14,6 @@ const FLEET = sheet("Fleet", [
 
 function stopsOf(rows: unknown[][], header = ["Stop", "Name", "Latitude", "Longitude", "Demand", "Earliest", "Latest"]): SheetRead {
   return sheet("Stops", [header, ...rows]);
-}
-
-function issuesOf(r: ReturnType<typeof readProblem>): readonly Issue[] {
-  if (r.ok) throw new Error(`expected issues, got a problem with ${r.problem.stops.length} stops`);
-  return r.issues;
-}
-
-function findIssue(issues: readonly Issue[], sheetName: string, cell: string, phrase: string): Issue | undefined {
-  return issues.find((i) => i.sheet === sheetName && i.cell === cell && i.message.includes(phrase));
 }
 
 describe("readProblem: a clean table", () => {

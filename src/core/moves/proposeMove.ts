@@ -200,8 +200,6 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
     }
     case MoveKind.twoOpt: {
       // Reverse the stretch between them so that the lower one is followed by the other.
-      const lo = Math.min(p, q);
-      const hi = Math.max(p, q);
       const from = p < q ? p + 1 : q + 1;
       const to = p < q ? q : p;
       if (to <= from) return false;
