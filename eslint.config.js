@@ -8,7 +8,10 @@ import { createTypeScriptImportResolver } from "eslint-import-resolver-typescrip
 
 /** Folders a layer may not import from, by layer (paths from the project root). */
 export const LAYER_RULES = [
-  { target: "./src/core", from: ["./src/sheets", "./src/settings", "./src/workbook", "./src/geocode", "./src/exports", "./src/taskpane", "./src/cli"] },
+  {
+    target: "./src/core",
+    from: ["./src/sheets", "./src/settings", "./src/workbook", "./src/geocode", "./src/exports", "./src/taskpane", "./src/cli"],
+  },
   { target: "./src/sheets", from: ["./src/workbook", "./src/geocode", "./src/exports", "./src/taskpane", "./src/cli"] },
   { target: "./src/settings", from: ["./src/workbook", "./src/geocode", "./src/exports", "./src/taskpane", "./src/cli"] },
   { target: "./src/exports", from: ["./src/workbook", "./src/geocode", "./src/taskpane", "./src/cli"] },
@@ -30,7 +33,11 @@ export default tseslint.config(
         "error",
         {
           zones: LAYER_RULES.flatMap((r) =>
-            r.from.map((from) => ({ target: r.target, from, message: `${r.target.slice(6)} must not import ${from.slice(6)} (layers point inward; see DEVELOPERS.md).` })),
+            r.from.map((from) => ({
+              target: r.target,
+              from,
+              message: `${r.target.slice(6)} must not import ${from.slice(6)} (layers point inward; see DEVELOPERS.md).`,
+            })),
           ),
         },
       ],

@@ -113,15 +113,17 @@ module.exports = (env, argv) => {
         ],
       }),
     ],
-    devServer: serving ? {
-      port: 3000,
-      host: "localhost",
-      server: httpsOptions(),
-      headers: { "Access-Control-Allow-Origin": "*" },
-      static: false,
-      hot: false,
-      open: false,
-      onListening: () => console.log(SIDELOAD_STEPS),
-    } : undefined,
+    devServer: serving
+      ? {
+          port: 3000,
+          host: "localhost",
+          server: httpsOptions(),
+          headers: { "Access-Control-Allow-Origin": "*" },
+          static: false,
+          hot: false,
+          open: false,
+          onListening: () => console.log(SIDELOAD_STEPS),
+        }
+      : undefined,
   };
 };

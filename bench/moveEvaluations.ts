@@ -22,23 +22,45 @@ import { createSolver } from "../src/core/solve.js";
 
 function instance(n: number): Problem {
   const rng = createRandom(`bench-${n}`);
-  const locations = [{ lat: 53.96, lon: -1.08 }, { lat: 53.99, lon: -1.0 }];
+  const locations = [
+    { lat: 53.96, lon: -1.08 },
+    { lat: 53.99, lon: -1.0 },
+  ];
   for (let i = 0; i < n; i++) locations.push({ lat: 53.96 + (rng.next() - 0.5) * 0.5, lon: -1.08 + (rng.next() - 0.5) * 0.8 });
   const stops: Stop[] = Array.from({ length: n }, (_, i) => {
     const e = 480 + rng.int(420);
     return {
-      id: `S${i}`, name: `S${i}`, location: i + 2, demand: [1 + rng.int(20), rng.int(3)],
-      windows: [{ earliestMin: e, latestMin: e + 60 + rng.int(180) }], serviceMin: 5 + rng.int(10),
+      id: `S${i}`,
+      name: `S${i}`,
+      location: i + 2,
+      demand: [1 + rng.int(20), rng.int(3)],
+      windows: [{ earliestMin: e, latestMin: e + 60 + rng.int(180) }],
+      serviceMin: 5 + rng.int(10),
     };
   });
   const vehicleCount = Math.max(2, Math.ceil(n / 12));
   const vehicles: Vehicle[] = Array.from({ length: vehicleCount }, (_, k) => ({
-    id: `V${k}`, capacity: [150, 20], startLocation: k % 2, endLocation: k % 2, shiftStartMin: 420, shiftEndMin: 1140,
-    fixedCost: 50, costPerKm: 0.8, costPerHour: 20, speedKmh: k % 3 === 0 ? 35 : 45,
+    id: `V${k}`,
+    capacity: [150, 20],
+    startLocation: k % 2,
+    endLocation: k % 2,
+    shiftStartMin: 420,
+    shiftEndMin: 1140,
+    fixedCost: 50,
+    costPerKm: 0.8,
+    costPerHour: 20,
+    speedKmh: k % 3 === 0 ? 35 : 45,
   }));
   return {
-    locations, stops, vehicles, loadDimensions: ["kg", "crates"], matrix: buildMatrix(locations),
-    referenceSpeedKmh: 40, hardWindows: true, lateCostPerMin: 0, objective: "weighted",
+    locations,
+    stops,
+    vehicles,
+    loadDimensions: ["kg", "crates"],
+    matrix: buildMatrix(locations),
+    referenceSpeedKmh: 40,
+    hardWindows: true,
+    lateCostPerMin: 0,
+    objective: "weighted",
   };
 }
 
@@ -89,7 +111,16 @@ function median(values: readonly number[]): number {
   return v.length % 2 === 1 ? v[mid]! : (v[mid - 1]! + v[mid]!) / 2;
 }
 
-const rows: { stops: number; vehicles: number; rawPerSecond: number; inRunPerSecond: number; runCost: number; feasible: boolean; rawRuns: number[]; inRunRuns: number[] }[] = [];
+const rows: {
+  stops: number;
+  vehicles: number;
+  rawPerSecond: number;
+  inRunPerSecond: number;
+  runCost: number;
+  feasible: boolean;
+  rawRuns: number[];
+  inRunRuns: number[];
+}[] = [];
 for (const n of [100, 1000, 5000]) {
   const problem = instance(n);
   const rawRuns: number[] = [];
@@ -101,13 +132,22 @@ for (const n of [100, 1000, 5000]) {
     inRunRuns.push(Math.round(last.perSecond));
   }
   rows.push({
-    stops: n, vehicles: problem.vehicles.length, rawPerSecond: Math.round(median(rawRuns)),
-    inRunPerSecond: Math.round(median(inRunRuns)), runCost: Math.round(last.cost), feasible: last.feasible, rawRuns, inRunRuns,
+    stops: n,
+    vehicles: problem.vehicles.length,
+    rawPerSecond: Math.round(median(rawRuns)),
+    inRunPerSecond: Math.round(median(inRunRuns)),
+    runCost: Math.round(last.cost),
+    feasible: last.feasible,
+    rawRuns,
+    inRunRuns,
   });
 }
 console.log(`Medians of ${REPEAT} runs per size (raw: 1 s each; in run: a 2 s createSolver run each).`);
 console.log("| stops | vehicles | raw evaluations/s | in-run evaluations/s | 2 s plan cost | feasible |");
 console.log("|---:|---:|---:|---:|---:|:---|");
-for (const r of rows) console.log(`| ${r.stops} | ${r.vehicles} | ${r.rawPerSecond.toLocaleString("en")} | ${r.inRunPerSecond.toLocaleString("en")} | ${r.runCost} | ${r.feasible} |`);
+for (const r of rows)
+  console.log(
+    `| ${r.stops} | ${r.vehicles} | ${r.rawPerSecond.toLocaleString("en")} | ${r.inRunPerSecond.toLocaleString("en")} | ${r.runCost} | ${r.feasible} |`,
+  );
 mkdirSync(new URL("./out/", import.meta.url), { recursive: true });
 writeFileSync(new URL("./out/moveEvaluations.json", import.meta.url), JSON.stringify({ node: process.version, rows }, null, 2));

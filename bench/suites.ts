@@ -32,7 +32,8 @@ async function runSuites(argv: string[]): Promise<number> {
   const seconds = numberOption(parsed, "seconds", { min: 0 }) ?? 30;
   const seed = numberOption(parsed, "seed", { min: 0, integer: true }) ?? 1;
   const suite = parsed.values.get("suite");
-  if (suite !== undefined && suite !== "tsplib" && suite !== "solomon") parsed.errors.push(`--suite must be tsplib or solomon, got "${suite}"`);
+  if (suite !== undefined && suite !== "tsplib" && suite !== "solomon")
+    parsed.errors.push(`--suite must be tsplib or solomon, got "${suite}"`);
   if (parsed.positional.length > 0) parsed.errors.push(`unexpected argument "${parsed.positional[0]}"`);
   if (!existsSync(BENCHMARKS_DIR)) parsed.errors.push("../shared/benchmarks not found beside the checkout; nothing to run");
   if (parsed.errors.length > 0) {
@@ -41,7 +42,11 @@ async function runSuites(argv: string[]): Promise<number> {
   }
   const optimal = readCsv("tsplib/optimal.csv");
   const bestKnown = readCsv("solomon/best-known.csv");
-  const only = parsed.values.get("only")?.split(",").map((s) => s.trim().toLowerCase()).filter(Boolean);
+  const only = parsed.values
+    .get("only")
+    ?.split(",")
+    .map((s) => s.trim().toLowerCase())
+    .filter(Boolean);
 
   const jobs: { file: string; seconds: number; name: string }[] = [];
   if (suite !== "solomon") {
@@ -79,7 +84,14 @@ async function runSuites(argv: string[]): Promise<number> {
     } else {
       const ref = bestKnown.find(([n]) => n === job.name);
       const reference = Number(ref?.[2]);
-      rows.push({ record, reference, referenceVehicles: Number(ref?.[1]), gapPct: gap(record.distance, reference), evaluationsPerSecond, evaluations: stats.evaluations });
+      rows.push({
+        record,
+        reference,
+        referenceVehicles: Number(ref?.[1]),
+        gapPct: gap(record.distance, reference),
+        evaluationsPerSecond,
+        evaluations: stats.evaluations,
+      });
     }
   }
 
@@ -100,7 +112,9 @@ function table(rows: readonly Row[]): string {
     const ours = rec.format === "tsplib" ? String(rec.length) : rec.distance.toFixed(2) + (rec.feasible ? "" : " (infeasible)");
     const vehicles = rec.format === "solomon" ? `${rec.vehicles} / ${r.referenceVehicles}` : "";
     const ref = rec.format === "tsplib" ? String(r.reference) : r.reference.toFixed(2);
-    lines.push(`| ${rec.instance} | ${ref} | ${ours} | ${pct(r.gapPct)} | ${vehicles} | ${rec.seconds.toFixed(1)} | ${Math.round(r.evaluationsPerSecond).toLocaleString("en-US")} |`);
+    lines.push(
+      `| ${rec.instance} | ${ref} | ${ours} | ${pct(r.gapPct)} | ${vehicles} | ${rec.seconds.toFixed(1)} | ${Math.round(r.evaluationsPerSecond).toLocaleString("en-US")} |`,
+    );
   }
   const tsp = rows.filter((r) => r.record.format === "tsplib");
   const sol = rows.filter((r) => r.record.format === "solomon");

@@ -8,11 +8,39 @@ import { ovenbirdScenario, type DemoStop, type DemoVehicle } from "./ovenbirdSce
 /** Fixed created/modified date of the demo file, so a rebuild gives the same workbook. */
 export const DEMO_DATE = new Date(Date.UTC(2026, 0, 5, 18, 0, 0));
 
-export const STOP_HEADERS = ["Stop", "Name", "Address", "Latitude", "Longitude", "Demand kg", "Demand crates",
-  "Earliest", "Latest", "Earliest 2", "Latest 2", "Service min", "Priority", "Phone"] as const;
-export const FLEET_HEADERS = ["Vehicle", "Count", "Capacity kg", "Capacity crates", "Start latitude", "Start longitude",
-  "End latitude", "End longitude", "Shift start", "Shift end", "Fixed cost", "Cost per km", "Cost per hour",
-  "Speed km/h", "Max stops"] as const;
+export const STOP_HEADERS = [
+  "Stop",
+  "Name",
+  "Address",
+  "Latitude",
+  "Longitude",
+  "Demand kg",
+  "Demand crates",
+  "Earliest",
+  "Latest",
+  "Earliest 2",
+  "Latest 2",
+  "Service min",
+  "Priority",
+  "Phone",
+] as const;
+export const FLEET_HEADERS = [
+  "Vehicle",
+  "Count",
+  "Capacity kg",
+  "Capacity crates",
+  "Start latitude",
+  "Start longitude",
+  "End latitude",
+  "End longitude",
+  "Shift start",
+  "Shift end",
+  "Fixed cost",
+  "Cost per km",
+  "Cost per hour",
+  "Speed km/h",
+  "Max stops",
+] as const;
 
 /**
  * Build the demo workbook `kiln-demo.xlsx` in memory: Stops, Fleet, Settings and README sheets
@@ -40,23 +68,63 @@ function stopsGrid(stops: readonly DemoStop[]): SheetGrid {
   const formats: (string | null)[][] = [STOP_HEADERS.map(() => null)];
   for (const s of stops) {
     const [w1, w2] = s.windows;
-    values.push([s.id, s.name, s.address, s.lat, s.lon, s.demandKg, s.crates,
-      day(w1![0]), day(w1![1]), w2 ? day(w2[0]) : null, w2 ? day(w2[1]) : null,
-      s.serviceMin, s.priority ?? null, s.phone]);
+    values.push([
+      s.id,
+      s.name,
+      s.address,
+      s.lat,
+      s.lon,
+      s.demandKg,
+      s.crates,
+      day(w1![0]),
+      day(w1![1]),
+      w2 ? day(w2[0]) : null,
+      w2 ? day(w2[1]) : null,
+      s.serviceMin,
+      s.priority ?? null,
+      s.phone,
+    ]);
     formats.push([null, null, null, "0.00000", "0.00000", "0", "0", "hh:mm", "hh:mm", "hh:mm", "hh:mm", "0", "0", "@"]);
   }
-  return { values, numberFormats: formats, columnWidths: [7, 36, 34, 11, 11, 10, 13, 9, 9, 10, 9, 11, 9, 14], freezeRows: 1, boldRows: [0] };
+  return {
+    values,
+    numberFormats: formats,
+    columnWidths: [7, 36, 34, 11, 11, 10, 13, 9, 9, 10, 9, 11, 9, 14],
+    freezeRows: 1,
+    boldRows: [0],
+  };
 }
 
 function fleetGrid(fleet: readonly DemoVehicle[]): SheetGrid {
   const values: CellValue[][] = [[...FLEET_HEADERS]];
   const formats: (string | null)[][] = [FLEET_HEADERS.map(() => null)];
   for (const v of fleet) {
-    values.push([v.id, 1, v.capacityKg, v.capacityCrates, v.start[0], v.start[1], v.end[0], v.end[1],
-      day(v.shiftStartMin), day(v.shiftEndMin), v.fixedCost, v.costPerKm, v.costPerHour, v.speedKmh, v.maxStops ?? null]);
+    values.push([
+      v.id,
+      1,
+      v.capacityKg,
+      v.capacityCrates,
+      v.start[0],
+      v.start[1],
+      v.end[0],
+      v.end[1],
+      day(v.shiftStartMin),
+      day(v.shiftEndMin),
+      v.fixedCost,
+      v.costPerKm,
+      v.costPerHour,
+      v.speedKmh,
+      v.maxStops ?? null,
+    ]);
     formats.push([null, "0", "0", "0", "0.00000", "0.00000", "0.00000", "0.00000", "hh:mm", "hh:mm", "0.00", "0.00", "0.00", "0", "0"]);
   }
-  return { values, numberFormats: formats, columnWidths: [18, 7, 12, 15, 14, 15, 13, 14, 11, 10, 10, 12, 13, 11, 10], freezeRows: 1, boldRows: [0] };
+  return {
+    values,
+    numberFormats: formats,
+    columnWidths: [18, 7, 12, 15, 14, 15, 13, 14, 11, 10, 10, 12, 13, 11, 10],
+    freezeRows: 1,
+    boldRows: [0],
+  };
 }
 
 function settingsGrid(): SheetGrid {

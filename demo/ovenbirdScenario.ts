@@ -48,10 +48,10 @@ const YORK_CENTRE: readonly [number, number] = [53.9596, -1.0815];
 const VILLAGES: readonly (readonly [string, number, number])[] = [
   ["Haxby", 54.0163, -1.0745],
   ["Strensall", 54.0405, -1.0337],
-  ["Copmanthorpe", 53.9137, -1.1420],
+  ["Copmanthorpe", 53.9137, -1.142],
   ["Stamford Bridge", 53.9903, -0.9132],
   ["Elvington", 53.9236, -0.9315],
-  ["Bishopthorpe", 53.9213, -1.0960],
+  ["Bishopthorpe", 53.9213, -1.096],
 ];
 
 const KINDS = [
@@ -63,12 +63,47 @@ const KINDS = [
   { kind: "Hotel", kg: [30, 60], window: [345, 450], service: [8, 12], weight: 5 },
 ] as const;
 
-const FIRST = ["Larkspur", "Millstone", "Wrenfield", "Tallow", "Quernstone", "Hollin", "Briar", "Kestrel",
-  "Oriel", "Pennyroyal", "Saltbox", "Thimble", "Marigold", "Foxglove", "Bramble", "Cobnut", "Lantern",
-  "Linnet", "Sorrel", "Juniper", "Meadowsweet", "Tansy", "Damson", "Heron", "Plover"];
+const FIRST = [
+  "Larkspur",
+  "Millstone",
+  "Wrenfield",
+  "Tallow",
+  "Quernstone",
+  "Hollin",
+  "Briar",
+  "Kestrel",
+  "Oriel",
+  "Pennyroyal",
+  "Saltbox",
+  "Thimble",
+  "Marigold",
+  "Foxglove",
+  "Bramble",
+  "Cobnut",
+  "Lantern",
+  "Linnet",
+  "Sorrel",
+  "Juniper",
+  "Meadowsweet",
+  "Tansy",
+  "Damson",
+  "Heron",
+  "Plover",
+];
 const SECOND = ["Yard", "Lane", "Gate", "Row", "Corner", "Green", "Bridge", "Court", "Mill", "Cross"];
-const STREETS = ["Wrenfield Road", "Tallow Street", "Quernstone Way", "Hollin Lane", "Briar Close",
-  "Kestrel Walk", "Oriel Terrace", "Saltbox Row", "Thimble Court", "Cobnut Avenue", "Linnet Grove"];
+const STREETS = [
+  "Wrenfield Road",
+  "Tallow Street",
+  "Quernstone Way",
+  "Hollin Lane",
+  "Briar Close",
+  "Kestrel Walk",
+  "Oriel Terrace",
+  "Saltbox Row",
+  "Thimble Court",
+  "Cobnut Avenue",
+  "Linnet Grove",
+];
 
 /**
  * Generate the demo stops and fleet from a seed (seedrandom), so the workbook is reproducible.
@@ -88,7 +123,10 @@ export function ovenbirdScenario(seed = "ovenbird-1", count = 84): { stops: Demo
   const name = (kind: string): string => {
     for (;;) {
       const n = `${pick(FIRST)} ${pick(SECOND)} ${kind}`;
-      if (!usedNames.has(n)) { usedNames.add(n); return n; }
+      if (!usedNames.has(n)) {
+        usedNames.add(n);
+        return n;
+      }
     }
   };
   const phones = new Set<number>();
@@ -101,7 +139,12 @@ export function ovenbirdScenario(seed = "ovenbird-1", count = 84): { stops: Demo
 
   const stops: DemoStop[] = [];
   const add = (s: Omit<DemoStop, "id" | "phone" | "crates"> & { crates?: number }): void => {
-    stops.push({ ...s, id: `S${String(stops.length + 1).padStart(3, "0")}`, crates: s.crates ?? Math.ceil(s.demandKg / 6), phone: phone() });
+    stops.push({
+      ...s,
+      id: `S${String(stops.length + 1).padStart(3, "0")}`,
+      crates: s.crates ?? Math.ceil(s.demandKg / 6),
+      phone: phone(),
+    });
   };
   const where = (): { lat: number; lon: number; area: string } => {
     // A fifth of the stops in the villages, the rest within 6 km of the centre.
@@ -115,13 +158,54 @@ export function ovenbirdScenario(seed = "ovenbird-1", count = 84): { stops: Demo
 
   // The fixed cast: a school, a hospital kitchen with two drops, a care home with two windows.
   const school = where();
-  add({ name: "St Wendreda's Primary School", address: address(school.area), lat: school.lat, lon: school.lon, demandKg: 35, windows: [[450, 510]], serviceMin: 10 });
+  add({
+    name: "St Wendreda's Primary School",
+    address: address(school.area),
+    lat: school.lat,
+    lon: school.lon,
+    demandKg: 35,
+    windows: [[450, 510]],
+    serviceMin: 10,
+  });
   const hospital = offset(YORK_CENTRE[0], YORK_CENTRE[1], 1.6, 0.4);
-  add({ name: "Riverside General Hospital Kitchen", address: "Loading bay 3, Wrenfield Road, York", ...hospital, demandKg: 90, crates: 16, windows: [[330, 390], [540, 585]], serviceMin: 15 });
+  add({
+    name: "Riverside General Hospital Kitchen",
+    address: "Loading bay 3, Wrenfield Road, York",
+    ...hospital,
+    demandKg: 90,
+    crates: 16,
+    windows: [
+      [330, 390],
+      [540, 585],
+    ],
+    serviceMin: 15,
+  });
   const care = where();
-  add({ name: "Hollybank Care Home", address: address(care.area), lat: care.lat, lon: care.lon, demandKg: 25, windows: [[390, 450], [600, 660]], serviceMin: 8 });
+  add({
+    name: "Hollybank Care Home",
+    address: address(care.area),
+    lat: care.lat,
+    lon: care.lon,
+    demandKg: 25,
+    windows: [
+      [390, 450],
+      [600, 660],
+    ],
+    serviceMin: 8,
+  });
   const market = where();
-  add({ name: "Saturday Market Stall 12", address: address(market.area), lat: market.lat, lon: market.lon, demandKg: 40, windows: [[360, 420], [480, 510]], serviceMin: 6 });
+  add({
+    name: "Saturday Market Stall 12",
+    address: address(market.area),
+    lat: market.lat,
+    lon: market.lon,
+    demandKg: 40,
+    windows: [
+      [360, 420],
+      [480, 510],
+    ],
+    serviceMin: 6,
+  });
 
   const totalWeight = KINDS.reduce((s, k) => s + k.weight, 0);
   while (stops.length < count) {
@@ -130,19 +214,85 @@ export function ovenbirdScenario(seed = "ovenbird-1", count = 84): { stops: Demo
     const p = where();
     const from = k.window[0] + 15 * int(-1, 1);
     add({
-      name: name(k.kind), address: address(p.area), lat: p.lat, lon: p.lon,
-      demandKg: int(k.kg[0], k.kg[1]), windows: [[from, k.window[1]]], serviceMin: int(k.service[0], k.service[1]),
+      name: name(k.kind),
+      address: address(p.area),
+      lat: p.lat,
+      lon: p.lon,
+      demandKg: int(k.kg[0], k.kg[1]),
+      windows: [[from, k.window[1]]],
+      serviceMin: int(k.service[0], k.service[1]),
       // A few small tearooms may be skipped at a cost when the day is tight.
       priority: k.kind === "Tearoom" && rng() < 0.5 ? 60 : undefined,
     });
   }
 
   const fleet: DemoVehicle[] = [
-    { id: "Van 1 Kestrel", capacityKg: 900, capacityCrates: 150, start: BAKERY_DEPOT, end: BAKERY_DEPOT, shiftStartMin: 270, shiftEndMin: 690, fixedCost: 55, costPerKm: 0.34, costPerHour: 19, speedKmh: 38 },
-    { id: "Van 2 Heron", capacityKg: 700, capacityCrates: 120, start: BAKERY_DEPOT, end: BAKERY_DEPOT, shiftStartMin: 300, shiftEndMin: 720, fixedCost: 50, costPerKm: 0.3, costPerHour: 19, speedKmh: 40 },
-    { id: "Van 3 Linnet", capacityKg: 500, capacityCrates: 85, start: BAKERY_DEPOT, end: BAKERY_DEPOT, shiftStartMin: 300, shiftEndMin: 660, fixedCost: 40, costPerKm: 0.22, costPerHour: 18, speedKmh: 35, maxStops: 22 },
-    { id: "Van 4 Plover", capacityKg: 800, capacityCrates: 135, start: BAKERY_DEPOT, end: BAKERY_DEPOT, shiftStartMin: 330, shiftEndMin: 750, fixedCost: 52, costPerKm: 0.32, costPerHour: 19, speedKmh: 40 },
-    { id: "Van 5 Tadcaster", capacityKg: 600, capacityCrates: 100, start: TADCASTER_DEPOT, end: TADCASTER_DEPOT, shiftStartMin: 270, shiftEndMin: 660, fixedCost: 45, costPerKm: 0.3, costPerHour: 18, speedKmh: 45 },
+    {
+      id: "Van 1 Kestrel",
+      capacityKg: 900,
+      capacityCrates: 150,
+      start: BAKERY_DEPOT,
+      end: BAKERY_DEPOT,
+      shiftStartMin: 270,
+      shiftEndMin: 690,
+      fixedCost: 55,
+      costPerKm: 0.34,
+      costPerHour: 19,
+      speedKmh: 38,
+    },
+    {
+      id: "Van 2 Heron",
+      capacityKg: 700,
+      capacityCrates: 120,
+      start: BAKERY_DEPOT,
+      end: BAKERY_DEPOT,
+      shiftStartMin: 300,
+      shiftEndMin: 720,
+      fixedCost: 50,
+      costPerKm: 0.3,
+      costPerHour: 19,
+      speedKmh: 40,
+    },
+    {
+      id: "Van 3 Linnet",
+      capacityKg: 500,
+      capacityCrates: 85,
+      start: BAKERY_DEPOT,
+      end: BAKERY_DEPOT,
+      shiftStartMin: 300,
+      shiftEndMin: 660,
+      fixedCost: 40,
+      costPerKm: 0.22,
+      costPerHour: 18,
+      speedKmh: 35,
+      maxStops: 22,
+    },
+    {
+      id: "Van 4 Plover",
+      capacityKg: 800,
+      capacityCrates: 135,
+      start: BAKERY_DEPOT,
+      end: BAKERY_DEPOT,
+      shiftStartMin: 330,
+      shiftEndMin: 750,
+      fixedCost: 52,
+      costPerKm: 0.32,
+      costPerHour: 19,
+      speedKmh: 40,
+    },
+    {
+      id: "Van 5 Tadcaster",
+      capacityKg: 600,
+      capacityCrates: 100,
+      start: TADCASTER_DEPOT,
+      end: TADCASTER_DEPOT,
+      shiftStartMin: 270,
+      shiftEndMin: 660,
+      fixedCost: 45,
+      costPerKm: 0.3,
+      costPerHour: 18,
+      speedKmh: 45,
+    },
   ];
   return { stops, fleet };
 }

@@ -68,12 +68,18 @@ export function renderIcon(sizePx: number): Uint8Array {
   const out = new Uint8Array(sizePx * sizePx * 4);
   for (let py = 0; py < sizePx; py++) {
     for (let px = 0; px < sizePx; px++) {
-      let r = 0, g = 0, b = 0, a = 0;
+      let r = 0,
+        g = 0,
+        b = 0,
+        a = 0;
       for (let sy = 0; sy < samples; sy++) {
         for (let sx = 0; sx < samples; sx++) {
           const c = iconColourAt((px + (sx + 0.5) / samples) / sizePx, (py + (sy + 0.5) / samples) / sizePx);
           const alpha = c[3] / 255;
-          r += c[0] * alpha; g += c[1] * alpha; b += c[2] * alpha; a += alpha;
+          r += c[0] * alpha;
+          g += c[1] * alpha;
+          b += c[2] * alpha;
+          a += alpha;
         }
       }
       const o = (py * sizePx + px) * 4;
@@ -141,12 +147,16 @@ function crc32(bytes: Uint8Array): number {
 function concat(parts: readonly Uint8Array[]): Uint8Array {
   const out = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
   let at = 0;
-  for (const p of parts) { out.set(p, at); at += p.length; }
+  for (const p of parts) {
+    out.set(p, at);
+    at += p.length;
+  }
   return out;
 }
 
 function segmentDistance(x: number, y: number, ax: number, ay: number, bx: number, by: number): number {
-  const dx = bx - ax, dy = by - ay;
+  const dx = bx - ax,
+    dy = by - ay;
   const t = Math.max(0, Math.min(1, ((x - ax) * dx + (y - ay) * dy) / (dx * dx + dy * dy)));
   return Math.hypot(x - (ax + t * dx), y - (ay + t * dy));
 }

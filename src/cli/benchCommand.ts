@@ -23,14 +23,26 @@ export type BenchInstance =
 
 /** The JSON line of a Solomon instance (DESIGN.md §6). */
 export interface SolomonBenchRecord {
-  instance: string; format: "solomon"; seed: number; seconds: number; moves: number;
-  vehicles: number; distance: number; feasible: boolean; routes: number[][];
+  instance: string;
+  format: "solomon";
+  seed: number;
+  seconds: number;
+  moves: number;
+  vehicles: number;
+  distance: number;
+  feasible: boolean;
+  routes: number[][];
 }
 
 /** The JSON line of a TSPLIB instance (DESIGN.md §6). */
 export interface TsplibBenchRecord {
-  instance: string; format: "tsplib"; seed: number; seconds: number; moves: number;
-  length: number; tour: number[];
+  instance: string;
+  format: "tsplib";
+  seed: number;
+  seconds: number;
+  moves: number;
+  length: number;
+  tour: number[];
 }
 
 /** Usage text of `kiln bench`. */
@@ -105,7 +117,11 @@ export async function loadBenchFile(path: string): Promise<BenchInstance | { err
     const inst = parseSolomon(text);
     return inst.issues.length > 0 ? { errors: inst.issues.map(where) } : { format, name, inst };
   }
-  return { errors: [`${path}: unknown format; expected a TSPLIB file (DIMENSION and NODE_COORD_SECTION) or a Solomon VRPTW file (VEHICLE and CUSTOMER blocks)`] };
+  return {
+    errors: [
+      `${path}: unknown format; expected a TSPLIB file (DIMENSION and NODE_COORD_SECTION) or a Solomon VRPTW file (VEHICLE and CUSTOMER blocks)`,
+    ],
+  };
 }
 
 /**
@@ -130,28 +146,38 @@ export function benchInstance(
     budget: options.budget,
     now: options.now,
     ...(sink
-      ? { onProgress: (p) => sink(`\r${instance.name}: ${Math.round(p.fraction * 100)}% best ${fmt(p.bestCost)} T ${fmt(p.temperature)}   `) }
+      ? {
+          onProgress: (p) =>
+            sink(`\r${instance.name}: ${Math.round(p.fraction * 100)}% best ${fmt(p.bestCost)} T ${fmt(p.temperature)}   `),
+        }
       : {}),
   });
   if (sink) sink("\n");
   const { plan, stats } = result;
   const seconds = Math.round(stats.elapsedMs) / 1000;
-  const routes = plan.routes
-    .filter((r) => r.visits.length > 0)
-    .map((r) => r.visits.map((v) => Number(problem.stops[v.stop]!.id)));
+  const routes = plan.routes.filter((r) => r.visits.length > 0).map((r) => r.visits.map((v) => Number(problem.stops[v.stop]!.id)));
   if (instance.format === "tsplib") {
     const tour = [1, ...(routes[0] ?? [])];
     if (tour.length !== instance.inst.dimension) {
       throw new RangeError(`solver returned a tour of ${tour.length} of ${instance.inst.dimension} nodes for ${instance.name}`);
     }
     const record: TsplibBenchRecord = {
-      instance: instance.name, format: "tsplib", seed: options.seed, seconds, moves: stats.moves,
-      length: tsplibTourLength(instance.inst, tour), tour,
+      instance: instance.name,
+      format: "tsplib",
+      seed: options.seed,
+      seconds,
+      moves: stats.moves,
+      length: tsplibTourLength(instance.inst, tour),
+      tour,
     };
     return { record, stats, plan };
   }
   const record: SolomonBenchRecord = {
-    instance: instance.name, format: "solomon", seed: options.seed, seconds, moves: stats.moves,
+    instance: instance.name,
+    format: "solomon",
+    seed: options.seed,
+    seconds,
+    moves: stats.moves,
     vehicles: routes.length,
     distance: solomonRoutesDistance(instance.inst, routes),
     feasible: plan.feasible && plan.unassigned.length === 0,

@@ -51,7 +51,12 @@ export async function runProfile(args: string[], io: CliIO): Promise<number> {
   const defaultBudget = SOLVE_DEFAULTS.budget;
   const budgetMoves = s.moves ?? ("moves" in defaultBudget ? defaultBudget.moves : 2_000_000);
   const assumed = s.moves === undefined;
-  const points = profile(s.cooling, s.rule, sample.meanUphill, budgetMoves, { p0: s.p0, pEnd: s.pEnd, points: PROFILE_ROWS, uphill: sample.uphill });
+  const points = profile(s.cooling, s.rule, sample.meanUphill, budgetMoves, {
+    p0: s.p0,
+    pEnd: s.pEnd,
+    points: PROFILE_ROWS,
+    uphill: sample.uphill,
+  });
   const { t0, tEnd } = calibrateTemperatures(sample.meanUphill, s.rule, s.p0, s.pEnd, sample.uphill);
   const lines = [
     `Mean uphill change: ${sample.meanUphill.toPrecision(4)} (cost units, from ${sample.samples} uphill moves sampled from the first plan, seed ${s.seed})`,

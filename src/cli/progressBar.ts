@@ -45,6 +45,8 @@ export function progressLine(p: Progress, width: number): string {
   const f = Math.min(1, Math.max(0, p.fraction));
   const filled = Math.round(f * width);
   const best = Number.isFinite(p.bestCost) ? p.bestCost.toFixed(2) : "none feasible yet";
-  return `[${"#".repeat(filled)}${"-".repeat(width - filled)}] ${String(Math.round(f * 100)).padStart(3)}%` +
-    `  T ${p.temperature.toPrecision(3)}  best ${best}  acc ${Math.round(p.acceptanceRate * 100)}%`;
+  return (
+    `[${"#".repeat(filled)}${"-".repeat(width - filled)}] ${String(Math.round(f * 100)).padStart(3)}%` +
+    `  T ${p.temperature.toPrecision(3)}  best ${best}  acc ${Math.round(p.acceptanceRate * 100)}%`
+  );
 }

@@ -17,8 +17,24 @@ import { numberOption, parseArgs, type ParsedArgs } from "./parseArgs.js";
 import { progressBar } from "./progressBar.js";
 
 /** Options shared by `solve` and `profile` (names without dashes). */
-export const RUN_VALUE_OPTIONS = ["stops", "fleet", "settings", "rule", "schedule", "alpha", "level", "steps", "beta",
-  "t0", "tend", "seed", "seconds", "moves", "detour", "speed"] as const;
+export const RUN_VALUE_OPTIONS = [
+  "stops",
+  "fleet",
+  "settings",
+  "rule",
+  "schedule",
+  "alpha",
+  "level",
+  "steps",
+  "beta",
+  "t0",
+  "tend",
+  "seed",
+  "seconds",
+  "moves",
+  "detour",
+  "speed",
+] as const;
 
 /**
  * Defaults of schedule parameters the user leaves out: the same as for a Settings sheet that
@@ -61,7 +77,9 @@ export async function runSolve(args: string[], io: CliIO): Promise<number> {
   if ("error" in out) return reportErrors(io, [out.error]);
   for (const w of read.warnings) io.stderr(`warning: ${formatIssue(w)}\n`);
   if (prepared.notKept.length > 0) {
-    io.stderr(`warning: ${parsed.positional[0]} has ${prepared.notKept.join(", ")}; the new workbook keeps every sheet's cells but not these (the file library cannot write them). The input file itself is not changed.\n`);
+    io.stderr(
+      `warning: ${parsed.positional[0]} has ${prepared.notKept.join(", ")}; the new workbook keeps every sheet's cells but not these (the file library cannot write them). The input file itself is not changed.\n`,
+    );
   }
 
   const s = read.settings;
@@ -84,7 +102,9 @@ export async function runSolve(args: string[], io: CliIO): Promise<number> {
   const stopsRead = (await book.readSheet(prepared.sheets.stops))!;
   const fleetRead = (await book.readSheet(prepared.sheets.fleet))!;
   const { sheetName } = await writeScenarioResult(book, {
-    read, result, runSeconds,
+    read,
+    result,
+    runSeconds,
     scenario: parsed.values.get("scenario") ?? "Plan",
     createdAt: new Date(),
     stopsSource: sourceOf(stopsRead),
@@ -136,7 +156,9 @@ export async function prepareRun(parsed: ParsedArgs): Promise<PreparedRun | { er
   const scheduleFlags = scheduleFlagsOf(parsed);
   const errors = [...parsed.errors];
   if (parsed.positional.length !== 1) {
-    errors.push(parsed.positional.length === 0 ? "no WORKBOOK.xlsx given" : `one WORKBOOK.xlsx expected, got ${parsed.positional.length} files`);
+    errors.push(
+      parsed.positional.length === 0 ? "no WORKBOOK.xlsx given" : `one WORKBOOK.xlsx expected, got ${parsed.positional.length} files`,
+    );
   }
   if (errors.length > 0) return { errors };
   const inputPath = resolve(parsed.positional[0]!);
@@ -156,15 +178,24 @@ export async function prepareRun(parsed: ParsedArgs): Promise<PreparedRun | { er
   const stops = parsed.values.get("stops") ?? found.stops;
   const fleet = parsed.values.get("fleet") ?? found.fleet;
   const settings = parsed.values.get("settings") ?? found.settings;
-  if (!stops) errors.push(`${parsed.positional[0]}: no sheet named "Stops" and none with Latitude and Longitude headers; name it with --stops SHEET`);
-  if (!fleet) errors.push(`${parsed.positional[0]}: no sheet named "Fleet" and none with Vehicle or Capacity headers; name it with --fleet SHEET`);
+  if (!stops)
+    errors.push(`${parsed.positional[0]}: no sheet named "Stops" and none with Latitude and Longitude headers; name it with --stops SHEET`);
+  if (!fleet)
+    errors.push(`${parsed.positional[0]}: no sheet named "Fleet" and none with Vehicle or Capacity headers; name it with --fleet SHEET`);
   if (!stops || !fleet) return { errors };
-  const read = await readScenarioInput(book, { stopsSheet: stops, fleetSheet: fleet, ...(settings ? { settingsSheet: settings } : {}), overrides });
+  const read = await readScenarioInput(book, {
+    stopsSheet: stops,
+    fleetSheet: fleet,
+    ...(settings ? { settingsSheet: settings } : {}),
+    overrides,
+  });
   if (!read.ok) return { errors: read.issues.map(formatIssue) };
   const cooling = applyScheduleFlags(read.settings.cooling, scheduleFlags);
   if ("error" in cooling) return { errors: [cooling.error] };
   return {
-    book, inputPath, notKept: partsNotKept(bytes),
+    book,
+    inputPath,
+    notKept: partsNotKept(bytes),
     sheets: { stops, fleet, ...(settings ? { settings } : {}) },
     read: { ...read, settings: { ...read.settings, cooling: cooling.spec } },
   };
@@ -215,11 +246,19 @@ export async function outputPath(inputPath: string, out?: string): Promise<{ pat
 /** The schedule flags as given (undefined = not given). */
 interface ScheduleFlags {
   kind?: CoolingSpec["kind"];
-  alpha?: number; level?: number; steps?: number; beta?: number; t0?: number; tEnd?: number;
+  alpha?: number;
+  level?: number;
+  steps?: number;
+  beta?: number;
+  t0?: number;
+  tEnd?: number;
 }
 
 const SCHEDULE_KINDS: Record<string, CoolingSpec["kind"]> = {
-  geometric: "geometric", linear: "linear", "lundy-mees": "lundyMees", time: "timeFraction",
+  geometric: "geometric",
+  linear: "linear",
+  "lundy-mees": "lundyMees",
+  time: "timeFraction",
 };
 
 function scheduleFlagsOf(parsed: ParsedArgs): ScheduleFlags {
@@ -257,10 +296,14 @@ function applyScheduleFlags(base: CoolingSpec, f: ScheduleFlags): { spec: Coolin
   const same = <K extends CoolingSpec["kind"]>(k: K): Extract<CoolingSpec, { kind: K }> | undefined =>
     base.kind === k ? (base as Extract<CoolingSpec, { kind: K }>) : undefined;
   const misfit = (flag: string, value: number | undefined, fits: boolean): string | undefined =>
-    value !== undefined && !fits ? `--${flag} does not apply to the ${kindName(kind)} schedule; choose --schedule ${flagHome(flag)}` : undefined;
+    value !== undefined && !fits
+      ? `--${flag} does not apply to the ${kindName(kind)} schedule; choose --schedule ${flagHome(flag)}`
+      : undefined;
   const error =
-    misfit("alpha", f.alpha, kind === "geometric") ?? misfit("level", f.level, kind === "geometric") ??
-    misfit("steps", f.steps, kind === "linear") ?? misfit("beta", f.beta, kind === "lundyMees") ??
+    misfit("alpha", f.alpha, kind === "geometric") ??
+    misfit("level", f.level, kind === "geometric") ??
+    misfit("steps", f.steps, kind === "linear") ??
+    misfit("beta", f.beta, kind === "lundyMees") ??
     misfit("tend", f.tEnd, kind === "linear" || kind === "timeFraction");
   if (error) return { error };
   const D = SCHEDULE_PARAMETER_DEFAULTS;
@@ -270,7 +313,9 @@ function applyScheduleFlags(base: CoolingSpec, f: ScheduleFlags): { spec: Coolin
     case "geometric": {
       const b = same("geometric");
       const movesPerLevel = f.level ?? b?.movesPerLevel;
-      return { spec: { kind, alpha: f.alpha ?? b?.alpha ?? D.alpha, ...(movesPerLevel !== undefined ? { movesPerLevel } : {}), ...withT0 } };
+      return {
+        spec: { kind, alpha: f.alpha ?? b?.alpha ?? D.alpha, ...(movesPerLevel !== undefined ? { movesPerLevel } : {}), ...withT0 },
+      };
     }
     case "linear": {
       const b = same("linear");
@@ -294,7 +339,13 @@ function kindName(kind: CoolingSpec["kind"]): string {
 }
 
 function flagHome(flag: string): string {
-  return flag === "alpha" || flag === "level" ? "geometric" : flag === "steps" ? "linear" : flag === "beta" ? "lundy-mees" : "linear or time";
+  return flag === "alpha" || flag === "level"
+    ? "geometric"
+    : flag === "steps"
+      ? "linear"
+      : flag === "beta"
+        ? "lundy-mees"
+        : "linear or time";
 }
 
 /** Settings the flags override (the settings sheet and defaults fill the rest). */

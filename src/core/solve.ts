@@ -107,7 +107,8 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   const seconds = "seconds" in o.budget ? o.budget.seconds : undefined;
   const budgetMoves = "moves" in o.budget ? o.budget.moves : undefined;
   if (seconds !== undefined && !o.now) throw new TypeError("options.now is required for a seconds budget");
-  if (!(Number.isInteger(o.neighbours) && o.neighbours >= 1)) throw new RangeError(`options.neighbours must be a positive integer, got ${o.neighbours}`);
+  if (!(Number.isInteger(o.neighbours) && o.neighbours >= 1))
+    throw new RangeError(`options.neighbours must be a positive integer, got ${o.neighbours}`);
   const now = o.now;
   const startedAt = now ? now() : 0;
   const cp = compileProblem(problem);
@@ -115,9 +116,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   const nb = buildNeighbours(cp, o.neighbours);
   const w = initialWeights(cp);
   const state = new SearchState(cp, w.wTime, w.wLoad);
-  const active = Int32Array.from(
-    Array.from({ length: cp.n }, (_, s) => s).filter((s) => !cp.unservableReason[s]),
-  );
+  const active = Int32Array.from(Array.from({ length: cp.n }, (_, s) => s).filter((s) => !cp.unservableReason[s]));
   constructPlan(state, nb);
   if (cp.hierarchical) {
     // Worth more than the whole first plan: one vehicle fewer always wins.
@@ -139,7 +138,10 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   // the best feasible one, it is timed exactly.
   const multiWindow = problem.stops.some((s) => s.windows.length > 1);
   const isExactlyFeasible = (): boolean =>
-    evaluatePlan(problem, state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1)))).feasible;
+    evaluatePlan(
+      problem,
+      state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1))),
+    ).feasible;
   const improvesFeasibleBest = (): boolean => {
     if (!feasibleFound) return true;
     const k1 = cp.hierarchical ? state.used : 0;
@@ -184,9 +186,13 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
 
   function makeProgress(): Progress {
     return {
-      moves, fraction, temperature, currentCost: state.realCost(),
+      moves,
+      fraction,
+      temperature,
+      currentCost: state.realCost(),
       bestCost: feasibleFound ? bestKey2 : Infinity,
-      acceptanceRate: movesSinceReport > 0 ? acceptedSinceReport / movesSinceReport : 0, elapsedMs,
+      acceptanceRate: movesSinceReport > 0 ? acceptedSinceReport / movesSinceReport : 0,
+      elapsedMs,
     };
   }
 
@@ -319,7 +325,13 @@ class Snapshot {
 }
 
 /** Greedy descent (only non-worsening moves): turns the constructed plan into a local optimum. */
-function descend(state: SearchState, nb: ReturnType<typeof buildNeighbours>, rng: ReturnType<typeof createRandom>, active: Int32Array, moves: number): void {
+function descend(
+  state: SearchState,
+  nb: ReturnType<typeof buildNeighbours>,
+  rng: ReturnType<typeof createRandom>,
+  active: Int32Array,
+  moves: number,
+): void {
   if (active.length === 0) return;
   const mv = new Move();
   for (let k = 0; k < moves; k++) {

@@ -37,7 +37,12 @@ export function validateProblem(problem: Problem): Issue[] {
     if (ids.has(s.id)) add(at, "id", `stop id "${s.id}" is used twice; give every stop its own id`);
     ids.add(s.id);
     if (!inRange(s.location)) add(at, "location", `location ${s.location} is outside 0..${L - 1}`);
-    if (s.demand.length !== dims) add(at, "demand", `stop ${s.id} has ${s.demand.length} demand values for ${dims} load dimensions (${problem.loadDimensions.join(", ")})`);
+    if (s.demand.length !== dims)
+      add(
+        at,
+        "demand",
+        `stop ${s.id} has ${s.demand.length} demand values for ${dims} load dimensions (${problem.loadDimensions.join(", ")})`,
+      );
     s.demand.forEach((q) => {
       if (!(q >= 0) || !Number.isFinite(q)) add(at, "demand", `stop ${s.id}: demand ${q} must be a number, 0 or more`);
     });
@@ -53,8 +58,10 @@ export function validateProblem(problem: Problem): Issue[] {
       if (Number.isNaN(w.earliestMin) || Number.isNaN(w.latestMin)) add(at, "windows", `stop ${s.id}: a window bound is not a number`);
       prevLatest = w.latestMin;
     }
-    if (!(s.serviceMin >= 0) || !Number.isFinite(s.serviceMin)) add(at, "serviceMin", `stop ${s.id}: service ${s.serviceMin} min must be 0 or more`);
-    if (s.unservedCost !== undefined && !(s.unservedCost >= 0)) add(at, "unservedCost", `stop ${s.id}: unserved cost ${s.unservedCost} must be 0 or more`);
+    if (!(s.serviceMin >= 0) || !Number.isFinite(s.serviceMin))
+      add(at, "serviceMin", `stop ${s.id}: service ${s.serviceMin} min must be 0 or more`);
+    if (s.unservedCost !== undefined && !(s.unservedCost >= 0))
+      add(at, "unservedCost", `stop ${s.id}: unserved cost ${s.unservedCost} must be 0 or more`);
   });
   const vids = new Set<string>();
   problem.vehicles.forEach((v, k) => {
@@ -65,13 +72,19 @@ export function validateProblem(problem: Problem): Issue[] {
     if (v.capacity.some((c) => !(c >= 0))) add(at, "capacity", `vehicle ${v.id}: capacities must be 0 or more`);
     if (!inRange(v.startLocation)) add(at, "startLocation", `start location ${v.startLocation} is outside 0..${L - 1}`);
     if (!inRange(v.endLocation)) add(at, "endLocation", `end location ${v.endLocation} is outside 0..${L - 1}`);
-    if (!(v.shiftEndMin > v.shiftStartMin)) add(at, "shiftEndMin", `vehicle ${v.id}: shift end ${v.shiftEndMin} must be after shift start ${v.shiftStartMin}`);
+    if (!(v.shiftEndMin > v.shiftStartMin))
+      add(at, "shiftEndMin", `vehicle ${v.id}: shift end ${v.shiftEndMin} must be after shift start ${v.shiftStartMin}`);
     if (!Number.isFinite(v.shiftStartMin)) add(at, "shiftStartMin", `vehicle ${v.id}: shift start must be a number of minutes`);
-    for (const [name, x] of [["fixedCost", v.fixedCost], ["costPerKm", v.costPerKm], ["costPerHour", v.costPerHour]] as const) {
+    for (const [name, x] of [
+      ["fixedCost", v.fixedCost],
+      ["costPerKm", v.costPerKm],
+      ["costPerHour", v.costPerHour],
+    ] as const) {
       if (!(x >= 0) || !Number.isFinite(x)) add(at, name, `vehicle ${v.id}: ${name} ${x} must be 0 or more`);
     }
     if (!(v.speedKmh > 0) || !Number.isFinite(v.speedKmh)) add(at, "speedKmh", `vehicle ${v.id}: speed ${v.speedKmh} km/h must be above 0`);
-    if (v.maxStops !== undefined && !(Number.isInteger(v.maxStops) && v.maxStops >= 0)) add(at, "maxStops", `vehicle ${v.id}: max stops ${v.maxStops} must be a whole number, 0 or more`);
+    if (v.maxStops !== undefined && !(Number.isInteger(v.maxStops) && v.maxStops >= 0))
+      add(at, "maxStops", `vehicle ${v.id}: max stops ${v.maxStops} must be a whole number, 0 or more`);
   });
   return issues;
 }

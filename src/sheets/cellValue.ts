@@ -10,8 +10,20 @@ import { excelSerialFromDate } from "./excelSerial.js";
 
 /** Error values a cell can show: the seven of ECMA-376 Part 1 plus newer ones of dynamic arrays and data types. */
 const EXCEL_ERRORS = new Set([
-  "#NULL!", "#DIV/0!", "#VALUE!", "#REF!", "#NAME?", "#NUM!", "#N/A",
-  "#GETTING_DATA", "#SPILL!", "#CALC!", "#FIELD!", "#BLOCKED!", "#BUSY!", "#UNKNOWN!",
+  "#NULL!",
+  "#DIV/0!",
+  "#VALUE!",
+  "#REF!",
+  "#NAME?",
+  "#NUM!",
+  "#N/A",
+  "#GETTING_DATA",
+  "#SPILL!",
+  "#CALC!",
+  "#FIELD!",
+  "#BLOCKED!",
+  "#BUSY!",
+  "#UNKNOWN!",
 ]);
 
 /**

@@ -10,7 +10,16 @@ export const COMPARE_SHEET = "Compare";
 
 /** The Compare sheet's header row (DESIGN.md §5). */
 export const COMPARE_HEADER = [
-  "Scenario", "Vehicles", "Km", "Hours", "Cost", "Late min", "Unassigned", "Schedule", "Seed", "Created",
+  "Scenario",
+  "Vehicles",
+  "Km",
+  "Hours",
+  "Cost",
+  "Late min",
+  "Unassigned",
+  "Schedule",
+  "Seed",
+  "Created",
 ] as const;
 
 /** Width hints of the Compare columns, in characters. */

@@ -30,13 +30,30 @@ export interface LayoutPlanInput {
 
 /** Labels of the settings block (one label row, one value row). */
 export const SETTINGS_LABELS = [
-  "Scenario", "Created", "Seed", "Cooling schedule", "Acceptance rule", "Moves", "Run seconds",
-  "Stops source", "Fleet source", "Detour factor", "Speed km/h", "Windows",
+  "Scenario",
+  "Created",
+  "Seed",
+  "Cooling schedule",
+  "Acceptance rule",
+  "Moves",
+  "Run seconds",
+  "Stops source",
+  "Fleet source",
+  "Detour factor",
+  "Speed km/h",
+  "Windows",
 ] as const;
 
 /** Labels of the totals block. */
 export const TOTALS_LABELS = [
-  "Vehicles used", "Km", "Driving hours", "Duty hours", "Waiting hours", "Late min", "Cost", "Unassigned",
+  "Vehicles used",
+  "Km",
+  "Driving hours",
+  "Duty hours",
+  "Waiting hours",
+  "Late min",
+  "Cost",
+  "Unassigned",
 ] as const;
 
 /** Header of the unassigned table. */
@@ -122,10 +139,17 @@ export function layoutPlan(input: LayoutPlanInput): PlanLayout {
 function settingsValues(run: RunRecord): FormattedRow {
   const s = run.settings;
   return cellRow([
-    [safeText(run.scenario), F.text], [run.createdSerial, F.dateTime], [s.seed, null],
-    [formatCooling(s.cooling), F.text], [formatRule(s.rule), F.text], [run.moves, F.integer],
-    [roundTo(run.runSeconds, 1), F.minutes], [safeText(run.stopsSource), F.text], [safeText(run.fleetSource), F.text],
-    [s.detourFactor, F.factor], [s.speedKmh, null],
+    [safeText(run.scenario), F.text],
+    [run.createdSerial, F.dateTime],
+    [s.seed, null],
+    [formatCooling(s.cooling), F.text],
+    [formatRule(s.rule), F.text],
+    [run.moves, F.integer],
+    [roundTo(run.runSeconds, 1), F.minutes],
+    [safeText(run.stopsSource), F.text],
+    [safeText(run.fleetSource), F.text],
+    [s.detourFactor, F.factor],
+    [s.speedKmh, null],
     [s.hardWindows ? "hard" : `soft, ${s.lateCostPerMin} per min late`, F.text],
   ]);
 }
@@ -133,9 +157,14 @@ function settingsValues(run: RunRecord): FormattedRow {
 function totalsValues(plan: Plan): FormattedRow {
   const t = plan.totals;
   return cellRow([
-    [t.vehiclesUsed, F.integer], [roundTo(t.distanceKm, 1), F.km], [dayFraction(t.drivingMin), F.duration],
-    [dayFraction(t.dutyMin), F.duration], [dayFraction(t.waitMin), F.duration], [roundTo(t.lateMin, 1), F.minutes],
-    [roundTo(t.cost, 2), F.money], [t.unassigned, F.integer],
+    [t.vehiclesUsed, F.integer],
+    [roundTo(t.distanceKm, 1), F.km],
+    [dayFraction(t.drivingMin), F.duration],
+    [dayFraction(t.dutyMin), F.duration],
+    [dayFraction(t.waitMin), F.duration],
+    [roundTo(t.lateMin, 1), F.minutes],
+    [roundTo(t.cost, 2), F.money],
+    [t.unassigned, F.integer],
   ]);
 }
 

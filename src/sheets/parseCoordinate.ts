@@ -35,7 +35,12 @@ export function readDegrees(value: unknown, axis: "lat" | "lon"): number | undef
   const v = plainCell(value);
   if (typeof v === "number") return Number.isFinite(v) ? v : undefined;
   if (typeof v !== "string") return undefined;
-  let t = v.trim().toUpperCase().replace(/[′’]/g, "'").replace(/[″”]|''/g, '"').replace(/[º˚]/g, "°");
+  let t = v
+    .trim()
+    .toUpperCase()
+    .replace(/[′’]/g, "'")
+    .replace(/[″”]|''/g, '"')
+    .replace(/[º˚]/g, "°");
   if (t === "") return undefined;
   let hemisphere: string | undefined;
   const letters = axis === "lat" ? "NS" : "EW";

@@ -7,6 +7,9 @@
  * @example parseFeatures("Fridge; tail  lift, fridge") // => ["fridge", "tail lift"]
  */
 export function parseFeatures(text: string): string[] {
-  const names = text.split(/[,;]/).map((s) => s.trim().toLowerCase().replace(/\s+/g, " ")).filter((s) => s !== "");
+  const names = text
+    .split(/[,;]/)
+    .map((s) => s.trim().toLowerCase().replace(/\s+/g, " "))
+    .filter((s) => s !== "");
   return [...new Set(names)];
 }

@@ -67,10 +67,19 @@ export function parseFleet(read: SheetRead): ParsedFleet {
   if (!table) return { ...base, issues };
   const f = table.columns.fields;
   if (!(f.has("startLatitude") && f.has("startLongitude")) && !f.has("startCoordinates")) {
-    issues.push(cellIssue(read.sheet, table.headerRow0, read.col, `the header row has no depot coordinate columns; add Start latitude and Start longitude columns in decimal degrees (or one Depot column holding "lat, lon").`));
+    issues.push(
+      cellIssue(
+        read.sheet,
+        table.headerRow0,
+        read.col,
+        `the header row has no depot coordinate columns; add Start latitude and Start longitude columns in decimal degrees (or one Depot column holding "lat, lon").`,
+      ),
+    );
     return { ...base, issues };
   }
-  const dimensions = [...f.keys()].filter((k) => k === "capacity" || k.startsWith("capacity:")).map((k) => (k === "capacity" ? "" : k.slice(9)));
+  const dimensions = [...f.keys()]
+    .filter((k) => k === "capacity" || k.startsWith("capacity:"))
+    .map((k) => (k === "capacity" ? "" : k.slice(9)));
   const vehicles: ParsedVehicle[] = [];
   const seen = new Map<string, number>();
   table.rows.forEach((row, ordinal) => {
@@ -82,7 +91,8 @@ export function parseFleet(read: SheetRead): ParsedFleet {
     for (const dim of dimensions) {
       const key = dim === "" ? "capacity" : `capacity:${dim}`;
       const label = dim === "" ? "capacity" : `capacity (${dim})`;
-      if (r.blank(key) && !r.excelErrorAt(key)) r.fail(key, `${label} is missing for vehicle "${name}"; type how much it can carry, such as 800.`);
+      if (r.blank(key) && !r.excelErrorAt(key))
+        r.fail(key, `${label} is missing for vehicle "${name}"; type how much it can carry, such as 800.`);
       capacity.set(dim, r.num(key, label, { min: 0, example: "800" }) ?? 0);
     }
     const start = readPoint(r, "startLatitude", "startLongitude", "startCoordinates", "start depot");
@@ -112,7 +122,16 @@ export function parseFleet(read: SheetRead): ParsedFleet {
       }
       seen.set(id, r.sheetRow);
       vehicles.push({
-        id, rowName: name, capacity, start, end, shiftStartMin, shiftEndMin, fixedCost, costPerKm, costPerHour,
+        id,
+        rowName: name,
+        capacity,
+        start,
+        end,
+        shiftStartMin,
+        shiftEndMin,
+        fixedCost,
+        costPerKm,
+        costPerHour,
         ...(speedKmh !== undefined ? { speedKmh } : {}),
         ...(maxStops !== undefined ? { maxStops } : {}),
         ...(featureText !== undefined ? { features: parseFeatures(featureText) } : {}),
@@ -130,7 +149,10 @@ function readPoint(r: RowReader, latKey: string, lonKey: string, pairKey: string
     if (r.excelErrorAt(pairKey)) return undefined;
     const p = parseLatLon(r.raw(pairKey));
     if (p === undefined || Math.abs(p.lat) > 90 || Math.abs(p.lon) > 180) {
-      r.fail(pairKey, `the ${what} ${JSON.stringify(String(plainCell(r.raw(pairKey))))} is not "latitude, longitude"; type decimal degrees such as "45.76, 4.83" (latitude -90..90, longitude -180..180).`);
+      r.fail(
+        pairKey,
+        `the ${what} ${JSON.stringify(String(plainCell(r.raw(pairKey))))} is not "latitude, longitude"; type decimal degrees such as "45.76, 4.83" (latitude -90..90, longitude -180..180).`,
+      );
       return undefined;
     }
     return p;
@@ -150,9 +172,15 @@ function axis(r: RowReader, key: string, which: "lat" | "lon", what: string): nu
   const d = readDegrees(r.raw(key), which);
   const limit = which === "lat" ? 90 : 180;
   if (d === undefined) {
-    r.fail(key, `${what} ${word} ${JSON.stringify(String(plainCell(r.raw(key))))} is not a coordinate; type decimal degrees such as ${which === "lat" ? "45.76" : "4.83"}.`);
+    r.fail(
+      key,
+      `${what} ${word} ${JSON.stringify(String(plainCell(r.raw(key))))} is not a coordinate; type decimal degrees such as ${which === "lat" ? "45.76" : "4.83"}.`,
+    );
   } else if (Math.abs(d) > limit) {
-    r.fail(key, `${what} ${word} ${d} is outside -${limit}..${limit}; type decimal degrees${which === "lat" ? ", north positive" : ", east positive"}.`);
+    r.fail(
+      key,
+      `${what} ${word} ${d} is outside -${limit}..${limit}; type decimal degrees${which === "lat" ? ", north positive" : ", east positive"}.`,
+    );
     return undefined;
   }
   return d;

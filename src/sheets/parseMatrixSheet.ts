@@ -21,14 +21,20 @@ import { cellIssue } from "./readTable.js";
  * @example parseMatrixSheet({ sheet: "Km", row: 0, col: 0, values: [["km", "D", "a"], ["D", 0, 5], ["a", 6, 0]] }, [["D"], ["a"]]).distanceKm
  * // => [[0, 5], [6, 0]]
  */
-export function parseMatrixSheet(
-  read: SheetRead,
-  names: readonly (readonly string[])[],
-): { distanceKm?: number[][]; issues: Issue[] } {
+export function parseMatrixSheet(read: SheetRead, names: readonly (readonly string[])[]): { distanceKm?: number[][]; issues: Issue[] } {
   const issues: Issue[] = [];
   const h = read.values.findIndex((row) => !row.every(isBlank));
   if (h < 0) {
-    return { issues: [cellIssue(read.sheet, read.row, read.col, "the matrix sheet is empty; put location ids across the first row and down the first column, and km between them.")] };
+    return {
+      issues: [
+        cellIssue(
+          read.sheet,
+          read.row,
+          read.col,
+          "the matrix sheet is empty; put location ids across the first row and down the first column, and km between them.",
+        ),
+      ],
+    };
   }
   const index = new Map<string, number>();
   names.forEach((list, loc) => list.forEach((n) => index.set(norm(n), loc)));
@@ -38,7 +44,8 @@ export function parseMatrixSheet(
     if (c === 0 || isBlank(raw)) return;
     const loc = index.get(norm(String(plainCell(raw))));
     if (loc === undefined) return;
-    if (colOf.has(loc)) issues.push(cellIssue(read.sheet, read.row + h, read.col + c, `location ${shownValue(raw)} heads two columns; keep one.`));
+    if (colOf.has(loc))
+      issues.push(cellIssue(read.sheet, read.row + h, read.col + c, `location ${shownValue(raw)} heads two columns; keep one.`));
     else colOf.set(loc, c);
   });
   const rowOf = new Map<number, number>();
@@ -47,13 +54,18 @@ export function parseMatrixSheet(
     if (isBlank(raw)) continue;
     const loc = index.get(norm(String(plainCell(raw))));
     if (loc === undefined) continue;
-    if (rowOf.has(loc)) issues.push(cellIssue(read.sheet, read.row + r, read.col, `location ${shownValue(raw)} starts two rows; keep one.`));
+    if (rowOf.has(loc))
+      issues.push(cellIssue(read.sheet, read.row + r, read.col, `location ${shownValue(raw)} starts two rows; keep one.`));
     else rowOf.set(loc, r);
   }
   names.forEach((list, loc) => {
     const id = list[0] ?? `location ${loc + 1}`;
-    if (!colOf.has(loc)) issues.push(cellIssue(read.sheet, read.row + h, read.col, `location "${id}" has no column; add a header cell "${id}" and its km.`));
-    if (!rowOf.has(loc)) issues.push(cellIssue(read.sheet, read.row + h, read.col, `location "${id}" has no row; add a row starting with "${id}" and its km.`));
+    if (!colOf.has(loc))
+      issues.push(cellIssue(read.sheet, read.row + h, read.col, `location "${id}" has no column; add a header cell "${id}" and its km.`));
+    if (!rowOf.has(loc))
+      issues.push(
+        cellIssue(read.sheet, read.row + h, read.col, `location "${id}" has no row; add a row starting with "${id}" and its km.`),
+      );
   });
   if (issues.length > 0) return { issues };
   const n = names.length;
@@ -66,8 +78,12 @@ export function parseMatrixSheet(
       const raw = read.values[r]?.[c];
       const e = excelError(raw);
       const km = isBlank(raw) && i === j ? 0 : readNumber(raw);
-      if (e !== undefined) issues.push(cellIssue(read.sheet, read.row + r, read.col + c, `the cell shows the Excel error ${e}; type the km.`));
-      else if (km === undefined || km < 0) issues.push(cellIssue(read.sheet, read.row + r, read.col + c, `${shownValue(raw)} is not a distance; type km as a number of 0 or more.`));
+      if (e !== undefined)
+        issues.push(cellIssue(read.sheet, read.row + r, read.col + c, `the cell shows the Excel error ${e}; type the km.`));
+      else if (km === undefined || km < 0)
+        issues.push(
+          cellIssue(read.sheet, read.row + r, read.col + c, `${shownValue(raw)} is not a distance; type km as a number of 0 or more.`),
+        );
       row.push(km ?? 0);
     }
     distanceKm.push(row);

@@ -13,8 +13,25 @@ export const GEOMETRIC_DEFAULTS = { alpha: 0.94, movesPerLevel: undefined } as c
 export const LINEAR_DEFAULT_STEPS = 20;
 
 type Key =
-  | "detourFactor" | "speedKmh" | "serviceMin" | "windows" | "lateCostPerMin" | "rule" | "schedule"
-  | "alpha" | "movesPerLevel" | "steps" | "beta" | "t0" | "tEnd" | "p0" | "pEnd" | "seed" | "seconds" | "moves" | "objective";
+  | "detourFactor"
+  | "speedKmh"
+  | "serviceMin"
+  | "windows"
+  | "lateCostPerMin"
+  | "rule"
+  | "schedule"
+  | "alpha"
+  | "movesPerLevel"
+  | "steps"
+  | "beta"
+  | "t0"
+  | "tEnd"
+  | "p0"
+  | "pEnd"
+  | "seed"
+  | "seconds"
+  | "moves"
+  | "objective";
 
 const KEYS: Record<Key, readonly string[]> = {
   detourFactor: ["detourfactor", "detour", "circuity", "circuityfactor", "roadfactor"],
@@ -69,12 +86,26 @@ export function parseSettingsSheet(read: SheetRead): { settings: Partial<PlanSet
     if (r === 0 && HEADER_KEYS.has(word)) return;
     const key = (Object.keys(KEYS) as Key[]).find((k) => KEYS[k].includes(word));
     if (key === undefined) {
-      issues.push(cellIssue(read.sheet, row0, read.col, `unknown setting "${String(keyRaw)}"; use one of Detour factor, Speed km/h, Service min, Windows, Late cost per min, Acceptance, Schedule, Alpha, Moves per level, Steps, Beta, T0, T end, P0, P end, Seed, Seconds, Moves, Objective (or clear the row).`));
+      issues.push(
+        cellIssue(
+          read.sheet,
+          row0,
+          read.col,
+          `unknown setting "${String(keyRaw)}"; use one of Detour factor, Speed km/h, Service min, Windows, Late cost per min, Acceptance, Schedule, Alpha, Moves per level, Steps, Beta, T0, T end, P0, P end, Seed, Seconds, Moves, Objective (or clear the row).`,
+        ),
+      );
       return;
     }
     if (isBlank(cells[1])) return;
     if (given.has(key)) {
-      issues.push(cellIssue(read.sheet, row0, read.col, `setting "${String(keyRaw)}" is given twice (also on row ${given.get(key)!.row0 + 1}); keep one.`));
+      issues.push(
+        cellIssue(
+          read.sheet,
+          row0,
+          read.col,
+          `setting "${String(keyRaw)}" is given twice (also on row ${given.get(key)!.row0 + 1}); keep one.`,
+        ),
+      );
       return;
     }
     given.set(key, { value: cells[1], row0 });
@@ -98,14 +129,21 @@ export function parseSettingsSheet(read: SheetRead): { settings: Partial<PlanSet
     if (g === undefined) return undefined;
     const w = headerWords(String(plainCell(g.value))).join("");
     const hit = choices[w];
-    if (hit === undefined) fail(key, `${shownValue(g.value)} is not a valid ${label(key)}; type one of ${[...new Set(Object.values(choices))].join(", ")}.`);
+    if (hit === undefined)
+      fail(key, `${shownValue(g.value)} is not a valid ${label(key)}; type one of ${[...new Set(Object.values(choices))].join(", ")}.`);
     return hit;
   };
   const set = <K extends keyof PlanSettings>(k: K, v: PlanSettings[K] | undefined): void => {
     if (v !== undefined) out[k] = v;
   };
-  set("detourFactor", num("detourFactor", (n) => n >= 1, "a number of 1 or more, such as 1.3"));
-  set("speedKmh", num("speedKmh", (n) => n > 0, "a speed above 0, such as 40"));
+  set(
+    "detourFactor",
+    num("detourFactor", (n) => n >= 1, "a number of 1 or more, such as 1.3"),
+  );
+  set(
+    "speedKmh",
+    num("speedKmh", (n) => n > 0, "a speed above 0, such as 40"),
+  );
   const service = given.get("serviceMin");
   if (service !== undefined) {
     const d = parseDuration(service.value);
@@ -114,14 +152,36 @@ export function parseSettingsSheet(read: SheetRead): { settings: Partial<PlanSet
   }
   const windows = word("windows", { hard: "hard", soft: "soft", strict: "hard", flexible: "soft" });
   if (windows !== undefined) out.hardWindows = windows === "hard";
-  set("lateCostPerMin", num("lateCostPerMin", (n) => n >= 0, "a cost of 0 or more, such as 1"));
+  set(
+    "lateCostPerMin",
+    num("lateCostPerMin", (n) => n >= 0, "a cost of 0 or more, such as 1"),
+  );
   set("rule", word("rule", { metropolis: "metropolis", logistic: "logistic", barker: "logistic" }) as PlanSettings["rule"] | undefined);
-  set("p0", num("p0", (n) => n > 0 && n < 1, "a probability between 0 and 1, such as 0.5"));
-  set("pEnd", num("pEnd", (n) => n > 0 && n < 1, "a probability between 0 and 1, such as 0.001"));
-  set("seed", num("seed", (n) => Number.isInteger(n), "a whole number, such as 1"));
-  set("seconds", num("seconds", (n) => n > 0, "a number of seconds above 0, such as 10"));
-  set("moves", num("moves", (n) => Number.isInteger(n) && n > 0, "a whole number above 0, such as 200000"));
-  set("objective", word("objective", { weighted: "weighted", cost: "weighted", hierarchical: "hierarchical", vehiclesfirst: "hierarchical" }) as PlanSettings["objective"] | undefined);
+  set(
+    "p0",
+    num("p0", (n) => n > 0 && n < 1, "a probability between 0 and 1, such as 0.5"),
+  );
+  set(
+    "pEnd",
+    num("pEnd", (n) => n > 0 && n < 1, "a probability between 0 and 1, such as 0.001"),
+  );
+  set(
+    "seed",
+    num("seed", (n) => Number.isInteger(n), "a whole number, such as 1"),
+  );
+  set(
+    "seconds",
+    num("seconds", (n) => n > 0, "a number of seconds above 0, such as 10"),
+  );
+  set(
+    "moves",
+    num("moves", (n) => Number.isInteger(n) && n > 0, "a whole number above 0, such as 200000"),
+  );
+  set(
+    "objective",
+    word("objective", { weighted: "weighted", cost: "weighted", hierarchical: "hierarchical", vehiclesfirst: "hierarchical" }) as
+      PlanSettings["objective"] | undefined,
+  );
   const cooling = readCooling(given, num, word, fail);
   if (cooling !== undefined) out.cooling = cooling;
   return { settings: out, issues };
@@ -134,17 +194,26 @@ function readCooling(
   fail: (key: Key, message: string) => void,
 ): CoolingSpec | undefined {
   const kind = word("schedule", {
-    geometric: "geometric", exponential: "geometric", linear: "linear", linearsteps: "linear",
-    lundymees: "lundyMees", lundy: "lundyMees", time: "timeFraction", timefraction: "timeFraction",
+    geometric: "geometric",
+    exponential: "geometric",
+    linear: "linear",
+    linearsteps: "linear",
+    lundymees: "lundyMees",
+    lundy: "lundyMees",
+    time: "timeFraction",
+    timefraction: "timeFraction",
   }) as CoolingSpec["kind"] | undefined;
   const params: Key[] = ["alpha", "movesPerLevel", "steps", "beta", "t0", "tEnd"];
   const present = params.filter((k) => given.has(k));
   if (kind === undefined) {
-    if (!given.has("schedule")) for (const k of present) fail(k, `${label(k)} needs a Schedule row (geometric, linear, lundy-mees or time); add one or clear this value.`);
+    if (!given.has("schedule"))
+      for (const k of present)
+        fail(k, `${label(k)} needs a Schedule row (geometric, linear, lundy-mees or time); add one or clear this value.`);
     return undefined;
   }
   for (const k of present) {
-    if (!SCHEDULE_PARAMS[kind].includes(k)) fail(k, `${label(k)} does not apply to the ${kind} schedule; clear it or choose a schedule that uses it.`);
+    if (!SCHEDULE_PARAMS[kind].includes(k))
+      fail(k, `${label(k)} does not apply to the ${kind} schedule; clear it or choose a schedule that uses it.`);
   }
   const t0 = num("t0", (n) => n > 0, "a temperature above 0");
   const tEnd = num("tEnd", (n) => n > 0, "a temperature above 0");
@@ -152,16 +221,30 @@ function readCooling(
   switch (kind) {
     case "geometric":
       return opt({
-        kind, t0,
+        kind,
+        t0,
         alpha: num("alpha", (n) => n > 0 && n < 1, "a factor between 0 and 1, such as 0.94") ?? GEOMETRIC_DEFAULTS.alpha,
-        movesPerLevel: num("movesPerLevel", (n) => Number.isInteger(n) && n >= 1, "a whole number of 1 or more, such as 10000; leave it out to fit the levels to the run"),
+        movesPerLevel: num(
+          "movesPerLevel",
+          (n) => Number.isInteger(n) && n >= 1,
+          "a whole number of 1 or more, such as 10000; leave it out to fit the levels to the run",
+        ),
       });
     case "linear":
-      return opt({ kind, t0, tEnd, steps: num("steps", (n) => Number.isInteger(n) && n >= 1, "a whole number of 1 or more, such as 20") ?? LINEAR_DEFAULT_STEPS });
+      return opt({
+        kind,
+        t0,
+        tEnd,
+        steps: num("steps", (n) => Number.isInteger(n) && n >= 1, "a whole number of 1 or more, such as 20") ?? LINEAR_DEFAULT_STEPS,
+      });
     case "lundyMees": {
       const beta = num("beta", (n) => n > 0, "a number above 0, such as 0.0001");
       if (beta === undefined) {
-        if (!given.has("beta")) fail("schedule", "the lundy-mees schedule needs a Beta row (a number above 0, such as 0.0001); add it or choose another schedule.");
+        if (!given.has("beta"))
+          fail(
+            "schedule",
+            "the lundy-mees schedule needs a Beta row (a number above 0, such as 0.0001); add it or choose another schedule.",
+          );
         return undefined;
       }
       return opt({ kind, t0, beta });
@@ -173,10 +256,25 @@ function readCooling(
 
 function label(key: Key): string {
   const names: Record<Key, string> = {
-    detourFactor: "detour factor", speedKmh: "speed (km/h)", serviceMin: "service time", windows: "window mode (hard or soft)",
-    lateCostPerMin: "late cost per minute", rule: "acceptance rule", schedule: "cooling schedule", alpha: "Alpha",
-    movesPerLevel: "Moves per level", steps: "Steps", beta: "Beta", t0: "T0", tEnd: "T end", p0: "P0", pEnd: "P end",
-    seed: "seed", seconds: "time limit in seconds", moves: "move budget", objective: "objective",
+    detourFactor: "detour factor",
+    speedKmh: "speed (km/h)",
+    serviceMin: "service time",
+    windows: "window mode (hard or soft)",
+    lateCostPerMin: "late cost per minute",
+    rule: "acceptance rule",
+    schedule: "cooling schedule",
+    alpha: "Alpha",
+    movesPerLevel: "Moves per level",
+    steps: "Steps",
+    beta: "Beta",
+    t0: "T0",
+    tEnd: "T end",
+    p0: "P0",
+    pEnd: "P end",
+    seed: "seed",
+    seconds: "time limit in seconds",
+    moves: "move budget",
+    objective: "objective",
   };
   return names[key];
 }

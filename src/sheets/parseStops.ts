@@ -61,7 +61,15 @@ export interface ParsedStops {
  */
 export function parseStops(read: SheetRead): ParsedStops {
   const { table, issues } = readTable(read, "stops");
-  const empty = { stops: [], columns: table?.columns, col0: read.col, headerRow0: table?.headerRow0 ?? read.row, extraHeaders: [], dimensions: [], issues };
+  const empty = {
+    stops: [],
+    columns: table?.columns,
+    col0: read.col,
+    headerRow0: table?.headerRow0 ?? read.row,
+    extraHeaders: [],
+    dimensions: [],
+    issues,
+  };
   if (!table) return empty;
   const f = table.columns.fields;
   const hasPair = f.has("latitude") && f.has("longitude");
@@ -91,7 +99,8 @@ export function parseStops(read: SheetRead): ParsedStops {
     let id = String(r.sheetRow);
     if (r.has("id")) {
       const text = r.text("id");
-      if (text === undefined && !r.excelErrorAt("id")) r.fail("id", "the stop id is empty; type a unique id (text or number) for this stop.");
+      if (text === undefined && !r.excelErrorAt("id"))
+        r.fail("id", "the stop id is empty; type a unique id (text or number) for this stop.");
       id = text ?? id;
       const first = seen.get(id);
       if (text !== undefined && first !== undefined) {
@@ -139,7 +148,10 @@ function readPosition(r: RowReader, id: string): LatLon | undefined {
     if (r.excelErrorAt("coordinates")) return undefined;
     const p = parseLatLon(r.raw("coordinates"));
     if (p === undefined) {
-      r.fail("coordinates", `coordinates ${JSON.stringify(String(plainCell(r.raw("coordinates"))))} cannot be read; type "latitude, longitude" in decimal degrees, such as "45.76, 4.83".`);
+      r.fail(
+        "coordinates",
+        `coordinates ${JSON.stringify(String(plainCell(r.raw("coordinates"))))} cannot be read; type "latitude, longitude" in decimal degrees, such as "45.76, 4.83".`,
+      );
       return undefined;
     }
     return checkRange(r, "coordinates", p.lat, p.lon);
@@ -168,7 +180,10 @@ function readAxis(r: RowReader, key: string, axis: "lat" | "lon"): number | unde
   if (r.excelErrorAt(key)) return undefined;
   const d = readDegrees(r.raw(key), axis);
   if (d === undefined) {
-    r.fail(key, `${key} ${JSON.stringify(String(plainCell(r.raw(key))))} is not a coordinate; type decimal degrees such as ${axis === "lat" ? `45.76 or 45°45'36"N` : `4.83 or 4°50'E`}.`);
+    r.fail(
+      key,
+      `${key} ${JSON.stringify(String(plainCell(r.raw(key))))} is not a coordinate; type decimal degrees such as ${axis === "lat" ? `45.76 or 45°45'36"N` : `4.83 or 4°50'E`}.`,
+    );
   }
   return d;
 }
@@ -176,7 +191,10 @@ function readAxis(r: RowReader, key: string, axis: "lat" | "lon"): number | unde
 function checkRange(r: RowReader, latKey: string, lat: number, lon: number, lonKey = latKey): LatLon | undefined {
   let ok = true;
   if (Math.abs(lat) > 90) {
-    r.fail(latKey, `latitude ${lat} is outside -90..90; type decimal degrees, north positive (check that latitude and longitude are not swapped).`);
+    r.fail(
+      latKey,
+      `latitude ${lat} is outside -90..90; type decimal degrees, north positive (check that latitude and longitude are not swapped).`,
+    );
     ok = false;
   }
   if (Math.abs(lon) > 180) {
@@ -193,7 +211,11 @@ function readWindowPair(r: RowReader, i: number): TimeWindow[] {
   const listKey = `windows${suffix}`;
   if (r.has(listKey) && !r.blank(listKey) && !r.excelErrorAt(listKey)) {
     const list = parseWindows(r.raw(listKey));
-    if (list === undefined) r.fail(listKey, `time windows ${JSON.stringify(String(plainCell(r.raw(listKey))))} cannot be read; type ranges such as "08:00-10:00; 14:00-16:00".`);
+    if (list === undefined)
+      r.fail(
+        listKey,
+        `time windows ${JSON.stringify(String(plainCell(r.raw(listKey))))} cannot be read; type ranges such as "08:00-10:00; 14:00-16:00".`,
+      );
     else out.push(...list);
   }
   const eKey = `earliest${suffix}`;
@@ -202,7 +224,11 @@ function readWindowPair(r: RowReader, i: number): TimeWindow[] {
   // A whole list typed into the Earliest cell ("08:00-10:00; 14:00-16:00") is read as such.
   if (typeof eRaw === "string" && /[-–—]|\bto\b/i.test(eRaw) && r.blank(lKey)) {
     const list = parseWindows(eRaw);
-    if (list === undefined) r.fail(eKey, `time windows ${JSON.stringify(eRaw)} cannot be read; type ranges such as "08:00-10:00; 14:00-16:00", or one time here and one in the Latest column.`);
+    if (list === undefined)
+      r.fail(
+        eKey,
+        `time windows ${JSON.stringify(eRaw)} cannot be read; type ranges such as "08:00-10:00; 14:00-16:00", or one time here and one in the Latest column.`,
+      );
     else out.push(...list);
     return out;
   }

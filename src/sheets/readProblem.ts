@@ -52,7 +52,14 @@ export function readProblem(
   const fleetColumns = fleet.columns?.matches ?? [];
   const dims = pairDimensions(input, stops, fleet, issues);
   if (fleet.vehicles.length === 0 && fleet.issues.length === 0) {
-    issues.push(cellIssue(input.fleet.sheet, fleet.headerRow0, input.fleet.col, "no vehicle is available (every Count is 0); give at least one row a Count of 1 or more."));
+    issues.push(
+      cellIssue(
+        input.fleet.sheet,
+        fleet.headerRow0,
+        input.fleet.col,
+        "no vehicle is available (every Count is 0); give at least one row a Count of 1 or more.",
+      ),
+    );
   }
   checkServable(stops, fleet.vehicles, dims, settings.hardWindows, input.stops.sheet, issues, warnings);
   if (issues.length > 0 || dims === undefined) return { ok: false, issues, stopColumns, fleetColumns };
@@ -71,7 +78,7 @@ export function readProblem(
   };
   const vehicles: Vehicle[] = fleet.vehicles.map((v) => ({
     id: v.id,
-    capacity: dims.map((d) => (d.fleet === undefined ? Infinity : v.capacity.get(d.fleet) ?? 0)),
+    capacity: dims.map((d) => (d.fleet === undefined ? Infinity : (v.capacity.get(d.fleet) ?? 0))),
     startLocation: depotIndex(v.start, v),
     endLocation: depotIndex(v.end, v),
     shiftStartMin: v.shiftStartMin,
@@ -91,7 +98,7 @@ export function readProblem(
       id: s.id,
       name: s.name,
       location: depots + i,
-      demand: dims.map((d) => (d.stops === undefined ? 0 : s.demand.get(d.stops) ?? 0)),
+      demand: dims.map((d) => (d.stops === undefined ? 0 : (s.demand.get(d.stops) ?? 0))),
       windows: s.windows,
       serviceMin: s.serviceMin ?? settings.serviceMin,
       ...(s.unservedCost !== undefined ? { unservedCost: s.unservedCost } : {}),
@@ -106,9 +113,15 @@ export function readProblem(
     matrix = userMatrix(m.distanceKm, undefined, settings.speedKmh);
   }
   const problem: Problem = {
-    locations, stops: problemStops, vehicles, loadDimensions: dims.map((d) => d.name), matrix,
-    referenceSpeedKmh: settings.speedKmh, hardWindows: settings.hardWindows,
-    lateCostPerMin: settings.lateCostPerMin, objective: settings.objective,
+    locations,
+    stops: problemStops,
+    vehicles,
+    loadDimensions: dims.map((d) => d.name),
+    matrix,
+    referenceSpeedKmh: settings.speedKmh,
+    hardWindows: settings.hardWindows,
+    lateCostPerMin: settings.lateCostPerMin,
+    objective: settings.objective,
   };
   // Safety net: whatever the rows looked like, the solver only ever sees a consistent problem.
   const model = validateProblem(problem);
@@ -137,7 +150,14 @@ function pairDimensions(
     return [{ name: sd[0] || fd[0] || PLAIN_DIMENSION, stops: sd[0]!, fleet: fd[0]! }];
   }
   if (sd.length > 0 && fd.length === 0) {
-    issues.push(cellIssue(input.fleet.sheet, fleet.headerRow0, input.fleet.col, `the stops have a demand column but the fleet has no Capacity column; add ${sd.map((d) => (d === "" ? "Capacity" : `Capacity ${d}`)).join(" and ")}.`));
+    issues.push(
+      cellIssue(
+        input.fleet.sheet,
+        fleet.headerRow0,
+        input.fleet.col,
+        `the stops have a demand column but the fleet has no Capacity column; add ${sd.map((d) => (d === "" ? "Capacity" : `Capacity ${d}`)).join(" and ")}.`,
+      ),
+    );
     return undefined;
   }
   const out: Dimension[] = [];
@@ -148,7 +168,14 @@ function pairDimensions(
       continue;
     }
     const col = stops.columns.fields.get(d === "" ? "demand" : `demand:${d}`) ?? 0;
-    issues.push(cellIssue(input.stops.sheet, stops.headerRow0, stops.col0 + col, `demand column ${d === "" ? "Demand" : `"Demand ${d}"`} has no matching capacity column on the fleet (which has ${fd.map((f) => (f === "" ? "Capacity" : `Capacity ${f}`)).join(", ")}); name the pair with the same unit word, such as Demand kg and Capacity kg.`));
+    issues.push(
+      cellIssue(
+        input.stops.sheet,
+        stops.headerRow0,
+        stops.col0 + col,
+        `demand column ${d === "" ? "Demand" : `"Demand ${d}"`} has no matching capacity column on the fleet (which has ${fd.map((f) => (f === "" ? "Capacity" : `Capacity ${f}`)).join(", ")}); name the pair with the same unit word, such as Demand kg and Capacity kg.`,
+      ),
+    );
     ok = false;
   }
   for (const f of fd) if (!sd.includes(f)) out.push({ name: f === "" ? PLAIN_DIMENSION : f, fleet: f });
@@ -186,16 +213,30 @@ function checkServable(
       else warnings.push(cellIssue(sheet, s.sheetRow0, stops.col0 + windowCol, `${text} With soft windows it can only be served late.`));
     }
     if (dims !== undefined && dims.length > 0) {
-      const demand = dims.map((d) => (d.stops === undefined ? 0 : s.demand.get(d.stops) ?? 0));
+      const demand = dims.map((d) => (d.stops === undefined ? 0 : (s.demand.get(d.stops) ?? 0)));
       const carriable = vs.some((v) => dims.every((d, k) => d.fleet === undefined || demand[k]! <= (v.capacity.get(d.fleet) ?? 0)));
       if (!carriable) {
         const amounts = demand.map((x, k) => (dims[k]!.name === PLAIN_DIMENSION ? `${x}` : `${x} ${dims[k]!.name}`)).join(", ");
-        warnings.push(cellIssue(sheet, s.sheetRow0, stops.col0 + demandCol, `the demand of stop "${s.id}" (${amounts}) exceeds every vehicle's capacity; it will be left unassigned unless you split the stop into smaller ones or add a larger vehicle.`));
+        warnings.push(
+          cellIssue(
+            sheet,
+            s.sheetRow0,
+            stops.col0 + demandCol,
+            `the demand of stop "${s.id}" (${amounts}) exceeds every vehicle's capacity; it will be left unassigned unless you split the stop into smaller ones or add a larger vehicle.`,
+          ),
+        );
       }
     }
     const need = s.requiredFeatures ?? [];
     if (need.length > 0 && !vs.some((v) => need.every((x) => (v.features ?? []).includes(x)))) {
-      warnings.push(cellIssue(sheet, s.sheetRow0, stops.col0 + (f.get("features") ?? 0), `no vehicle has all the features stop "${s.id}" requires (${need.join(", ")}); it will be left unassigned unless a vehicle lists them under Features.`));
+      warnings.push(
+        cellIssue(
+          sheet,
+          s.sheetRow0,
+          stops.col0 + (f.get("features") ?? 0),
+          `no vehicle has all the features stop "${s.id}" requires (${need.join(", ")}); it will be left unassigned unless a vehicle lists them under Features.`,
+        ),
+      );
     }
   }
 }

@@ -35,12 +35,33 @@ export interface Table {
 export function readTable(read: SheetRead, kind: TableKind): { table?: Table; issues: Issue[] } {
   const what = kind === "stops" ? "stops" : "vehicles";
   if (read.values.every((row) => row.every(isBlank))) {
-    return { issues: [cellIssue(read.sheet, read.row, read.col, `the sheet is empty; add a header row and one row per ${kind === "stops" ? "stop" : "vehicle"} below it.`)] };
+    return {
+      issues: [
+        cellIssue(
+          read.sheet,
+          read.row,
+          read.col,
+          `the sheet is empty; add a header row and one row per ${kind === "stops" ? "stop" : "vehicle"} below it.`,
+        ),
+      ],
+    };
   }
   const h = findHeaderRow(read.values, kind);
   if (h === undefined) {
-    const examples = kind === "stops" ? "Stop, Name, Latitude, Longitude, Demand, Earliest, Latest" : "Vehicle, Capacity, Start latitude, Start longitude, Shift start, Shift end";
-    return { issues: [cellIssue(read.sheet, read.row, read.col, `no header row found in the first 30 rows; put headers such as ${examples} above the ${what}.`)] };
+    const examples =
+      kind === "stops"
+        ? "Stop, Name, Latitude, Longitude, Demand, Earliest, Latest"
+        : "Vehicle, Capacity, Start latitude, Start longitude, Shift start, Shift end";
+    return {
+      issues: [
+        cellIssue(
+          read.sheet,
+          read.row,
+          read.col,
+          `no header row found in the first 30 rows; put headers such as ${examples} above the ${what}.`,
+        ),
+      ],
+    };
   }
   const headerRow0 = read.row + h;
   const columns = mapColumns(read.values[h] ?? [], kind, { sheet: read.sheet, row: headerRow0, col: read.col });
@@ -51,7 +72,14 @@ export function readTable(read: SheetRead, kind: TableKind): { table?: Table; is
   }
   const issues = [...columns.issues];
   if (rows.length === 0) {
-    issues.push(cellIssue(read.sheet, headerRow0 + 1, read.col, `the table has a header row but no ${what}; add one row per ${kind === "stops" ? "stop" : "vehicle"} from row ${headerRow0 + 2} down.`));
+    issues.push(
+      cellIssue(
+        read.sheet,
+        headerRow0 + 1,
+        read.col,
+        `the table has a header row but no ${what}; add one row per ${kind === "stops" ? "stop" : "vehicle"} from row ${headerRow0 + 2} down.`,
+      ),
+    );
   }
   return { table: { sheet: read.sheet, col0: read.col, headerRow0, columns, rows }, issues };
 }

@@ -8,8 +8,22 @@ import { windowUsed } from "./windowUsed.js";
 
 /** The route table's header row (DESIGN.md §5), before the carried-through stop columns. */
 export const ROUTE_TABLE_HEADER = [
-  "Vehicle", "Seq", "Stop", "Name", "Arrival", "Wait min", "Start", "Departure", "Load",
-  "Leg km", "Total km", "Earliest", "Latest", "Late min", "Latitude", "Longitude",
+  "Vehicle",
+  "Seq",
+  "Stop",
+  "Name",
+  "Arrival",
+  "Wait min",
+  "Start",
+  "Departure",
+  "Load",
+  "Leg km",
+  "Total km",
+  "Earliest",
+  "Latest",
+  "Late min",
+  "Latitude",
+  "Longitude",
 ] as const;
 
 /** Column of Latitude and Longitude in the route table (0-based). */
@@ -70,14 +84,22 @@ export function routeTableRows(
       const { lat, lon } = locationOf(problem, stop.location);
       rows.push(
         cells([
-          [name, F.text], [i + 1, F.integer], [safeText(stop.id), F.text], [safeText(stop.name), F.text],
-          [dayFraction(visit.arrivalMin), F.timeOfDay], [roundTo(visit.waitMin, 1), F.minutes],
-          [dayFraction(visit.startMin), F.timeOfDay], [dayFraction(visit.departureMin), F.timeOfDay],
+          [name, F.text],
+          [i + 1, F.integer],
+          [safeText(stop.id), F.text],
+          [safeText(stop.name), F.text],
+          [dayFraction(visit.arrivalMin), F.timeOfDay],
+          [roundTo(visit.waitMin, 1), F.minutes],
+          [dayFraction(visit.startMin), F.timeOfDay],
+          [dayFraction(visit.departureMin), F.timeOfDay],
           loadCell(visit.loadAfter, problem.loadDimensions),
-          [roundTo(visit.legKm, 1), F.km], [roundTo(visit.totalKm, 1), F.km],
+          [roundTo(visit.legKm, 1), F.km],
+          [roundTo(visit.totalKm, 1), F.km],
           windowEdge(w.earliestMin, w.latestMin === Infinity && w.earliestMin === 0),
           windowEdge(w.latestMin, false),
-          [roundTo(visit.lateMin, 1), F.minutes], [lat, null], [lon, null],
+          [roundTo(visit.lateMin, 1), F.minutes],
+          [lat, null],
+          [lon, null],
           ...extraCells(extraByStop.get(visit.stop), extraHeaders),
         ]),
       );
@@ -96,21 +118,42 @@ function depotRow(problem: Problem, route: Route, end: "start" | "end", extras: 
   const { lat, lon, name } = locationOf(problem, at);
   const last = route.visits[route.visits.length - 1]!;
   const blank: Cell = [null, null];
-  const shift: Cell[] = [[dayFraction(v.shiftStartMin), F.timeOfDay], [dayFraction(v.shiftEndMin), F.timeOfDay]];
+  const shift: Cell[] = [
+    [dayFraction(v.shiftStartMin), F.timeOfDay],
+    [dayFraction(v.shiftEndMin), F.timeOfDay],
+  ];
   const head: Cell[] = [[safeText(v.id), F.text]];
   const row: Cell[] =
     end === "start"
       ? [
-          ...head, [0, F.integer], [safeText(name || "Depot"), F.text], [DEPOT_START_NAME, F.text],
-          blank, blank, blank, [dayFraction(route.departureMin), F.timeOfDay],
-          loadCell(route.load, problem.loadDimensions), [0, F.km], [0, F.km], ...shift, blank,
+          ...head,
+          [0, F.integer],
+          [safeText(name || "Depot"), F.text],
+          [DEPOT_START_NAME, F.text],
+          blank,
+          blank,
+          blank,
+          [dayFraction(route.departureMin), F.timeOfDay],
+          loadCell(route.load, problem.loadDimensions),
+          [0, F.km],
+          [0, F.km],
+          ...shift,
+          blank,
         ]
       : [
-          ...head, [route.visits.length + 1, F.integer], [safeText(name || "Depot"), F.text], [DEPOT_END_NAME, F.text],
-          [dayFraction(route.returnMin), F.timeOfDay], blank, blank, blank,
+          ...head,
+          [route.visits.length + 1, F.integer],
+          [safeText(name || "Depot"), F.text],
+          [DEPOT_END_NAME, F.text],
+          [dayFraction(route.returnMin), F.timeOfDay],
+          blank,
+          blank,
+          blank,
           loadCell(last.loadAfter, problem.loadDimensions),
-          [roundTo(route.distanceKm - last.totalKm, 1), F.km], [roundTo(route.distanceKm, 1), F.km],
-          ...shift, [roundTo(route.overtimeMin, 1), F.minutes],
+          [roundTo(route.distanceKm - last.totalKm, 1), F.km],
+          [roundTo(route.distanceKm, 1), F.km],
+          ...shift,
+          [roundTo(route.overtimeMin, 1), F.minutes],
         ];
   row.push([lat, null], [lon, null]);
   for (let i = 0; i < extras; i++) row.push(blank);
@@ -149,4 +192,3 @@ function locationOf(problem: Problem, index: number) {
   if (!loc) throw new RangeError(`routeTableRows: location ${index} is outside 0..${problem.locations.length - 1}`);
   return loc;
 }
-

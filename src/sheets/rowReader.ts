@@ -104,7 +104,8 @@ export function rowReader(table: Table, row: TableRow, issues: Issue[]): RowRead
       const v = raw(key);
       if (isBlank(v) || excelErrorAt(key)) return undefined;
       const d = parseDuration(v);
-      if (d === undefined) fail(key, `${label} ${shownValue(v)} is not a duration; type minutes as a number (such as 10) or h:mm text (such as 1:30).`);
+      if (d === undefined)
+        fail(key, `${label} ${shownValue(v)} is not a duration; type minutes as a number (such as 10) or h:mm text (such as 1:30).`);
       return d;
     },
   };

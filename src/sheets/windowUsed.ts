@@ -30,9 +30,7 @@ export function windowUsed(stop: Stop, visit: Visit): TimeWindow {
     }
     return best;
   }
-  const inside = windows.find(
-    (w) => w.earliestMin - EPS_MIN <= visit.startMin && visit.startMin <= w.latestMin + EPS_MIN,
-  );
+  const inside = windows.find((w) => w.earliestMin - EPS_MIN <= visit.startMin && visit.startMin <= w.latestMin + EPS_MIN);
   // No containing window means the schedule is inconsistent; the first window still open is
   // the most useful thing to show.
   return inside ?? windows.find((w) => w.latestMin >= visit.startMin) ?? windows[windows.length - 1]!;

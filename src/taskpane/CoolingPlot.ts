@@ -43,8 +43,25 @@ export class CoolingPlot {
           scales: { x: { time: false }, T: { distr: 3 }, P: { range: [0, 1] } },
           axes: [
             { label: "% of run", size: 34, labelSize: 14, font: "11px Segoe UI, sans-serif", labelFont: "11px Segoe UI, sans-serif" },
-            { scale: "T", label: "Temperature", size: 52, labelSize: 14, font: "11px Segoe UI, sans-serif", labelFont: "11px Segoe UI, sans-serif", values: (_u, splits) => splits.map((v) => (v == null ? "" : compact(v))) },
-            { scale: "P", side: 1, label: "P(accept)", size: 40, labelSize: 14, grid: { show: false }, font: "11px Segoe UI, sans-serif", labelFont: "11px Segoe UI, sans-serif" },
+            {
+              scale: "T",
+              label: "Temperature",
+              size: 52,
+              labelSize: 14,
+              font: "11px Segoe UI, sans-serif",
+              labelFont: "11px Segoe UI, sans-serif",
+              values: (_u, splits) => splits.map((v) => (v == null ? "" : compact(v))),
+            },
+            {
+              scale: "P",
+              side: 1,
+              label: "P(accept)",
+              size: 40,
+              labelSize: 14,
+              grid: { show: false },
+              font: "11px Segoe UI, sans-serif",
+              labelFont: "11px Segoe UI, sans-serif",
+            },
           ],
           series: [
             { label: "% of run" },

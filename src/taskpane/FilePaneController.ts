@@ -27,9 +27,18 @@ export class FilePaneController extends PaneController {
     d.fileSection.hidden = false;
     d.stopsSummary.textContent = "Open a workbook file first.";
     d.fleetSummary.textContent = "Open a workbook file first.";
-    d.fileInput.addEventListener("change", this.guard("Open file", () => this.open([...(d.fileInput.files ?? [])])));
-    d.stopsSheet.addEventListener("change", this.guard("Choose the stops sheet", () => this.pickSheets()));
-    d.fleetSheet.addEventListener("change", this.guard("Choose the fleet sheet", () => this.pickSheets()));
+    d.fileInput.addEventListener(
+      "change",
+      this.guard("Open file", () => this.open([...(d.fileInput.files ?? [])])),
+    );
+    d.stopsSheet.addEventListener(
+      "change",
+      this.guard("Choose the stops sheet", () => this.pickSheets()),
+    );
+    d.fleetSheet.addEventListener(
+      "change",
+      this.guard("Choose the fleet sheet", () => this.pickSheets()),
+    );
   }
 
   private async open(files: File[]): Promise<void> {

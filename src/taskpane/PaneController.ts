@@ -44,7 +44,8 @@ export class PaneController {
   private uphill: readonly number[] = [];
   private sampledFor: ReadResult | undefined;
   private movesPerSecond = ASSUMED_MOVES_PER_SECOND;
-  private last: { read: ReadResult & { ok: true }; result: SolveResult; scenario: string; runSeconds: number; written?: string } | undefined;
+  private last:
+    { read: ReadResult & { ok: true }; result: SolveResult; scenario: string; runSeconds: number; written?: string } | undefined;
   private readToken = 0;
 
   /** @param source - where the tables live (Excel or a file) */
@@ -61,20 +62,38 @@ export class PaneController {
     const onSettings = this.guard("Reading the settings", () => this.settingsChanged());
     for (const input of d.formInputs) input.addEventListener("change", onSettings);
     for (const input of d.formInputs) if (input instanceof HTMLInputElement) input.addEventListener("input", onSettings);
-    d.optimize.addEventListener("click", this.guard("Optimize", () => this.optimize()));
-    d.stop.addEventListener("click", this.guard("Stop", () => this.solver.stop()));
-    d.write.addEventListener("click", this.guard("Write to workbook", () => this.write()));
-    d.rerun.addEventListener("click", this.guard("Rerun", () => this.rerun()));
+    d.optimize.addEventListener(
+      "click",
+      this.guard("Optimize", () => this.optimize()),
+    );
+    d.stop.addEventListener(
+      "click",
+      this.guard("Stop", () => this.solver.stop()),
+    );
+    d.write.addEventListener(
+      "click",
+      this.guard("Write to workbook", () => this.write()),
+    );
+    d.rerun.addEventListener(
+      "click",
+      this.guard("Rerun", () => this.rerun()),
+    );
     if (this.source.pickSelection) {
       const pick = this.source.pickSelection.bind(this.source);
-      d.stopsUseSelection.addEventListener("click", this.guard("Use selection (stops)", async () => {
-        this.stops = await pick("stops");
-        await this.refreshRead();
-      }));
-      d.fleetUseSelection.addEventListener("click", this.guard("Use selection (fleet)", async () => {
-        this.fleet = await pick("fleet");
-        await this.refreshRead();
-      }));
+      d.stopsUseSelection.addEventListener(
+        "click",
+        this.guard("Use selection (stops)", async () => {
+          this.stops = await pick("stops");
+          await this.refreshRead();
+        }),
+      );
+      d.fleetUseSelection.addEventListener(
+        "click",
+        this.guard("Use selection (fleet)", async () => {
+          this.fleet = await pick("fleet");
+          await this.refreshRead();
+        }),
+      );
     }
     this.updateFormVisibility();
     this.drawPreview();
@@ -111,7 +130,11 @@ export class PaneController {
     if (read.ok) await this.sample(read);
   }
 
-  private renderTables(stopColumns: ReadResult["stopColumns"], fleetColumns: ReadResult["fleetColumns"], issues: readonly (Issue & { warning?: boolean })[]): void {
+  private renderTables(
+    stopColumns: ReadResult["stopColumns"],
+    fleetColumns: ReadResult["fleetColumns"],
+    issues: readonly (Issue & { warning?: boolean })[],
+  ): void {
     const d = this.dom;
     const onCell = this.source.selectCell
       ? this.guard("Select cell", (sheet: string, cell: string) => this.source.selectCell?.(sheet, cell))
@@ -238,7 +261,8 @@ export class PaneController {
     d.progressBar.style.width = `${Math.round(p.fraction * 100)}%`;
     d.progressBar.parentElement?.setAttribute("aria-valuenow", String(Math.round(p.fraction * 100)));
     d.statElapsed.textContent = formatDuration(p.elapsedMs / 1000);
-    const remaining = seconds !== undefined ? seconds - p.elapsedMs / 1000 : p.fraction > 0 ? (p.elapsedMs / 1000) * (1 / p.fraction - 1) : NaN;
+    const remaining =
+      seconds !== undefined ? seconds - p.elapsedMs / 1000 : p.fraction > 0 ? (p.elapsedMs / 1000) * (1 / p.fraction - 1) : NaN;
     d.statRemaining.textContent = formatDuration(Math.max(0, remaining));
     d.statCurrent.textContent = formatCost(p.currentCost);
     d.statBest.textContent = Number.isFinite(p.bestCost) ? formatCost(p.bestCost) : "none feasible yet";

@@ -141,8 +141,10 @@ export class RouteMap {
       ctx.strokeStyle = "#8a8a8a";
       ctx.lineWidth = 2;
       ctx.beginPath();
-      ctx.moveTo(p.x - 4, p.y - 4); ctx.lineTo(p.x + 4, p.y + 4);
-      ctx.moveTo(p.x + 4, p.y - 4); ctx.lineTo(p.x - 4, p.y + 4);
+      ctx.moveTo(p.x - 4, p.y - 4);
+      ctx.lineTo(p.x + 4, p.y + 4);
+      ctx.moveTo(p.x + 4, p.y - 4);
+      ctx.lineTo(p.x - 4, p.y + 4);
       ctx.stroke();
       this.hoverPoints.push({ x: p.x, y: p.y, text: `${stop.name || stop.id} · not served: ${u.reason}` });
     }
@@ -153,7 +155,8 @@ export class RouteMap {
     const targetPx = 80;
     const km = niceStep(targetPx / pxPerKm);
     const px = km * pxPerKm;
-    const x = 10, y = cssH - 10;
+    const x = 10,
+      y = cssH - 10;
     const label = `${km} km (straight line)`;
     ctx.font = "11px Segoe UI, sans-serif";
     // A light box keeps the scale readable over routes and depots.
@@ -162,7 +165,10 @@ export class RouteMap {
     ctx.strokeStyle = "#424242";
     ctx.lineWidth = 1.5;
     ctx.beginPath();
-    ctx.moveTo(x, y - 4); ctx.lineTo(x, y); ctx.lineTo(x + px, y); ctx.lineTo(x + px, y - 4);
+    ctx.moveTo(x, y - 4);
+    ctx.lineTo(x, y);
+    ctx.lineTo(x + px, y);
+    ctx.lineTo(x + px, y - 4);
     ctx.stroke();
     ctx.fillStyle = "#424242";
     ctx.fillText(label, x + 4, y - 5);
@@ -173,9 +179,15 @@ export class RouteMap {
     let bestD = 8 * 8;
     for (const p of this.hoverPoints) {
       const d = (p.x - x) ** 2 + (p.y - y) ** 2;
-      if (d <= bestD) { best = p; bestD = d; }
+      if (d <= bestD) {
+        best = p;
+        bestD = d;
+      }
     }
-    if (!best) { this.tooltip.hidden = true; return; }
+    if (!best) {
+      this.tooltip.hidden = true;
+      return;
+    }
     this.tooltip.textContent = best.text;
     this.tooltip.hidden = false;
     const maxLeft = Math.max(0, this.canvas.clientWidth - this.tooltip.offsetWidth - 4);

@@ -16,7 +16,10 @@ export interface RunHandlers {
 
 /** A failure reported by the worker, with the problem defects it found. */
 export class WorkerError extends Error {
-  constructor(message: string, readonly issues: readonly Issue[]) {
+  constructor(
+    message: string,
+    readonly issues: readonly Issue[],
+  ) {
     super(message);
     this.name = "WorkerError";
   }

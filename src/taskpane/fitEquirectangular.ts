@@ -32,11 +32,16 @@ export function fitEquirectangular(points: readonly LatLon[], width: number, hei
   if (!(width > 0 && height > 0)) throw new RangeError(`width and height must be > 0, got ${width} x ${height}`);
   const meanLat = points.reduce((s, p) => s + p.lat, 0) / points.length;
   const k = Math.cos((meanLat * Math.PI) / 180);
-  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    maxX = -Infinity,
+    minY = Infinity,
+    maxY = -Infinity;
   for (const p of points) {
     const x = p.lon * k;
-    minX = Math.min(minX, x); maxX = Math.max(maxX, x);
-    minY = Math.min(minY, p.lat); maxY = Math.max(maxY, p.lat);
+    minX = Math.min(minX, x);
+    maxX = Math.max(maxX, x);
+    minY = Math.min(minY, p.lat);
+    maxY = Math.max(maxY, p.lat);
   }
   const innerW = Math.max(1, width - 2 * paddingPx);
   const innerH = Math.max(1, height - 2 * paddingPx);

@@ -32,13 +32,18 @@ export async function openWorkbookFiles(files: readonly File[]): Promise<OpenedW
       const book = await ExcelJsWorkbook.fromBuffer(new Uint8Array(await file.arrayBuffer()));
       return { book, downloadName: file.name.replace(/\.xlsx$/i, "") + ".plan.xlsx", label: file.name };
     } catch (err) {
-      return { error: `${file.name} could not be read as an .xlsx workbook (${err instanceof Error ? err.message : String(err)}). Save it from Excel as .xlsx and try again.` };
+      return {
+        error: `${file.name} could not be read as an .xlsx workbook (${err instanceof Error ? err.message : String(err)}). Save it from Excel as .xlsx and try again.`,
+      };
     }
   }
   if (csv.length > 0 && xlsx.length === 0) {
     const sheets: { name: string; values: string[][] }[] = [];
     for (const file of csv) {
-      const name = uniqueSheetName(file.name.replace(/\.csv$/i, ""), sheets.map((s) => s.name));
+      const name = uniqueSheetName(
+        file.name.replace(/\.csv$/i, ""),
+        sheets.map((s) => s.name),
+      );
       sheets.push({ name, values: parseCsv(await file.text()) });
     }
     const base = csv.length === 1 ? csv[0]!.name.replace(/\.csv$/i, "") : "kiln";

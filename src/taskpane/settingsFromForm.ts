@@ -34,8 +34,25 @@ export interface PaneForm {
 
 /** The ids of the form fields, in form order. */
 export const PANE_FORM_FIELDS: readonly (keyof PaneForm)[] = [
-  "scenario", "detour", "speed", "service", "windows", "late-cost", "seconds", "seed",
-  "rule", "schedule", "alpha", "moves-per-level", "steps", "beta", "temperatures", "p0", "p-end", "t0", "t-end",
+  "scenario",
+  "detour",
+  "speed",
+  "service",
+  "windows",
+  "late-cost",
+  "seconds",
+  "seed",
+  "rule",
+  "schedule",
+  "alpha",
+  "moves-per-level",
+  "steps",
+  "beta",
+  "temperatures",
+  "p0",
+  "p-end",
+  "t0",
+  "t-end",
 ];
 
 /** What `settingsFromForm` returns. */
@@ -84,7 +101,11 @@ export function settingsFromForm(form: PaneForm): FormReading {
   const p0 = manual ? d.p0 : num("p0", "Initial acceptance", 0.01, 0.99, d.p0);
   const pEnd = manual ? d.pEnd : num("p-end", "Final acceptance", 1e-9, 0.5, d.pEnd);
   if (!manual && pEnd >= p0) {
-    issues.push({ sheet: "Settings", cell: "Final acceptance", message: `Final acceptance ${pEnd} must be below the initial acceptance ${p0}.` });
+    issues.push({
+      sheet: "Settings",
+      cell: "Final acceptance",
+      message: `Final acceptance ${pEnd} must be below the initial acceptance ${p0}.`,
+    });
   }
   const t0 = manual ? num("t0", "T0", 1e-9, 1e12, 100) : undefined;
   const tEnd = manual ? num("t-end", "T end", 1e-12, 1e12, 1) : undefined;
@@ -117,7 +138,17 @@ export function settingsFromForm(form: PaneForm): FormReading {
   }
   const settings: PlanSettings = {
     ...d,
-    detourFactor, speedKmh, serviceMin, hardWindows, lateCostPerMin, seconds, seed, rule, cooling, p0, pEnd,
+    detourFactor,
+    speedKmh,
+    serviceMin,
+    hardWindows,
+    lateCostPerMin,
+    seconds,
+    seed,
+    rule,
+    cooling,
+    p0,
+    pEnd,
   };
   return { scenario, settings, issues };
 }
@@ -146,7 +177,9 @@ export function formFromSettings(settings: PlanSettings, scenario: string, curre
     seed: String(settings.seed),
     rule: settings.rule,
     schedule: c.kind,
-    ...(c.kind === "geometric" ? { alpha: String(c.alpha), "moves-per-level": c.movesPerLevel === undefined ? "" : String(c.movesPerLevel) } : {}),
+    ...(c.kind === "geometric"
+      ? { alpha: String(c.alpha), "moves-per-level": c.movesPerLevel === undefined ? "" : String(c.movesPerLevel) }
+      : {}),
     ...(c.kind === "linear" ? { steps: String(c.steps) } : {}),
     ...(c.kind === "lundyMees" ? { beta: String(c.beta) } : {}),
     temperatures: manual ? "manual" : "calibrate",

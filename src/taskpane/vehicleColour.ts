@@ -1,8 +1,5 @@
 /** Kiln's route palette: ten hues that stay apart on a light map and in a legend. */
-const PALETTE = [
-  "#c2410c", "#1d4ed8", "#15803d", "#7e22ce", "#be185d",
-  "#0e7490", "#854d0e", "#4d7c0f", "#4338ca", "#475569",
-] as const;
+const PALETTE = ["#c2410c", "#1d4ed8", "#15803d", "#7e22ce", "#be185d", "#0e7490", "#854d0e", "#4d7c0f", "#4338ca", "#475569"] as const;
 
 /**
  * The colour of the route of vehicle number `index`; hues repeat after ten, darker on each lap.

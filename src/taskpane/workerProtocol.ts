@@ -47,7 +47,13 @@ export type ToWorker =
 export type FromWorker =
   | { readonly type: "progress"; readonly runId: number; readonly progress: Progress }
   | { readonly type: "result"; readonly runId: number; readonly result: SolveResult; readonly stopped: boolean }
-  | { readonly type: "sampled"; readonly requestId: number; readonly meanUphill: number; readonly samples: number; readonly uphill: readonly number[] }
+  | {
+      readonly type: "sampled";
+      readonly requestId: number;
+      readonly meanUphill: number;
+      readonly samples: number;
+      readonly uphill: readonly number[];
+    }
   | {
       readonly type: "previewed";
       readonly requestId: number;
@@ -219,7 +225,7 @@ function safeValidate(problem: unknown): Issue[] {
 }
 
 function typeOf(message: unknown): unknown {
-  return message !== null && typeof message === "object" ? (message as { type?: unknown }).type ?? null : null;
+  return message !== null && typeof message === "object" ? ((message as { type?: unknown }).type ?? null) : null;
 }
 
 function idsOf(message: unknown): { runId?: number; requestId?: number } {

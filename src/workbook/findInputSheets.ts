@@ -32,7 +32,11 @@ export async function findInputSheets(port: WorkbookPort): Promise<InputSheets> 
     if (stops && fleet) break;
     if (name === settings) continue;
     const read = await port.readSheet(name);
-    const header = (read?.values[0] ?? []).map((v) => String(v).toLowerCase().replace(/[\s_]+/g, ""));
+    const header = (read?.values[0] ?? []).map((v) =>
+      String(v)
+        .toLowerCase()
+        .replace(/[\s_]+/g, ""),
+    );
     const has = (words: readonly string[]): boolean => header.some((h) => words.includes(h));
     const isFleet = has(FLEET_WORDS);
     if (!fleet && isFleet && name !== stops) fleet = name;

@@ -65,10 +65,7 @@ export async function readScenarioInput(port: WorkbookPort, request: ScenarioReq
   const settings = await need(request.settingsSheet, "settings");
   const matrix = await need(request.matrixSheet, "distance matrix");
   if (!stops || !fleet || issues.length > 0) return { ok: false, issues, stopColumns: [], fleetColumns: [] };
-  return readProblem(
-    { stops, fleet, ...(settings ? { settings } : {}), ...(matrix ? { matrix } : {}) },
-    request.overrides,
-  );
+  return readProblem({ stops, fleet, ...(settings ? { settings } : {}), ...(matrix ? { matrix } : {}) }, request.overrides);
 }
 
 /**
@@ -83,7 +80,8 @@ export async function readScenarioInput(port: WorkbookPort, request: ScenarioReq
  * @example const { sheetName } = await writeScenarioResult(book, { read, result, scenario: "Monday", ... }); // "Monday"
  */
 export async function writeScenarioResult(port: WorkbookPort, input: ScenarioOutput): Promise<{ sheetName: string }> {
-  if (!port || !input?.read?.ok || !input.result) throw new TypeError("writeScenarioResult: port, input.read (ok) and input.result are required");
+  if (!port || !input?.read?.ok || !input.result)
+    throw new TypeError("writeScenarioResult: port, input.read (ok) and input.result are required");
   const sheetName = uniqueSheetName(input.scenario, await port.listSheets());
   const run: RunRecord = {
     scenario: sheetName,

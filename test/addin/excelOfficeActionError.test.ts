@@ -8,9 +8,12 @@ import { OfficeActionError, isItemNotFound } from "../../src/workbook/excel/Offi
 
 describe("OfficeActionError", () => {
   it("says what failed, Office's message and code, and keeps debugInfo and the cause for logs", () => {
-    const cause = Object.assign(new Error("The requested resource doesn't exist."), { code: "ItemNotFound", debugInfo: { errorLocation: "WorksheetCollection.getItem" } });
+    const cause = Object.assign(new Error("The requested resource doesn't exist."), {
+      code: "ItemNotFound",
+      debugInfo: { errorLocation: "WorksheetCollection.getItem" },
+    });
     const e = new OfficeActionError('read the sheet "Stops"', cause);
-    expect(e.message).toBe("Could not read the sheet \"Stops\": The requested resource doesn't exist. (ItemNotFound)");
+    expect(e.message).toBe('Could not read the sheet "Stops": The requested resource doesn\'t exist. (ItemNotFound)');
     expect(e.code).toBe("ItemNotFound");
     expect(e.debugInfo).toEqual({ errorLocation: "WorksheetCollection.getItem" });
     expect(e.cause).toBe(cause);

@@ -6,9 +6,9 @@ import type { CellValue } from "../../src/sheets/grid.js";
 
 describe("planGridWrite: what the Office.js adapter assigns", () => {
   it("keeps every text cell as text: '@' always, and Excel's apostrophe before = + - @ (OWASP CSV Injection, common practice)", () => {
-    const plan = planGridWrite({ values: [["=HYPERLINK(\"x\")", "+44 20", "-3", "@SUM(A1)", "\tTab", "Mill", "", 7, true, null]] });
+    const plan = planGridWrite({ values: [['=HYPERLINK("x")', "+44 20", "-3", "@SUM(A1)", "\tTab", "Mill", "", 7, true, null]] });
     const chunk = plan.chunks[0]!;
-    expect(chunk.values[0]).toEqual(["'=HYPERLINK(\"x\")", "'+44 20", "'-3", "'@SUM(A1)", "'\tTab", "Mill", "", 7, true, ""]);
+    expect(chunk.values[0]).toEqual(['\'=HYPERLINK("x")', "'+44 20", "'-3", "'@SUM(A1)", "'\tTab", "Mill", "", 7, true, ""]);
     expect(chunk.numberFormats[0]).toEqual(["@", "@", "@", "@", "@", "@", "General", "General", "General", "General"]);
   });
 
@@ -23,7 +23,18 @@ describe("planGridWrite: what the Office.js adapter assigns", () => {
   });
 
   it("writes one block of exactly the grid's size below the threshold, at the start row", () => {
-    const plan = planGridWrite({ values: [["a", 1], ["b", 2]], boldRows: [0], freezeRows: 1, columnWidths: [10] }, { startRow: 4 });
+    const plan = planGridWrite(
+      {
+        values: [
+          ["a", 1],
+          ["b", 2],
+        ],
+        boldRows: [0],
+        freezeRows: 1,
+        columnWidths: [10],
+      },
+      { startRow: 4 },
+    );
     expect(plan.chunks.map((c) => c.address)).toEqual(["A5:B6"]);
     expect(plan.boldRanges).toEqual(["A5:B5"]);
     expect(plan.freezeRows).toBe(1);
@@ -31,19 +42,26 @@ describe("planGridWrite: what the Office.js adapter assigns", () => {
   });
 
   it("splits into row chunks that cover every row once, in order, each within the cell budget (property)", () => {
-    fc.assert(fc.property(fc.integer({ min: 1, max: 60 }), fc.integer({ min: 1, max: 12 }), fc.integer({ min: 1, max: 200 }), (rows, cols, budget) => {
-      const values: CellValue[][] = Array.from({ length: rows }, (_, r) => Array.from({ length: cols }, (_, c) => r * 100 + c));
-      const plan = planGridWrite({ values }, { chunkCells: budget });
-      expect(plan.chunks.flatMap((c) => c.values)).toEqual(values);
-      let next = 0;
-      for (const chunk of plan.chunks) {
-        expect(chunk.row).toBe(next);
-        next += chunk.values.length;
-        expect(chunk.numberFormats.length).toBe(chunk.values.length);
-        if (plan.chunks.length > 1) expect(chunk.values.length * cols).toBeLessThanOrEqual(Math.max(budget, cols));
-      }
-      if (rows * cols <= budget) expect(plan.chunks).toHaveLength(1);
-    }));
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 60 }),
+        fc.integer({ min: 1, max: 12 }),
+        fc.integer({ min: 1, max: 200 }),
+        (rows, cols, budget) => {
+          const values: CellValue[][] = Array.from({ length: rows }, (_, r) => Array.from({ length: cols }, (_, c) => r * 100 + c));
+          const plan = planGridWrite({ values }, { chunkCells: budget });
+          expect(plan.chunks.flatMap((c) => c.values)).toEqual(values);
+          let next = 0;
+          for (const chunk of plan.chunks) {
+            expect(chunk.row).toBe(next);
+            next += chunk.values.length;
+            expect(chunk.numberFormats.length).toBe(chunk.values.length);
+            if (plan.chunks.length > 1) expect(chunk.values.length * cols).toBeLessThanOrEqual(Math.max(budget, cols));
+          }
+          if (rows * cols <= budget) expect(plan.chunks).toHaveLength(1);
+        },
+      ),
+    );
   });
 
   it("rejects ragged rows, mismatched formats and non-finite numbers, naming the argument", () => {

@@ -33,13 +33,18 @@ describe("A1 addresses of the Office.js adapter", () => {
   });
 
   it("round-trips every block through blockA1 and parseRangeAddress (property)", () => {
-    fc.assert(fc.property(
-      fc.integer({ min: 0, max: 100_000 }), fc.integer({ min: 0, max: 16_000 }), fc.integer({ min: 1, max: 300 }), fc.integer({ min: 1, max: 300 }),
-      (row, col, rows, cols) => {
-        const address = blockA1({ row, col, rows, cols });
-        expect(parseRangeAddress(`Plan!${address}`)).toEqual({ sheet: "Plan", range: address });
-      },
-    ));
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 0, max: 100_000 }),
+        fc.integer({ min: 0, max: 16_000 }),
+        fc.integer({ min: 1, max: 300 }),
+        fc.integer({ min: 1, max: 300 }),
+        (row, col, rows, cols) => {
+          const address = blockA1({ row, col, rows, cols });
+          expect(parseRangeAddress(`Plan!${address}`)).toEqual({ sheet: "Plan", range: address });
+        },
+      ),
+    );
   });
 
   it("blockContains is true only for blocks wholly inside", () => {

@@ -42,24 +42,45 @@ function recordingRange(log: Entry[], sheet: string, address: string): unknown {
   const sized = (what: string, v: unknown[][]) => {
     if (/^[A-Z]+:[A-Z]+$/.test(address)) return;
     const { rows, cols } = a1Size(address);
-    if (v.length !== rows || v.some((r) => r.length !== cols)) throw new Error(`InvalidArgument: ${what} of ${address} is not ${rows}x${cols}`);
+    if (v.length !== rows || v.some((r) => r.length !== cols))
+      throw new Error(`InvalidArgument: ${what} of ${address} is not ${rows}x${cols}`);
   };
   return {
-    set numberFormat(v: unknown[][]) { sized("numberFormat", v); log.push(["numberFormat", sheet, address, v]); },
-    set values(v: unknown[][]) { sized("values", v); log.push(["values", sheet, address, v]); },
-    format: {
-      set columnWidth(v: number) { log.push(["columnWidth", sheet, address, v]); },
-      font: { set bold(v: boolean) { log.push(["bold", sheet, address, v]); } },
+    set numberFormat(v: unknown[][]) {
+      sized("numberFormat", v);
+      log.push(["numberFormat", sheet, address, v]);
     },
-    select() { log.push(["select", sheet, address]); },
+    set values(v: unknown[][]) {
+      sized("values", v);
+      log.push(["values", sheet, address, v]);
+    },
+    format: {
+      set columnWidth(v: number) {
+        log.push(["columnWidth", sheet, address, v]);
+      },
+      font: {
+        set bold(v: boolean) {
+          log.push(["bold", sheet, address, v]);
+        },
+      },
+    },
+    select() {
+      log.push(["select", sheet, address]);
+    },
   };
 }
 
 function recordingSeries(log: Entry[], name: string | undefined): unknown {
   return {
-    set name(v: string) { log.push(["series.name", v]); },
-    setXAxisValues(r: unknown) { log.push(["series.x", name, r]); },
-    setValues(r: unknown) { log.push(["series.y", name, r]); },
+    set name(v: string) {
+      log.push(["series.name", v]);
+    },
+    setXAxisValues(r: unknown) {
+      log.push(["series.x", name, r]);
+    },
+    setValues(r: unknown) {
+      log.push(["series.y", name, r]);
+    },
   };
 }
 
@@ -72,13 +93,27 @@ function recordingSheet(log: Entry[], name: string): unknown {
       add: (type: string, source: unknown, by: string) => {
         log.push(["charts.add", type, source, by]);
         return {
-          title: { set text(v: string) { log.push(["chart.title", v]); } },
+          title: {
+            set text(v: string) {
+              log.push(["chart.title", v]);
+            },
+          },
           setPosition: (cell: string) => log.push(["chart.position", cell]),
-          set width(v: number) { log.push(["chart.width", v]); },
-          set height(v: number) { log.push(["chart.height", v]); },
+          set width(v: number) {
+            log.push(["chart.width", v]);
+          },
+          set height(v: number) {
+            log.push(["chart.height", v]);
+          },
           series: {
-            getItemAt: (i: number) => { log.push(["series.getItemAt", i]); return recordingSeries(log, "#0"); },
-            add: (n: string) => { log.push(["series.add", n]); return recordingSeries(log, n); },
+            getItemAt: (i: number) => {
+              log.push(["series.getItemAt", i]);
+              return recordingSeries(log, "#0");
+            },
+            add: (n: string) => {
+              log.push(["series.add", n]);
+              return recordingSeries(log, n);
+            },
           },
         };
       },
@@ -104,18 +139,34 @@ function install(setup: Setup): ExcelWorkbook {
   const failures = new Map<number, unknown>();
   const used: Record<string, unknown> = {};
   for (const [name, s] of Object.entries(setup.sheets ?? {})) {
-    used[name] = s === "empty"
-      ? { isNullObject: true, values: [], rowIndex: 0, columnIndex: 0, rowCount: 0 }
-      : { isNullObject: false, values: s.values, rowIndex: s.rowIndex ?? 0, columnIndex: s.columnIndex ?? 0, rowCount: s.values.length };
+    used[name] =
+      s === "empty"
+        ? { isNullObject: true, values: [], rowIndex: 0, columnIndex: 0, rowCount: 0 }
+        : { isNullObject: false, values: s.values, rowIndex: s.rowIndex ?? 0, columnIndex: s.columnIndex ?? 0, rowCount: s.values.length };
   }
-  const sel = setup.selection ?? { sheet: "Stops", address: "Stops!A1:B2", values: [["Stop", "Name"], ["S1", "Bakery"]], rowIndex: 0, columnIndex: 0 };
+  const sel = setup.selection ?? {
+    sheet: "Stops",
+    address: "Stops!A1:B2",
+    values: [
+      ["Stop", "Name"],
+      ["S1", "Bakery"],
+    ],
+    rowIndex: 0,
+    columnIndex: 0,
+  };
   const seed = {
     context: {
       workbook: {
         worksheets: {
           used,
           nullSheet: { isNullObject: true },
-          liveSheet: { isNullObject: false, delete: function () { log.push(["delete", this.lastName]); }, lastName: "" },
+          liveSheet: {
+            isNullObject: false,
+            delete: function () {
+              log.push(["delete", this.lastName]);
+            },
+            lastName: "",
+          },
           active: { name: "Fleet" },
           ranges: setup.ranges ?? {},
           missingRange: { isNullObject: false, values: [], valuesAsJson: [], rowIndex: 0, columnIndex: 0, rowCount: 0 },
@@ -132,7 +183,12 @@ function install(setup: Setup): ExcelWorkbook {
           },
           getItem: function (this: Record<string, Record<string, unknown>>, name: string) {
             log.push(["getItem", name]);
-            if (!present.has(name)) failures.set(syncCount + 1, { code: "ItemNotFound", message: "The requested resource doesn't exist.", debugInfo: { errorLocation: "WorksheetCollection.getItem" } });
+            if (!present.has(name))
+              failures.set(syncCount + 1, {
+                code: "ItemNotFound",
+                message: "The requested resource doesn't exist.",
+                debugInfo: { errorLocation: "WorksheetCollection.getItem" },
+              });
             // eslint-disable-next-line @typescript-eslint/no-this-alias -- the mock's seed object is the book the arrow functions below read
             const book = this;
             return {
@@ -147,31 +203,72 @@ function install(setup: Setup): ExcelWorkbook {
               },
             };
           },
-          add: function (name: string) { log.push(["add", name]); present.add(name); return recordingSheet(log, name); },
-          getActiveWorksheet: function (this: Record<string, unknown>) { return this.active; },
+          add: function (name: string) {
+            log.push(["add", name]);
+            present.add(name);
+            return recordingSheet(log, name);
+          },
+          getActiveWorksheet: function (this: Record<string, unknown>) {
+            return this.active;
+          },
         },
         settings: {
           items: setup.settings ?? [],
-          add: function (key: string, value: unknown) { log.push(["settings.add", key, value]); },
+          add: function (key: string, value: unknown) {
+            log.push(["settings.add", key, value]);
+          },
         },
-        tableRange: { address: setup.table?.address ?? "", values: setup.table?.values ?? [], rowIndex: setup.table?.rowIndex ?? 0, columnIndex: setup.table?.columnIndex ?? 0 },
+        tableRange: {
+          address: setup.table?.address ?? "",
+          values: setup.table?.values ?? [],
+          rowIndex: setup.table?.rowIndex ?? 0,
+          columnIndex: setup.table?.columnIndex ?? 0,
+        },
         tables: {
           // Collection items are plain data in the mock; their getRange hands back the pre-seeded range.
           items: setup.table ? [{ name: setup.table.name, getRange: () => seedRoot.context.workbook.tableRange }] : [],
-          load: function (this: OfficeMockObject, arg: unknown) { log.push(["tables.load", arg]); return OfficeMockObject.prototype.load.call(this, "items"); },
+          load: function (this: OfficeMockObject, arg: unknown) {
+            log.push(["tables.load", arg]);
+            return OfficeMockObject.prototype.load.call(this, "items");
+          },
         },
         selection: {
-          address: sel.selected ?? sel.address, rowIndex: sel.rowIndex, columnIndex: sel.columnIndex,
-          worksheet: { name: sel.sheet, getUsedRange: (valuesOnly: boolean) => { log.push(["getUsedRange", valuesOnly]); return "used range"; } },
+          address: sel.selected ?? sel.address,
+          rowIndex: sel.rowIndex,
+          columnIndex: sel.columnIndex,
+          worksheet: {
+            name: sel.sheet,
+            getUsedRange: (valuesOnly: boolean) => {
+              log.push(["getUsedRange", valuesOnly]);
+              return "used range";
+            },
+          },
           // Excel's intersection of the selection with the used range: what the test says is filled.
-          filled: { isNullObject: sel.values.length === 0, address: sel.address, values: sel.values, rowIndex: sel.rowIndex, columnIndex: sel.columnIndex },
-          getIntersectionOrNullObject: function (this: Record<string, unknown>, other: unknown) { log.push(["getIntersectionOrNullObject", other]); return this.filled; },
-          getTables: function (fullyContained: boolean) { log.push(["getTables", fullyContained]); return seedRoot.context.workbook.tables; },
+          filled: {
+            isNullObject: sel.values.length === 0,
+            address: sel.address,
+            values: sel.values,
+            rowIndex: sel.rowIndex,
+            columnIndex: sel.columnIndex,
+          },
+          getIntersectionOrNullObject: function (this: Record<string, unknown>, other: unknown) {
+            log.push(["getIntersectionOrNullObject", other]);
+            return this.filled;
+          },
+          getTables: function (fullyContained: boolean) {
+            log.push(["getTables", fullyContained]);
+            return seedRoot.context.workbook.tables;
+          },
         },
-        getSelectedRange: function (this: Record<string, unknown>) { log.push(["getSelectedRange"]); return this.selection; },
+        getSelectedRange: function (this: Record<string, unknown>) {
+          log.push(["getSelectedRange"]);
+          return this.selection;
+        },
       },
     },
-    run: async function (this: { context: unknown }, cb: (c: unknown) => unknown) { return cb(this.context); },
+    run: async function (this: { context: unknown }, cb: (c: unknown) => unknown) {
+      return cb(this.context);
+    },
   };
   const mock = new OfficeMockObject(seed) as unknown as typeof seed & { context: { sync: () => Promise<void> } };
   const seedRoot = mock;
@@ -180,13 +277,20 @@ function install(setup: Setup): ExcelWorkbook {
     syncCount++;
     log.push(["sync"]);
     const failure = failures.get(syncCount);
-    if (failure !== undefined) { failures.delete(syncCount); throw failure; }
+    if (failure !== undefined) {
+      failures.delete(syncCount);
+      throw failure;
+    }
     await original();
   };
   Object.assign(mock, { ChartType: { xyscatterLines: "XYScatterLines" }, ChartSeriesBy: { columns: "Columns" } });
   const max = setup.excelApi ?? "1.16";
   const num = (v: string) => v.split(".").map(Number) as [number, number];
-  const atLeast = (v: string) => { const [a, b] = num(max); const [c, d] = num(v); return a > c || (a === c && b >= d); };
+  const atLeast = (v: string) => {
+    const [a, b] = num(max);
+    const [c, d] = num(v);
+    return a > c || (a === c && b >= d);
+  };
   Object.assign(globalThis, {
     Excel: mock,
     Office: { context: { requirements: { isSetSupported: (name: string, v: string) => name === "ExcelApi" && atLeast(v) } } },
@@ -203,20 +307,60 @@ function neverNotLoaded(value: unknown): void {
 
 const entries = (kind: string) => fake.log.filter((e) => e[0] === kind);
 
-afterEach(() => { Reflect.deleteProperty(globalThis, "Excel"); Reflect.deleteProperty(globalThis, "Office"); });
+afterEach(() => {
+  Reflect.deleteProperty(globalThis, "Excel");
+  Reflect.deleteProperty(globalThis, "Office");
+});
 
 describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFICE-NOTES.md)", () => {
   it("readSelection returns the selected values, address and position after one sync", async () => {
-    const book = install({ excelApi: "1.7", selection: { sheet: "Stops", address: "Stops!B3:C4", values: [["S1", 52.1], ["S2", 52.2]], rowIndex: 2, columnIndex: 1 } });
+    const book = install({
+      excelApi: "1.7",
+      selection: {
+        sheet: "Stops",
+        address: "Stops!B3:C4",
+        values: [
+          ["S1", 52.1],
+          ["S2", 52.2],
+        ],
+        rowIndex: 2,
+        columnIndex: 1,
+      },
+    });
     const got = await book.readSelection();
-    expect(got).toEqual({ read: { sheet: "Stops", row: 2, col: 1, values: [["S1", 52.1], ["S2", 52.2]] }, address: "Stops!B3:C4" });
+    expect(got).toEqual({
+      read: {
+        sheet: "Stops",
+        row: 2,
+        col: 1,
+        values: [
+          ["S1", 52.1],
+          ["S2", 52.2],
+        ],
+      },
+      address: "Stops!B3:C4",
+    });
     expect(fake.syncs()).toBe(1);
     expect(entries("getTables")).toEqual([]); // ExcelApi 1.9 missing: plain selection, no table lookup
     neverNotLoaded(got);
   });
 
   it("readSelection of whole columns reads only the filled rows (clipped to the used range)", async () => {
-    const book = install({ excelApi: "1.7", selection: { sheet: "Fleet", selected: "Fleet!A:B", address: "Fleet!A1:B3", values: [["Vehicle", "Count"], ["Van", 2], ["Truck", 1]], rowIndex: 0, columnIndex: 0 } });
+    const book = install({
+      excelApi: "1.7",
+      selection: {
+        sheet: "Fleet",
+        selected: "Fleet!A:B",
+        address: "Fleet!A1:B3",
+        values: [
+          ["Vehicle", "Count"],
+          ["Van", 2],
+          ["Truck", 1],
+        ],
+        rowIndex: 0,
+        columnIndex: 0,
+      },
+    });
     const got = await book.readSelection();
     expect(got.address).toBe("Fleet!A1:B3");
     expect(got.read.values).toHaveLength(3);
@@ -226,14 +370,28 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
   });
 
   it("readSelection of empty cells returns no values and the selected address", async () => {
-    const book = install({ excelApi: "1.7", selection: { sheet: "Stops", selected: "Stops!Z90", address: "", values: [], rowIndex: 89, columnIndex: 25 } });
+    const book = install({
+      excelApi: "1.7",
+      selection: { sheet: "Stops", selected: "Stops!Z90", address: "", values: [], rowIndex: 89, columnIndex: 25 },
+    });
     expect(await book.readSelection()).toEqual({ read: { sheet: "Stops", row: 89, col: 25, values: [] }, address: "Stops!Z90" });
   });
 
   it("readSelection widens a selection inside an Excel table to the whole table (ExcelApi 1.9)", async () => {
     const book = install({
       selection: { sheet: "Stops", address: "Stops!B3", values: [["Bakery"]], rowIndex: 2, columnIndex: 1 },
-      table: { name: "StopsTable", address: "Stops!A1:C4", values: [["Stop", "Name", "Lat"], ["S1", "Mill", 1], ["S2", "Bakery", 2], ["S3", "Dock", 3]], rowIndex: 0, columnIndex: 0 },
+      table: {
+        name: "StopsTable",
+        address: "Stops!A1:C4",
+        values: [
+          ["Stop", "Name", "Lat"],
+          ["S1", "Mill", 1],
+          ["S2", "Bakery", 2],
+          ["S3", "Dock", 3],
+        ],
+        rowIndex: 0,
+        columnIndex: 0,
+      },
     });
     const got = await book.readSelection();
     expect(got.tableName).toBe("StopsTable");
@@ -245,9 +403,28 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
   });
 
   it("readSheet reads the used range (values only) and reports where it starts", async () => {
-    const book = install({ sheets: { Fleet: { values: [["Vehicle", "Count"], ["Van", 2]], rowIndex: 3, columnIndex: 1 } } });
+    const book = install({
+      sheets: {
+        Fleet: {
+          values: [
+            ["Vehicle", "Count"],
+            ["Van", 2],
+          ],
+          rowIndex: 3,
+          columnIndex: 1,
+        },
+      },
+    });
     const got = await book.readSheet("Fleet");
-    expect(got).toEqual({ sheet: "Fleet", row: 3, col: 1, values: [["Vehicle", "Count"], ["Van", 2]] });
+    expect(got).toEqual({
+      sheet: "Fleet",
+      row: 3,
+      col: 1,
+      values: [
+        ["Vehicle", "Count"],
+        ["Van", 2],
+      ],
+    });
     expect(entries("getUsedRangeOrNullObject")).toEqual([["getUsedRangeOrNullObject", "Fleet", true]]);
     expect(fake.syncs()).toBe(1);
     neverNotLoaded(got);
@@ -267,9 +444,29 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
   });
 
   it("readRange reads a sheet-qualified address and rejects a malformed one", async () => {
-    const book = install({ sheets: { "Bob's van": "empty" }, ranges: { "Bob's van!B2:C3": { values: [[1, 2], [3, 4]], rowIndex: 1, columnIndex: 1 } } });
+    const book = install({
+      sheets: { "Bob's van": "empty" },
+      ranges: {
+        "Bob's van!B2:C3": {
+          values: [
+            [1, 2],
+            [3, 4],
+          ],
+          rowIndex: 1,
+          columnIndex: 1,
+        },
+      },
+    });
     const got = await book.readRange("'Bob''s van'!B2:C3");
-    expect(got).toEqual({ sheet: "Bob's van", row: 1, col: 1, values: [[1, 2], [3, 4]] });
+    expect(got).toEqual({
+      sheet: "Bob's van",
+      row: 1,
+      col: 1,
+      values: [
+        [1, 2],
+        [3, 4],
+      ],
+    });
     expect(fake.syncs()).toBe(1);
     neverNotLoaded(got);
     await expect(book.readRange("A1:B2")).rejects.toThrow(RangeError);
@@ -279,8 +476,22 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
 
 describe("writing a scenario sheet (office-addin-mock recorders; batching per STYLE.md §8)", () => {
   const grid: SheetGrid = {
-    values: [["Scenario", "=SUM(A1)", null], ["Vehicle", "Longitude", "Latitude"], ["Van 1", 10.7, 59.9], ["Van 1", 10.8, 59.95], ["Van 2", 10.6, 59.8], ["Van 2", 10.65, 59.85]],
-    numberFormats: [[null, null, null], [null, null, null], [null, "0.0000", "0.0000"], [null, "0.0000", "0.0000"], [null, "0.0000", "0.0000"], [null, "0.0000", "0.0000"]],
+    values: [
+      ["Scenario", "=SUM(A1)", null],
+      ["Vehicle", "Longitude", "Latitude"],
+      ["Van 1", 10.7, 59.9],
+      ["Van 1", 10.8, 59.95],
+      ["Van 2", 10.6, 59.8],
+      ["Van 2", 10.65, 59.85],
+    ],
+    numberFormats: [
+      [null, null, null],
+      [null, null, null],
+      [null, "0.0000", "0.0000"],
+      [null, "0.0000", "0.0000"],
+      [null, "0.0000", "0.0000"],
+      [null, "0.0000", "0.0000"],
+    ],
     columnWidths: [12, 10, 10],
     freezeRows: 2,
     boldRows: [0, 1],
@@ -309,7 +520,11 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
     expect(formats[0]).toEqual(["@", "@", "General"]);
     expect(formats[2]).toEqual(["@", "0.0000", "0.0000"]);
     // 12 characters -> 12 * 7 + 5 = 89 px -> 66.75 pt (ECMA-376 column width, 96 dpi)
-    expect(entries("columnWidth")).toEqual([["columnWidth", "Run 1", "A:A", 66.75], ["columnWidth", "Run 1", "B:B", 56.25], ["columnWidth", "Run 1", "C:C", 56.25]]);
+    expect(entries("columnWidth")).toEqual([
+      ["columnWidth", "Run 1", "A:A", 66.75],
+      ["columnWidth", "Run 1", "B:B", 56.25],
+      ["columnWidth", "Run 1", "C:C", 56.25],
+    ]);
     expect(entries("bold").map((e) => e[2])).toEqual(["A1:C1", "A2:C2"]);
     expect(entries("freezeRows")).toEqual([["freezeRows", "Run 1", 2]]);
   });
@@ -362,7 +577,9 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
     fake.failSync(2, { code: "InvalidArgument", message: "The argument is invalid.", debugInfo: { errorLocation: "Range.values" } });
     const error = await book.addSheet("Run 2", grid, chart).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(OfficeActionError);
-    expect((error as OfficeActionError).message).toMatch(/Could not write the sheet "Run 2" \(the half-written sheet was removed\): The argument is invalid\. \(InvalidArgument\)/);
+    expect((error as OfficeActionError).message).toMatch(
+      /Could not write the sheet "Run 2" \(the half-written sheet was removed\): The argument is invalid\. \(InvalidArgument\)/,
+    );
     expect((error as OfficeActionError).debugInfo).toEqual({ errorLocation: "Range.values" });
     expect(entries("delete")).toEqual([["delete", "Run 2"]]);
     const kinds = fake.log.map((e) => e[0]);
@@ -384,7 +601,18 @@ describe("the Compare sheet (office-addin-mock)", () => {
   const row: SheetGrid = { values: [["Run 3", 41.5]] };
 
   it("appends below the last used row, without rewriting the header, in one read and one write", async () => {
-    const book = install({ sheets: { Compare: { values: [["Scenario", "Km"], ["Run 1", 40], ["Run 2", 38]], rowIndex: 0 } } });
+    const book = install({
+      sheets: {
+        Compare: {
+          values: [
+            ["Scenario", "Km"],
+            ["Run 1", 40],
+            ["Run 2", 38],
+          ],
+          rowIndex: 0,
+        },
+      },
+    });
     await book.appendRows("Compare", header, row);
     expect(entries("values")).toEqual([["values", "Compare", "A4:B4", [["Run 3", 41.5]]]]);
     expect(entries("add")).toEqual([]);
@@ -395,14 +623,22 @@ describe("the Compare sheet (office-addin-mock)", () => {
     const book = install({});
     await book.appendRows("Compare", header, row);
     expect(entries("add")).toEqual([["add", "Compare"]]);
-    expect(entries("values").map((e) => [e[2], e[3]])).toEqual([["A1:B1", [["Scenario", "Km"]]], ["A2:B2", [["Run 3", 41.5]]]]);
+    expect(entries("values").map((e) => [e[2], e[3]])).toEqual([
+      ["A1:B1", [["Scenario", "Km"]]],
+      ["A2:B2", [["Run 3", 41.5]]],
+    ]);
     expect(entries("freezeRows")).toEqual([["freezeRows", "Compare", 1]]);
   });
 });
 
 describe("settings, selection of issue cells, Geography cells (office-addin-mock)", () => {
   it("writeSetting stores through workbook.settings.add in one sync; readSettings returns text", async () => {
-    const book = install({ settings: [{ key: "kiln.scenario.Run 1", value: '{"seed":1}' }, { key: "n", value: 3 }] });
+    const book = install({
+      settings: [
+        { key: "kiln.scenario.Run 1", value: '{"seed":1}' },
+        { key: "n", value: 3 },
+      ],
+    });
     await book.writeSetting("kiln.scenario.Run 2", '{"seed":2}');
     expect(entries("settings.add")).toEqual([["settings.add", "kiln.scenario.Run 2", '{"seed":2}']]);
     expect(fake.syncs()).toBe(1);
@@ -414,7 +650,10 @@ describe("settings, selection of issue cells, Geography cells (office-addin-mock
   it("selectCell activates the sheet and selects the cell; rejects a non-address", async () => {
     const book = install({ sheets: { Stops: "empty" } });
     await book.selectCell("Stops", "E7");
-    expect(fake.log.filter((e) => e[0] === "activate" || e[0] === "select")).toEqual([["activate", "Stops"], ["select", "Stops", "E7"]]);
+    expect(fake.log.filter((e) => e[0] === "activate" || e[0] === "select")).toEqual([
+      ["activate", "Stops"],
+      ["select", "Stops", "E7"],
+    ]);
     await expect(book.selectCell("Stops", "=E7")).rejects.toThrow(RangeError);
   });
 
@@ -430,13 +669,29 @@ describe("settings, selection of issue cells, Geography cells (office-addin-mock
       sheets: { Stops: "empty" },
       ranges: {
         "Stops!C2:C3": {
-          valuesAsJson: [[{ type: "LinkedEntity", text: "Oslo", properties: { Latitude: { type: "Double", basicValue: 59.91 }, Longitude: { type: "Double", basicValue: 10.75 } } }], [{ type: "String", basicValue: "Depot" }]],
-          rowIndex: 1, columnIndex: 2,
+          valuesAsJson: [
+            [
+              {
+                type: "LinkedEntity",
+                text: "Oslo",
+                properties: { Latitude: { type: "Double", basicValue: 59.91 }, Longitude: { type: "Double", basicValue: 10.75 } },
+              },
+            ],
+            [{ type: "String", basicValue: "Depot" }],
+          ],
+          rowIndex: 1,
+          columnIndex: 2,
         },
       },
     });
     const got = await book.readGeography("Stops!C2:C3");
-    expect(got).toEqual({ available: true, sheet: "Stops", row: 1, col: 2, cells: [[{ kind: "place", label: "Oslo", at: { lat: 59.91, lon: 10.75 } }], [{ kind: "notEntity" }]] });
+    expect(got).toEqual({
+      available: true,
+      sheet: "Stops",
+      row: 1,
+      col: 2,
+      cells: [[{ kind: "place", label: "Oslo", at: { lat: 59.91, lon: 10.75 } }], [{ kind: "notEntity" }]],
+    });
     expect(fake.syncs()).toBe(1);
   });
 });
@@ -452,8 +707,13 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
     const readSyncs = fake.syncs();
     const result = solve(read.problem, { seed: 7, budget: { moves: 3000 } });
     const { sheetName } = await writeScenarioResult(book, {
-      read, result, scenario: "=Monday", createdAt: new Date(Date.UTC(2026, 0, 5, 18)), runSeconds: 1,
-      stopsSource: "Stops!A1:N85", fleetSource: "Fleet!A1:O6",
+      read,
+      result,
+      scenario: "=Monday",
+      createdAt: new Date(Date.UTC(2026, 0, 5, 18)),
+      runSeconds: 1,
+      stopsSource: "Stops!A1:N85",
+      fleetSource: "Fleet!A1:O6",
     });
     // listSheets 1, addSheet 2 (name check, write), appendRows 2 (missing sheet found, create), writeSetting 1
     expect(fake.syncs() - readSyncs).toBe(6);
@@ -462,13 +722,19 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
     const written = planWrites[0]![3] as unknown[][];
     const formats = entries("numberFormat").find((e) => e[1] === sheetName)![3] as string[][];
     expect(written.flat()).toContain(CAUTION_TEXT);
-    const scenarioCells = written.flatMap((row, r) => row.map((v, c) => ({ v, f: formats[r]![c] }))).filter((x) => String(x.v).replace(/^'/, "") === "=Monday");
+    const scenarioCells = written
+      .flatMap((row, r) => row.map((v, c) => ({ v, f: formats[r]![c] })))
+      .filter((x) => String(x.v).replace(/^'/, "") === "=Monday");
     expect(scenarioCells.length).toBeGreaterThan(0);
     for (const cell of scenarioCells) expect(cell).toEqual({ v: "'=Monday", f: "@" });
     const used = result.plan.routes.filter((r) => r.visits.length > 0).length;
     expect(entries("series.name").length + entries("series.add").length).toBe(used);
     expect(entries("add").map((e) => e[1])).toEqual([sheetName, "Compare"]);
-    expect(entries("values").filter((e) => e[1] === "Compare").map((e) => e[2])).toEqual(["A1:J1", "A2:J2"]);
+    expect(
+      entries("values")
+        .filter((e) => e[1] === "Compare")
+        .map((e) => e[2]),
+    ).toEqual(["A1:J1", "A2:J2"]);
     const [, key, value] = entries("settings.add")[0]!;
     expect(key).toBe(scenarioSettingsKey(sheetName));
     expect(JSON.parse(value as string).scenario).toBe(sheetName);

@@ -61,9 +61,24 @@ describe("manifest.xml (Office add-in manifest rules, OFFICE-NOTES.md)", () => {
   });
 
   it("has the required top-level elements in the enforced order", () => {
-    const order = ["Id", "AlternateID", "Version", "ProviderName", "DefaultLocale", "DisplayName", "Description",
-      "IconUrl", "HighResolutionIconUrl", "SupportUrl", "AppDomains", "Hosts", "Requirements", "DefaultSettings",
-      "Permissions", "VersionOverrides"];
+    const order = [
+      "Id",
+      "AlternateID",
+      "Version",
+      "ProviderName",
+      "DefaultLocale",
+      "DisplayName",
+      "Description",
+      "IconUrl",
+      "HighResolutionIconUrl",
+      "SupportUrl",
+      "AppDomains",
+      "Hosts",
+      "Requirements",
+      "DefaultSettings",
+      "Permissions",
+      "VersionOverrides",
+    ];
     const names = root.children.map((c) => c.name);
     for (const n of names) expect(order, `unexpected element ${n}`).toContain(n);
     const ranks = names.map((n) => order.indexOf(n));
@@ -94,8 +109,9 @@ describe("manifest.xml (Office add-in manifest rules, OFFICE-NOTES.md)", () => {
     expect(set?.attrs.get("Name")).toBe("ExcelApi");
     expect(set?.attrs.get("MinVersion")).toBe("1.4");
     expect(child(root, "Permissions")?.text.trim()).toBe("ReadWriteDocument");
-    expect(child(child(root, "DefaultSettings")!, "SourceLocation")?.attrs.get("DefaultValue"))
-      .toBe("https://localhost:3000/taskpane.html?kiln-host=office");
+    expect(child(child(root, "DefaultSettings")!, "SourceLocation")?.attrs.get("DefaultValue")).toBe(
+      "https://localhost:3000/taskpane.html?kiln-host=office",
+    );
   });
 
   it("uses HTTPS for every URL", () => {
@@ -115,7 +131,11 @@ describe("manifest.xml (Office add-in manifest rules, OFFICE-NOTES.md)", () => {
     expect(tab?.attrs.get("id")).toBe("TabHome");
     const button = flatten(tab!).find((e) => e.name === "Control");
     expect(button?.attrs.get("xsi:type")).toBe("Button");
-    expect(flatten(button!).find((e) => e.name === "Action")?.attrs.get("xsi:type")).toBe("ShowTaskpane");
+    expect(
+      flatten(button!)
+        .find((e) => e.name === "Action")
+        ?.attrs.get("xsi:type"),
+    ).toBe("ShowTaskpane");
   });
 
   it("defines every referenced resid exactly once in Resources, each within its length limit", () => {
@@ -146,7 +166,9 @@ describe("manifest.xml (Office add-in manifest rules, OFFICE-NOTES.md)", () => {
 
   it("references icon files that exist in assets/ at the declared pixel sizes (PNG IHDR)", () => {
     const resources = child(child(root, "VersionOverrides")!, "Resources")!;
-    const images = new Map(child(resources, "bt:Images")!.children.map((i) => [i.attrs.get("id") ?? "", i.attrs.get("DefaultValue") ?? ""]));
+    const images = new Map(
+      child(resources, "bt:Images")!.children.map((i) => [i.attrs.get("id") ?? "", i.attrs.get("DefaultValue") ?? ""]),
+    );
     const wanted: [string, number][] = [
       [child(root, "IconUrl")!.attrs.get("DefaultValue")!, 32],
       [child(root, "HighResolutionIconUrl")!.attrs.get("DefaultValue")!, 64],
@@ -184,7 +206,9 @@ function parseXml(xml: string): XmlElement {
   let i = 0;
   const stack: { el: XmlElement; prefixes: Set<string> }[] = [];
   let root: XmlElement | undefined;
-  const fail = (why: string): never => { throw new Error(`XML error at offset ${i}: ${why}`); };
+  const fail = (why: string): never => {
+    throw new Error(`XML error at offset ${i}: ${why}`);
+  };
   if (xml.startsWith("<?xml")) {
     const end = xml.indexOf("?>");
     if (end < 0) fail("unterminated XML declaration");
@@ -244,7 +268,10 @@ function parseXml(xml: string): XmlElement {
       if (stack.length) stack[stack.length - 1]!.el.children.push(el);
       else root = el;
       if (xml.startsWith("/>", i)) i += 2;
-      else { i += 1; stack.push({ el, prefixes }); }
+      else {
+        i += 1;
+        stack.push({ el, prefixes });
+      }
     } else {
       const next = xml.indexOf("<", i);
       const raw = xml.slice(i, next < 0 ? xml.length : next);

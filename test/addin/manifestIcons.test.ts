@@ -26,7 +26,13 @@ function chunks(png: Uint8Array): { type: string; data: Uint8Array; crc: number 
 }
 
 function pixels(png: Uint8Array, size: number): Uint8Array {
-  const raw = inflateSync(Buffer.concat(chunks(png).filter((c) => c.type === "IDAT").map((c) => c.data)));
+  const raw = inflateSync(
+    Buffer.concat(
+      chunks(png)
+        .filter((c) => c.type === "IDAT")
+        .map((c) => c.data),
+    ),
+  );
   const out = new Uint8Array(size * size * 4);
   for (let y = 0; y < size; y++) {
     expect(raw[y * (size * 4 + 1)]).toBe(0); // filter type None

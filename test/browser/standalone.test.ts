@@ -68,7 +68,14 @@ async function inputWorkbook(): Promise<{ path: string; cleanup: () => void }> {
   const wb = new ExcelJS.Workbook();
   const stops = wb.addWorksheet("Stops");
   stops.addRow(["Stop", "Name", "Latitude", "Longitude", "Demand", "Earliest", "Latest", "Service min"]);
-  const spots = [[53.96, -1.08], [53.97, -1.1], [53.95, -1.06], [53.98, -1.07], [53.94, -1.09], [53.965, -1.12]];
+  const spots = [
+    [53.96, -1.08],
+    [53.97, -1.1],
+    [53.95, -1.06],
+    [53.98, -1.07],
+    [53.94, -1.09],
+    [53.965, -1.12],
+  ];
   spots.forEach(([lat, lon], i) => stops.addRow([`S${i + 1}`, `Shop ${i + 1}`, lat, lon, 10, "08:00", "12:00", 5]));
   const fleet = wb.addWorksheet("Fleet");
   fleet.addRow(["Vehicle", "Capacity", "Start latitude", "Start longitude", "Shift start", "Shift end"]);
@@ -120,7 +127,14 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
     context = await chromium.launchPersistentContext(userDataDir, {
       executablePath: CHROMIUM!,
       headless: true,
-      args: ["--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+      args: [
+        "--no-sandbox",
+        "--disable-gpu",
+        "--no-first-run",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+      ],
       viewport: { width: 360, height: 900 },
       acceptDownloads: true,
     });
@@ -174,12 +188,19 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await expect(page.locator("#optimize").isEnabled()).resolves.toBe(true);
       await page.click("#optimize");
       try {
-        await expect.poll(async () => Number(await page.locator("#convergence-plot").getAttribute("data-points")), { timeout: 60_000 }).toBeGreaterThanOrEqual(3);
+        await expect
+          .poll(async () => Number(await page.locator("#convergence-plot").getAttribute("data-points")), { timeout: 60_000 })
+          .toBeGreaterThanOrEqual(3);
       } catch (err) {
         // Say what the pane showed, so a failure here can be told apart from a slow machine.
-        console.error("pane state:", await page.locator("#optimize-section").getAttribute("data-state"),
-          "| error:", await page.locator("#pane-error-text").textContent(),
-          "| elapsed:", await page.locator("#stat-elapsed").textContent());
+        console.error(
+          "pane state:",
+          await page.locator("#optimize-section").getAttribute("data-state"),
+          "| error:",
+          await page.locator("#pane-error-text").textContent(),
+          "| elapsed:",
+          await page.locator("#stat-elapsed").textContent(),
+        );
         throw err;
       }
       // The page answers while the worker runs: the Stop button is enabled and clickable.
@@ -226,7 +247,9 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await expect(page.locator("#seconds").inputValue()).resolves.toBe("60");
       await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
       await page.click("#optimize");
-      await expect.poll(async () => Number(await page.locator("#convergence-plot").getAttribute("data-points")), { timeout: 60_000 }).toBeGreaterThanOrEqual(1);
+      await expect
+        .poll(async () => Number(await page.locator("#convergence-plot").getAttribute("data-points")), { timeout: 60_000 })
+        .toBeGreaterThanOrEqual(1);
       await page.click("#stop");
       await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
       await page.click("#write");
@@ -301,7 +324,10 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       const stopsCsv = join(dir, "stops.csv");
       const fleetCsv = join(dir, "fleet.csv");
       writeFileSync(stopsCsv, 'Stop,Name,Latitude,Longitude,Demand\r\nS1,"Baker, North",53.96,-1.08,5\r\nS2,Mill,53.97,-1.1,5\r\n');
-      writeFileSync(fleetCsv, "Vehicle,Capacity,Start latitude,Start longitude,Shift start,Shift end\r\nVan A,40,53.959,-1.081,07:00,14:00\r\n");
+      writeFileSync(
+        fleetCsv,
+        "Vehicle,Capacity,Start latitude,Start longitude,Shift start,Shift end\r\nVan A,40,53.959,-1.081,07:00,14:00\r\n",
+      );
       await page.goto(`${baseUrl}/taskpane.html`);
       await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
       await page.setInputFiles("#file-input", [stopsCsv, fleetCsv]);
@@ -340,7 +366,12 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       const bad = stops.map((row, r) => (r === 2 ? row.map((v, c) => (c === latCol ? 123.4 : v)) : row));
       const badCell = `Bad!${String.fromCharCode(65 + latCol)}3`;
       const stored = {
-        scenario: "Plan 4", createdSerial: 46000.5, moves: 1000, runSeconds: 2, stopsSource: "Stops!A1:N85", fleetSource: "Fleet!A1:O6",
+        scenario: "Plan 4",
+        createdSerial: 46000.5,
+        moves: 1000,
+        runSeconds: 2,
+        stopsSource: "Stops!A1:N85",
+        fleetSource: "Fleet!A1:O6",
         settings: { ...PLAN_SETTINGS_DEFAULTS, seed: 77, seconds: 25 },
       };
       await excelPage.addInitScript(installFakeExcel, {
@@ -352,12 +383,15 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await expect(excelPage.locator("#file-section").isHidden()).resolves.toBe(true);
       await expect(excelPage.locator("#scenario").inputValue()).resolves.toBe("Plan 1");
 
-      const select = (sheet: string) => excelPage.evaluate((s) => ((window as unknown as { __kilnExcel: { selectSheet: string } }).__kilnExcel.selectSheet = s), sheet);
+      const select = (sheet: string) =>
+        excelPage.evaluate((s) => ((window as unknown as { __kilnExcel: { selectSheet: string } }).__kilnExcel.selectSheet = s), sheet);
       await select("Stops");
       await excelPage.click("#stops-use-selection");
       await select("Fleet");
       await excelPage.click("#fleet-use-selection");
-      await expect.poll(() => excelPage.locator("#stops-summary").textContent(), { timeout: 30_000 }).toMatch(new RegExp(`Stops!A1:[A-Z]+${stops.length} · ${stops.length - 1} data rows`));
+      await expect
+        .poll(() => excelPage.locator("#stops-summary").textContent(), { timeout: 30_000 })
+        .toMatch(new RegExp(`Stops!A1:[A-Z]+${stops.length} · ${stops.length - 1} data rows`));
       await expect(excelPage.locator("#stops-summary .col").first().textContent()).resolves.toMatch(/^A: /);
       await excelPage.waitForSelector("#cooling-reading.ok", { timeout: 60_000 });
       await expect(excelPage.locator("#optimize").isEnabled()).resolves.toBe(true);
@@ -369,7 +403,9 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await link.waitFor({ timeout: 30_000 });
       await expect(excelPage.locator("#optimize").isDisabled()).resolves.toBe(true);
       await link.click();
-      await expect.poll(() => excelPage.evaluate(() => (window as unknown as { __kilnExcel: { selected: string[] } }).__kilnExcel.selected)).toEqual([badCell]);
+      await expect
+        .poll(() => excelPage.evaluate(() => (window as unknown as { __kilnExcel: { selected: string[] } }).__kilnExcel.selected))
+        .toEqual([badCell]);
 
       // Rerun on the plan sheet loads the settings stored under its name.
       await select("Plan 4");

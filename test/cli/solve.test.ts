@@ -9,8 +9,15 @@ import { COMPARE_SHEET } from "../../src/sheets/layoutCompare.js";
 import { captureIO, demoCopy, loadWithExcelJs, sheetValues, withCell } from "../workbook/harness.js";
 
 const MOVES = ["--moves", "5000"];
-const sha256 = async (path: string): Promise<string> => createHash("sha256").update(await readFile(path)).digest("hex");
-const exists = (path: string): Promise<boolean> => access(path).then(() => true, () => false);
+const sha256 = async (path: string): Promise<string> =>
+  createHash("sha256")
+    .update(await readFile(path))
+    .digest("hex");
+const exists = (path: string): Promise<boolean> =>
+  access(path).then(
+    () => true,
+    () => false,
+  );
 
 describe("kiln solve (in process)", () => {
   it("writes NAME.plan.xlsx beside the input, leaves the input byte for byte unchanged, and keeps every original sheet's values", async () => {
@@ -71,7 +78,9 @@ describe("kiln solve (in process)", () => {
   it("exits 2 with one line per flag mistake", async () => {
     const { path } = await demoCopy();
     const cap = captureIO();
-    expect(await runSolve([path, "--moves", "5000", "--seconds", "3", "--rule", "greedy", "--schedule", "time", "--alpha", "0.9"], cap.io)).toBe(2);
+    expect(
+      await runSolve([path, "--moves", "5000", "--seconds", "3", "--rule", "greedy", "--schedule", "time", "--alpha", "0.9"], cap.io),
+    ).toBe(2);
     const lines = cap.err().trim().split("\n");
     expect(lines).toContain("use --seconds or --moves, not both");
     expect(lines).toContain('--rule must be metropolis or logistic, got "greedy"');

@@ -39,13 +39,39 @@ describe("kiln solve input checks", () => {
   it("carries the flags into the run record stored with the scenario (over the Settings sheet's values)", async () => {
     const { dir, path } = await demoCopy();
     const out = join(dir, "flags.xlsx");
-    const flags = ["--moves", "3000", "--seed", "42", "--rule", "logistic", "--schedule", "geometric", "--alpha", "0.9",
-      "--level", "250", "--t0", "80", "--detour", "1.45", "--speed", "35", "--soft-windows", "--out", out];
+    const flags = [
+      "--moves",
+      "3000",
+      "--seed",
+      "42",
+      "--rule",
+      "logistic",
+      "--schedule",
+      "geometric",
+      "--alpha",
+      "0.9",
+      "--level",
+      "250",
+      "--t0",
+      "80",
+      "--detour",
+      "1.45",
+      "--speed",
+      "35",
+      "--soft-windows",
+      "--out",
+      out,
+    ];
     expect(await runSolve([path, ...flags], captureIO().io)).toBe(0);
     const settings = await (await ExcelJsWorkbook.fromBuffer(await readFile(out))).readSettings();
     const record = JSON.parse(settings["kiln.scenario.Plan"]!);
     expect(record.settings).toMatchObject({
-      seed: 42, rule: "logistic", moves: 3000, detourFactor: 1.45, speedKmh: 35, hardWindows: false,
+      seed: 42,
+      rule: "logistic",
+      moves: 3000,
+      detourFactor: 1.45,
+      speedKmh: 35,
+      hardWindows: false,
       cooling: { kind: "geometric", alpha: 0.9, movesPerLevel: 250, t0: 80 },
     });
     expect(record.moves).toBe(3000);

@@ -3,7 +3,15 @@ import { progressBar, progressLine } from "../../src/cli/progressBar.js";
 import type { Progress } from "../../src/core/options.js";
 import { captureIO } from "../workbook/harness.js";
 
-const progress: Progress = { moves: 500, fraction: 0.5, temperature: 12.345, currentCost: 500, bestCost: 456.789, acceptanceRate: 0.21, elapsedMs: 10 };
+const progress: Progress = {
+  moves: 500,
+  fraction: 0.5,
+  temperature: 12.345,
+  currentCost: 500,
+  bestCost: 456.789,
+  acceptanceRate: 0.21,
+  elapsedMs: 10,
+};
 
 describe("solve progress bar", () => {
   it("draws on stderr only when stderr is a terminal", () => {

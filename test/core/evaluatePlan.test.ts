@@ -7,14 +7,28 @@ function lineProblem(windows: Problem["stops"][number]["windows"][], hard = true
   const L = windows.length + 1;
   const distanceKm = new Float64Array(L * L);
   const travelMin = new Float64Array(L * L);
-  for (let i = 0; i < L; i++) for (let j = 0; j < L; j++) {
-    distanceKm[i * L + j] = 20 * Math.abs(i - j);
-    travelMin[i * L + j] = 30 * Math.abs(i - j);
-  }
+  for (let i = 0; i < L; i++)
+    for (let j = 0; j < L; j++) {
+      distanceKm[i * L + j] = 20 * Math.abs(i - j);
+      travelMin[i * L + j] = 30 * Math.abs(i - j);
+    }
   return {
     locations: Array.from({ length: L }, (_, i) => ({ lat: 50, lon: i / 10 })),
     stops: windows.map((w, k) => ({ id: `S${k + 1}`, name: `S${k + 1}`, location: k + 1, demand: [10], windows: w, serviceMin: 10 })),
-    vehicles: [{ id: "Van", capacity: [25], startLocation: 0, endLocation: 0, shiftStartMin: 420, shiftEndMin: 720, fixedCost: 5, costPerKm: 0.5, costPerHour: 30, speedKmh: 40 }],
+    vehicles: [
+      {
+        id: "Van",
+        capacity: [25],
+        startLocation: 0,
+        endLocation: 0,
+        shiftStartMin: 420,
+        shiftEndMin: 720,
+        fixedCost: 5,
+        costPerKm: 0.5,
+        costPerHour: 30,
+        speedKmh: 40,
+      },
+    ],
     loadDimensions: ["kg"],
     matrix: { size: L, distanceKm, travelMin, userSupplied: true },
     referenceSpeedKmh: 40,
@@ -28,13 +42,19 @@ describe("evaluatePlan (time-warp timing of Vidal et al. 2013, figures worked by
   it("leaves late enough not to wait at the first stop and waits for the second window of a stop", () => {
     const p = lineProblem([
       [{ earliestMin: 480, latestMin: 500 }],
-      [{ earliestMin: 500, latestMin: 520 }, { earliestMin: 560, latestMin: 600 }],
+      [
+        { earliestMin: 500, latestMin: 520 },
+        { earliestMin: 560, latestMin: 600 },
+      ],
     ]);
     const plan = evaluatePlan(p, [[0, 1]]);
     const r = plan.routes[0]!;
     // Depart 450, arrive S1 480, leave 490, arrive S2 520 (first window still open at 520).
     expect(r.departureMin).toBe(450);
-    expect(r.visits.map((v) => [v.arrivalMin, v.startMin, v.waitMin])).toEqual([[480, 480, 0], [520, 520, 0]]);
+    expect(r.visits.map((v) => [v.arrivalMin, v.startMin, v.waitMin])).toEqual([
+      [480, 480, 0],
+      [520, 520, 0],
+    ]);
     expect(r.returnMin).toBe(590);
     expect(r.dutyMin).toBe(140);
     expect(r.distanceKm).toBe(80);
@@ -45,7 +65,10 @@ describe("evaluatePlan (time-warp timing of Vidal et al. 2013, figures worked by
     // The van may leave 50 min later (S1 closes at 500): S1 at 500, S2 at 540, waits 20 for 560.
     const q = lineProblem([
       [{ earliestMin: 480, latestMin: 500 }],
-      [{ earliestMin: 500, latestMin: 510 }, { earliestMin: 560, latestMin: 600 }],
+      [
+        { earliestMin: 500, latestMin: 510 },
+        { earliestMin: 560, latestMin: 600 },
+      ],
     ]);
     const r2 = evaluatePlan(q, [[0, 1]]).routes[0]!;
     expect(r2.departureMin).toBe(470);
@@ -68,7 +91,11 @@ describe("evaluatePlan (time-warp timing of Vidal et al. 2013, figures worked by
   });
 
   it("reports overtime, excess load and unserved must-serve stops as violations", () => {
-    const p = lineProblem([[{ earliestMin: 0, latestMin: Infinity }], [{ earliestMin: 0, latestMin: Infinity }], [{ earliestMin: 700, latestMin: 710 }]]);
+    const p = lineProblem([
+      [{ earliestMin: 0, latestMin: Infinity }],
+      [{ earliestMin: 0, latestMin: Infinity }],
+      [{ earliestMin: 700, latestMin: 710 }],
+    ]);
     const plan = evaluatePlan(p, [[0, 1, 2]]);
     expect(plan.routes[0]!.excessLoad).toBe(5);
     expect(plan.routes[0]!.overtimeMin).toBeGreaterThan(0);

@@ -6,17 +6,27 @@ import seedrandom from "seedrandom";
  * Invented test instances (demo data, not a reference): stops scattered around a depot,
  * windows, two load dimensions, vehicles of different speeds, capacities and shifts.
  */
-export function randomInstance(seed: number, options: { stops: number; vehicles: number; windows?: boolean; optional?: boolean; hard?: boolean; multiWindow?: boolean }): Problem {
+export function randomInstance(
+  seed: number,
+  options: { stops: number; vehicles: number; windows?: boolean; optional?: boolean; hard?: boolean; multiWindow?: boolean },
+): Problem {
   const rng = seedrandom(String(seed));
   const n = options.stops;
-  const locations = [{ lat: 51.5, lon: -0.12, name: "Depot" }, { lat: 51.52, lon: -0.1, name: "Depot B" }];
+  const locations = [
+    { lat: 51.5, lon: -0.12, name: "Depot" },
+    { lat: 51.52, lon: -0.1, name: "Depot B" },
+  ];
   for (let i = 0; i < n; i++) locations.push({ lat: 51.5 + (rng() - 0.5) * 0.3, lon: -0.12 + (rng() - 0.5) * 0.4, name: `S${i}` });
   const stops: Stop[] = [];
   for (let i = 0; i < n; i++) {
     const e = 480 + Math.floor(rng() * 360);
     const width = 30 + Math.floor(rng() * 180);
     let windows = options.windows === false ? [{ earliestMin: 0, latestMin: Infinity }] : [{ earliestMin: e, latestMin: e + width }];
-    if (options.multiWindow && rng() < 0.3) windows = [{ earliestMin: e - 200, latestMin: e - 120 }, { earliestMin: e, latestMin: e + width }];
+    if (options.multiWindow && rng() < 0.3)
+      windows = [
+        { earliestMin: e - 200, latestMin: e - 120 },
+        { earliestMin: e, latestMin: e + width },
+      ];
     stops.push({
       id: `S${i}`,
       name: `Stop ${i}`,

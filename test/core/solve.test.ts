@@ -48,7 +48,12 @@ describe("solve", () => {
     expect(everyStopOnce(problem, c.plan)).toBe(true);
   });
 
-  for (const [seed, stops] of [[21, 6], [22, 7], [23, 7], [24, 6]] as const) {
+  for (const [seed, stops] of [
+    [21, 6],
+    [22, 7],
+    [23, 7],
+    [24, 6],
+  ] as const) {
     it(`finds the exhaustive-enumeration optimum on a ${stops}-stop, 2-vehicle instance with windows (seed ${seed})`, () => {
       const problem = randomInstance(seed, { stops, vehicles: 2 });
       const optimum = bruteForce(problem);
@@ -93,9 +98,13 @@ describe("solve", () => {
   it("puts stops no vehicle can serve into unassigned with the reason in words", () => {
     const base = randomInstance(34, { stops: 10, vehicles: 2 });
     const stops: Stop[] = base.stops.map((s, i) =>
-      i === 0 ? { ...s, demand: [900, 0] } :
-      i === 1 ? { ...s, requiredFeatures: ["fridge"] } :
-      i === 2 ? { ...s, windows: [{ earliestMin: 100, latestMin: 120 }] } : s,
+      i === 0
+        ? { ...s, demand: [900, 0] }
+        : i === 1
+          ? { ...s, requiredFeatures: ["fridge"] }
+          : i === 2
+            ? { ...s, windows: [{ earliestMin: 100, latestMin: 120 }] }
+            : s,
     );
     const problem = { ...base, stops };
     const { plan } = solve(problem, { budget: { moves: 20_000 } });
@@ -109,19 +118,42 @@ describe("solve", () => {
 
   it("the hierarchical objective prefers fewer vehicles; the weighted one the cheaper plan", () => {
     // Two depots 60 km apart, each beside its own cluster of three stops (invented data).
-    const locations = [{ lat: 52.0, lon: 0.0 }, { lat: 52.0, lon: 0.88 }];
+    const locations = [
+      { lat: 52.0, lon: 0.0 },
+      { lat: 52.0, lon: 0.88 },
+    ];
     for (let i = 0; i < 3; i++) locations.push({ lat: 52.01 + 0.005 * i, lon: 0.01 });
     for (let i = 0; i < 3; i++) locations.push({ lat: 52.01 + 0.005 * i, lon: 0.87 });
     const stops: Stop[] = Array.from({ length: 6 }, (_, i) => ({
-      id: `S${i}`, name: `S${i}`, location: i + 2, demand: [1], windows: [{ earliestMin: 0, latestMin: Infinity }], serviceMin: 5,
+      id: `S${i}`,
+      name: `S${i}`,
+      location: i + 2,
+      demand: [1],
+      windows: [{ earliestMin: 0, latestMin: Infinity }],
+      serviceMin: 5,
     }));
     const vehicle = (k: number): Vehicle => ({
-      id: `V${k}`, capacity: [10], startLocation: k, endLocation: k, shiftStartMin: 480, shiftEndMin: 1080,
-      fixedCost: 10, costPerKm: 1, costPerHour: 0, speedKmh: 50,
+      id: `V${k}`,
+      capacity: [10],
+      startLocation: k,
+      endLocation: k,
+      shiftStartMin: 480,
+      shiftEndMin: 1080,
+      fixedCost: 10,
+      costPerKm: 1,
+      costPerHour: 0,
+      speedKmh: 50,
     });
     const problem: Problem = {
-      locations, stops, vehicles: [vehicle(0), vehicle(1)], loadDimensions: ["kg"],
-      matrix: buildMatrix(locations), referenceSpeedKmh: 40, hardWindows: true, lateCostPerMin: 0, objective: "weighted",
+      locations,
+      stops,
+      vehicles: [vehicle(0), vehicle(1)],
+      loadDimensions: ["kg"],
+      matrix: buildMatrix(locations),
+      referenceSpeedKmh: 40,
+      hardWindows: true,
+      lateCostPerMin: 0,
+      objective: "weighted",
     };
     const weighted = solve(problem, { budget: { moves: 30_000 } }).plan;
     const hierarchical = solve({ ...problem, objective: "hierarchical" }, { budget: { moves: 30_000 } }).plan;
@@ -172,7 +204,12 @@ describe("validateProblem", () => {
       ],
     };
     const issues = validateProblem(bad);
-    expect(issues.map((i) => `${i.sheet}.${i.cell}`)).toEqual(["stops[0].demand", "stops[1].windows", "stops[2].location", "stops[2].serviceMin"]);
+    expect(issues.map((i) => `${i.sheet}.${i.cell}`)).toEqual([
+      "stops[0].demand",
+      "stops[1].windows",
+      "stops[2].location",
+      "stops[2].serviceMin",
+    ]);
     expect(validateProblem(base)).toEqual([]);
     expect(() => solve(bad)).toThrow(RangeError);
   });

@@ -12,7 +12,10 @@ async function ruleIds(code: string, filePath: string): Promise<string[]> {
 
 describe("lint: layers point inward", () => {
   it("refuses src/core importing src/sheets", async () => {
-    const ids = await ruleIds('import { safeText } from "../sheets/safeText.js";\nexport const x = safeText("a");\n', "src/core/outward.ts");
+    const ids = await ruleIds(
+      'import { safeText } from "../sheets/safeText.js";\nexport const x = safeText("a");\n',
+      "src/core/outward.ts",
+    );
     expect(ids).toContain("import-x/no-restricted-paths");
   });
 
@@ -32,7 +35,10 @@ describe("lint: layers point inward", () => {
   });
 
   it("refuses Node built-ins and Math.random in src/core", async () => {
-    const ids = await ruleIds('import { readFileSync } from "node:fs";\nexport const r = Math.random() + readFileSync.length;\n', "src/core/impure.ts");
+    const ids = await ruleIds(
+      'import { readFileSync } from "node:fs";\nexport const r = Math.random() + readFileSync.length;\n',
+      "src/core/impure.ts",
+    );
     expect(ids).toContain("no-restricted-imports");
     expect(ids).toContain("no-restricted-properties");
   });

@@ -32,7 +32,8 @@ describe("great-circle matrix against geolib (reference library)", () => {
         const a = PLACES[i]!;
         const b = PLACES[j]!;
         const oursRad = matrix.distanceKm[i * n + j]! / EARTH_MEAN_RADIUS_KM;
-        const geolibRad = getDistance({ latitude: a.lat, longitude: a.lon }, { latitude: b.lat, longitude: b.lon }, 1e-6) / GEOLIB_EARTH_RADIUS_M;
+        const geolibRad =
+          getDistance({ latitude: a.lat, longitude: a.lon }, { latitude: b.lat, longitude: b.lon }, 1e-6) / GEOLIB_EARTH_RADIUS_M;
         expect(Math.abs(oursRad - geolibRad), `${i}->${j}`).toBeLessThan(1e-9);
       }
     }

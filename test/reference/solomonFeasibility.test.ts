@@ -23,9 +23,7 @@ describe.skipIf(!benchmarksAvailable("Solomon feasibility"))("Solomon (1987) pla
       const problem = solomonToProblem(inst);
       for (const seed of [1, 2]) {
         const { plan } = solve(problem, { seed, budget: { moves: MOVES } });
-        const routes = plan.routes
-          .filter((r) => r.visits.length > 0)
-          .map((r) => r.visits.map((v) => Number(problem.stops[v.stop]!.id)));
+        const routes = plan.routes.filter((r) => r.visits.length > 0).map((r) => r.visits.map((v) => Number(problem.stops[v.stop]!.id)));
         const check = checkSolomonPlan(raw, routes);
         expect(check.violations, `${name} seed ${seed}`).toEqual([]);
         expect(plan.feasible).toBe(true);
@@ -48,7 +46,10 @@ describe.skipIf(!benchmarksAvailable("Solomon feasibility"))("Solomon (1987) pla
       expect(inst.name, f).toBe(f.replace(".txt", ""));
       expect([inst.vehicleCount, inst.capacity], f).toEqual([raw.vehicles, raw.capacity]);
       expect(inst.vehicleCount, f).toBe(25);
-      expect(inst.customers.map((c) => [c.id, c.x, c.y, c.demand, c.readyTime, c.dueDate, c.serviceTime]), f).toEqual(raw.rows);
+      expect(
+        inst.customers.map((c) => [c.id, c.x, c.y, c.demand, c.readyTime, c.dueDate, c.serviceTime]),
+        f,
+      ).toEqual(raw.rows);
       expect(inst.customers, f).toHaveLength(101);
     }
   });
@@ -59,6 +60,11 @@ describe.skipIf(!benchmarksAvailable("Solomon feasibility"))("Solomon (1987) pla
     const oneRoute = checkSolomonPlan(raw, [ids]).violations.join("; ");
     expect(oneRoute).toContain("over capacity 200");
     expect(oneRoute).toContain("after its due date");
-    expect(checkSolomonPlan(raw, ids.slice(1).map((id) => [id])).violations.join("; ")).toContain("customer 1 served 0 times");
+    expect(
+      checkSolomonPlan(
+        raw,
+        ids.slice(1).map((id) => [id]),
+      ).violations.join("; "),
+    ).toContain("customer 1 served 0 times");
   });
 });

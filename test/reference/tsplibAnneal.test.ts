@@ -20,30 +20,33 @@ function tourLengthOf(name: string, options: Parameters<typeof solve>[1]): { len
   return { length: tsplibTourLength(inst, tour), engineKm: plan.totals.distanceKm, feasible: plan.feasible };
 }
 
-describe.skipIf(!benchmarksAvailable("annealer on TSPLIB GEO optima"))("the annealer reaches TSPLIB95 optima (move budget, deterministic)", () => {
-  for (const [name, optimum] of Object.entries(OPTIMA)) {
-    it(`${name}: tour length ${optimum} (TSPLIB95 optimal.csv) for seeds ${SEEDS.join(", ")}, geometric alpha 0.94`, () => {
-      for (const seed of SEEDS) {
-        const moves = MOVES[name]!;
-        const r = tourLengthOf(name, { seed, budget: { moves }, cooling: geometric(moves) });
-        expect(r.feasible).toBe(true);
-        expect(r.length, `${name} seed ${seed}`).toBe(optimum);
-        // The engine's own distance of the plan is the same TSPLIB length.
-        expect(r.engineKm).toBe(optimum);
-      }
-    });
+describe.skipIf(!benchmarksAvailable("annealer on TSPLIB GEO optima"))(
+  "the annealer reaches TSPLIB95 optima (move budget, deterministic)",
+  () => {
+    for (const [name, optimum] of Object.entries(OPTIMA)) {
+      it(`${name}: tour length ${optimum} (TSPLIB95 optimal.csv) for seeds ${SEEDS.join(", ")}, geometric alpha 0.94`, () => {
+        for (const seed of SEEDS) {
+          const moves = MOVES[name]!;
+          const r = tourLengthOf(name, { seed, budget: { moves }, cooling: geometric(moves) });
+          expect(r.feasible).toBe(true);
+          expect(r.length, `${name} seed ${seed}`).toBe(optimum);
+          // The engine's own distance of the plan is the same TSPLIB length.
+          expect(r.engineKm).toBe(optimum);
+        }
+      });
 
-    it(`${name}: tour length ${optimum} (TSPLIB95 optimal.csv) with the default schedule, seeds ${SEEDS.join(", ")}`, () => {
-      for (const seed of SEEDS) {
-        expect(tourLengthOf(name, { seed, budget: { moves: MOVES[name]! } }).length, `${name} seed ${seed}`).toBe(optimum);
-      }
-    });
-  }
+      it(`${name}: tour length ${optimum} (TSPLIB95 optimal.csv) with the default schedule, seeds ${SEEDS.join(", ")}`, () => {
+        for (const seed of SEEDS) {
+          expect(tourLengthOf(name, { seed, budget: { moves: MOVES[name]! } }).length, `${name} seed ${seed}`).toBe(optimum);
+        }
+      });
+    }
 
-  it("the same seed and move budget give the same tour (reproducibility)", () => {
-    const problem = tsplibToProblem(parseTsplib(benchmarkText("tsplib/ulysses16.tsp")));
-    const tourOf = (seed: number): number[] =>
-      solve(problem, { seed, budget: { moves: 20_000 } }).plan.routes[0]!.visits.map((v) => v.stop);
-    expect(tourOf(5)).toEqual(tourOf(5));
-  });
-});
+    it("the same seed and move budget give the same tour (reproducibility)", () => {
+      const problem = tsplibToProblem(parseTsplib(benchmarkText("tsplib/ulysses16.tsp")));
+      const tourOf = (seed: number): number[] =>
+        solve(problem, { seed, budget: { moves: 20_000 } }).plan.routes[0]!.visits.map((v) => v.stop);
+      expect(tourOf(5)).toEqual(tourOf(5));
+    });
+  },
+);

@@ -47,6 +47,8 @@ describe("TSPLIB95 EXPLICIT edge weight formats", () => {
   it("a wrong count of numbers or an asymmetric full matrix is an issue, not an exception", () => {
     expect(parseTsplib(fileOf("UPPER_ROW", "3 5 9\n4 7")).issues[0]!.message).toContain("needs 6 numbers, found 5");
     expect(parseTsplib(fileOf("FULL_MATRIX", "0 1 2 3\n9 0 1 1\n2 1 0 1\n3 1 1 0")).issues[0]!.message).toContain("not symmetric");
-    expect(parseTsplib("NAME: a\nTYPE: ATSP\nDIMENSION: 2\nEDGE_WEIGHT_TYPE: EUC_2D\nNODE_COORD_SECTION\n1 0 0\n2 1 1\nEOF").issues[0]!.message).toContain("TYPE ATSP is not supported");
+    expect(
+      parseTsplib("NAME: a\nTYPE: ATSP\nDIMENSION: 2\nEDGE_WEIGHT_TYPE: EUC_2D\nNODE_COORD_SECTION\n1 0 0\n2 1 1\nEOF").issues[0]!.message,
+    ).toContain("TYPE ATSP is not supported");
   });
 });

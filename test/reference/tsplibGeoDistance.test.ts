@@ -15,7 +15,11 @@ const OPTIMAL_TOURS: Record<string, number[]> = {
 const PUBLISHED: Record<string, number> = { burma14: 3323, ulysses16: 6859, ulysses22: 7013 };
 
 describe.skipIf(!benchmarksAvailable("TSPLIB GEO optimal tours"))("TSPLIB95 GEO distance on published optima", () => {
-  const optimal = new Map(benchmarkCsv("tsplib/optimal.csv").slice(1).map(([name, len]) => [name!, Number(len)]));
+  const optimal = new Map(
+    benchmarkCsv("tsplib/optimal.csv")
+      .slice(1)
+      .map(([name, len]) => [name!, Number(len)]),
+  );
   for (const [name, tour] of Object.entries(OPTIMAL_TOURS)) {
     it(`${name}: the optimal tour has the length of TSPLIB95 optimal.csv (${PUBLISHED[name]})`, () => {
       const inst = parseTsplib(benchmarkText(`tsplib/${name}.tsp`));

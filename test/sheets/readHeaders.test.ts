@@ -15,21 +15,47 @@ describe("matchHeader", () => {
   });
   it("knows the common synonyms of the stops table", () => {
     const cases: [string, string][] = [
-      ["lat", "latitude"], ["lng", "longitude"], ["lon", "longitude"], ["Long", "longitude"],
-      ["From", "earliest"], ["To", "latest"], ["Window start", "earliest"], ["Window end", "latest"],
-      ["Ready time", "earliest"], ["Due", "latest"], ["Dwell", "serviceMin"], ["Stop time", "serviceMin"],
-      ["Service", "serviceMin"], ["Qty", "demand"], ["Quantity", "demand"], ["Weight", "demand"],
-      ["Stop ID", "id"], ["Customer", "name"], ["Lat, Lon", "coordinates"], ["Required features", "features"],
+      ["lat", "latitude"],
+      ["lng", "longitude"],
+      ["lon", "longitude"],
+      ["Long", "longitude"],
+      ["From", "earliest"],
+      ["To", "latest"],
+      ["Window start", "earliest"],
+      ["Window end", "latest"],
+      ["Ready time", "earliest"],
+      ["Due", "latest"],
+      ["Dwell", "serviceMin"],
+      ["Stop time", "serviceMin"],
+      ["Service", "serviceMin"],
+      ["Qty", "demand"],
+      ["Quantity", "demand"],
+      ["Weight", "demand"],
+      ["Stop ID", "id"],
+      ["Customer", "name"],
+      ["Lat, Lon", "coordinates"],
+      ["Required features", "features"],
       ["Unserved cost", "priority"],
     ];
     for (const [text, base] of cases) expect(matchHeader(text, "stops")?.base, text).toBe(base);
   });
   it("knows the common synonyms of the fleet table", () => {
     const cases: [string, string][] = [
-      ["Van", "id"], ["Truck", "id"], ["Driver", "id"], ["Count", "count"], ["Depot lat", "startLatitude"],
-      ["Start lng", "startLongitude"], ["Return lat", "endLatitude"], ["End long", "endLongitude"],
-      ["Depot", "startCoordinates"], ["Shift start", "shiftStart"], ["Finish", "shiftEnd"], ["Fixed cost", "fixedCost"],
-      ["Hourly rate", "costPerHour"], ["Max stops", "maxStops"], ["Payload", "capacity"],
+      ["Van", "id"],
+      ["Truck", "id"],
+      ["Driver", "id"],
+      ["Count", "count"],
+      ["Depot lat", "startLatitude"],
+      ["Start lng", "startLongitude"],
+      ["Return lat", "endLatitude"],
+      ["End long", "endLongitude"],
+      ["Depot", "startCoordinates"],
+      ["Shift start", "shiftStart"],
+      ["Finish", "shiftEnd"],
+      ["Fixed cost", "fixedCost"],
+      ["Hourly rate", "costPerHour"],
+      ["Max stops", "maxStops"],
+      ["Payload", "capacity"],
     ];
     for (const [text, base] of cases) expect(matchHeader(text, "fleet")?.base, text).toBe(base);
   });
@@ -42,7 +68,11 @@ describe("matchHeader", () => {
     expect(matchHeader("Phone", "stops")).toBeUndefined();
   });
   it("maps a header row: repeated unnumbered windows become pairs, second id columns are carried, other repeats are issues", () => {
-    const cols = mapColumns(["Stop", "Customer ID", "Lat", "Lon", "Earliest", "Latest", "Earliest", "Latest", "Phone", "Latitude"], "stops", { sheet: "Stops", row: 2, col: 1 });
+    const cols = mapColumns(
+      ["Stop", "Customer ID", "Lat", "Lon", "Earliest", "Latest", "Earliest", "Latest", "Phone", "Latitude"],
+      "stops",
+      { sheet: "Stops", row: 2, col: 1 },
+    );
     expect([...cols.fields.keys()]).toEqual(["id", "latitude", "longitude", "earliest", "latest", "earliest:2", "latest:2"]);
     expect(cols.extras.map((x) => x.header)).toEqual(["Customer ID", "Phone"]);
     expect(cols.issues).toHaveLength(1);
@@ -54,17 +84,46 @@ describe("matchHeader", () => {
 describe("findHeaderRow", () => {
   it("skips blank leading rows and a title row", () => {
     expect(findHeaderRow([[], ["Tomorrow's deliveries"], ["", ""], ["Stop", "Lat", "Lon"], ["a", 1, 2]], "stops")).toBe(3);
-    expect(findHeaderRow([["Just", "words"], [1, 2]], "stops")).toBeUndefined();
+    expect(
+      findHeaderRow(
+        [
+          ["Just", "words"],
+          [1, 2],
+        ],
+        "stops",
+      ),
+    ).toBeUndefined();
   });
 });
 
 describe("parseSettingsSheet", () => {
   it("fills the parameters of a schedule named alone, and reads the time schedule's temperatures", () => {
-    expect(parseSettingsSheet({ sheet: "S", row: 0, col: 0, values: [["Schedule", "linear"]] }).settings.cooling).toEqual({ kind: "linear", steps: 20 });
-    const r = parseSettingsSheet({ sheet: "S", row: 0, col: 0, values: [["schedule", "Time"], ["T0", 50], ["T end", "0.5"], ["Seconds", 3]] });
+    expect(parseSettingsSheet({ sheet: "S", row: 0, col: 0, values: [["Schedule", "linear"]] }).settings.cooling).toEqual({
+      kind: "linear",
+      steps: 20,
+    });
+    const r = parseSettingsSheet({
+      sheet: "S",
+      row: 0,
+      col: 0,
+      values: [
+        ["schedule", "Time"],
+        ["T0", 50],
+        ["T end", "0.5"],
+        ["Seconds", 3],
+      ],
+    });
     expect(r.issues).toEqual([]);
     expect(r.settings).toEqual({ cooling: { kind: "timeFraction", t0: 50, tEnd: 0.5 }, seconds: 3 });
-    const lm = parseSettingsSheet({ sheet: "S", row: 0, col: 0, values: [["Schedule", "lundy mees"], ["Beta", 0.001]] });
+    const lm = parseSettingsSheet({
+      sheet: "S",
+      row: 0,
+      col: 0,
+      values: [
+        ["Schedule", "lundy mees"],
+        ["Beta", 0.001],
+      ],
+    });
     expect(lm.settings.cooling).toEqual({ kind: "lundyMees", beta: 0.001 });
   });
   it("asks for a Schedule row when a schedule parameter stands alone", () => {
@@ -76,10 +135,18 @@ describe("parseSettingsSheet", () => {
 
 describe("windows", () => {
   it("reads 12 h ranges with 'to', rolls over midnight, and merges touching windows", () => {
-    expect(parseWindows("8 am to 10 am, 2 pm to 4 pm")).toEqual([{ earliestMin: 480, latestMin: 600 }, { earliestMin: 840, latestMin: 960 }]);
+    expect(parseWindows("8 am to 10 am, 2 pm to 4 pm")).toEqual([
+      { earliestMin: 480, latestMin: 600 },
+      { earliestMin: 840, latestMin: 960 },
+    ]);
     expect(parseWindows("22:00–02:00")).toEqual([{ earliestMin: 1320, latestMin: 1560 }]);
     expect(parseWindows("8:00-")).toBeUndefined();
-    expect(mergeWindows([{ earliestMin: 600, latestMin: 700 }, { earliestMin: 480, latestMin: 600 }])).toEqual([{ earliestMin: 480, latestMin: 700 }]);
+    expect(
+      mergeWindows([
+        { earliestMin: 600, latestMin: 700 },
+        { earliestMin: 480, latestMin: 600 },
+      ]),
+    ).toEqual([{ earliestMin: 480, latestMin: 700 }]);
   });
 });
 

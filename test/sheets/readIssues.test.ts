@@ -41,13 +41,27 @@ describe("readProblem reports defects by sheet and cell", () => {
   });
 
   it("non-numeric and negative demand", () => {
-    const list = issues(read([["S1", "A", "", 45, 4, "ten", "", ""], ["S2", "B", "", 45, 4, -3, "", ""]]));
+    const list = issues(
+      read([
+        ["S1", "A", "", 45, 4, "ten", "", ""],
+        ["S2", "B", "", 45, 4, -3, "", ""],
+      ]),
+    );
     expectIssue(list, "Stops", "F2", `demand "ten" is not a number`);
     expectIssue(list, "Stops", "F3", "demand -3 is below 0");
   });
 
   it("negative, missing and non-numeric capacity", () => {
-    const list = issues(read([OK_STOP], [["A", -5, 45, 4, "", ""], ["B", "", 45, 4, "", ""], ["C", "lots", 45, 4, "", ""]]));
+    const list = issues(
+      read(
+        [OK_STOP],
+        [
+          ["A", -5, 45, 4, "", ""],
+          ["B", "", 45, 4, "", ""],
+          ["C", "lots", 45, 4, "", ""],
+        ],
+      ),
+    );
     expectIssue(list, "Fleet", "B2", "capacity -5 is below 0");
     expectIssue(list, "Fleet", "B3", `capacity is missing for vehicle "B"`);
     expectIssue(list, "Fleet", "B4", `capacity "lots" is not a number`);
@@ -74,7 +88,10 @@ describe("readProblem reports defects by sheet and cell", () => {
   });
 
   it("a header row with no coordinate columns, and an address-only table", () => {
-    const stops = sheet("Stops", [["Stop", "Name", "Address"], ["S1", "A", "5 High St"]]);
+    const stops = sheet("Stops", [
+      ["Stop", "Name", "Address"],
+      ["S1", "A", "5 High St"],
+    ]);
     const list = issues(readProblem({ stops, fleet: sheet("Fleet", [FLEET_HEADER, OK_VAN]) }));
     expectIssue(list, "Stops", "A1", "no coordinate columns");
     expectIssue(list, "Stops", "A1", "geography option");
@@ -84,7 +101,13 @@ describe("readProblem reports defects by sheet and cell", () => {
     expectIssue(issues(read([])), "Stops", "A2", "no stops");
     const empty = readProblem({ stops: sheet("Stops", [[""]]), fleet: sheet("Fleet", [FLEET_HEADER, OK_VAN]) });
     expectIssue(issues(empty), "Stops", "A1", "the sheet is empty");
-    const noHeader = readProblem({ stops: sheet("Stops", [["hello", "world"], [1, 2]]), fleet: sheet("Fleet", [FLEET_HEADER]) });
+    const noHeader = readProblem({
+      stops: sheet("Stops", [
+        ["hello", "world"],
+        [1, 2],
+      ]),
+      fleet: sheet("Fleet", [FLEET_HEADER]),
+    });
     expectIssue(issues(noHeader), "Stops", "A1", "no header row found");
     expectIssue(issues(noHeader), "Fleet", "A2", "no vehicles");
   });
@@ -92,20 +115,32 @@ describe("readProblem reports defects by sheet and cell", () => {
   it("a fleet without depot columns, and a demand column without a capacity column", () => {
     const r = readProblem({
       stops: sheet("Stops", [STOP_HEADER, OK_STOP]),
-      fleet: sheet("Fleet", [["Vehicle", "Shift start", "Shift end"], ["Van", "07:00", "17:00"]]),
+      fleet: sheet("Fleet", [
+        ["Vehicle", "Shift start", "Shift end"],
+        ["Van", "07:00", "17:00"],
+      ]),
     });
     expectIssue(issues(r), "Fleet", "A1", "no depot coordinate columns");
     const noCap = readProblem({
       stops: sheet("Stops", [STOP_HEADER, OK_STOP]),
-      fleet: sheet("Fleet", [["Vehicle", "Lat", "Lon"], ["Van", 45, 4]]),
+      fleet: sheet("Fleet", [
+        ["Vehicle", "Lat", "Lon"],
+        ["Van", 45, 4],
+      ]),
     });
     expectIssue(issues(noCap), "Fleet", "A1", "no Capacity column");
   });
 
   it("demand units without a matching capacity unit", () => {
     const r = readProblem({
-      stops: sheet("Stops", [["Stop", "Lat", "Lon", "Demand kg", "Demand crates"], ["S1", 45, 4, 1, 1]]),
-      fleet: sheet("Fleet", [["Van", "Lat", "Lon", "Capacity kg"], ["A", 45, 4, 10]]),
+      stops: sheet("Stops", [
+        ["Stop", "Lat", "Lon", "Demand kg", "Demand crates"],
+        ["S1", 45, 4, 1, 1],
+      ]),
+      fleet: sheet("Fleet", [
+        ["Van", "Lat", "Lon", "Capacity kg"],
+        ["A", 45, 4, 10],
+      ]),
     });
     expectIssue(issues(r), "Stops", "E1", `"Demand crates" has no matching capacity column`);
   });
@@ -133,8 +168,14 @@ describe("readProblem reports defects by sheet and cell", () => {
   });
 
   it("bad times, durations, counts and shift ends", () => {
-    const stops = sheet("Stops", [["Stop", "Lat", "Lon", "Earliest", "Latest", "Service min"], ["S1", 45, 4, "25:00", "abc", "long"]]);
-    const fleet = sheet("Fleet", [["Van", "Count", "Lat", "Lon", "Shift start", "Shift end", "Speed km/h"], ["A", 1.5, 45, 4, "08:00", "08:00", 0]]);
+    const stops = sheet("Stops", [
+      ["Stop", "Lat", "Lon", "Earliest", "Latest", "Service min"],
+      ["S1", 45, 4, "25:00", "abc", "long"],
+    ]);
+    const fleet = sheet("Fleet", [
+      ["Van", "Count", "Lat", "Lon", "Shift start", "Shift end", "Speed km/h"],
+      ["A", 1.5, 45, 4, "08:00", "08:00", 0],
+    ]);
     const list = issues(readProblem({ stops, fleet }));
     expectIssue(list, "Stops", "D2", `earliest time "25:00" is not a time of day`);
     expectIssue(list, "Stops", "E2", `latest time "abc" is not a time of day`);
@@ -145,14 +186,19 @@ describe("readProblem reports defects by sheet and cell", () => {
   });
 
   it("unknown setting keys and unknown setting values", () => {
-    const settings = sheet("Settings", [
-      ["Setting", "Value"],
-      ["Colour", "blue"],
-      ["Schedule", "quadratic"],
-      ["Acceptance", "greedy"],
-      ["Detour factor", 0.8],
-      ["Windows", "maybe"],
-    ], 2, 3);
+    const settings = sheet(
+      "Settings",
+      [
+        ["Setting", "Value"],
+        ["Colour", "blue"],
+        ["Schedule", "quadratic"],
+        ["Acceptance", "greedy"],
+        ["Detour factor", 0.8],
+        ["Windows", "maybe"],
+      ],
+      2,
+      3,
+    );
     const list = issues(read([OK_STOP], [OK_VAN], { settings }));
     expectIssue(list, "Settings", "D4", `unknown setting "Colour"`);
     expectIssue(list, "Settings", "E5", `"quadratic" is not a valid cooling schedule`);
@@ -162,40 +208,74 @@ describe("readProblem reports defects by sheet and cell", () => {
   });
 
   it("schedule parameters that do not fit, and Lundy-Mees without Beta", () => {
-    const settings = sheet("Settings", [["Schedule", "Lundy-Mees"], ["Alpha", 0.9]]);
+    const settings = sheet("Settings", [
+      ["Schedule", "Lundy-Mees"],
+      ["Alpha", 0.9],
+    ]);
     const list = issues(read([OK_STOP], [OK_VAN], { settings }));
     expectIssue(list, "Settings", "B2", "Alpha does not apply to the lundyMees schedule");
     expectIssue(list, "Settings", "B1", "needs a Beta row");
   });
 
   it("a matrix sheet missing a location or holding a bad distance", () => {
-    const matrix = sheet("Km", [["km", "Depot", "S1"], ["Depot", 0, "far"]]);
+    const matrix = sheet("Km", [
+      ["km", "Depot", "S1"],
+      ["Depot", 0, "far"],
+    ]);
     const list = issues(read([OK_STOP], [OK_VAN], { matrix }));
     expectIssue(list, "Km", "A1", `location "S1" has no row`);
-    const bad = sheet("Km", [["km", "Depot", "S1"], ["Depot", 0, "far"], ["S1", 3, 0]]);
+    const bad = sheet("Km", [
+      ["km", "Depot", "S1"],
+      ["Depot", 0, "far"],
+      ["S1", 3, 0],
+    ]);
     expectIssue(issues(read([OK_STOP], [OK_VAN], { matrix: bad })), "Km", "C2", `"far" is not a distance`);
   });
 
   it("a Count of 0 leaves a row out; a fleet with no vehicle left is an issue", () => {
-    const fleet = sheet("Fleet", [["Van", "Count", "Capacity", "Lat", "Lon"], ["A", 0, 10, 45, 4], ["B", 2, 10, 45, 4]]);
+    const fleet = sheet("Fleet", [
+      ["Van", "Count", "Capacity", "Lat", "Lon"],
+      ["A", 0, 10, 45, 4],
+      ["B", 2, 10, 45, 4],
+    ]);
     const two = readProblem({ stops: sheet("Stops", [STOP_HEADER, OK_STOP]), fleet });
     if (!two.ok) throw new Error(JSON.stringify(two.issues));
     expect(two.problem.vehicles.map((v) => v.id)).toEqual(["B 1", "B 2"]);
-    const none = sheet("Fleet", [["Van", "Count", "Capacity", "Lat", "Lon"], ["A", 0, 10, 45, 4]]);
-    expectIssue(issues(readProblem({ stops: sheet("Stops", [STOP_HEADER, OK_STOP]), fleet: none })), "Fleet", "A1", "no vehicle is available");
+    const none = sheet("Fleet", [
+      ["Van", "Count", "Capacity", "Lat", "Lon"],
+      ["A", 0, 10, 45, 4],
+    ]);
+    expectIssue(
+      issues(readProblem({ stops: sheet("Stops", [STOP_HEADER, OK_STOP]), fleet: none })),
+      "Fleet",
+      "A1",
+      "no vehicle is available",
+    );
   });
 
   it("reports all defects of the tables at once", () => {
-    const list = issues(read(
-      [["S1", "A", "", 123.4, 4, "x", "", ""], ["S1", "B", "", 45, 4, 1, "", ""]],
-      [["Van", -1, 45, 4, "", ""]],
-    ));
+    const list = issues(
+      read(
+        [
+          ["S1", "A", "", 123.4, 4, "x", "", ""],
+          ["S1", "B", "", 45, 4, 1, "", ""],
+        ],
+        [["Van", -1, 45, 4, "", ""]],
+      ),
+    );
     expect(list.map((i) => `${i.sheet}!${i.cell}`).sort()).toEqual(["Fleet!B2", "Stops!A3", "Stops!D2", "Stops!F2"]);
   });
 
   it("never throws on arbitrary cell grids (property, fast-check)", () => {
-    const cell = fc.oneof(fc.string(), fc.double(), fc.integer(), fc.boolean(), fc.constant(""), fc.constant(null),
-      fc.constantFrom("Stop", "Latitude", "Longitude", "Demand", "Earliest", "Latest", "Capacity", "#N/A", "08:00", "45°N", "Count"));
+    const cell = fc.oneof(
+      fc.string(),
+      fc.double(),
+      fc.integer(),
+      fc.boolean(),
+      fc.constant(""),
+      fc.constant(null),
+      fc.constantFrom("Stop", "Latitude", "Longitude", "Demand", "Earliest", "Latest", "Capacity", "#N/A", "08:00", "45°N", "Count"),
+    );
     const grid = fc.array(fc.array(cell, { maxLength: 8 }), { maxLength: 8 });
     fc.assert(
       fc.property(grid, grid, grid, (s, f, t) => {
@@ -214,11 +294,20 @@ describe("readProblem reports defects by sheet and cell", () => {
   });
 
   it("near-valid random tables give either a consistent problem or cell issues, never model-level ones (property, fast-check)", () => {
-    const time = fc.oneof(fc.constant(""), fc.integer({ min: 0, max: 26 }).map((h) => `${h}:${h % 2 === 0 ? "00" : "30"}`), fc.double({ min: 0, max: 1, noNaN: true }));
+    const time = fc.oneof(
+      fc.constant(""),
+      fc.integer({ min: 0, max: 26 }).map((h) => `${h}:${h % 2 === 0 ? "00" : "30"}`),
+      fc.double({ min: 0, max: 1, noNaN: true }),
+    );
     const stopRow = fc.tuple(
-      fc.constantFrom("S1", "S2", "S3", "S4", "S5", ""), fc.constant("n"), fc.constant(""),
-      fc.double({ min: -100, max: 100, noNaN: true }), fc.double({ min: -200, max: 200, noNaN: true }),
-      fc.oneof(fc.integer({ min: -2, max: 120 }), fc.constant("x"), fc.constant("")), time, time,
+      fc.constantFrom("S1", "S2", "S3", "S4", "S5", ""),
+      fc.constant("n"),
+      fc.constant(""),
+      fc.double({ min: -100, max: 100, noNaN: true }),
+      fc.double({ min: -200, max: 200, noNaN: true }),
+      fc.oneof(fc.integer({ min: -2, max: 120 }), fc.constant("x"), fc.constant("")),
+      time,
+      time,
     );
     const vanRow = fc.tuple(fc.constantFrom("A", "B", "C"), fc.integer({ min: -1, max: 150 }), fc.constant(45), fc.constant(4), time, time);
     fc.assert(

@@ -144,14 +144,29 @@ describe("cell values", () => {
 
 describe("parseCsv (RFC 4180)", () => {
   it("reads the RFC 4180 §2 examples: CRLF lines, optional final line break, quoted fields", () => {
-    expect(parseCsv("aaa,bbb,ccc\r\nzzz,yyy,xxx\r\n")).toEqual([["aaa", "bbb", "ccc"], ["zzz", "yyy", "xxx"]]);
-    expect(parseCsv("aaa,bbb,ccc\r\nzzz,yyy,xxx")).toEqual([["aaa", "bbb", "ccc"], ["zzz", "yyy", "xxx"]]);
-    expect(parseCsv('"aaa","b\r\nbb","ccc"\r\nzzz,yyy,xxx')).toEqual([["aaa", "b\r\nbb", "ccc"], ["zzz", "yyy", "xxx"]]);
+    expect(parseCsv("aaa,bbb,ccc\r\nzzz,yyy,xxx\r\n")).toEqual([
+      ["aaa", "bbb", "ccc"],
+      ["zzz", "yyy", "xxx"],
+    ]);
+    expect(parseCsv("aaa,bbb,ccc\r\nzzz,yyy,xxx")).toEqual([
+      ["aaa", "bbb", "ccc"],
+      ["zzz", "yyy", "xxx"],
+    ]);
+    expect(parseCsv('"aaa","b\r\nbb","ccc"\r\nzzz,yyy,xxx')).toEqual([
+      ["aaa", "b\r\nbb", "ccc"],
+      ["zzz", "yyy", "xxx"],
+    ]);
     expect(parseCsv('"aaa","b""bb","ccc"')).toEqual([["aaa", 'b"bb', "ccc"]]);
   });
   it("reads LF lines, empty fields, a leading BOM and ;-separated files", () => {
-    expect(parseCsv("\uFEFFa,b\n1,\n")).toEqual([["a", "b"], ["1", ""]]);
-    expect(parseCsv('Stop;Name;Lat\n1;"A; B";45,5\n')).toEqual([["Stop", "Name", "Lat"], ["1", "A; B", "45,5"]]);
+    expect(parseCsv("\uFEFFa,b\n1,\n")).toEqual([
+      ["a", "b"],
+      ["1", ""],
+    ]);
+    expect(parseCsv('Stop;Name;Lat\n1;"A; B";45,5\n')).toEqual([
+      ["Stop", "Name", "Lat"],
+      ["1", "A; B", "45,5"],
+    ]);
     expect(parseCsv("")).toEqual([]);
   });
 });

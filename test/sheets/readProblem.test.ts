@@ -18,14 +18,19 @@ function stopsOf(rows: unknown[][], header = ["Stop", "Name", "Latitude", "Longi
 
 describe("readProblem: a clean table", () => {
   it("finds the header below blank rows and a title, matches synonyms and carries unknown columns through", () => {
-    const stops = sheet("Stops", [
-      [],
-      ["Deliveries for Tuesday"],
-      ["", "", "", "", "", "", "", ""],
-      ["stop_id", "Customer", "LAT", "lng", "Qty", "Ready", "Due", "Dwell time", "Phone"],
-      ["S1", "Bakery", 45.76, 4.83, 10, 0.354166666, "10:00", 7, "+33 4 00 00 00"],
-      ["S2", "Florist", "45°45'36\"N", "4°50'E", "5", "1:30 PM", "2:30 PM", "", "n/a"],
-    ], 4, 1);
+    const stops = sheet(
+      "Stops",
+      [
+        [],
+        ["Deliveries for Tuesday"],
+        ["", "", "", "", "", "", "", ""],
+        ["stop_id", "Customer", "LAT", "lng", "Qty", "Ready", "Due", "Dwell time", "Phone"],
+        ["S1", "Bakery", 45.76, 4.83, 10, 0.354166666, "10:00", 7, "+33 4 00 00 00"],
+        ["S2", "Florist", "45°45'36\"N", "4°50'E", "5", "1:30 PM", "2:30 PM", "", "n/a"],
+      ],
+      4,
+      1,
+    );
     const r = readProblem({ stops, fleet: FLEET });
     if (!r.ok) throw new Error(JSON.stringify(r.issues));
     const p = r.problem;
@@ -99,14 +104,26 @@ describe("readProblem: a clean table", () => {
     const r = readProblem({ stops, fleet: FLEET, settings: sheet("Settings", [["Windows", "soft"]]) });
     if (!r.ok) throw new Error(JSON.stringify(r.issues));
     const [s1, s2, s3] = r.problem.stops;
-    expect(s1!.windows).toEqual([{ earliestMin: 480, latestMin: 600 }, { earliestMin: 840, latestMin: 960 }]);
-    expect(s2!.windows).toEqual([{ earliestMin: 480, latestMin: 660 }, { earliestMin: 1320, latestMin: 1560 }]);
-    expect(s3!.windows).toEqual([{ earliestMin: 480, latestMin: 600 }, { earliestMin: 840, latestMin: 960 }]);
+    expect(s1!.windows).toEqual([
+      { earliestMin: 480, latestMin: 600 },
+      { earliestMin: 840, latestMin: 960 },
+    ]);
+    expect(s2!.windows).toEqual([
+      { earliestMin: 480, latestMin: 660 },
+      { earliestMin: 1320, latestMin: 1560 },
+    ]);
+    expect(s3!.windows).toEqual([
+      { earliestMin: 480, latestMin: 600 },
+      { earliestMin: 840, latestMin: 960 },
+    ]);
   });
 
   it("pairs Demand kg / Demand crates with Capacity kg / Capacity crates and reads Priority and Features", () => {
     const stops = stopsOf(
-      [["S1", "A", 45.76, 4.83, 12, 3, 250, "Fridge"], ["S2", "B", 45.7, 4.8, 1, 0, "", ""]],
+      [
+        ["S1", "A", 45.76, 4.83, 12, 3, 250, "Fridge"],
+        ["S2", "B", 45.7, 4.8, 1, 0, "", ""],
+      ],
       ["Stop", "Name", "Lat", "Lon", "Demand kg", "Demand crates", "Priority", "Features"],
     );
     const fleet = sheet("Fleet", [
@@ -126,7 +143,11 @@ describe("readProblem: a clean table", () => {
   });
 
   it("reads one Coordinates column with lat, lon and ids from row numbers when there is no Stop column", () => {
-    const stops = sheet("Stops", [["Name", "Coordinates"], ["A", "45.76, 4.83"], ["B", `45°45'36"N, 4°50'W`]]);
+    const stops = sheet("Stops", [
+      ["Name", "Coordinates"],
+      ["A", "45.76, 4.83"],
+      ["B", `45°45'36"N, 4°50'W`],
+    ]);
     const r = readProblem({ stops, fleet: FLEET });
     if (!r.ok) throw new Error(JSON.stringify(r.issues));
     expect(r.problem.stops.map((s) => s.id)).toEqual(["2", "3"]);
@@ -169,7 +190,10 @@ describe("readProblem: a clean table", () => {
       ["Depot", 4, 0, 6],
       ["S2", 0, 7, 8],
     ]);
-    const stops = stopsOf([["S1", "A", 45.76, 4.83, 1], ["S2", "B", 45.7, 4.8, 1]]);
+    const stops = stopsOf([
+      ["S1", "A", 45.76, 4.83, 1],
+      ["S2", "B", 45.7, 4.8, 1],
+    ]);
     const r = readProblem({ stops, fleet: FLEET, matrix });
     if (!r.ok) throw new Error(JSON.stringify(r.issues));
     expect(Array.from(r.problem.matrix.distanceKm)).toEqual([0, 6, 4, 5, 0, 3, 7, 8, 0]);

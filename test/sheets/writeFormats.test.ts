@@ -65,7 +65,16 @@ describe("scenarioSettingsKey", () => {
 
 describe("CAUTION_TEXT", () => {
   it("says distances are straight-line estimates with a detour factor and names what to check", () => {
-    for (const part of ["straight-line", "detour factor", "estimates", "roads", "vehicle restrictions", "driving and rest hours", "local regulations", "company rules prevail"]) {
+    for (const part of [
+      "straight-line",
+      "detour factor",
+      "estimates",
+      "roads",
+      "vehicle restrictions",
+      "driving and rest hours",
+      "local regulations",
+      "company rules prevail",
+    ]) {
       expect(CAUTION_TEXT).toContain(part);
     }
   });
@@ -73,11 +82,26 @@ describe("CAUTION_TEXT", () => {
 
 describe("windowUsed (multiple windows: show the one used)", () => {
   const stop: Stop = {
-    id: "W", name: "W", location: 0, demand: [1], serviceMin: 5,
-    windows: [{ earliestMin: 480, latestMin: 540 }, { earliestMin: 720, latestMin: 780 }],
+    id: "W",
+    name: "W",
+    location: 0,
+    demand: [1],
+    serviceMin: 5,
+    windows: [
+      { earliestMin: 480, latestMin: 540 },
+      { earliestMin: 720, latestMin: 780 },
+    ],
   };
   const visit = (startMin: number, lateMin: number): Visit => ({
-    stop: 0, arrivalMin: startMin, waitMin: 0, startMin, departureMin: startMin + 5, loadAfter: [0], legKm: 0, totalKm: 0, lateMin,
+    stop: 0,
+    arrivalMin: startMin,
+    waitMin: 0,
+    startMin,
+    departureMin: startMin + 5,
+    loadAfter: [0],
+    legKm: 0,
+    totalKm: 0,
+    lateMin,
   });
   it("picks the window containing the start", () => {
     expect(windowUsed(stop, visit(500, 0))).toBe(stop.windows[0]);
@@ -103,7 +127,18 @@ describe("formatLoad", () => {
 
 describe("columnWidths", () => {
   it("fits the longest shown text plus a margin, between 6 and 40", () => {
-    expect(columnWidths([["Vehicle", 12.5, "x".repeat(80)], [null, 1, null]], [[null, "0.0", null], [null, "0.0", null]])).toEqual([9, 6, 40]);
+    expect(
+      columnWidths(
+        [
+          ["Vehicle", 12.5, "x".repeat(80)],
+          [null, 1, null],
+        ],
+        [
+          [null, "0.0", null],
+          [null, "0.0", null],
+        ],
+      ),
+    ).toEqual([9, 6, 40]);
   });
   it("ignores skipped rows", () => {
     expect(columnWidths([["a".repeat(30)], ["ab"]], [[null], [null]], [0])).toEqual([6]);

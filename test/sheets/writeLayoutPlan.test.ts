@@ -28,8 +28,7 @@ const { values, numberFormats } = layout.grid;
 const at = (r: number, c: number): CellValue => values[r]![c]!;
 const fmt = (r: number, c: number): string | null => numberFormats![r]![c]!;
 const col = (name: string): number => values[layout.routeTable.row]!.indexOf(name);
-const routeRows = (): (readonly CellValue[])[] =>
-  values.slice(layout.routeTable.row + 1, layout.routeTable.row + layout.routeTable.rows);
+const routeRows = (): (readonly CellValue[])[] => values.slice(layout.routeTable.row + 1, layout.routeTable.row + layout.routeTable.rows);
 const blockCells = (b: CellBlock): CellValue[] => {
   const out: CellValue[] = [];
   for (let r = b.row; r < b.row + b.rows; r++) for (let c = b.col; c < b.col + b.cols; c++) out.push(at(r, c));
@@ -68,12 +67,32 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
   it("settings block carries scenario, created, seed, schedule, rule, moves, run time, sources, detour, speed, windows", () => {
     const labels = values[2]!.filter((v) => v !== null);
     expect(labels).toEqual([
-      "Scenario", "Created", "Seed", "Cooling schedule", "Acceptance rule", "Moves", "Run seconds",
-      "Stops source", "Fleet source", "Detour factor", "Speed km/h", "Windows",
+      "Scenario",
+      "Created",
+      "Seed",
+      "Cooling schedule",
+      "Acceptance rule",
+      "Moves",
+      "Run seconds",
+      "Stops source",
+      "Fleet source",
+      "Detour factor",
+      "Speed km/h",
+      "Windows",
     ]);
     expect(values[3]!.slice(0, 12)).toEqual([
-      "'-Tuesday late", CREATED_SERIAL, 7, "geometric a=0.94 L=1000", "Metropolis", 200000, 4.3,
-      "Stops!A1:H6", "Fleet!A1:N4", 1.3, 40, "soft, 1 per min late",
+      "'-Tuesday late",
+      CREATED_SERIAL,
+      7,
+      "geometric a=0.94 L=1000",
+      "Metropolis",
+      200000,
+      4.3,
+      "Stops!A1:H6",
+      "Fleet!A1:N4",
+      1.3,
+      40,
+      "soft, 1 per min late",
     ]);
     // ECMA-376 1900 system: 2026-12-01 is serial 46357 (from memory, checked: 25569 = 1970-01-01).
     expect(Math.floor(CREATED_SERIAL)).toBe(46357);
@@ -82,7 +101,14 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
 
   it("totals block: vehicles, km to 0.1, driving/duty/waiting as [h]:mm durations, late, cost, unassigned", () => {
     expect(values[4]!.slice(0, 8)).toEqual([
-      "Vehicles used", "Km", "Driving hours", "Duty hours", "Waiting hours", "Late min", "Cost", "Unassigned",
+      "Vehicles used",
+      "Km",
+      "Driving hours",
+      "Duty hours",
+      "Waiting hours",
+      "Late min",
+      "Cost",
+      "Unassigned",
     ]);
     expect(values[5]!.slice(0, 8)).toEqual([2, 27.1, 76.5 / 1440, 255 / 1440, 30 / 1440, 10, 298.57, 1]);
     expect(numberFormats![5]!.slice(0, 8)).toEqual(["0", "0.0", "[h]:mm", "[h]:mm", "[h]:mm", "0.0", "0.00", "0"]);
@@ -105,22 +131,36 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
   it("each used route starts with a Seq 0 depot row and ends with a Seq n+1 depot row; unused vehicles are left out", () => {
     const rows = routeRows();
     expect(rows.map((r) => [r[0], r[1], r[2]])).toEqual([
-      ["Van 1", 0, "Kiln Yard"], ["Van 1", 1, "S1"], ["Van 1", 2, "S2"], ["Van 1", 3, "3-4"], ["Van 1", 4, "Kiln Yard"],
-      ["'=Night", 0, "North Gate"], ["'=Night", 1, "S4"], ["'=Night", 2, "Kiln Yard"],
+      ["Van 1", 0, "Kiln Yard"],
+      ["Van 1", 1, "S1"],
+      ["Van 1", 2, "S2"],
+      ["Van 1", 3, "3-4"],
+      ["Van 1", 4, "Kiln Yard"],
+      ["'=Night", 0, "North Gate"],
+      ["'=Night", 1, "S4"],
+      ["'=Night", 2, "Kiln Yard"],
     ]);
   });
 
   it("Load is the load after the stop; the start depot shows the full load; two dimensions as text", () => {
     const rows = routeRows();
     expect(rows.map((r) => r[col("Load")]).slice(0, 5)).toEqual([
-      "120 kg / 8 crates", "80 kg / 5 crates", "50 kg / 3 crates", "0 kg / 0 crates", "0 kg / 0 crates",
+      "120 kg / 8 crates",
+      "80 kg / 5 crates",
+      "50 kg / 3 crates",
+      "0 kg / 0 crates",
+      "0 kg / 0 crates",
     ]);
   });
 
   it("km are rounded to 0.1 with format 0.0; the end row carries the leg back and the route total", () => {
     const rows = routeRows();
     expect(rows.slice(0, 5).map((r) => [r[col("Leg km")], r[col("Total km")]])).toEqual([
-      [0, 0], [3.4, 3.4], [2.2, 5.6], [1.9, 7.4], [2.6, 10],
+      [0, 0],
+      [3.4, 3.4],
+      [2.2, 5.6],
+      [1.9, 7.4],
+      [2.6, 10],
     ]);
     expect(fmt(layout.routeTable.row + 1, col("Leg km"))).toBe("0.0");
   });
@@ -183,7 +223,9 @@ describe("Compare sheet (DESIGN.md §5)", () => {
 
   it("row: scenario, vehicles, km, duty hours, cost, late, unassigned, schedule with rule, seed, created", () => {
     const row = layoutCompareRow(run, plan);
-    expect(row.values).toEqual([["'-Tuesday late", 2, 27.1, 255 / 1440, 298.57, 10, 1, "geometric a=0.94 L=1000, Metropolis", 7, CREATED_SERIAL]]);
+    expect(row.values).toEqual([
+      ["'-Tuesday late", 2, 27.1, 255 / 1440, 298.57, 10, 1, "geometric a=0.94 L=1000, Metropolis", 7, CREATED_SERIAL],
+    ]);
     expect(row.numberFormats).toEqual([["@", "0", "0.0", "[h]:mm", "0.00", "0.0", "0", "@", null, "yyyy-mm-dd hh:mm"]]);
   });
 });

@@ -39,7 +39,7 @@ describe("safeText: user text cannot become a formula", () => {
 describe("layouts write formula-like text as text", () => {
   const grids = [layoutPlan({ problem, plan, run, stopRows, extraHeaders }).grid, layoutCompareRow(run, plan)];
 
-  it("stop names \"=SUM(A1)\", \"+1\", \"-x\", \"@cmd\" come out prefixed and formatted @", () => {
+  it('stop names "=SUM(A1)", "+1", "-x", "@cmd" come out prefixed and formatted @', () => {
     const grid = grids[0]!;
     for (const name of ["=SUM(A1)", "+1", "-x", "@cmd"]) {
       const r = grid.values.findIndex((row) => row[3] === "'" + name);

@@ -27,7 +27,7 @@ describe("uniqueSheetName: Excel's sheet-name rules", () => {
     expect(uniqueSheetName("Mon 1/12: [late]?", [])).toBe("Mon 1-12- late");
   });
 
-  it("falls back to \"Plan\" when nothing printable is left", () => {
+  it('falls back to "Plan" when nothing printable is left', () => {
     expect(uniqueSheetName("", [])).toBe("Plan");
     expect(uniqueSheetName("   ", [])).toBe("Plan");
     expect(uniqueSheetName("[*?]", [])).toBe("Plan");
@@ -69,7 +69,7 @@ describe("uniqueSheetName: Excel's sheet-name rules", () => {
     expect(uniqueSheetName("plan 2", ["PLAN 2", "pLaN 2 (2)"])).toBe("plan 2 (3)");
   });
 
-  it("never returns \"History\" in any case (reserved by Excel, common practice)", () => {
+  it('never returns "History" in any case (reserved by Excel, common practice)', () => {
     expect(uniqueSheetName("History", [])).toBe("History (2)");
     expect(uniqueSheetName("history", [])).toBe("history (2)");
   });

@@ -3,10 +3,25 @@ import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
 import { formFromSettings, settingsFromForm, type PaneForm } from "../../src/taskpane/settingsFromForm.js";
 
 const FORM: PaneForm = {
-  scenario: "Plan 3", detour: "1.3", speed: "40", service: "5", windows: "hard", "late-cost": "1",
-  seconds: "10", seed: "1", rule: "metropolis", schedule: "timeFraction", alpha: "0.94",
-  "moves-per-level": "20000", steps: "20", beta: "0.0001", temperatures: "calibrate",
-  p0: "0.5", "p-end": "0.001", t0: "100", "t-end": "1",
+  scenario: "Plan 3",
+  detour: "1.3",
+  speed: "40",
+  service: "5",
+  windows: "hard",
+  "late-cost": "1",
+  seconds: "10",
+  seed: "1",
+  rule: "metropolis",
+  schedule: "timeFraction",
+  alpha: "0.94",
+  "moves-per-level": "20000",
+  steps: "20",
+  beta: "0.0001",
+  temperatures: "calibrate",
+  p0: "0.5",
+  "p-end": "0.001",
+  t0: "100",
+  "t-end": "1",
 };
 
 describe("settingsFromForm", () => {
@@ -25,8 +40,17 @@ describe("settingsFromForm", () => {
   });
 
   it("builds each cooling schedule with its own parameters; manual temperatures override calibration", () => {
-    expect(settingsFromForm({ ...FORM, schedule: "geometric" }).settings.cooling).toEqual({ kind: "geometric", alpha: 0.94, movesPerLevel: 20000 });
-    expect(settingsFromForm({ ...FORM, schedule: "linear", temperatures: "manual" }).settings.cooling).toEqual({ kind: "linear", steps: 20, t0: 100, tEnd: 1 });
+    expect(settingsFromForm({ ...FORM, schedule: "geometric" }).settings.cooling).toEqual({
+      kind: "geometric",
+      alpha: 0.94,
+      movesPerLevel: 20000,
+    });
+    expect(settingsFromForm({ ...FORM, schedule: "linear", temperatures: "manual" }).settings.cooling).toEqual({
+      kind: "linear",
+      steps: 20,
+      t0: 100,
+      tEnd: 1,
+    });
     expect(settingsFromForm({ ...FORM, schedule: "lundyMees" }).settings.cooling).toEqual({ kind: "lundyMees", beta: 0.0001 });
     const upside = settingsFromForm({ ...FORM, temperatures: "manual", t0: "1", "t-end": "5" });
     expect(upside.issues.map((i) => i.cell)).toEqual(["T end"]);
@@ -35,8 +59,15 @@ describe("settingsFromForm", () => {
   it("formFromSettings then settingsFromForm gives the stored settings back (Rerun)", () => {
     const stored = {
       ...PLAN_SETTINGS_DEFAULTS,
-      detourFactor: 1.4, hardWindows: false, lateCostPerMin: 2.5, seed: 42, seconds: 30, rule: "logistic" as const,
-      cooling: { kind: "geometric" as const, alpha: 0.9, movesPerLevel: 500 }, p0: 0.4, pEnd: 0.01,
+      detourFactor: 1.4,
+      hardWindows: false,
+      lateCostPerMin: 2.5,
+      seed: 42,
+      seconds: 30,
+      rule: "logistic" as const,
+      cooling: { kind: "geometric" as const, alpha: 0.9, movesPerLevel: 500 },
+      p0: 0.4,
+      pEnd: 0.01,
     };
     const back = settingsFromForm(formFromSettings(stored, "Plan 7", FORM));
     expect(back.issues).toEqual([]);

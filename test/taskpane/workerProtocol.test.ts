@@ -196,6 +196,9 @@ describe("worker protocol", () => {
     expect(first?.type === "result" && first.runId === 10 && first.stopped).toBe(true);
     for (let i = 0; i < 1000 && runNext(); i++);
     const results = sent.filter((m) => m.type === "result");
-    expect(results.map((m) => (m.type === "result" ? [m.runId, m.stopped] : []))).toEqual([[10, true], [11, false]]);
+    expect(results.map((m) => (m.type === "result" ? [m.runId, m.stopped] : []))).toEqual([
+      [10, true],
+      [11, false],
+    ]);
   });
 });

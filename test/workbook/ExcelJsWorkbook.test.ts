@@ -73,7 +73,15 @@ describe("ExcelJsWorkbook.readSheet", () => {
       ws.getCell("A10").numFmt = "0.00"; // formatted but empty: not part of the used values
     });
     const read = await (await ExcelJsWorkbook.fromBuffer(bytes)).readSheet("offset");
-    expect(read).toEqual({ sheet: "Offset", row: 2, col: 1, values: [["x", "", ""], ["", "", 7]] });
+    expect(read).toEqual({
+      sheet: "Offset",
+      row: 2,
+      col: 1,
+      values: [
+        ["x", "", ""],
+        ["", "", 7],
+      ],
+    });
   });
 
   it("returns undefined for a missing sheet and an empty read for an empty one", async () => {
@@ -88,7 +96,12 @@ describe("ExcelJsWorkbook writing", () => {
     const book = ExcelJsWorkbook.fromGrids([]);
     await book.addSheet("Out", { values: [["=SUM(A1)", "+44 1234", "-3", "@home", 12]] });
     const ws = (await reload(book)).getWorksheet("Out")!;
-    for (const [addr, text] of [["A1", "=SUM(A1)"], ["B1", "+44 1234"], ["C1", "-3"], ["D1", "@home"]] as const) {
+    for (const [addr, text] of [
+      ["A1", "=SUM(A1)"],
+      ["B1", "+44 1234"],
+      ["C1", "-3"],
+      ["D1", "@home"],
+    ] as const) {
       const cell = ws.getCell(addr);
       expect(cell.type).toBe(ExcelJS.ValueType.String);
       expect(cell.formula).toBeFalsy();
@@ -100,8 +113,14 @@ describe("ExcelJsWorkbook writing", () => {
   it("writes number formats, bold rows, column widths and frozen rows", async () => {
     const book = ExcelJsWorkbook.fromGrids([]);
     await book.addSheet("Fmt", {
-      values: [["Stop", "Arrival"], ["S1", 0.25]],
-      numberFormats: [[null, null], [null, "hh:mm"]],
+      values: [
+        ["Stop", "Arrival"],
+        ["S1", 0.25],
+      ],
+      numberFormats: [
+        [null, null],
+        [null, "hh:mm"],
+      ],
       columnWidths: [10, 14],
       freezeRows: 1,
       boldRows: [0],
@@ -125,7 +144,11 @@ describe("ExcelJsWorkbook writing", () => {
   it("records that a chart was skipped (exceljs cannot write charts)", async () => {
     const book = ExcelJsWorkbook.fromGrids([]);
     const block = { row: 1, col: 0, rows: 1, cols: 1 };
-    await book.addSheet("Plan", { values: [["x"]] }, { title: "Routes", series: [{ name: "V1", x: block, y: block }], anchor: { row: 0, col: 3 } });
+    await book.addSheet(
+      "Plan",
+      { values: [["x"]] },
+      { title: "Routes", series: [{ name: "V1", x: block, y: block }], anchor: { row: 0, col: 3 } },
+    );
     expect(book.skippedCharts).toEqual(["Plan"]);
   });
 
@@ -136,7 +159,16 @@ describe("ExcelJsWorkbook writing", () => {
     await book.appendRows("Compare", header, { values: [["B", 2.5]], numberFormats: [[null, "0.0"]] });
     const fresh = await reload(book);
     const ws = fresh.getWorksheet("Compare")!;
-    expect(ws.getSheetValues().slice(1).map((r) => (r as unknown[]).slice(1))).toEqual([["Scenario", "Km"], ["A", 1.5], ["B", 2.5]]);
+    expect(
+      ws
+        .getSheetValues()
+        .slice(1)
+        .map((r) => (r as unknown[]).slice(1)),
+    ).toEqual([
+      ["Scenario", "Km"],
+      ["A", 1.5],
+      ["B", 2.5],
+    ]);
     expect(ws.getCell("B3").numFmt).toBe("0.0");
     expect(ws.getCell("A1").font?.bold).toBe(true);
   });
@@ -154,10 +186,23 @@ describe("ExcelJsWorkbook writing", () => {
   });
 
   it("round-trips the sheets of fromGrids through bytes", async () => {
-    const book = ExcelJsWorkbook.fromGrids([{ name: "Stops", values: [["Stop", "Lat"], ["S1", 52.5], ["=x", null]] }]);
+    const book = ExcelJsWorkbook.fromGrids([
+      {
+        name: "Stops",
+        values: [
+          ["Stop", "Lat"],
+          ["S1", 52.5],
+          ["=x", null],
+        ],
+      },
+    ]);
     const again = await ExcelJsWorkbook.fromBuffer(await book.toBuffer());
     expect(await again.listSheets()).toEqual(["Stops"]);
-    expect((await again.readSheet("Stops"))!.values).toEqual([["Stop", "Lat"], ["S1", 52.5], ["=x", ""]]);
+    expect((await again.readSheet("Stops"))!.values).toEqual([
+      ["Stop", "Lat"],
+      ["S1", 52.5],
+      ["=x", ""],
+    ]);
   });
 });
 

@@ -12,7 +12,12 @@ const MOVES = 20_000;
 
 async function solvedDemo() {
   const book = await ExcelJsWorkbook.fromBuffer(await readFile(DEMO_URL));
-  const read = await readScenarioInput(book, { stopsSheet: "Stops", fleetSheet: "Fleet", settingsSheet: "Settings", overrides: { moves: MOVES } });
+  const read = await readScenarioInput(book, {
+    stopsSheet: "Stops",
+    fleetSheet: "Fleet",
+    settingsSheet: "Settings",
+    overrides: { moves: MOVES },
+  });
   if (!read.ok) throw new Error(read.issues.map((i) => `${i.sheet}!${i.cell}: ${i.message}`).join("\n"));
   const s = read.settings;
   const result = solve(read.problem, { seed: s.seed, budget: { moves: MOVES }, rule: s.rule, cooling: s.cooling, p0: s.p0, pEnd: s.pEnd });
@@ -23,8 +28,13 @@ describe("scenario round trip through an .xlsx file", () => {
   it("every arrival on the written sheet, read back with a fresh exceljs load, follows from the matrix and the service minutes", async () => {
     const { book, read, result } = await solvedDemo();
     const { sheetName } = await writeScenarioResult(book, {
-      read, result, scenario: "Dawn run", createdAt: new Date(Date.UTC(2026, 0, 6, 4)), runSeconds: 1.5,
-      stopsSource: sourceOf((await book.readSheet("Stops"))!), fleetSource: sourceOf((await book.readSheet("Fleet"))!),
+      read,
+      result,
+      scenario: "Dawn run",
+      createdAt: new Date(Date.UTC(2026, 0, 6, 4)),
+      runSeconds: 1.5,
+      stopsSource: sourceOf((await book.readSheet("Stops"))!),
+      fleetSource: sourceOf((await book.readSheet("Fleet"))!),
     });
     expect(sheetName).toBe("Dawn run");
     const fresh = await loadWithExcelJs(await book.toBuffer());
@@ -37,7 +47,7 @@ describe("scenario round trip through an .xlsx file", () => {
     const col = (name: string): number => header.indexOf(name);
     const p = read.problem;
     const n = p.matrix.size;
-    const minutes = (v: unknown): number => (v instanceof Date ? (v.getTime() / 86_400_000 + 25569) : (v as number)) * 1440;
+    const minutes = (v: unknown): number => (v instanceof Date ? v.getTime() / 86_400_000 + 25569 : (v as number)) * 1440;
     let checked = 0;
     let prev: { loc: number; departure: number; vehicle: number } | undefined;
     for (let r = headerAt + 1; r < rows.length; r++) {
@@ -57,7 +67,8 @@ describe("scenario round trip through an .xlsx file", () => {
       const expected = prev!.departure + p.matrix.travelMin[prev!.loc * n + loc]! * speedFactor;
       expect(minutes(row[col("Arrival")])).toBeCloseTo(expected, 4);
       // Leg km against geolib's great-circle distance times the detour factor (outside reference).
-      const a = p.locations[prev!.loc]!, b = p.locations[loc]!;
+      const a = p.locations[prev!.loc]!,
+        b = p.locations[loc]!;
       const geolibKm = getDistance({ latitude: a.lat, longitude: a.lon }, { latitude: b.lat, longitude: b.lon }, 0.01) / 1000;
       expect(Math.abs((row[col("Leg km")] as number) - geolibKm * read.settings.detourFactor)).toBeLessThan(0.1);
       if (name === "Depot end") {
@@ -83,14 +94,23 @@ describe("scenario round trip through an .xlsx file", () => {
       }
       checked++;
     }
-    const served = result.plan.routes.reduce((s, route) => s + route.visits.length + 1, 0) - result.plan.routes.filter((route) => route.visits.length === 0).length;
+    const served =
+      result.plan.routes.reduce((s, route) => s + route.visits.length + 1, 0) -
+      result.plan.routes.filter((route) => route.visits.length === 0).length;
     expect(checked).toBe(served);
     expect(checked).toBeGreaterThan(60);
   });
 
   it("appends one Compare row per run and stores the run record under the scenario's settings key", async () => {
     const { book, read, result } = await solvedDemo();
-    const common = { read, result, createdAt: new Date(Date.UTC(2026, 0, 6, 4)), runSeconds: 1, stopsSource: "Stops", fleetSource: "Fleet" };
+    const common = {
+      read,
+      result,
+      createdAt: new Date(Date.UTC(2026, 0, 6, 4)),
+      runSeconds: 1,
+      stopsSource: "Stops",
+      fleetSource: "Fleet",
+    };
     const first = await writeScenarioResult(book, { ...common, scenario: "Plan" });
     const second = await writeScenarioResult(book, { ...common, scenario: "Plan" });
     expect(first.sheetName).toBe("Plan");

@@ -62,7 +62,13 @@ describe("zipEntryNames", () => {
 
 describe("partsNotKept", () => {
   it("names the charts, pivot tables and macros a copy would lose", () => {
-    const zip = storedZip(["[Content_Types].xml", "xl/workbook.xml", "xl/charts/chart1.xml", "xl/pivotTables/pivotTable1.xml", "xl/vbaProject.bin"]);
+    const zip = storedZip([
+      "[Content_Types].xml",
+      "xl/workbook.xml",
+      "xl/charts/chart1.xml",
+      "xl/pivotTables/pivotTable1.xml",
+      "xl/vbaProject.bin",
+    ]);
     expect(partsNotKept(zip)).toEqual(["charts", "pivot tables", "macros"]);
   });
 

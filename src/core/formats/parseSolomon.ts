@@ -85,7 +85,8 @@ export function parseSolomon(text: string): SolomonInstance {
         continue;
       }
       const [id, x, y, demand, readyTime, dueDate, serviceTime] = values as [number, number, number, number, number, number, number];
-      if (id !== customers.length) at(lineNo, `customer number ${id} out of order: expected ${customers.length} (the depot is 0, then 1, 2, ...)`);
+      if (id !== customers.length)
+        at(lineNo, `customer number ${id} out of order: expected ${customers.length} (the depot is 0, then 1, 2, ...)`);
       if (demand < 0 || serviceTime < 0) at(lineNo, `customer ${id}: DEMAND and SERVICE TIME must not be negative`);
       if (dueDate < readyTime) at(lineNo, `customer ${id}: DUE DATE ${dueDate} is before READY TIME ${readyTime}`);
       customers.push({ id, x, y, demand, readyTime, dueDate, serviceTime });

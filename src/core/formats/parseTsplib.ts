@@ -22,8 +22,15 @@ export interface TsplibInstance {
 
 const COORD_TYPES = new Set(["EUC_2D", "CEIL_2D", "ATT", "GEO"]);
 const FORMATS = new Set([
-  "FULL_MATRIX", "UPPER_ROW", "LOWER_ROW", "UPPER_DIAG_ROW", "LOWER_DIAG_ROW",
-  "UPPER_COL", "LOWER_COL", "UPPER_DIAG_COL", "LOWER_DIAG_COL",
+  "FULL_MATRIX",
+  "UPPER_ROW",
+  "LOWER_ROW",
+  "UPPER_DIAG_ROW",
+  "LOWER_DIAG_ROW",
+  "UPPER_COL",
+  "LOWER_COL",
+  "UPPER_DIAG_COL",
+  "LOWER_DIAG_COL",
 ]);
 const KEYWORD = /^([A-Z_]+)\s*(?::\s*(.*))?$/;
 
@@ -102,7 +109,8 @@ export function parseTsplib(text: string): TsplibInstance {
   let weights: Float64Array | undefined;
   if (edgeWeightType === "EXPLICIT") {
     const format = (spec.get("EDGE_WEIGHT_FORMAT") ?? "").toUpperCase();
-    if (!FORMATS.has(format)) at(0, `EDGE_WEIGHT_FORMAT "${format}" is not supported for EXPLICIT; use FULL_MATRIX or a triangle layout such as UPPER_ROW`);
+    if (!FORMATS.has(format))
+      at(0, `EDGE_WEIGHT_FORMAT "${format}" is not supported for EXPLICIT; use FULL_MATRIX or a triangle layout such as UPPER_ROW`);
     else if (!weightTokens) at(0, "EDGE_WEIGHT_SECTION is missing");
     else if (n > 0) weights = readWeights(n, format, weightTokens, at);
     if (display && n > 0) nodes = readNodes(n, display, "DISPLAY_DATA_SECTION", at);
@@ -160,14 +168,24 @@ function readWeights(
   const w = new Float64Array(n * n);
   const cells: [number, number][] = [];
   // For a symmetric matrix UPPER_COL lists the same numbers as LOWER_ROW, and so on.
-  const rowFormat = ({ UPPER_COL: "LOWER_ROW", LOWER_COL: "UPPER_ROW", UPPER_DIAG_COL: "LOWER_DIAG_ROW", LOWER_DIAG_COL: "UPPER_DIAG_ROW" } as Record<string, string>)[format] ?? format;
+  const rowFormat =
+    (
+      { UPPER_COL: "LOWER_ROW", LOWER_COL: "UPPER_ROW", UPPER_DIAG_COL: "LOWER_DIAG_ROW", LOWER_DIAG_COL: "UPPER_DIAG_ROW" } as Record<
+        string,
+        string
+      >
+    )[format] ?? format;
   for (let i = 0; i < n; i++) {
     const [from, to] =
-      rowFormat === "FULL_MATRIX" ? [0, n - 1]
-      : rowFormat === "UPPER_ROW" ? [i + 1, n - 1]
-      : rowFormat === "UPPER_DIAG_ROW" ? [i, n - 1]
-      : rowFormat === "LOWER_ROW" ? [0, i - 1]
-      : [0, i];
+      rowFormat === "FULL_MATRIX"
+        ? [0, n - 1]
+        : rowFormat === "UPPER_ROW"
+          ? [i + 1, n - 1]
+          : rowFormat === "UPPER_DIAG_ROW"
+            ? [i, n - 1]
+            : rowFormat === "LOWER_ROW"
+              ? [0, i - 1]
+              : [0, i];
     for (let j = from; j <= to; j++) cells.push([i, j]);
   }
   if (tokens.length !== cells.length) {

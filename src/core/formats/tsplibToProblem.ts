@@ -38,9 +38,7 @@ export function tsplibToProblem(inst: TsplibInstance): Problem {
   const locations = Array.from({ length: n }, (_, i) => {
     const p = inst.nodes[i] ?? { x: 0, y: 0 };
     const name = String(i + 1);
-    return inst.edgeWeightType === "GEO"
-      ? { lat: tsplibGeoDegrees(p.x), lon: tsplibGeoDegrees(p.y), name }
-      : { lat: p.y, lon: p.x, name };
+    return inst.edgeWeightType === "GEO" ? { lat: tsplibGeoDegrees(p.x), lon: tsplibGeoDegrees(p.y), name } : { lat: p.y, lon: p.x, name };
   });
   const stops: Stop[] = [];
   for (let i = 1; i < n; i++) {

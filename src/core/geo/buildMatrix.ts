@@ -20,10 +20,7 @@ export interface BuildMatrixOptions {
  * @throws RangeError when the detour factor is below 1 or the speed is not positive
  * @example buildMatrix([{lat: 0, lon: 0}, {lat: 0, lon: 1}]).distanceKm[1] // => 144.55 (about)
  */
-export function buildMatrix(
-  locations: readonly LatLon[],
-  options: Partial<BuildMatrixOptions> = {},
-): Matrix {
+export function buildMatrix(locations: readonly LatLon[], options: Partial<BuildMatrixOptions> = {}): Matrix {
   const detour = options.detourFactor ?? DEFAULT_DETOUR_FACTOR;
   const speed = options.speedKmh ?? DEFAULT_SPEED_KMH;
   if (!(detour >= 1)) throw new RangeError(`detourFactor must be >= 1, got ${detour}`);

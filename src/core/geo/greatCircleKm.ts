@@ -15,8 +15,7 @@ const RAD = Math.PI / 180;
 export function centralAngleRad(a: LatLon, b: LatLon): number {
   const dLat = (b.lat - a.lat) * RAD;
   const dLon = (b.lon - a.lon) * RAD;
-  const h =
-    Math.sin(dLat / 2) ** 2 + Math.cos(a.lat * RAD) * Math.cos(b.lat * RAD) * Math.sin(dLon / 2) ** 2;
+  const h = Math.sin(dLat / 2) ** 2 + Math.cos(a.lat * RAD) * Math.cos(b.lat * RAD) * Math.sin(dLon / 2) ** 2;
   return 2 * Math.asin(Math.min(1, Math.sqrt(h)));
 }
 

@@ -377,7 +377,9 @@ export class SearchState {
     const endTW = a[o + R_ENDTW]!;
     const excess = a[o + R_EXCESS]!;
     const real =
-      cp.fixedCost[v]! + cp.costPerKm[v]! * a[o + R_DIST]! + (cp.costPerHour[v]! * a[o + R_DUTY]!) / 60 +
+      cp.fixedCost[v]! +
+      cp.costPerKm[v]! * a[o + R_DIST]! +
+      (cp.costPerHour[v]! * a[o + R_DUTY]!) / 60 +
       (cp.hardWindows ? 0 : cp.lateCostPerMin * stopTW);
     a[o + R_REAL] = real;
     a[o + R_VIOL] = (cp.hardWindows ? stopTW : 0) + endTW + excess;

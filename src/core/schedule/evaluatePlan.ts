@@ -20,11 +20,7 @@ import type { Plan, Problem, Route, Unassigned, Visit } from "../model.js";
  * @throws RangeError when `routes` does not have one entry per vehicle or a stop index is out of range or repeated
  * @example evaluatePlan(problem, [[0, 2], [1]]).totals.distanceKm // => total km of both routes
  */
-export function evaluatePlan(
-  problem: Problem,
-  routes: readonly (readonly number[])[],
-  unassigned: readonly Unassigned[] = [],
-): Plan {
+export function evaluatePlan(problem: Problem, routes: readonly (readonly number[])[], unassigned: readonly Unassigned[] = []): Plan {
   const n = problem.stops.length;
   if (routes.length !== problem.vehicles.length) {
     throw new RangeError(`routes must have ${problem.vehicles.length} entries (one per vehicle), got ${routes.length}`);
@@ -83,8 +79,19 @@ function evaluateRoute(problem: Problem, v: number, stops: readonly number[], vi
   if (stops.length === 0) {
     const t = veh.shiftStartMin;
     return {
-      vehicle: v, visits: [], departureMin: t, returnMin: t, load, distanceKm: 0, drivingMin: 0, dutyMin: 0,
-      waitMin: 0, lateMin: 0, overtimeMin: 0, excessLoad: 0, cost: 0,
+      vehicle: v,
+      visits: [],
+      departureMin: t,
+      returnMin: t,
+      load,
+      distanceKm: 0,
+      drivingMin: 0,
+      dutyMin: 0,
+      waitMin: 0,
+      lateMin: 0,
+      overtimeMin: 0,
+      excessLoad: 0,
+      cost: 0,
     };
   }
   // First pass from the shift start: how much later could we leave without being later anywhere?
@@ -125,11 +132,24 @@ function evaluateRoute(problem: Problem, v: number, stops: readonly number[], vi
   const lateMin = sim.times.reduce((a, t) => a + t.lateMin, 0);
   const dutyMin = sim.returnMin - sim.departureMin;
   const cost =
-    veh.fixedCost + veh.costPerKm * distanceKm + (veh.costPerHour * dutyMin) / 60 +
+    veh.fixedCost +
+    veh.costPerKm * distanceKm +
+    (veh.costPerHour * dutyMin) / 60 +
     (problem.hardWindows ? 0 : problem.lateCostPerMin * lateMin);
   return {
-    vehicle: v, visits, departureMin: sim.departureMin, returnMin: sim.returnMin, load, distanceKm,
-    drivingMin: sim.drivingMin, dutyMin, waitMin: sim.waitMin, lateMin, overtimeMin: sim.overtimeMin, excessLoad, cost,
+    vehicle: v,
+    visits,
+    departureMin: sim.departureMin,
+    returnMin: sim.returnMin,
+    load,
+    distanceKm,
+    drivingMin: sim.drivingMin,
+    dutyMin,
+    waitMin: sim.waitMin,
+    lateMin,
+    overtimeMin: sim.overtimeMin,
+    excessLoad,
+    cost,
   };
 }
 

@@ -229,7 +229,10 @@ export class ExcelWorkbook implements WorkbookPort {
     const parsed = parseRangeAddress(address);
     if (!parsed) throw new RangeError(`address must look like "Stops!C2:C81", got "${address}"`);
     if (!this.capabilities().geography) {
-      return { available: false, reason: "Geography cells need Excel with ExcelApi 1.16 (Microsoft 365); type latitude and longitude into two columns instead." };
+      return {
+        available: false,
+        reason: "Geography cells need Excel with ExcelApi 1.16 (Microsoft 365); type latitude and longitude into two columns instead.",
+      };
     }
     return this.#run(`read the Geography cells of ${address}`, async (context) => {
       const range = context.workbook.worksheets.getItem(parsed.sheet).getRange(parsed.range);

@@ -96,14 +96,17 @@ export function planGridWrite(grid: SheetGrid, options: PlanGridWriteOptions = {
     const letter = cellA1(0, c).replace(/[0-9]+$/, "");
     return { address: `${letter}:${letter}`, widthPt: columnWidthPoints(w) };
   });
-  const boldRanges = cols === 0 ? [] : (grid.boldRows ?? []).filter((r) => r >= 0 && r < rows)
-    .map((r) => blockA1({ row: startRow + r, col: 0, rows: 1, cols }));
+  const boldRanges =
+    cols === 0
+      ? []
+      : (grid.boldRows ?? []).filter((r) => r >= 0 && r < rows).map((r) => blockA1({ row: startRow + r, col: 0, rows: 1, cols }));
   return { rows, cols, chunks, columnWidths, boldRanges, freezeRows: Math.max(0, Math.min(grid.freezeRows ?? 0, rows)) };
 }
 
 function cellValue(v: CellValue, r: number, c: number): string | number | boolean {
   if (v === null) return "";
-  if (typeof v === "number" && !Number.isFinite(v)) throw new RangeError(`grid.values[${r}][${c}] is ${v}: Excel cells hold finite numbers only`);
+  if (typeof v === "number" && !Number.isFinite(v))
+    throw new RangeError(`grid.values[${r}][${c}] is ${v}: Excel cells hold finite numbers only`);
   if (typeof v === "string" && isFormulaLike(v)) return `'${v}`;
   return v;
 }

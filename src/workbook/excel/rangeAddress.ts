@@ -16,8 +16,10 @@ import type { CellBlock } from "../../sheets/grid.js";
  * @example cellA1(2, 1) // "B3"
  */
 export function cellA1(row0: number, col0: number): string {
-  if (!Number.isInteger(row0) || row0 < 0 || row0 >= MAX_ROWS) throw new RangeError(`row0 must be an integer in 0..${MAX_ROWS - 1}, got ${row0}`);
-  if (!Number.isInteger(col0) || col0 < 0 || col0 >= MAX_COLS) throw new RangeError(`col0 must be an integer in 0..${MAX_COLS - 1}, got ${col0}`);
+  if (!Number.isInteger(row0) || row0 < 0 || row0 >= MAX_ROWS)
+    throw new RangeError(`row0 must be an integer in 0..${MAX_ROWS - 1}, got ${row0}`);
+  if (!Number.isInteger(col0) || col0 < 0 || col0 >= MAX_COLS)
+    throw new RangeError(`col0 must be an integer in 0..${MAX_COLS - 1}, got ${col0}`);
   let letters = "";
   for (let c = col0 + 1; c > 0; c = Math.floor((c - 1) / 26)) letters = String.fromCharCode(65 + ((c - 1) % 26)) + letters;
   return `${letters}${row0 + 1}`;
@@ -31,7 +33,8 @@ export function cellA1(row0: number, col0: number): string {
  * @example blockA1({ row: 0, col: 0, rows: 80, cols: 16 }) // "A1:P80"
  */
 export function blockA1(block: CellBlock): string {
-  if (!(block.rows >= 1) || !(block.cols >= 1)) throw new RangeError(`block must have at least one row and column, got ${block.rows}x${block.cols}`);
+  if (!(block.rows >= 1) || !(block.cols >= 1))
+    throw new RangeError(`block must have at least one row and column, got ${block.rows}x${block.cols}`);
   const start = cellA1(block.row, block.col);
   const end = cellA1(block.row + block.rows - 1, block.col + block.cols - 1);
   return start === end ? start : `${start}:${end}`;
@@ -55,8 +58,12 @@ export function parseRangeAddress(address: string): { sheet: string; range: stri
  * @example blockContains({ row: 0, col: 0, rows: 10, cols: 5 }, { row: 2, col: 1, rows: 1, cols: 1 }) // true
  */
 export function blockContains(outer: CellBlock, inner: CellBlock): boolean {
-  return inner.row >= outer.row && inner.col >= outer.col &&
-    inner.row + inner.rows <= outer.row + outer.rows && inner.col + inner.cols <= outer.col + outer.cols;
+  return (
+    inner.row >= outer.row &&
+    inner.col >= outer.col &&
+    inner.row + inner.rows <= outer.row + outer.rows &&
+    inner.col + inner.cols <= outer.col + outer.cols
+  );
 }
 
 const MAX_ROWS = 1_048_576;

@@ -125,7 +125,10 @@ export class ExcelJsWorkbook implements WorkbookPort {
   async readSheet(name: string): Promise<SheetRead | undefined> {
     const ws = this.findSheet(name);
     if (!ws) return undefined;
-    let top = Infinity, left = Infinity, bottom = -1, right = -1;
+    let top = Infinity,
+      left = Infinity,
+      bottom = -1,
+      right = -1;
     ws.eachRow({ includeEmpty: false }, (row, r) => {
       row.eachCell({ includeEmpty: false }, (cell, c) => {
         if (rawCellValue(cell.value) === "") return;
