@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { detectFormat } from "../../src/core/formats/detectFormat.js";
 import { parseTsplib } from "../../src/core/formats/parseTsplib.js";
+import { tsplibEdge } from "../../src/core/formats/tsplibEdge.js";
+import { tsplibToProblem } from "../../src/core/formats/tsplibToProblem.js";
 import { tsplibTourLength } from "../../src/core/formats/tsplibTourLength.js";
 import { tsplibDistance, tsplibGeoDegrees } from "../../src/core/geo/tsplibDistance.js";
 import { benchmarkCsv, benchmarksAvailable, benchmarkText } from "./benchmarksDir.js";
@@ -70,10 +72,39 @@ describe("TSPLIB95 distance definitions (Reinelt 1995, section 2)", () => {
     expect(tsplibGeoDegrees(16.3)).toBeCloseTo(16.5, 12);
     expect(tsplibGeoDegrees(-27.07)).toBeCloseTo(-(27 + 7 / 60), 12);
   });
-  it("GEO is 0 from a node to itself (the matrix diagonal) and symmetric", () => {
+  it("GEO is symmetric", () => {
     const a = { x: 16.47, y: 96.1 };
     const b = { x: 20.09, y: 92.54 };
-    expect(tsplibDistance("GEO", a, a)).toBe(0);
     expect(tsplibDistance("GEO", a, b)).toBe(tsplibDistance("GEO", b, a));
+  });
+  // TSPLIB95 (Reinelt 1995, section 2.4, GEO): dij = (int)(RRR * acos(...) + 1.0); for two
+  // distinct nodes at the same coordinates acos(1) = 0, so the distance is 1, not 0.
+  it("GEO of two distinct nodes at identical coordinates is int(RRR * acos(1) + 1) = 1", () => {
+    const a = { x: 16.47, y: 96.1 };
+    expect(tsplibDistance("GEO", a, { ...a })).toBe(1);
+  });
+  it("GEO instance: 0 only on the diagonal; coincident cities are 1 apart in the edge, the tour and the matrix", () => {
+    // An invented three-city file: cities 1 and 2 share their coordinates.
+    const text = [
+      "NAME: coincident3",
+      "TYPE: TSP",
+      "DIMENSION: 3",
+      "EDGE_WEIGHT_TYPE: GEO",
+      "NODE_COORD_SECTION",
+      "1 16.47 96.10",
+      "2 16.47 96.10",
+      "3 20.09 92.54",
+      "EOF",
+    ].join("\n");
+    const inst = parseTsplib(text);
+    expect(inst.issues).toEqual([]);
+    expect(tsplibEdge(inst, 0, 0)).toBe(0);
+    expect(tsplibEdge(inst, 0, 1)).toBe(1);
+    const d13 = tsplibEdge(inst, 0, 2);
+    expect(tsplibEdge(inst, 1, 2)).toBe(d13);
+    expect(tsplibTourLength(inst, [1, 2, 3])).toBe(1 + 2 * d13);
+    const problem = tsplibToProblem(inst);
+    expect(problem.matrix.distanceKm[0 * 3 + 1]).toBe(1);
+    expect(problem.matrix.distanceKm[1 * 3 + 1]).toBe(0);
   });
 });

@@ -8,7 +8,8 @@ import type { TsplibInstance } from "./parseTsplib.js";
  * @param inst - a parsed instance without issues
  * @param i - first node, 0-based (node number - 1)
  * @param j - second node, 0-based
- * @returns the integer TSPLIB distance; 0 when `i === j`
+ * @returns the integer TSPLIB distance; 0 only when `i === j` (distinct GEO nodes at the same
+ *   coordinates are 1 apart, TSPLIB95)
  * @throws RangeError when `i` or `j` is outside 0..dimension-1
  * @example tsplibEdge(parseTsplib(burma14Text), 0, 1) // => 153
  */

@@ -31,7 +31,9 @@ const TSPLIB_RRR_KM = 6378.388;
  * @param type - the file's EDGE_WEIGHT_TYPE
  * @param a - first node as written in the file
  * @param b - second node as written in the file
- * @returns the integer distance (GEO: km on TSPLIB's sphere); 0 from a node to itself
+ * @returns the integer distance (GEO: km on TSPLIB's sphere). Two distinct GEO nodes at the
+ *   same coordinates are `int(RRR * acos(1) + 1) = 1` apart, as TSPLIB95 defines it: the 0 of
+ *   a node to itself (the diagonal) is `tsplibEdge`'s business, which knows node identity.
  * @throws TypeError when `type` is not one of the supported types
  * @example tsplibDistance("EUC_2D", { x: 0, y: 0 }, { x: 3, y: 4 }) // => 5
  */
@@ -49,9 +51,6 @@ export function tsplibDistance(type: TsplibCoordType, a: TsplibPoint, b: TsplibP
       return t < r ? t + 1 : t;
     }
     case "GEO": {
-      // TSPLIB95 adds 1 after truncation even for a node to itself; a tour never uses
-      // that entry, and a route matrix needs 0 on the diagonal.
-      if (a.x === b.x && a.y === b.y) return 0;
       const latA = tsplibGeoRadians(a.x);
       const lonA = tsplibGeoRadians(a.y);
       const latB = tsplibGeoRadians(b.x);

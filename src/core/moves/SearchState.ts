@@ -1,20 +1,11 @@
 import type { CompiledProblem } from "../schedule/compileProblem.js";
 import { RouteArrays } from "../schedule/RouteArrays.js";
+import { evaluatePieces } from "./evaluatePieces.js";
+import { penalisedCost } from "./penalisedCost.js";
+import { R_COST, R_COUNT, R_ENDTW, R_EXCESS, R_REAL, R_SIZE, R_STOPTW, R_VIOL } from "./routeResults.js";
 
 /** Maximum pieces of one new route: a move is described as a concatenation of route parts. */
 export const MAX_PIECES = 6;
-
-/** Route-level results of one evaluation, by slot (0: route A, 1: route B). */
-const R_COST = 0;
-const R_REAL = 1;
-const R_VIOL = 2;
-const R_COUNT = 3;
-const R_STOPTW = 4;
-const R_ENDTW = 5;
-const R_EXCESS = 6;
-const R_DIST = 7;
-const R_DUTY = 8;
-const R_SIZE = 9;
 
 /**
  * The search's current solution: one `RouteArrays` per vehicle, an unassigned pool, and the
@@ -48,7 +39,8 @@ export class SearchState {
   realSum = 0;
   violSum = 0;
   mustInPool = 0;
-  private readonly load: Float64Array;
+  /** Scratch load per dimension of the evaluation under way. */
+  readonly scratchLoad: Float64Array;
   private readonly tmp: Int32Array[];
 
   /**
@@ -69,7 +61,7 @@ export class SearchState {
     this.poolIndex = new Int32Array(cp.n).fill(-1);
     this.rStats = new Float64Array(V * R_SIZE);
     this.dirty = new Uint8Array(V).fill(1);
-    this.load = new Float64Array(cp.dims);
+    this.scratchLoad = new Float64Array(cp.dims);
     this.tmp = [new Int32Array(cp.n + 1), new Int32Array(cp.n + 1)];
     this.wTime = wTime;
     this.wLoad = wLoad;
@@ -131,7 +123,7 @@ export class SearchState {
     this.violSum = 0;
     for (let v = 0; v < this.routes.length; v++) {
       const o = v * R_SIZE;
-      this.rStats[o + R_COST] = this.penalised(v, this.rStats, o);
+      this.rStats[o + R_COST] = penalisedCost(this, v, this.rStats, o);
       this.realSum += this.rStats[o + R_REAL]!;
       this.violSum += this.rStats[o + R_VIOL]!;
     }
@@ -140,137 +132,10 @@ export class SearchState {
   /**
    * Penalised cost of vehicle `v` driving the concatenation of `m` pieces in `pieces`
    * (4 ints each: route, from, to, reversed); results also go to `out` at `slot`.
-   * Allocation-free: this is the hot path.
+   * Allocation-free: this is the hot path (see `evaluatePieces`).
    */
   evaluate(v: number, pieces: Int32Array, m: number, slot: number): number {
-    const cp = this.cp;
-    const L = cp.locationCount;
-    const T = cp.travelMin;
-    const Dm = cp.distanceKm;
-    const f = cp.travelFactor[v]!;
-    const dims = cp.dims;
-    const load = this.load;
-    let aD = 0;
-    let aTW = 0;
-    let aE = cp.shiftStartMin[v]!;
-    let aL = cp.shiftEndMin[v]!;
-    let dist = 0;
-    let last = cp.startLoc[v]!;
-    let k = 0;
-    for (let d = 0; d < dims; d++) load[d] = 0;
-    if (m > 0 && pieces[0] === v && pieces[1] === 1 && pieces[3] === 0) {
-      const r = this.routes[v]!;
-      const j = pieces[2]!;
-      aD = r.preD[j]!;
-      aTW = r.preTW[j]!;
-      aE = r.preE[j]!;
-      aL = r.preL[j]!;
-      dist = r.cumDist[j]!;
-      last = r.locs[j]!;
-      for (let d = 0; d < dims; d++) load[d] = r.preLoad[j * dims + d]!;
-      k = 1;
-    }
-    for (; k < m; k++) {
-      const src = pieces[4 * k]!;
-      const i = pieces[4 * k + 1]!;
-      if (src < 0) {
-        // One pool stop.
-        const loc = cp.stopLoc[i]!;
-        const t = T[last * L + loc]! * f;
-        const e2 = cp.earliestMin[i]!;
-        const l2 = cp.latestMin[i]!;
-        const delta = aD - aTW + t;
-        const wt = Math.max(e2 - delta - aL, 0);
-        const tw = Math.max(aE + delta - l2, 0);
-        aE = Math.max(e2 - delta, aE) - wt;
-        aL = Math.min(l2 - delta, aL) + tw;
-        aD += cp.serviceMin[i]! + t + wt;
-        aTW += tw;
-        dist += Dm[last * L + loc]!;
-        for (let d = 0; d < dims; d++) load[d] = load[d]! + cp.demand[i * dims + d]!;
-        last = loc;
-        continue;
-      }
-      const j = pieces[4 * k + 2]!;
-      const rev = pieces[4 * k + 3]! !== 0;
-      const r = this.routes[src]!;
-      const sameSpeed = cp.travelFactor[src] === f;
-      const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
-      const lastLoc = rev ? r.locs[i]! : r.locs[j]!;
-      const tIn = T[last * L + firstLoc]! * f;
-      let d2: number;
-      let tw2 = 0;
-      let e2 = -Infinity;
-      let l2 = Infinity;
-      if (sameSpeed && !rev && j === r.len) {
-        d2 = r.sufD[i]!;
-        tw2 = r.sufTW[i]!;
-        e2 = r.sufE[i]!;
-        l2 = r.sufL[i]!;
-      } else if (sameSpeed && r.cumWin[j]! - r.cumWin[i - 1]! === 0) {
-        d2 = r.cumSvc[j]! - r.cumSvc[i - 1]! + (rev ? r.cumTravR[j]! - r.cumTravR[i]! : r.cumTrav[j]! - r.cumTrav[i]!);
-      } else {
-        // Walk the piece: binding windows or another speed.
-        d2 = 0;
-        let pl = -1;
-        for (let q = 0; q <= j - i; q++) {
-          const p = rev ? j - q : i + q;
-          const s = r.nodes[p]!;
-          const loc = r.locs[p]!;
-          if (pl < 0) {
-            d2 = cp.serviceMin[s]!;
-            e2 = cp.earliestMin[s]!;
-            l2 = cp.latestMin[s]!;
-          } else {
-            const t = T[pl * L + loc]! * f;
-            const ee = cp.earliestMin[s]!;
-            const ll = cp.latestMin[s]!;
-            const delta = d2 - tw2 + t;
-            const wt = Math.max(ee - delta - l2, 0);
-            const tw = Math.max(e2 + delta - ll, 0);
-            e2 = Math.max(ee - delta, e2) - wt;
-            l2 = Math.min(ll - delta, l2) + tw;
-            d2 += cp.serviceMin[s]! + t + wt;
-            tw2 += tw;
-          }
-          pl = loc;
-        }
-      }
-      const delta = aD - aTW + tIn;
-      const wt = Math.max(e2 - delta - aL, 0);
-      const tw = Math.max(aE + delta - l2, 0);
-      aE = Math.max(e2 - delta, aE) - wt;
-      aL = Math.min(l2 - delta, aL) + tw;
-      aD += d2 + tIn + wt;
-      aTW += tw2 + tw;
-      dist += Dm[last * L + firstLoc]! + (rev ? r.cumDistR[j]! - r.cumDistR[i]! : r.cumDist[j]! - r.cumDist[i]!);
-      for (let d = 0; d < dims; d++) load[d] = load[d]! + r.preLoad[j * dims + d]! - r.preLoad[(i - 1) * dims + d]!;
-      last = lastLoc;
-    }
-    // End depot: its lateness is overtime, kept apart from lateness at stops.
-    const endLoc = cp.endLoc[v]!;
-    const tEnd = T[last * L + endLoc]! * f;
-    const delta = aD - aTW + tEnd;
-    const wt = Math.max(cp.shiftStartMin[v]! - delta - aL, 0);
-    const endTW = Math.max(aE + delta - cp.shiftEndMin[v]!, 0);
-    const duration = aD + tEnd + wt;
-    dist += Dm[last * L + endLoc]!;
-    let excess = 0;
-    for (let d = 0; d < dims; d++) {
-      const over = load[d]! - cp.capacity[v * dims + d]!;
-      if (over > 0) excess += over / cp.loadScale[d]!;
-    }
-    const o = slot * R_SIZE;
-    const out = this.out;
-    out[o + R_COUNT] = m === 0 ? 0 : load[dims - 1]!;
-    out[o + R_STOPTW] = aTW;
-    out[o + R_ENDTW] = endTW;
-    out[o + R_EXCESS] = excess;
-    out[o + R_DIST] = dist;
-    out[o + R_DUTY] = duration - aTW - endTW;
-    const cost = this.penalised(v, out, o);
-    out[o + R_COST] = cost;
-    return cost;
+    return evaluatePieces(this, v, pieces, m, slot);
   }
 
   /**
@@ -365,33 +230,6 @@ export class SearchState {
     this.violSum += this.rStats[o + R_VIOL]!;
     this.used += (count > 0 ? 1 : 0) - (wasUsed ? 1 : 0);
   }
-
-  private penalised(v: number, a: Float64Array, o: number): number {
-    const cp = this.cp;
-    if (a[o + R_COUNT] === 0) {
-      a[o + R_REAL] = 0;
-      a[o + R_VIOL] = 0;
-      return 0;
-    }
-    const stopTW = a[o + R_STOPTW]!;
-    const endTW = a[o + R_ENDTW]!;
-    const excess = a[o + R_EXCESS]!;
-    const real =
-      cp.fixedCost[v]! +
-      cp.costPerKm[v]! * a[o + R_DIST]! +
-      (cp.costPerHour[v]! * a[o + R_DUTY]!) / 60 +
-      (cp.hardWindows ? 0 : cp.lateCostPerMin * stopTW);
-    a[o + R_REAL] = real;
-    a[o + R_VIOL] = (cp.hardWindows ? stopTW : 0) + endTW + excess;
-    return real + (cp.hardWindows ? this.wTime * stopTW : 0) + this.wTime * endTW + this.wLoad * excess;
-  }
 }
 
-/** Index of the stop count in the route results (for callers that read `out`). */
-export const RESULT_COUNT = R_COUNT;
-/** Index of the violation measure in the route results. */
-export const RESULT_VIOL = R_VIOL;
-/** Index of the unpenalised cost in the route results. */
-export const RESULT_REAL = R_REAL;
-/** Stride of one slot in `SearchState.out`. */
-export const RESULT_SIZE = R_SIZE;
+export { RESULT_COUNT, RESULT_REAL, RESULT_SIZE, RESULT_VIOL } from "./routeResults.js";

@@ -1,0 +1,149 @@
+import { penalisedCost } from "./penalisedCost.js";
+import { R_COST, R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_SIZE, R_STOPTW } from "./routeResults.js";
+import type { SearchState } from "./SearchState.js";
+
+/**
+ * Penalised cost of vehicle `v` driving the concatenation of `m` pieces in `pieces`
+ * (4 ints each: route, from, to, reversed; route -1: the one stop `from`); the route results
+ * go to `state.out` at `slot`. Segment summaries are concatenated (Vidal et al. 2013) without
+ * copying stops: forward prefixes and suffixes of the same vehicle cost O(1); other pieces
+ * O(1) too when they hold no binding window (prefix sums), else O(piece length).
+ * Allocation-free: this is the hot path.
+ *
+ * @param state - the search state (routes, weights, scratch)
+ * @param v - the vehicle that would drive the route
+ * @param pieces - the pieces, 4 ints each
+ * @param m - number of pieces
+ * @param slot - 0 or 1: where in `state.out` the results go
+ * @returns the penalised cost (vehicle weight excluded)
+ */
+export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array, m: number, slot: number): number {
+  const cp = state.cp;
+  const L = cp.locationCount;
+  const T = cp.travelMin;
+  const Dm = cp.distanceKm;
+  const f = cp.travelFactor[v]!;
+  const dims = cp.dims;
+  const load = state.scratchLoad;
+  let aD = 0;
+  let aTW = 0;
+  let aE = cp.shiftStartMin[v]!;
+  let aL = cp.shiftEndMin[v]!;
+  let dist = 0;
+  let last = cp.startLoc[v]!;
+  let k = 0;
+  for (let d = 0; d < dims; d++) load[d] = 0;
+  if (m > 0 && pieces[0] === v && pieces[1] === 1 && pieces[3] === 0) {
+    const r = state.routes[v]!;
+    const j = pieces[2]!;
+    aD = r.preD[j]!;
+    aTW = r.preTW[j]!;
+    aE = r.preE[j]!;
+    aL = r.preL[j]!;
+    dist = r.cumDist[j]!;
+    last = r.locs[j]!;
+    for (let d = 0; d < dims; d++) load[d] = r.preLoad[j * dims + d]!;
+    k = 1;
+  }
+  for (; k < m; k++) {
+    const src = pieces[4 * k]!;
+    const i = pieces[4 * k + 1]!;
+    if (src < 0) {
+      // One pool stop.
+      const loc = cp.stopLoc[i]!;
+      const t = T[last * L + loc]! * f;
+      const e2 = cp.earliestMin[i]!;
+      const l2 = cp.latestMin[i]!;
+      const delta = aD - aTW + t;
+      const wt = Math.max(e2 - delta - aL, 0);
+      const tw = Math.max(aE + delta - l2, 0);
+      aE = Math.max(e2 - delta, aE) - wt;
+      aL = Math.min(l2 - delta, aL) + tw;
+      aD += cp.serviceMin[i]! + t + wt;
+      aTW += tw;
+      dist += Dm[last * L + loc]!;
+      for (let d = 0; d < dims; d++) load[d] = load[d]! + cp.demand[i * dims + d]!;
+      last = loc;
+      continue;
+    }
+    const j = pieces[4 * k + 2]!;
+    const rev = pieces[4 * k + 3]! !== 0;
+    const r = state.routes[src]!;
+    const sameSpeed = cp.travelFactor[src] === f;
+    const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
+    const lastLoc = rev ? r.locs[i]! : r.locs[j]!;
+    const tIn = T[last * L + firstLoc]! * f;
+    let d2: number;
+    let tw2 = 0;
+    let e2 = -Infinity;
+    let l2 = Infinity;
+    if (sameSpeed && !rev && j === r.len) {
+      d2 = r.sufD[i]!;
+      tw2 = r.sufTW[i]!;
+      e2 = r.sufE[i]!;
+      l2 = r.sufL[i]!;
+    } else if (sameSpeed && r.cumWin[j]! - r.cumWin[i - 1]! === 0) {
+      d2 = r.cumSvc[j]! - r.cumSvc[i - 1]! + (rev ? r.cumTravR[j]! - r.cumTravR[i]! : r.cumTrav[j]! - r.cumTrav[i]!);
+    } else {
+      // Walk the piece: binding windows or another speed.
+      d2 = 0;
+      let pl = -1;
+      for (let q = 0; q <= j - i; q++) {
+        const p = rev ? j - q : i + q;
+        const s = r.nodes[p]!;
+        const loc = r.locs[p]!;
+        if (pl < 0) {
+          d2 = cp.serviceMin[s]!;
+          e2 = cp.earliestMin[s]!;
+          l2 = cp.latestMin[s]!;
+        } else {
+          const t = T[pl * L + loc]! * f;
+          const ee = cp.earliestMin[s]!;
+          const ll = cp.latestMin[s]!;
+          const delta = d2 - tw2 + t;
+          const wt = Math.max(ee - delta - l2, 0);
+          const tw = Math.max(e2 + delta - ll, 0);
+          e2 = Math.max(ee - delta, e2) - wt;
+          l2 = Math.min(ll - delta, l2) + tw;
+          d2 += cp.serviceMin[s]! + t + wt;
+          tw2 += tw;
+        }
+        pl = loc;
+      }
+    }
+    const delta = aD - aTW + tIn;
+    const wt = Math.max(e2 - delta - aL, 0);
+    const tw = Math.max(aE + delta - l2, 0);
+    aE = Math.max(e2 - delta, aE) - wt;
+    aL = Math.min(l2 - delta, aL) + tw;
+    aD += d2 + tIn + wt;
+    aTW += tw2 + tw;
+    dist += Dm[last * L + firstLoc]! + (rev ? r.cumDistR[j]! - r.cumDistR[i]! : r.cumDist[j]! - r.cumDist[i]!);
+    for (let d = 0; d < dims; d++) load[d] = load[d]! + r.preLoad[j * dims + d]! - r.preLoad[(i - 1) * dims + d]!;
+    last = lastLoc;
+  }
+  // End depot: its lateness is overtime, kept apart from lateness at stops.
+  const endLoc = cp.endLoc[v]!;
+  const tEnd = T[last * L + endLoc]! * f;
+  const delta = aD - aTW + tEnd;
+  const wt = Math.max(cp.shiftStartMin[v]! - delta - aL, 0);
+  const endTW = Math.max(aE + delta - cp.shiftEndMin[v]!, 0);
+  const duration = aD + tEnd + wt;
+  dist += Dm[last * L + endLoc]!;
+  let excess = 0;
+  for (let d = 0; d < dims; d++) {
+    const over = load[d]! - cp.capacity[v * dims + d]!;
+    if (over > 0) excess += over / cp.loadScale[d]!;
+  }
+  const o = slot * R_SIZE;
+  const out = state.out;
+  out[o + R_COUNT] = m === 0 ? 0 : load[dims - 1]!;
+  out[o + R_STOPTW] = aTW;
+  out[o + R_ENDTW] = endTW;
+  out[o + R_EXCESS] = excess;
+  out[o + R_DIST] = dist;
+  out[o + R_DUTY] = duration - aTW - endTW;
+  const cost = penalisedCost(state, v, out, o);
+  out[o + R_COST] = cost;
+  return cost;
+}

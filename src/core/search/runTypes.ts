@@ -1,0 +1,31 @@
+import type { Plan } from "../model.js";
+import type { Progress } from "../options.js";
+
+/** Numbers of one run. */
+export interface RunStats {
+  /** Moves drawn (valid or not) and moves evaluated. */
+  moves: number;
+  evaluations: number;
+  elapsedMs: number;
+  /** Start and end temperatures used, and the calibration's mean uphill change. */
+  t0: number;
+  tEnd: number;
+  meanUphill: number;
+  accepted: number;
+  feasibleFound: boolean;
+}
+
+/** The plan a run returns and how it went. */
+export interface SolveResult {
+  plan: Plan;
+  stats: RunStats;
+}
+
+/** A run that advances in slices (for a Web Worker that must stay responsive). */
+export interface Solver {
+  /** Run up to `maxMoves` moves; true when the run is finished (budget used or aborted). */
+  step(maxMoves: number): boolean;
+  readonly progress: Progress;
+  /** The best plan so far (exactly re-evaluated), with the run's numbers. */
+  result(): SolveResult;
+}
