@@ -1,11 +1,16 @@
 import type { RouteChart, SheetGrid } from "../../sheets/grid.js";
 import type { SheetRead, WorkbookPort } from "../WorkbookPort.js";
-import { OfficeActionError, isItemNotFound } from "./OfficeActionError.js";
-import { geographyFromCell, type GeographyCell } from "./geographyFromCell.js";
+import { excelCapabilities, type ExcelCapabilities } from "./excelCapabilities.js";
+import { readSelectionIn, readUsedRange, toRead, type SelectionRead } from "./excelReads.js";
+import { checkSheetName, writeNewSheet } from "./excelSheetWrite.js";
+import { OfficeActionError } from "./OfficeActionError.js";
 import { planGridWrite } from "./planGridWrite.js";
 import { queueGridWrite } from "./queueGridWrite.js";
 import { queueRouteChart } from "./queueRouteChart.js";
-import { blockContains, parseRangeAddress } from "./rangeAddress.js";
+import { parseRangeAddress } from "./rangeAddress.js";
+import { readGeographyIn, type GeographyRead } from "./readGeographyIn.js";
+
+export type { ExcelCapabilities, GeographyRead, SelectionRead };
 
 /** Options of `ExcelWorkbook`. */
 export interface ExcelWorkbookOptions {
@@ -14,39 +19,6 @@ export interface ExcelWorkbookOptions {
   /** Told, in a sentence for the pane, when a feature is skipped because this Excel lacks it. */
   readonly onNotice?: (message: string) => void;
 }
-
-/** Which optional features this Excel supports (requirement sets, OFFICE-NOTES.md). */
-export interface ExcelCapabilities {
-  /** Chart series from ranges, ExcelApi 1.7. */
-  readonly charts: boolean;
-  /** `freezePanes`, ExcelApi 1.7. */
-  readonly freezePanes: boolean;
-  /** `range.getTables`, ExcelApi 1.9. */
-  readonly tables: boolean;
-  /** `valuesAsJson` (Geography linked entities), ExcelApi 1.16. */
-  readonly geography: boolean;
-}
-
-/** The selected block, or the whole Excel table it lies in. */
-export interface SelectionRead {
-  readonly read: SheetRead;
-  /** Sheet-qualified address as Excel reports it, e.g. "Stops!A1:J81". */
-  readonly address: string;
-  /** Set when the selection lay inside an Excel table and the whole table was read. */
-  readonly tableName?: string;
-}
-
-/** Coordinates found in Geography cells, or why none could be read. */
-export type GeographyRead =
-  | { readonly available: false; readonly reason: string }
-  | {
-      readonly available: true;
-      readonly sheet: string;
-      /** 0-based row and column of `cells[0][0]`. */
-      readonly row: number;
-      readonly col: number;
-      readonly cells: readonly (readonly GeographyCell[])[];
-    };
 
 /**
  * `WorkbookPort` over Office.js, the only code that touches the `Excel` and `Office` globals.
@@ -70,9 +42,7 @@ export class ExcelWorkbook implements WorkbookPort {
 
   /** Optional features of the running Excel; all false outside Office. */
   capabilities(): ExcelCapabilities {
-    const has = (version: string): boolean =>
-      typeof Office !== "undefined" && Office.context?.requirements?.isSetSupported("ExcelApi", version) === true;
-    return { charts: has("1.7"), freezePanes: has("1.7"), tables: has("1.9"), geography: has("1.16") };
+    return excelCapabilities();
   }
 
   /** Sheet names in tab order. @throws OfficeActionError when Excel fails */
@@ -110,7 +80,7 @@ export class ExcelWorkbook implements WorkbookPort {
       existing.load("isNullObject");
       await context.sync();
       if (!existing.isNullObject) throw new Error(`a sheet named "${name}" already exists; choose a free name`);
-      await this.#writeNewSheet(context, name, async (sheet) => {
+      await writeNewSheet(context, name, async (sheet) => {
         await queueGridWrite(context, sheet, plan, { freeze: caps.freezePanes });
         if (chart && chart.series.length > 0) {
           if (caps.charts) queueRouteChart(sheet, chart);
@@ -138,7 +108,7 @@ export class ExcelWorkbook implements WorkbookPort {
         if (headerPlan) await queueGridWrite(context, sheet, headerPlan, { freeze: caps.freezePanes && used === undefined });
         await queueGridWrite(context, sheet, rowsPlan, { freeze: false });
       };
-      if (used === undefined) await this.#writeNewSheet(context, name, write);
+      if (used === undefined) await writeNewSheet(context, name, write);
       else {
         await write(context.workbook.worksheets.getItem(name));
         await context.sync();
@@ -177,31 +147,7 @@ export class ExcelWorkbook implements WorkbookPort {
    */
   async readSelection(): Promise<SelectionRead> {
     const caps = this.capabilities();
-    return this.#run("read the selection (select one block of cells)", async (context) => {
-      const range = context.workbook.getSelectedRange();
-      range.load("address, rowIndex, columnIndex");
-      const sheet = range.worksheet;
-      sheet.load("name");
-      const filled = range.getIntersectionOrNullObject(sheet.getUsedRange(true));
-      filled.load("isNullObject, address, values, rowIndex, columnIndex");
-      const tables = caps.tables ? range.getTables(false) : undefined;
-      tables?.load("items/name");
-      await context.sync();
-      const selection: SelectionRead = filled.isNullObject
-        ? { read: { sheet: sheet.name, row: range.rowIndex, col: range.columnIndex, values: [] }, address: range.address }
-        : { read: toRead(sheet.name, filled), address: filled.address };
-      const table = tables?.items[0];
-      if (table) {
-        const whole = table.getRange();
-        whole.load("address, values, rowIndex, columnIndex");
-        await context.sync();
-        const tableRead = toRead(sheet.name, whole);
-        if (selection.read.values.length > 0 && blockContains(blockOf(tableRead), blockOf(selection.read))) {
-          return { read: tableRead, address: whole.address, tableName: table.name };
-        }
-      }
-      return selection;
-    });
+    return this.#run("read the selection (select one block of cells)", (context) => readSelectionIn(context, caps.tables));
   }
 
   /**
@@ -234,13 +180,7 @@ export class ExcelWorkbook implements WorkbookPort {
         reason: "Geography cells need Excel with ExcelApi 1.16 (Microsoft 365); type latitude and longitude into two columns instead.",
       };
     }
-    return this.#run(`read the Geography cells of ${address}`, async (context) => {
-      const range = context.workbook.worksheets.getItem(parsed.sheet).getRange(parsed.range);
-      range.load("valuesAsJson, rowIndex, columnIndex");
-      await context.sync();
-      const cells = range.valuesAsJson.map((row) => row.map((cell) => geographyFromCell(cell)));
-      return { available: true, sheet: parsed.sheet, row: range.rowIndex, col: range.columnIndex, cells };
-    });
+    return this.#run(`read the Geography cells of ${address}`, (context) => readGeographyIn(context, parsed.sheet, parsed.range));
   }
 
   /**
@@ -270,20 +210,6 @@ export class ExcelWorkbook implements WorkbookPort {
     });
   }
 
-  /** Adds `name`, runs `write`, syncs; on failure deletes the sheet again in a new batch. */
-  async #writeNewSheet(context: Excel.RequestContext, name: string, write: (sheet: Excel.Worksheet) => Promise<void>): Promise<void> {
-    try {
-      await write(context.workbook.worksheets.add(name));
-      await context.sync();
-    } catch (error) {
-      const removed = await deleteSheetIfPresent(context, name);
-      throw new OfficeActionError(
-        `write the sheet "${name}" (${removed ? "the half-written sheet was removed" : "remove the half-written sheet by hand"})`,
-        error,
-      );
-    }
-  }
-
   async #run<T>(action: string, batch: (context: Excel.RequestContext) => Promise<T>): Promise<T> {
     try {
       return await Excel.run(batch);
@@ -291,51 +217,5 @@ export class ExcelWorkbook implements WorkbookPort {
       if (error instanceof OfficeActionError || error instanceof RangeError || error instanceof TypeError) throw error;
       throw new OfficeActionError(action, error);
     }
-  }
-}
-
-/** Loads the used range of a sheet in one sync; `undefined` when the sheet does not exist. */
-async function readUsedRange(context: Excel.RequestContext, name: string, properties: string): Promise<Excel.Range | undefined> {
-  const used = context.workbook.worksheets.getItem(name).getUsedRangeOrNullObject(true);
-  used.load(properties);
-  try {
-    await context.sync();
-  } catch (error) {
-    if (isItemNotFound(error)) return undefined;
-    throw error;
-  }
-  return used;
-}
-
-async function deleteSheetIfPresent(context: Excel.RequestContext, name: string): Promise<boolean> {
-  try {
-    const sheet = context.workbook.worksheets.getItemOrNullObject(name);
-    sheet.load("isNullObject");
-    await context.sync();
-    if (!sheet.isNullObject) {
-      sheet.delete();
-      await context.sync();
-    }
-    return true;
-  } catch {
-    return false; // the original failure is the one to report
-  }
-}
-
-function toRead(sheet: string, range: Excel.Range): SheetRead {
-  return { sheet, row: range.rowIndex, col: range.columnIndex, values: range.values };
-}
-
-function blockOf(read: SheetRead): { row: number; col: number; rows: number; cols: number } {
-  return { row: read.row, col: read.col, rows: read.values.length, cols: read.values[0]?.length ?? 0 };
-}
-
-/** Excel's sheet-name rules (not in the Office.js docs, OFFICE-NOTES.md): enforced here. */
-function checkSheetName(name: string): void {
-  if (typeof name !== "string" || name.length === 0 || name.length > 31) {
-    throw new RangeError(`name must be 1 to 31 characters, got "${String(name)}"`);
-  }
-  if (/[:\\/?*[\]]/.test(name) || name.startsWith("'") || name.endsWith("'")) {
-    throw new RangeError(`name "${name}" contains a character Excel forbids in sheet names (: \\ / ? * [ ] or a leading/trailing ')`);
   }
 }

@@ -1,5 +1,8 @@
 export { ExcelWorkbook } from "./ExcelWorkbook.js";
-export type { ExcelWorkbookOptions, ExcelCapabilities, SelectionRead, GeographyRead } from "./ExcelWorkbook.js";
+export type { ExcelWorkbookOptions } from "./ExcelWorkbook.js";
+export type { ExcelCapabilities } from "./excelCapabilities.js";
+export type { SelectionRead } from "./excelReads.js";
+export type { GeographyRead } from "./readGeographyIn.js";
 export type { GeographyCell } from "./geographyFromCell.js";
 export { geographyFromCell } from "./geographyFromCell.js";
 export { OfficeActionError, isItemNotFound } from "./OfficeActionError.js";

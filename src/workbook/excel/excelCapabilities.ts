@@ -1,0 +1,18 @@
+/** Which optional features this Excel supports (requirement sets, OFFICE-NOTES.md). */
+export interface ExcelCapabilities {
+  /** Chart series from ranges, ExcelApi 1.7. */
+  readonly charts: boolean;
+  /** `freezePanes`, ExcelApi 1.7. */
+  readonly freezePanes: boolean;
+  /** `range.getTables`, ExcelApi 1.9. */
+  readonly tables: boolean;
+  /** `valuesAsJson` (Geography linked entities), ExcelApi 1.16. */
+  readonly geography: boolean;
+}
+
+/** Optional features of the running Excel; all false outside Office. */
+export function excelCapabilities(): ExcelCapabilities {
+  const has = (version: string): boolean =>
+    typeof Office !== "undefined" && Office.context?.requirements?.isSetSupported("ExcelApi", version) === true;
+  return { charts: has("1.7"), freezePanes: has("1.7"), tables: has("1.9"), geography: has("1.16") };
+}

@@ -1,0 +1,47 @@
+import { OfficeActionError } from "./OfficeActionError.js";
+
+/**
+ * Adds the sheet `name`, runs `write` on it and syncs; on failure deletes the half-written
+ * sheet again in a new batch and throws an `OfficeActionError` that says whether that worked.
+ */
+export async function writeNewSheet(
+  context: Excel.RequestContext,
+  name: string,
+  write: (sheet: Excel.Worksheet) => Promise<void>,
+): Promise<void> {
+  try {
+    await write(context.workbook.worksheets.add(name));
+    await context.sync();
+  } catch (error) {
+    const removed = await deleteSheetIfPresent(context, name);
+    throw new OfficeActionError(
+      `write the sheet "${name}" (${removed ? "the half-written sheet was removed" : "remove the half-written sheet by hand"})`,
+      error,
+    );
+  }
+}
+
+async function deleteSheetIfPresent(context: Excel.RequestContext, name: string): Promise<boolean> {
+  try {
+    const sheet = context.workbook.worksheets.getItemOrNullObject(name);
+    sheet.load("isNullObject");
+    await context.sync();
+    if (!sheet.isNullObject) {
+      sheet.delete();
+      await context.sync();
+    }
+    return true;
+  } catch {
+    return false; // the original failure is the one to report
+  }
+}
+
+/** Excel's sheet-name rules (not in the Office.js docs, OFFICE-NOTES.md): enforced here. */
+export function checkSheetName(name: string): void {
+  if (typeof name !== "string" || name.length === 0 || name.length > 31) {
+    throw new RangeError(`name must be 1 to 31 characters, got "${String(name)}"`);
+  }
+  if (/[:\\/?*[\]]/.test(name) || name.startsWith("'") || name.endsWith("'")) {
+    throw new RangeError(`name "${name}" contains a character Excel forbids in sheet names (: \\ / ? * [ ] or a leading/trailing ')`);
+  }
+}
