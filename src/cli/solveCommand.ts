@@ -1,50 +1,23 @@
 import { access, readFile, realpath, writeFile } from "node:fs/promises";
 import { basename, dirname, extname, join, resolve } from "node:path";
 import type { Issue } from "../core/model.js";
-import type { CoolingSpec, SolveOptions } from "../core/options.js";
+import type { SolveOptions } from "../core/options.js";
 import { solve } from "../core/solve.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
 import { formatCooling } from "../sheets/formatCooling.js";
-import { GEOMETRIC_DEFAULTS, LINEAR_DEFAULT_STEPS } from "../sheets/parseSettingsSheet.js";
-import type { PlanSettings } from "../sheets/PlanSettings.js";
+import { SETTING_FIELDS } from "../sheets/settingFields.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { ExcelJsWorkbook } from "../workbook/exceljs/ExcelJsWorkbook.js";
 import { partsNotKept } from "../workbook/exceljs/zipEntryNames.js";
 import { findInputSheets } from "../workbook/findInputSheets.js";
 import { readScenarioInput, sourceOf, writeScenarioResult } from "../workbook/scenario.js";
 import type { CliIO } from "./CliIO.js";
-import { numberOption, parseArgs, type ParsedArgs } from "./parseArgs.js";
+import { parseArgs, type ParsedArgs } from "./parseArgs.js";
+import { RUN_SETTING_KEYS, applySchedule, settingFlags } from "./settingFlags.js";
 import { progressBar } from "./progressBar.js";
 
 /** Options shared by `solve` and `profile` (names without dashes). */
-export const RUN_VALUE_OPTIONS = [
-  "stops",
-  "fleet",
-  "settings",
-  "rule",
-  "schedule",
-  "alpha",
-  "level",
-  "steps",
-  "beta",
-  "t0",
-  "tend",
-  "seed",
-  "seconds",
-  "moves",
-  "detour",
-  "speed",
-] as const;
-
-/**
- * Defaults of schedule parameters the user leaves out: the same as for a Settings sheet that
- * names only the schedule (geometric factor 0.94 is common practice). Lundy-Mees has no
- * default beta: its scale depends on the cost units, so `--beta` is required.
- */
-export const SCHEDULE_PARAMETER_DEFAULTS = {
-  alpha: GEOMETRIC_DEFAULTS.alpha,
-  steps: LINEAR_DEFAULT_STEPS,
-} as const;
+export const RUN_VALUE_OPTIONS = ["stops", "fleet", "settings", ...RUN_SETTING_KEYS.map((k) => SETTING_FIELDS[k].flag)] as const;
 
 /** Usage text of `kiln solve`. */
 export const SOLVE_USAGE = `kiln solve WORKBOOK.xlsx [--stops SHEET] [--fleet SHEET] [--settings SHEET] [--scenario NAME]
@@ -152,8 +125,9 @@ export interface PreparedRun {
  * @example await prepareRun(parseArgs(["demo/kiln-demo.xlsx"], spec)) // => { book, read, ... }
  */
 export async function prepareRun(parsed: ParsedArgs): Promise<PreparedRun | { errors: string[] }> {
-  const overrides = settingOverrides(parsed);
-  const scheduleFlags = scheduleFlagsOf(parsed);
+  const flags = settingFlags(Object.fromEntries(parsed.values), parsed.flags.has("soft-windows"));
+  parsed.errors.push(...flags.errors);
+  const overrides = flags.overrides;
   const errors = [...parsed.errors];
   if (parsed.positional.length !== 1) {
     errors.push(
@@ -190,8 +164,8 @@ export async function prepareRun(parsed: ParsedArgs): Promise<PreparedRun | { er
     overrides,
   });
   if (!read.ok) return { errors: read.issues.map(formatIssue) };
-  const cooling = applyScheduleFlags(read.settings.cooling, scheduleFlags);
-  if ("error" in cooling) return { errors: [cooling.error] };
+  const cooling = applySchedule(read.settings.cooling, flags.schedule);
+  if ("errors" in cooling) return { errors: cooling.errors };
   return {
     book,
     inputPath,
@@ -241,137 +215,6 @@ export async function outputPath(inputPath: string, out?: string): Promise<{ pat
     if (!(await exists(path))) return { path, explicit: false };
   }
   return { error: `${inputPath}: no free NAME.plan-N.xlsx name beside it; name the output with --out` };
-}
-
-/** The schedule flags as given (undefined = not given). */
-interface ScheduleFlags {
-  kind?: CoolingSpec["kind"];
-  alpha?: number;
-  level?: number;
-  steps?: number;
-  beta?: number;
-  t0?: number;
-  tEnd?: number;
-}
-
-const SCHEDULE_KINDS: Record<string, CoolingSpec["kind"]> = {
-  geometric: "geometric",
-  linear: "linear",
-  "lundy-mees": "lundyMees",
-  time: "timeFraction",
-};
-
-function scheduleFlagsOf(parsed: ParsedArgs): ScheduleFlags {
-  const flags: ScheduleFlags = {};
-  const name = parsed.values.get("schedule");
-  if (name !== undefined) {
-    const kind = SCHEDULE_KINDS[name];
-    if (kind) flags.kind = kind;
-    else parsed.errors.push(`--schedule must be geometric, linear, lundy-mees or time, got "${name}"`);
-  }
-  const positive = (opt: string): number | undefined => {
-    const v = numberOption(parsed, opt, { min: 0 });
-    if (v === 0) parsed.errors.push(`--${opt} must be > 0, got 0`);
-    return v === 0 ? undefined : v;
-  };
-  const alpha = positive("alpha");
-  if (alpha !== undefined && !(alpha < 1)) parsed.errors.push(`--alpha must be between 0 and 1 (exclusive), got ${alpha}`);
-  else if (alpha !== undefined) flags.alpha = alpha;
-  const level = numberOption(parsed, "level", { min: 1, integer: true });
-  if (level !== undefined) flags.level = level;
-  const steps = numberOption(parsed, "steps", { min: 1, integer: true });
-  if (steps !== undefined) flags.steps = steps;
-  const beta = positive("beta");
-  if (beta !== undefined) flags.beta = beta;
-  const t0 = positive("t0");
-  if (t0 !== undefined) flags.t0 = t0;
-  const tEnd = positive("tend");
-  if (tEnd !== undefined) flags.tEnd = tEnd;
-  return flags;
-}
-
-/** Combine the flags with the schedule the settings chose (flags win; a flag must fit the kind). */
-function applyScheduleFlags(base: CoolingSpec, f: ScheduleFlags): { spec: CoolingSpec } | { error: string } {
-  const kind = f.kind ?? base.kind;
-  const same = <K extends CoolingSpec["kind"]>(k: K): Extract<CoolingSpec, { kind: K }> | undefined =>
-    base.kind === k ? (base as Extract<CoolingSpec, { kind: K }>) : undefined;
-  const misfit = (flag: string, value: number | undefined, fits: boolean): string | undefined =>
-    value !== undefined && !fits
-      ? `--${flag} does not apply to the ${kindName(kind)} schedule; choose --schedule ${flagHome(flag)}`
-      : undefined;
-  const error =
-    misfit("alpha", f.alpha, kind === "geometric") ??
-    misfit("level", f.level, kind === "geometric") ??
-    misfit("steps", f.steps, kind === "linear") ??
-    misfit("beta", f.beta, kind === "lundyMees") ??
-    misfit("tend", f.tEnd, kind === "linear" || kind === "timeFraction");
-  if (error) return { error };
-  const D = SCHEDULE_PARAMETER_DEFAULTS;
-  const t0 = f.t0 ?? same(kind)?.t0;
-  const withT0 = t0 !== undefined ? { t0 } : {};
-  switch (kind) {
-    case "geometric": {
-      const b = same("geometric");
-      const movesPerLevel = f.level ?? b?.movesPerLevel;
-      return {
-        spec: { kind, alpha: f.alpha ?? b?.alpha ?? D.alpha, ...(movesPerLevel !== undefined ? { movesPerLevel } : {}), ...withT0 },
-      };
-    }
-    case "linear": {
-      const b = same("linear");
-      const tEnd = f.tEnd ?? b?.tEnd;
-      return { spec: { kind, steps: f.steps ?? b?.steps ?? D.steps, ...withT0, ...(tEnd !== undefined ? { tEnd } : {}) } };
-    }
-    case "lundyMees": {
-      const beta = f.beta ?? same("lundyMees")?.beta;
-      if (beta === undefined) return { error: "--schedule lundy-mees needs --beta B (T <- T / (1 + B T) per move; e.g. 1e-4)" };
-      return { spec: { kind, beta, ...withT0 } };
-    }
-    case "timeFraction": {
-      const tEnd = f.tEnd ?? same("timeFraction")?.tEnd;
-      return { spec: { kind, ...withT0, ...(tEnd !== undefined ? { tEnd } : {}) } };
-    }
-  }
-}
-
-function kindName(kind: CoolingSpec["kind"]): string {
-  return Object.entries(SCHEDULE_KINDS).find(([, k]) => k === kind)?.[0] ?? kind;
-}
-
-function flagHome(flag: string): string {
-  return flag === "alpha" || flag === "level"
-    ? "geometric"
-    : flag === "steps"
-      ? "linear"
-      : flag === "beta"
-        ? "lundy-mees"
-        : "linear or time";
-}
-
-/** Settings the flags override (the settings sheet and defaults fill the rest). */
-function settingOverrides(parsed: ParsedArgs): Partial<PlanSettings> {
-  const o: { -readonly [K in keyof PlanSettings]?: PlanSettings[K] } = {};
-  const rule = parsed.values.get("rule");
-  if (rule === "metropolis" || rule === "logistic") o.rule = rule;
-  else if (rule !== undefined) parsed.errors.push(`--rule must be metropolis or logistic, got "${rule}"`);
-  const seed = numberOption(parsed, "seed", { min: 0, integer: true });
-  if (seed !== undefined) o.seed = seed;
-  const seconds = numberOption(parsed, "seconds", { min: 0 });
-  const moves = numberOption(parsed, "moves", { min: 1, integer: true });
-  if (seconds !== undefined && moves !== undefined) parsed.errors.push("use --seconds or --moves, not both");
-  else if (moves !== undefined) o.moves = moves;
-  else if (seconds !== undefined) {
-    if (seconds === 0) parsed.errors.push("--seconds must be > 0, got 0");
-    o.seconds = seconds;
-    o.moves = undefined; // a seconds flag beats a move budget from the Settings sheet
-  }
-  const detour = numberOption(parsed, "detour", { min: 1 });
-  if (detour !== undefined) o.detourFactor = detour;
-  const speed = numberOption(parsed, "speed", { min: 0 });
-  if (speed === 0) parsed.errors.push("--speed must be > 0 km/h, got 0");
-  else if (speed !== undefined) o.speedKmh = speed;
-  if (parsed.flags.has("soft-windows")) o.hardWindows = false;
-  return o;
 }
 
 function reportErrors(io: CliIO, errors: readonly string[]): number {

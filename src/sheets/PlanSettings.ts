@@ -2,7 +2,8 @@ import type { AcceptanceRule, CoolingSpec } from "../core/options.js";
 
 /**
  * Everything a user can set for one scenario run: from CLI flags, the optional
- * `Settings` sheet, or the pane. Defaults in `PLAN_SETTINGS_DEFAULTS`.
+ * `Settings` sheet, or the pane. Defaults in `PLAN_SETTINGS_DEFAULTS`; ranges, labels and text
+ * parsing in `settingFields.ts` and `settingsSchema.ts` (one schema for every input path).
  */
 export interface PlanSettings {
   /** Road distance over great-circle distance (default 1.3, common practice). */
@@ -52,4 +53,6 @@ export interface RunRecord {
   /** Sheet and range the stops and fleet were read from, e.g. "Stops!A1:J81". */
   readonly stopsSource: string;
   readonly fleetSource: string;
+  /** Sheet and range of the road-distance matrix, when one replaced the great-circle distances. */
+  readonly matrixSource?: string;
 }

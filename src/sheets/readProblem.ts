@@ -10,6 +10,8 @@ import { parseStops, type ParsedStops } from "./parseStops.js";
 import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "./PlanSettings.js";
 import type { ReadResult, StopRow } from "./ReadResult.js";
 import { cellIssue } from "./readTable.js";
+import { SETTING_FIELDS } from "./settingFields.js";
+import { crossProblems } from "./settingsSchema.js";
 
 /** Name of the one load dimension when neither Demand nor Capacity carries a unit word. */
 export const PLAIN_DIMENSION = "load";
@@ -241,17 +243,13 @@ function checkServable(
   }
 }
 
+/** The checks across settings (P end below P0, ...) on the merged settings, placed where the value came from. */
 function checkSettings(s: PlanSettings, overrides: Partial<PlanSettings>): Issue[] {
-  const out: Issue[] = [];
-  const bad = (field: keyof PlanSettings, message: string): void => {
+  return crossProblems(s).map((p) => {
+    const field = p.key === "tEnd" ? "cooling" : p.key;
     const sheet = field in overrides ? "options" : "Settings";
-    out.push({ sheet, cell: field, message: `${sheet} ${field}: ${message}` });
-  };
-  if (!(s.detourFactor >= 1)) bad("detourFactor", `detour factor ${s.detourFactor} is below 1; use 1 or more, such as 1.3.`);
-  if (!(s.speedKmh > 0)) bad("speedKmh", `speed ${s.speedKmh} km/h must be above 0, such as 40.`);
-  if (!(s.serviceMin >= 0)) bad("serviceMin", `service time ${s.serviceMin} min must be 0 or more.`);
-  if (!(s.lateCostPerMin >= 0)) bad("lateCostPerMin", `late cost ${s.lateCostPerMin} per minute must be 0 or more.`);
-  return out;
+    return { sheet, cell: SETTING_FIELDS[p.key].label, message: `${sheet} ${SETTING_FIELDS[p.key].label}: ${p.message}` };
+  });
 }
 
 function defined<T extends object>(o: T): Partial<T> {

@@ -9,7 +9,7 @@ import type { SolveResult } from "../core/solve.js";
 import { profile } from "../core/anneal/profile.js";
 import { describeProfile } from "../core/anneal/describeProfile.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
-import type { RunRecord } from "../sheets/PlanSettings.js";
+import { parseRunRecord } from "../sheets/settingsSchema.js";
 import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { scenarioSettingsKey } from "../sheets/scenarioSettingsKey.js";
@@ -185,7 +185,7 @@ export class PaneController {
   private drawPreview(): void {
     const d = this.dom;
     const form = settingsFromForm(readForm(d));
-    const coolingIssues = form.issues.filter((i) => !["Scenario", "Detour factor", "Speed", "Service minutes", "Seed"].includes(i.cell));
+    const coolingIssues = form.issues.filter((i) => !["Scenario", "Detour factor", "Speed", "Service time", "Seed"].includes(i.cell));
     if (coolingIssues.length > 0) {
       d.coolingReading.textContent = coolingIssues.map((i) => i.message).join(" ");
       d.coolingReading.classList.remove("ok");
@@ -324,14 +324,12 @@ export class PaneController {
       d.rerunStatus.textContent = `"${sheet}" is not a plan sheet made by Kiln (no stored settings). Go to a plan sheet and try again.`;
       return;
     }
-    let record: RunRecord;
-    try {
-      record = JSON.parse(stored) as RunRecord;
-      if (!record || typeof record !== "object" || !record.settings) throw new Error("no settings");
-    } catch {
-      d.rerunStatus.textContent = `The settings stored for "${sheet}" cannot be read; optimize with the pane's settings instead.`;
+    const loaded = parseRunRecord(stored);
+    if (!loaded.ok) {
+      d.rerunStatus.textContent = `The settings stored for "${sheet}" cannot be read (${loaded.message}); optimize with the pane's settings instead.`;
       return;
     }
+    const record = loaded.record;
     writeForm(d, formFromSettings(record.settings, record.scenario, readForm(d)));
     d.rerunStatus.textContent = `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}). Optimize writes a new sheet.`;
     this.settingsChanged();

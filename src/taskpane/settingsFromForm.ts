@@ -5,6 +5,8 @@
 import type { Issue } from "../core/model.js";
 import type { CoolingSpec } from "../core/options.js";
 import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "../sheets/PlanSettings.js";
+import { PARAMETERS_OF, SETTING_FIELDS, type SettingKey } from "../sheets/settingFields.js";
+import { buildCooling, crossProblems, parseSettingValue, type ScheduleParams } from "../sheets/settingsSchema.js";
 
 /** The raw text of every settings field, keyed by the input's id. */
 export interface PaneForm {
@@ -63,79 +65,83 @@ export interface FormReading {
   readonly issues: Issue[];
 }
 
+/** The pane field of each setting the form shows. */
+const FIELD_OF: Partial<Record<SettingKey, keyof PaneForm>> = {
+  detourFactor: "detour",
+  speedKmh: "speed",
+  serviceMin: "service",
+  windows: "windows",
+  lateCostPerMin: "late-cost",
+  seconds: "seconds",
+  seed: "seed",
+  rule: "rule",
+  schedule: "schedule",
+  alpha: "alpha",
+  movesPerLevel: "moves-per-level",
+  steps: "steps",
+  beta: "beta",
+  p0: "p0",
+  pEnd: "p-end",
+  t0: "t0",
+  tEnd: "t-end",
+};
+
 /**
- * Read the pane's fields into plan settings. Every bad field is reported at once; its default is
- * used in `settings` so previews can still draw.
+ * Read the pane's fields into plan settings with the one settings schema (the same ranges and
+ * messages as the Settings sheet and the CLI). Every bad field is reported at once; its default
+ * is used in `settings` so previews can still draw.
  *
  * @param form - the raw field texts
  * @returns scenario name, settings and issues
  * @example settingsFromForm({ ...form, detour: "0.8" }).issues[0].message
- * // => "Detour factor 0.8 must be between 1 and 3 (road distance over straight-line distance)."
+ * // => "Detour factor 0.8 is not valid: enter a number from 1 to 3, such as 1.3."
  */
 export function settingsFromForm(form: PaneForm): FormReading {
   const issues: Issue[] = [];
   const d = PLAN_SETTINGS_DEFAULTS;
-  const num = (field: keyof PaneForm, label: string, min: number, max: number, fallback: number, why = ""): number => {
-    const text = String(form[field] ?? "").trim();
-    const value = Number(text);
-    if (text === "" || !Number.isFinite(value) || value < min || value > max) {
-      issues.push({
-        sheet: "Settings",
-        cell: label,
-        message: `${label} ${text === "" ? "is empty" : `"${text}"`}: enter a number between ${min} and ${max}${why}.`,
-      });
-      return fallback;
-    }
-    return value;
+  const issue = (key: SettingKey, message: string): void => {
+    issues.push({ sheet: "Settings", cell: SETTING_FIELDS[key].label, message });
+  };
+  const read = <T extends number | string>(key: SettingKey, fallback: T): T => {
+    const parsed = parseSettingValue(key, String(form[FIELD_OF[key]!] ?? ""));
+    if (parsed.ok) return parsed.value as T;
+    issue(key, parsed.message);
+    return fallback;
   };
   const scenario = form.scenario.trim() || "Plan 1";
-  const detourFactor = num("detour", "Detour factor", 1, 3, d.detourFactor, " (road distance over straight-line distance)");
-  const speedKmh = num("speed", "Speed", 1, 200, d.speedKmh, " km/h");
-  const serviceMin = num("service", "Service minutes", 0, 600, d.serviceMin);
-  const hardWindows = form.windows !== "soft";
-  const lateCostPerMin = hardWindows ? d.lateCostPerMin : num("late-cost", "Late cost per minute", 0, 1e6, d.lateCostPerMin);
-  const seconds = num("seconds", "Time limit", 1, 3600, d.seconds, " seconds");
-  const seed = Math.trunc(num("seed", "Seed", -2_147_483_648, 2_147_483_647, d.seed));
-  const rule = form.rule === "logistic" ? "logistic" : "metropolis";
+  const detourFactor = read("detourFactor", d.detourFactor);
+  const speedKmh = read("speedKmh", d.speedKmh);
+  const serviceMin = read("serviceMin", d.serviceMin);
+  const hardWindows = read("windows", "hard") === "hard";
+  // Under hard windows the late-cost field is hidden: keep its value when it is valid, never complain.
+  const hiddenLate = parseSettingValue("lateCostPerMin", form["late-cost"] ?? "");
+  const lateCostPerMin = !hardWindows
+    ? read("lateCostPerMin", d.lateCostPerMin)
+    : hiddenLate.ok
+      ? (hiddenLate.value as number)
+      : d.lateCostPerMin;
+  const seconds = read("seconds", d.seconds);
+  const seed = read("seed", d.seed);
+  const rule = read("rule", d.rule);
   const manual = form.temperatures === "manual";
-  const p0 = manual ? d.p0 : num("p0", "Initial acceptance", 0.01, 0.99, d.p0);
-  const pEnd = manual ? d.pEnd : num("p-end", "Final acceptance", 1e-9, 0.5, d.pEnd);
-  if (!manual && pEnd >= p0) {
-    issues.push({
-      sheet: "Settings",
-      cell: "Final acceptance",
-      message: `Final acceptance ${pEnd} must be below the initial acceptance ${p0}.`,
-    });
+  const p0 = manual ? d.p0 : read("p0", d.p0);
+  const pEnd = manual ? d.pEnd : read("pEnd", d.pEnd);
+  const kind = read("schedule", d.cooling.kind) as CoolingSpec["kind"];
+  // Only the shown fields count: the selected schedule's parameters, T0 and T end when manual.
+  const params: ScheduleParams = {};
+  const before = issues.length;
+  for (const p of PARAMETERS_OF[kind]) {
+    if ((p === "t0" || p === "tEnd") && !manual) continue;
+    // Blank moves per level: the levels are spread over the run so T reaches its end value.
+    if (p === "movesPerLevel" && String(form["moves-per-level"] ?? "").trim() === "") continue;
+    const v = read<number | string>(p, Number.NaN);
+    if (typeof v === "number" && !Number.isNaN(v)) params[p] = v;
   }
-  const t0 = manual ? num("t0", "T0", 1e-9, 1e12, 100) : undefined;
-  const tEnd = manual ? num("t-end", "T end", 1e-12, 1e12, 1) : undefined;
-  if (t0 !== undefined && tEnd !== undefined && tEnd >= t0 && form.schedule !== "geometric" && form.schedule !== "lundyMees") {
-    issues.push({ sheet: "Settings", cell: "T end", message: `T end ${tEnd} must be below T0 ${t0} for a cooling schedule.` });
-  }
-  const withT0 = t0 !== undefined ? { t0 } : {};
-  const withTEnd = tEnd !== undefined ? { tEnd } : {};
-  let cooling: CoolingSpec;
-  switch (form.schedule) {
-    case "geometric":
-      cooling = {
-        kind: "geometric",
-        alpha: num("alpha", "Factor alpha", 0.5, 0.999999, 0.94),
-        // Blank moves per level: the levels are spread over the run so T reaches its end value.
-        ...(String(form["moves-per-level"] ?? "").trim() === ""
-          ? {}
-          : { movesPerLevel: Math.round(num("moves-per-level", "Moves per level", 1, 1e9, 20_000)) }),
-        ...withT0,
-      };
-      break;
-    case "linear":
-      cooling = { kind: "linear", steps: Math.round(num("steps", "Steps", 1, 10_000, 20)), ...withT0, ...withTEnd };
-      break;
-    case "lundyMees":
-      cooling = { kind: "lundyMees", beta: num("beta", "Beta", 1e-15, 1e6, 1e-4), ...withT0 };
-      break;
-    default:
-      cooling = { kind: "timeFraction", ...withT0, ...withTEnd };
-  }
+  const built = buildCooling(kind, params);
+  let cooling: CoolingSpec = d.cooling;
+  if ("spec" in built) cooling = built.spec;
+  else if (issues.length === before) for (const p of built.problems) issue(p.key, p.message);
+  if (!manual) for (const p of crossProblems({ p0, pEnd, cooling })) issue(p.key, p.message);
   const settings: PlanSettings = {
     ...d,
     detourFactor,

@@ -83,14 +83,14 @@ describe("kiln solve (in process)", () => {
     ).toBe(2);
     const lines = cap.err().trim().split("\n");
     expect(lines).toContain("use --seconds or --moves, not both");
-    expect(lines).toContain('--rule must be metropolis or logistic, got "greedy"');
+    expect(lines).toContain('--rule: Acceptance rule "greedy" is not valid: enter one of metropolis, logistic.');
   });
 
   it("rejects a schedule parameter that does not fit the schedule", async () => {
     const { path } = await demoCopy();
     const cap = captureIO();
     expect(await runSolve([path, ...MOVES, "--schedule", "linear", "--alpha", "0.9"], cap.io)).toBe(2);
-    expect(cap.err()).toMatch(/--alpha does not apply to the linear schedule/);
+    expect(cap.err()).toContain("--alpha: Alpha does not apply to the Linear schedule; clear it or choose the Geometric schedule.");
   });
 
   it("same seed and move budget give the same plan sheet (reproducible)", async () => {

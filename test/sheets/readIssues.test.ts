@@ -201,9 +201,9 @@ describe("readProblem reports defects by sheet and cell", () => {
     );
     const list = issues(read([OK_STOP], [OK_VAN], { settings }));
     expectIssue(list, "Settings", "D4", `unknown setting "Colour"`);
-    expectIssue(list, "Settings", "E5", `"quadratic" is not a valid cooling schedule`);
-    expectIssue(list, "Settings", "E6", `"greedy" is not a valid acceptance rule`);
-    expectIssue(list, "Settings", "E7", "0.8 is not a valid detour factor");
+    expectIssue(list, "Settings", "E5", `Schedule "quadratic" is not valid: enter one of geometric, linear, lundy-mees, time-based.`);
+    expectIssue(list, "Settings", "E6", `Acceptance rule "greedy" is not valid: enter one of metropolis, logistic.`);
+    expectIssue(list, "Settings", "E7", "Detour factor 0.8 is not valid: enter a number from 1 to 3, such as 1.3.");
     expectIssue(list, "Settings", "E8", "hard, soft");
   });
 
@@ -213,8 +213,8 @@ describe("readProblem reports defects by sheet and cell", () => {
       ["Alpha", 0.9],
     ]);
     const list = issues(read([OK_STOP], [OK_VAN], { settings }));
-    expectIssue(list, "Settings", "B2", "Alpha does not apply to the lundyMees schedule");
-    expectIssue(list, "Settings", "B1", "needs a Beta row");
+    expectIssue(list, "Settings", "B2", "Alpha does not apply to the Lundy-Mees schedule; clear it or choose the Geometric schedule.");
+    expectIssue(list, "Settings", "B1", "the Lundy-Mees schedule needs Beta");
   });
 
   it("a matrix sheet missing a location or holding a bad distance", () => {

@@ -35,7 +35,8 @@ describe("settingsFromForm", () => {
   it("reports every bad field at once, naming the field and the allowed range, and never throws", () => {
     const r = settingsFromForm({ ...FORM, detour: "0.8", speed: "", seconds: "abc" });
     expect(r.issues.map((i) => i.cell)).toEqual(["Detour factor", "Speed", "Time limit"]);
-    expect(r.issues[0]!.message).toMatch(/between 1 and 3/);
+    expect(r.issues[0]!.message).toBe("Detour factor 0.8 is not valid: enter a number from 1 to 3, such as 1.3.");
+    expect(r.issues[1]!.message).toBe("Speed is empty: enter a number from 1 to 200 km/h, such as 40.");
     expect(r.settings.detourFactor).toBe(PLAN_SETTINGS_DEFAULTS.detourFactor);
   });
 
