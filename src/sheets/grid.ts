@@ -1,3 +1,7 @@
+import type { PrintSetup } from "./printSetup.js";
+
+export type { PrintHeaderFooter, PrintSetup } from "./printSetup.js";
+
 /**
  * A sheet's content as pure data: what the layout functions produce and every
  * `WorkbookPort` adapter writes. One grid = one rectangular block starting at A1
@@ -32,6 +36,11 @@ export interface SheetGrid {
   readonly freezeRows?: number;
   /** 0-based rows to show bold (titles, headers). */
   readonly boldRows?: readonly number[];
+  /**
+   * How the sheet prints (orientation, paper, fit to width, title rows, page breaks, header
+   * and footer). Applied by `addSheet` only; Excel without ExcelApi 1.9 skips it with a notice.
+   */
+  readonly print?: PrintSetup;
 }
 
 /** A rectangle of cells, 0-based, inclusive start, exclusive end. */

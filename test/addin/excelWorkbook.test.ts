@@ -1,13 +1,8 @@
 /**
- * The Office.js adapter against office-addin-mock (Microsoft's mock of the Office.js
- * object model: `load`, `sync`, and "Error, property was not loaded" for what was not
- * loaded). The mock has no collections and does not reach objects created at run time
- * (OFFICE-NOTES.md), so sheets added by the adapter are plain recorders: every assignment
- * and call lands in `log`, and each range checks, like Excel, that a 2-D array assigned to
- * it has exactly its size (Office.js `Range.values` contract).
+ * The Office.js adapter against office-addin-mock, through the fake host of
+ * `officeMockHost.ts` (recorders for what the adapter writes, loads checked like Excel).
  */
 import { afterEach, describe, expect, it } from "vitest";
-import { OfficeMockObject } from "office-addin-mock";
 import { ExcelWorkbook } from "../../src/workbook/excel/ExcelWorkbook.js";
 import { OfficeActionError } from "../../src/workbook/excel/OfficeActionError.js";
 import type { SheetGrid, RouteChart } from "../../src/sheets/grid.js";
@@ -17,300 +12,9 @@ import { readScenarioInput, writeScenarioResult } from "../../src/workbook/scena
 import { solve } from "../../src/core/solve.js";
 import { CAUTION_TEXT } from "../../src/sheets/caution.js";
 import { scenarioSettingsKey } from "../../src/sheets/scenarioSettingsKey.js";
+import { entries, host, install, neverNotLoaded, uninstall } from "./officeMockHost.js";
 
-type Entry = [string, ...unknown[]];
-const NOT_LOADED = /property was not loaded|context\.sync\(\) was not called/;
-
-interface Fake {
-  log: Entry[];
-  syncs: () => number;
-  /** Make the n-th sync from now (1 = the next) reject with this error. */
-  failSync: (n: number, error: unknown) => void;
-  notices: string[];
-}
-
-let fake: Fake;
-
-function a1Size(address: string): { rows: number; cols: number } {
-  const parts = address.split(":").map((p) => /^([A-Z]+)(\d+)$/.exec(p)!);
-  const col = (s: string) => [...s].reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0);
-  const [a, b] = [parts[0]!, parts[1] ?? parts[0]!];
-  return { rows: Number(b[2]) - Number(a[2]) + 1, cols: col(b[1]!) - col(a[1]!) + 1 };
-}
-
-function recordingRange(log: Entry[], sheet: string, address: string): unknown {
-  const sized = (what: string, v: unknown[][]) => {
-    if (/^[A-Z]+:[A-Z]+$/.test(address)) return;
-    const { rows, cols } = a1Size(address);
-    if (v.length !== rows || v.some((r) => r.length !== cols))
-      throw new Error(`InvalidArgument: ${what} of ${address} is not ${rows}x${cols}`);
-  };
-  return {
-    set numberFormat(v: unknown[][]) {
-      sized("numberFormat", v);
-      log.push(["numberFormat", sheet, address, v]);
-    },
-    set values(v: unknown[][]) {
-      sized("values", v);
-      log.push(["values", sheet, address, v]);
-    },
-    format: {
-      set columnWidth(v: number) {
-        log.push(["columnWidth", sheet, address, v]);
-      },
-      font: {
-        set bold(v: boolean) {
-          log.push(["bold", sheet, address, v]);
-        },
-      },
-    },
-    select() {
-      log.push(["select", sheet, address]);
-    },
-  };
-}
-
-function recordingSeries(log: Entry[], name: string | undefined): unknown {
-  return {
-    set name(v: string) {
-      log.push(["series.name", v]);
-    },
-    setXAxisValues(r: unknown) {
-      log.push(["series.x", name, r]);
-    },
-    setValues(r: unknown) {
-      log.push(["series.y", name, r]);
-    },
-  };
-}
-
-function recordingSheet(log: Entry[], name: string): unknown {
-  return {
-    getRange: (address: string) => recordingRange(log, name, address),
-    freezePanes: { freezeRows: (n: number) => log.push(["freezeRows", name, n]) },
-    activate: () => log.push(["activate", name]),
-    charts: {
-      add: (type: string, source: unknown, by: string) => {
-        log.push(["charts.add", type, source, by]);
-        return {
-          title: {
-            set text(v: string) {
-              log.push(["chart.title", v]);
-            },
-          },
-          setPosition: (cell: string) => log.push(["chart.position", cell]),
-          set width(v: number) {
-            log.push(["chart.width", v]);
-          },
-          set height(v: number) {
-            log.push(["chart.height", v]);
-          },
-          series: {
-            getItemAt: (i: number) => {
-              log.push(["series.getItemAt", i]);
-              return recordingSeries(log, "#0");
-            },
-            add: (n: string) => {
-              log.push(["series.add", n]);
-              return recordingSeries(log, n);
-            },
-          },
-        };
-      },
-    },
-  };
-}
-
-interface Setup {
-  sheets?: Record<string, { values: unknown[][]; rowIndex?: number; columnIndex?: number } | "empty">;
-  excelApi?: string;
-  /** `address` and `values` are the filled part; `selected` what the user selected (default: the same). */
-  selection?: { sheet: string; address: string; selected?: string; values: unknown[][]; rowIndex: number; columnIndex: number };
-  table?: { name: string; address: string; values: unknown[][]; rowIndex: number; columnIndex: number };
-  settings?: { key: string; value: unknown }[];
-  /** Ranges readable through getItem(sheet).getRange(address), keyed "Sheet!A1:B2". */
-  ranges?: Record<string, Record<string, unknown>>;
-}
-
-function install(setup: Setup): ExcelWorkbook {
-  const log: Entry[] = [];
-  const present = new Set(Object.keys(setup.sheets ?? {}));
-  let syncCount = 0;
-  const failures = new Map<number, unknown>();
-  const used: Record<string, unknown> = {};
-  for (const [name, s] of Object.entries(setup.sheets ?? {})) {
-    used[name] =
-      s === "empty"
-        ? { isNullObject: true, values: [], rowIndex: 0, columnIndex: 0, rowCount: 0 }
-        : { isNullObject: false, values: s.values, rowIndex: s.rowIndex ?? 0, columnIndex: s.columnIndex ?? 0, rowCount: s.values.length };
-  }
-  const sel = setup.selection ?? {
-    sheet: "Stops",
-    address: "Stops!A1:B2",
-    values: [
-      ["Stop", "Name"],
-      ["S1", "Bakery"],
-    ],
-    rowIndex: 0,
-    columnIndex: 0,
-  };
-  const seed = {
-    context: {
-      workbook: {
-        worksheets: {
-          used,
-          nullSheet: { isNullObject: true },
-          liveSheet: {
-            isNullObject: false,
-            delete: function () {
-              log.push(["delete", this.lastName]);
-            },
-            lastName: "",
-          },
-          active: { name: "Fleet" },
-          ranges: setup.ranges ?? {},
-          missingRange: { isNullObject: false, values: [], valuesAsJson: [], rowIndex: 0, columnIndex: 0, rowCount: 0 },
-          items: [...present].map((name) => ({ name })),
-          load: function (this: OfficeMockObject, arg: unknown) {
-            log.push(["worksheets.load", arg]);
-            return OfficeMockObject.prototype.load.call(this, "items");
-          },
-          getItemOrNullObject: function (this: Record<string, Record<string, unknown>>, name: string) {
-            log.push(["getItemOrNullObject", name]);
-            if (!present.has(name)) return this.nullSheet;
-            (this.liveSheet as { lastName?: string }).lastName = name;
-            return this.liveSheet;
-          },
-          getItem: function (this: Record<string, Record<string, unknown>>, name: string) {
-            log.push(["getItem", name]);
-            if (!present.has(name))
-              failures.set(syncCount + 1, {
-                code: "ItemNotFound",
-                message: "The requested resource doesn't exist.",
-                debugInfo: { errorLocation: "WorksheetCollection.getItem" },
-              });
-            // eslint-disable-next-line @typescript-eslint/no-this-alias -- the mock's seed object is the book the arrow functions below read
-            const book = this;
-            return {
-              ...(recordingSheet(log, name) as object),
-              getUsedRangeOrNullObject: (valuesOnly: boolean) => {
-                log.push(["getUsedRangeOrNullObject", name, valuesOnly]);
-                return present.has(name) ? book.used![name] : book.missingRange;
-              },
-              getRange: (address: string) => {
-                if (!present.has(name)) return book.missingRange;
-                return book.ranges![`${name}!${address}`] ?? recordingRange(log, name, address);
-              },
-            };
-          },
-          add: function (name: string) {
-            log.push(["add", name]);
-            present.add(name);
-            return recordingSheet(log, name);
-          },
-          getActiveWorksheet: function (this: Record<string, unknown>) {
-            return this.active;
-          },
-        },
-        settings: {
-          items: setup.settings ?? [],
-          add: function (key: string, value: unknown) {
-            log.push(["settings.add", key, value]);
-          },
-        },
-        tableRange: {
-          address: setup.table?.address ?? "",
-          values: setup.table?.values ?? [],
-          rowIndex: setup.table?.rowIndex ?? 0,
-          columnIndex: setup.table?.columnIndex ?? 0,
-        },
-        tables: {
-          // Collection items are plain data in the mock; their getRange hands back the pre-seeded range.
-          items: setup.table ? [{ name: setup.table.name, getRange: () => seedRoot.context.workbook.tableRange }] : [],
-          load: function (this: OfficeMockObject, arg: unknown) {
-            log.push(["tables.load", arg]);
-            return OfficeMockObject.prototype.load.call(this, "items");
-          },
-        },
-        selection: {
-          address: sel.selected ?? sel.address,
-          rowIndex: sel.rowIndex,
-          columnIndex: sel.columnIndex,
-          worksheet: {
-            name: sel.sheet,
-            getUsedRange: (valuesOnly: boolean) => {
-              log.push(["getUsedRange", valuesOnly]);
-              return "used range";
-            },
-          },
-          // Excel's intersection of the selection with the used range: what the test says is filled.
-          filled: {
-            isNullObject: sel.values.length === 0,
-            address: sel.address,
-            values: sel.values,
-            rowIndex: sel.rowIndex,
-            columnIndex: sel.columnIndex,
-          },
-          getIntersectionOrNullObject: function (this: Record<string, unknown>, other: unknown) {
-            log.push(["getIntersectionOrNullObject", other]);
-            return this.filled;
-          },
-          getTables: function (fullyContained: boolean) {
-            log.push(["getTables", fullyContained]);
-            return seedRoot.context.workbook.tables;
-          },
-        },
-        getSelectedRange: function (this: Record<string, unknown>) {
-          log.push(["getSelectedRange"]);
-          return this.selection;
-        },
-      },
-    },
-    run: async function (this: { context: unknown }, cb: (c: unknown) => unknown) {
-      return cb(this.context);
-    },
-  };
-  const mock = new OfficeMockObject(seed) as unknown as typeof seed & { context: { sync: () => Promise<void> } };
-  const seedRoot = mock;
-  const original = mock.context.sync.bind(mock.context);
-  mock.context.sync = async () => {
-    syncCount++;
-    log.push(["sync"]);
-    const failure = failures.get(syncCount);
-    if (failure !== undefined) {
-      failures.delete(syncCount);
-      throw failure;
-    }
-    await original();
-  };
-  Object.assign(mock, { ChartType: { xyscatterLines: "XYScatterLines" }, ChartSeriesBy: { columns: "Columns" } });
-  const max = setup.excelApi ?? "1.16";
-  const num = (v: string) => v.split(".").map(Number) as [number, number];
-  const atLeast = (v: string) => {
-    const [a, b] = num(max);
-    const [c, d] = num(v);
-    return a > c || (a === c && b >= d);
-  };
-  Object.assign(globalThis, {
-    Excel: mock,
-    Office: { context: { requirements: { isSetSupported: (name: string, v: string) => name === "ExcelApi" && atLeast(v) } } },
-  });
-  const notices: string[] = [];
-  fake = { log, syncs: () => syncCount, failSync: (n, e) => failures.set(syncCount + n, e), notices };
-  return new ExcelWorkbook({ onNotice: (m) => notices.push(m) });
-}
-
-function neverNotLoaded(value: unknown): void {
-  expect(JSON.stringify(value)).not.toMatch(NOT_LOADED);
-  for (const entry of fake.log) expect(JSON.stringify(entry) ?? "").not.toMatch(NOT_LOADED);
-}
-
-const entries = (kind: string) => fake.log.filter((e) => e[0] === kind);
-
-afterEach(() => {
-  Reflect.deleteProperty(globalThis, "Excel");
-  Reflect.deleteProperty(globalThis, "Office");
-});
+afterEach(uninstall);
 
 describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFICE-NOTES.md)", () => {
   it("readSelection returns the selected values, address and position after one sync", async () => {
@@ -340,7 +44,7 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
       },
       address: "Stops!B3:C4",
     });
-    expect(fake.syncs()).toBe(1);
+    expect(host().syncs()).toBe(1);
     expect(entries("getTables")).toEqual([]); // ExcelApi 1.9 missing: plain selection, no table lookup
     neverNotLoaded(got);
   });
@@ -366,7 +70,7 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
     expect(got.read.values).toHaveLength(3);
     expect(entries("getIntersectionOrNullObject")).toEqual([["getIntersectionOrNullObject", "used range"]]);
     expect(entries("getUsedRange")).toEqual([["getUsedRange", true]]);
-    expect(fake.syncs()).toBe(1);
+    expect(host().syncs()).toBe(1);
   });
 
   it("readSelection of empty cells returns no values and the selected address", async () => {
@@ -398,7 +102,7 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
     expect(got.address).toBe("Stops!A1:C4");
     expect(got.read.values).toHaveLength(4);
     expect(entries("tables.load")).toEqual([["tables.load", "items/name"]]);
-    expect(fake.syncs()).toBe(2);
+    expect(host().syncs()).toBe(2);
     neverNotLoaded(got);
   });
 
@@ -426,7 +130,7 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
       ],
     });
     expect(entries("getUsedRangeOrNullObject")).toEqual([["getUsedRangeOrNullObject", "Fleet", true]]);
-    expect(fake.syncs()).toBe(1);
+    expect(host().syncs()).toBe(1);
     neverNotLoaded(got);
   });
 
@@ -467,7 +171,7 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
         [3, 4],
       ],
     });
-    expect(fake.syncs()).toBe(1);
+    expect(host().syncs()).toBe(1);
     neverNotLoaded(got);
     await expect(book.readRange("A1:B2")).rejects.toThrow(RangeError);
     await expect(book.readRange("Gone!A1:B2")).rejects.toThrow(/Could not read Gone!A1:B2: .*ItemNotFound/);
@@ -508,8 +212,8 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
   it("checks the name, then writes formats before values, widths, bold, frozen rows and the chart in one sync", async () => {
     const book = install({ sheets: { Stops: "empty" } });
     await book.addSheet("Run 1", grid, chart);
-    expect(fake.syncs()).toBe(2); // one read (is the name free?) and one write
-    const kinds = fake.log.map((e) => e[0]);
+    expect(host().syncs()).toBe(2); // one read (is the name free?) and one write
+    const kinds = host().log.map((e) => e[0]);
     expect(kinds.slice(0, 3)).toEqual(["getItemOrNullObject", "sync", "add"]);
     expect(kinds.indexOf("numberFormat")).toBeLessThan(kinds.indexOf("values"));
     expect(kinds.lastIndexOf("sync")).toBe(kinds.length - 1);
@@ -542,7 +246,7 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
     expect(entries("series.y")).toHaveLength(2);
     expect(entries("chart.title")).toEqual([["chart.title", "Routes"]]);
     expect(entries("chart.position")).toEqual([["chart.position", "F1"]]);
-    expect(fake.notices).toEqual([]);
+    expect(host().notices).toEqual([]);
   });
 
   it("skips the chart and frozen rows on ExcelApi 1.4 and says so", async () => {
@@ -550,7 +254,7 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
     await book.addSheet("Run 1", grid, chart);
     expect(entries("charts.add")).toEqual([]);
     expect(entries("freezeRows")).toEqual([]);
-    expect(fake.notices.join(" ")).toMatch(/chart .* skipped: it needs .*ExcelApi 1\.7/);
+    expect(host().notices.join(" ")).toMatch(/chart .* skipped: it needs .*ExcelApi 1\.7/);
     expect(entries("values")).toHaveLength(1);
   });
 
@@ -560,8 +264,10 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
     const small = new ExcelWorkbook({ chunkCells: 9 }); // 3 rows of 3 cells per chunk
     await small.addSheet("Big", { values: rows });
     expect(entries("values").map((e) => e[2])).toEqual(["A1:C3", "A4:C6", "A7:C9", "A10:C10"]);
-    expect(fake.syncs()).toBe(1 + 4);
-    const kinds = fake.log.filter((e) => ["numberFormat", "values", "sync"].includes(e[0])).map((e) => e[0]);
+    expect(host().syncs()).toBe(1 + 4);
+    const kinds = host()
+      .log.filter((e) => ["numberFormat", "values", "sync"].includes(e[0]))
+      .map((e) => e[0]);
     expect(kinds).toEqual(["sync", ...Array(4).fill(["numberFormat", "values", "sync"]).flat()]);
   });
 
@@ -574,7 +280,7 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
 
   it("a failing write sync deletes the half-written sheet in a new batch and keeps Office's debugInfo", async () => {
     const book = install({});
-    fake.failSync(2, { code: "InvalidArgument", message: "The argument is invalid.", debugInfo: { errorLocation: "Range.values" } });
+    host().failSync(2, { code: "InvalidArgument", message: "The argument is invalid.", debugInfo: { errorLocation: "Range.values" } });
     const error = await book.addSheet("Run 2", grid, chart).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(OfficeActionError);
     expect((error as OfficeActionError).message).toMatch(
@@ -582,7 +288,7 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
     );
     expect((error as OfficeActionError).debugInfo).toEqual({ errorLocation: "Range.values" });
     expect(entries("delete")).toEqual([["delete", "Run 2"]]);
-    const kinds = fake.log.map((e) => e[0]);
+    const kinds = host().log.map((e) => e[0]);
     expect(kinds.indexOf("delete")).toBeGreaterThan(kinds.indexOf("add"));
     expect(kinds[kinds.length - 1]).toBe("sync"); // the deletion was synced
   });
@@ -616,7 +322,7 @@ describe("the Compare sheet (office-addin-mock)", () => {
     await book.appendRows("Compare", header, row);
     expect(entries("values")).toEqual([["values", "Compare", "A4:B4", [["Run 3", 41.5]]]]);
     expect(entries("add")).toEqual([]);
-    expect(fake.syncs()).toBe(2);
+    expect(host().syncs()).toBe(2);
   });
 
   it("creates a missing Compare sheet with the header first", async () => {
@@ -641,7 +347,7 @@ describe("settings, selection of issue cells, Geography cells (office-addin-mock
     });
     await book.writeSetting("kiln.scenario.Run 2", '{"seed":2}');
     expect(entries("settings.add")).toEqual([["settings.add", "kiln.scenario.Run 2", '{"seed":2}']]);
-    expect(fake.syncs()).toBe(1);
+    expect(host().syncs()).toBe(1);
     const got = await book.readSettings();
     expect(got).toEqual({ "kiln.scenario.Run 1": '{"seed":1}', n: "3" });
     neverNotLoaded(got);
@@ -650,7 +356,7 @@ describe("settings, selection of issue cells, Geography cells (office-addin-mock
   it("selectCell activates the sheet and selects the cell; rejects a non-address", async () => {
     const book = install({ sheets: { Stops: "empty" } });
     await book.selectCell("Stops", "E7");
-    expect(fake.log.filter((e) => e[0] === "activate" || e[0] === "select")).toEqual([
+    expect(host().log.filter((e) => e[0] === "activate" || e[0] === "select")).toEqual([
       ["activate", "Stops"],
       ["select", "Stops", "E7"],
     ]);
@@ -661,7 +367,7 @@ describe("settings, selection of issue cells, Geography cells (office-addin-mock
     const book = install({ excelApi: "1.9" });
     const got = await book.readGeography("Stops!C2:C3");
     expect(got.available).toBe(false);
-    expect(fake.syncs()).toBe(0);
+    expect(host().syncs()).toBe(0);
   });
 
   it("readGeography reads valuesAsJson linked entities (shape of Excel.LinkedEntityCellValue in @types/office-js)", async () => {
@@ -692,7 +398,7 @@ describe("settings, selection of issue cells, Geography cells (office-addin-mock
       col: 2,
       cells: [[{ kind: "place", label: "Oslo", at: { lat: 59.91, lon: 10.75 } }], [{ kind: "notEntity" }]],
     });
-    expect(fake.syncs()).toBe(1);
+    expect(host().syncs()).toBe(1);
   });
 });
 
@@ -704,7 +410,7 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
     const book = install({ sheets });
     const read = await readScenarioInput(book, { stopsSheet: "Stops", fleetSheet: "Fleet", settingsSheet: "Settings" });
     if (!read.ok) throw new Error(read.issues.map((i) => i.message).join("; "));
-    const readSyncs = fake.syncs();
+    const readSyncs = host().syncs();
     const result = solve(read.problem, { seed: 7, budget: { moves: 3000 } });
     const { sheetName } = await writeScenarioResult(book, {
       read,
@@ -716,7 +422,7 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
       fleetSource: "Fleet!A1:O6",
     });
     // listSheets 1, addSheet 2 (name check, write), appendRows 2 (missing sheet found, create), writeSetting 1
-    expect(fake.syncs() - readSyncs).toBe(6);
+    expect(host().syncs() - readSyncs).toBe(6);
     const planWrites = entries("values").filter((e) => e[1] === sheetName);
     expect(planWrites).toHaveLength(1); // one assignment of the whole grid
     const written = planWrites[0]![3] as unknown[][];

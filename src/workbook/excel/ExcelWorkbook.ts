@@ -1,4 +1,4 @@
-import type { RouteChart, SheetGrid } from "../../sheets/grid.js";
+import type { PrintSetup, RouteChart, SheetGrid } from "../../sheets/grid.js";
 import type { SheetRead, WorkbookPort } from "../WorkbookPort.js";
 import { excelCapabilities, type ExcelCapabilities } from "./excelCapabilities.js";
 import { readSelectionIn, readUsedRange, toRead, type SelectionRead } from "./excelReads.js";
@@ -6,7 +6,9 @@ import { checkSheetName, writeNewSheet } from "./excelSheetWrite.js";
 import { OfficeActionError } from "./OfficeActionError.js";
 import { planGridWrite } from "./planGridWrite.js";
 import { queueGridWrite } from "./queueGridWrite.js";
+import { queuePrintSetup } from "./queuePrintSetup.js";
 import { queueRouteChart } from "./queueRouteChart.js";
+import { checkPrintSetup } from "../../sheets/printSetup.js";
 import { parseRangeAddress } from "./rangeAddress.js";
 import { readGeographyIn, type GeographyRead } from "./readGeographyIn.js";
 
@@ -73,6 +75,7 @@ export class ExcelWorkbook implements WorkbookPort {
    */
   async addSheet(name: string, grid: SheetGrid, chart?: RouteChart): Promise<void> {
     checkSheetName(name);
+    if (grid.print) checkPrintSetup(grid.print, grid.values.length);
     const plan = planGridWrite(grid, { chunkCells: this.#chunkCells });
     const caps = this.capabilities();
     await this.#run(`add the sheet "${name}"`, async (context) => {
@@ -88,7 +91,30 @@ export class ExcelWorkbook implements WorkbookPort {
         }
       });
       if (!caps.freezePanes && plan.freezeRows > 0) this.#notice(`Header rows of "${name}" are not frozen: that needs ExcelApi 1.7.`);
+      if (grid.print) await this.#applyPrintSetup(context, name, grid.print, caps.printLayout);
     });
+  }
+
+  /**
+   * Print settings go in their own sync after the sheet is written, so a host that refuses
+   * one of them keeps the plan; what could not be set is told as a notice.
+   */
+  async #applyPrintSetup(context: Excel.RequestContext, name: string, print: PrintSetup, supported: boolean): Promise<void> {
+    const skipped = `Print settings of "${name}" (orientation, paper, fit to width, title rows, page breaks, header and footer)`;
+    const sheet = context.workbook.worksheets.getItem(name);
+    if (!supported || !("pageLayout" in sheet) || !("horizontalPageBreaks" in sheet)) {
+      this.#notice(
+        `${skipped} were not set: they need Excel with ExcelApi 1.9 or later. Set them under Page Layout if you print the sheet.`,
+      );
+      return;
+    }
+    try {
+      queuePrintSetup(sheet, print);
+      await context.sync();
+    } catch (error) {
+      const why = new OfficeActionError("set them", error).message;
+      this.#notice(`${skipped} were not all set. ${why}. The plan was written; check them under Page Layout before printing.`);
+    }
   }
 
   /**

@@ -4,6 +4,8 @@ import type { SheetRead, WorkbookPort } from "../WorkbookPort.js";
 import { pinZipDates } from "./pinZipDates.js";
 import { rawCellValue } from "./rawCellValue.js";
 import { writeGrid } from "./writeGrid.js";
+import { writePrintSetup } from "./writePrintSetup.js";
+import { checkPrintSetup } from "../../sheets/printSetup.js";
 
 /**
  * Name of the very hidden sheet that holds the add-in's key/value settings in a file.
@@ -160,8 +162,10 @@ export class ExcelJsWorkbook implements WorkbookPort {
    * @example await book.addSheet("Plan", layout.grid, layout.chart)
    */
   async addSheet(name: string, grid: SheetGrid, chart?: RouteChart): Promise<void> {
+    if (grid.print) checkPrintSetup(grid.print, grid.values.length);
     const ws = this.newSheet(name);
     writeGrid(ws, grid, 1, { date1904: this.date1904 });
+    if (grid.print) writePrintSetup(ws, grid.print);
     if (chart) this.skippedCharts.push(ws.name);
   }
 
