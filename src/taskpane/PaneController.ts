@@ -3,47 +3,35 @@
  * optimize in the worker, show and write the result, rerun from a plan sheet. Works the same
  * over Excel and over a file (see `PaneSource`); every handler goes through one guard.
  */
-import type { Issue } from "../core/model.js";
-import type { Progress } from "../core/options.js";
-import type { SolveResult } from "../core/solve.js";
-import { profile } from "../core/anneal/profile.js";
-import { describeProfile } from "../core/anneal/describeProfile.js";
+import type { SolveResult } from "../core/index.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
-import { parseRunRecord } from "../sheets/settingsSchema.js";
 import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
-import { scenarioSettingsKey } from "../sheets/scenarioSettingsKey.js";
 import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
 import { ConvergencePlot } from "./ConvergencePlot.js";
-import { CoolingPlot } from "./CoolingPlot.js";
-import { formatDuration } from "./formatClock.js";
+import { CoolingPreview } from "./CoolingPreview.js";
 import { createGuard } from "./guardHandler.js";
 import type { PaneSource, PickedTable } from "./PaneSource.js";
 import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
 import { renderResult } from "./renderResult.js";
-import { renderTableSummary } from "./renderTableSummary.js";
+import { renderPickedTables } from "./renderTableSummary.js";
 import { RouteMap } from "./RouteMap.js";
+import { showProgress } from "./runProgress.js";
 import { formFromSettings, settingsFromForm } from "./settingsFromForm.js";
-import { SolverClient, WorkerError } from "./SolverClient.js";
-
-/** Moves per second assumed for the preview of a seconds budget until a run has measured it. */
-const ASSUMED_MOVES_PER_SECOND = 100_000;
+import { SolverClient } from "./SolverClient.js";
+import { storedRunRecord } from "./storedRunRecord.js";
 
 /** The pane. Call `init` once. */
 export class PaneController {
   protected readonly dom: PaneDom = paneDom();
   protected readonly guard = createGuard((m) => this.showError(m));
   private readonly solver = new SolverClient();
-  private readonly coolingPlot = new CoolingPlot(this.dom.coolingPlot);
+  private readonly preview = new CoolingPreview(this.dom, this.solver);
   private readonly convergence = new ConvergencePlot(this.dom.convergencePlot);
   private readonly map = new RouteMap(this.dom.map, this.dom.mapTooltip, this.dom.legend);
   protected stops: PickedTable | undefined;
   protected fleet: PickedTable | undefined;
   private read: ReadResult | undefined;
-  private meanUphill: number | undefined;
-  private uphill: readonly number[] = [];
-  private sampledFor: ReadResult | undefined;
-  private movesPerSecond = ASSUMED_MOVES_PER_SECOND;
   private last:
     { read: ReadResult & { ok: true }; result: SolveResult; scenario: string; runSeconds: number; written?: string } | undefined;
   private readToken = 0;
@@ -96,7 +84,7 @@ export class PaneController {
       );
     }
     this.updateFormVisibility();
-    this.drawPreview();
+    this.preview.draw();
   }
 
   /** Replace the workbook (standalone: a newly opened file). */
@@ -117,7 +105,7 @@ export class PaneController {
     const form = settingsFromForm(readForm(d));
     if (!this.stops || !this.fleet) {
       this.read = undefined;
-      this.renderTables([], [], []);
+      this.renderTables({ stops: [], fleet: [] }, []);
       this.setOptimizeEnabled();
       return;
     }
@@ -125,50 +113,24 @@ export class PaneController {
     if (token !== this.readToken) return;
     this.read = read;
     const issues = read.ok ? read.warnings.map((w) => ({ ...w, warning: true })) : read.issues;
-    this.renderTables(read.stopColumns, read.fleetColumns, issues);
+    this.renderTables({ stops: read.stopColumns, fleet: read.fleetColumns }, issues);
     this.setOptimizeEnabled();
-    if (read.ok) await this.sample(read);
+    if (read.ok) await this.preview.sample(read, () => this.read === read);
   }
 
   private renderTables(
-    stopColumns: ReadResult["stopColumns"],
-    fleetColumns: ReadResult["fleetColumns"],
-    issues: readonly (Issue & { warning?: boolean })[],
+    columns: { stops: ReadResult["stopColumns"]; fleet: ReadResult["fleetColumns"] },
+    issues: Parameters<typeof renderPickedTables>[4],
   ): void {
-    const d = this.dom;
     const onCell = this.source.selectCell
       ? this.guard("Select cell", (sheet: string, cell: string) => this.source.selectCell?.(sheet, cell))
       : undefined;
-    const stopsSheet = this.stops?.read.sheet;
-    const fleetSheet = this.fleet?.read.sheet;
-    const forFleet = issues.filter((i) => i.sheet === fleetSheet && i.sheet !== stopsSheet);
-    const forStops = issues.filter((i) => !forFleet.includes(i));
-    const rows = (t: PickedTable | undefined) => t && { address: t.address, rows: Math.max(0, t.read.values.length - 1) };
-    renderTableSummary(d.stopsSummary, d.stopsIssues, rows(this.stops), stopColumns, forStops, onCell);
-    renderTableSummary(d.fleetSummary, d.fleetIssues, rows(this.fleet), fleetColumns, forFleet, onCell);
-  }
-
-  private async sample(read: ReadResult & { ok: true }): Promise<void> {
-    if (this.sampledFor === read) return;
-    this.dom.coolingReading.textContent = "Sampling cost changes…";
-    try {
-      const { meanUphill, uphill } = await this.solver.sample(read.problem, read.settings.seed);
-      if (this.read !== read) return;
-      this.sampledFor = read;
-      this.meanUphill = meanUphill;
-      this.uphill = uphill;
-    } catch (err) {
-      if (!(err instanceof WorkerError)) throw err;
-      this.meanUphill = undefined;
-      this.dom.coolingReading.textContent = `Could not sample: ${err.message}`;
-      return;
-    }
-    this.drawPreview();
+    renderPickedTables(this.dom, this.stops, this.fleet, columns, issues, onCell);
   }
 
   private settingsChanged(): void {
     this.updateFormVisibility();
-    this.drawPreview();
+    this.preview.draw();
     // Detour, speed, service minutes and windows change the problem itself.
     void this.refreshRead().catch((err: unknown) => this.showError(`Reading the tables failed: ${String(err)}`));
   }
@@ -179,33 +141,6 @@ export class PaneController {
     else delete document.body.dataset.soft;
     for (const el of this.dom.scheduleParams) el.hidden = el.dataset.for !== form.schedule;
     for (const el of this.dom.temperatureParams) el.hidden = el.dataset.temps !== form.temperatures;
-  }
-
-  /** Redraw the cooling preview from the form and the sampled mean uphill change. */
-  private drawPreview(): void {
-    const d = this.dom;
-    const form = settingsFromForm(readForm(d));
-    const coolingIssues = form.issues.filter((i) => !["Scenario", "Detour factor", "Speed", "Service time", "Seed"].includes(i.cell));
-    if (coolingIssues.length > 0) {
-      d.coolingReading.textContent = coolingIssues.map((i) => i.message).join(" ");
-      d.coolingReading.classList.remove("ok");
-      return;
-    }
-    if (this.meanUphill === undefined || !(this.meanUphill > 0)) return;
-    const s = form.settings;
-    const budgetMoves = Math.max(1, Math.round(s.moves ?? s.seconds * this.movesPerSecond));
-    try {
-      const points = profile(s.cooling, s.rule, this.meanUphill, budgetMoves, { p0: s.p0, pEnd: s.pEnd, points: 101, uphill: this.uphill });
-      this.coolingPlot.show(points);
-      const assumed = s.moves === undefined ? ` (about ${formatCount(budgetMoves)} moves in ${s.seconds} s)` : "";
-      d.coolingReading.textContent = `${describeProfile(points, s.rule)}${assumed}`;
-      d.coolingReading.classList.add("ok");
-      d.coolingReading.dataset.meanUphill = String(this.meanUphill);
-    } catch (err) {
-      // A parameter outside its range (RangeError from the cooling math) is the user's to fix.
-      d.coolingReading.textContent = err instanceof Error ? err.message : String(err);
-      d.coolingReading.classList.remove("ok");
-    }
   }
 
   private setOptimizeEnabled(): void {
@@ -236,12 +171,12 @@ export class PaneController {
           // The worker already paces itself; this keeps a busy page at one redraw per 200 ms too.
           if (p.elapsedMs - lastDraw < 200 && p.fraction < 1) return;
           lastDraw = p.elapsedMs;
-          this.showProgress(p, s.moves === undefined ? s.seconds : undefined);
+          showProgress(d, this.convergence, p, s.moves === undefined ? s.seconds : undefined);
         },
         onResult: (result, stopped) => {
           d.optimizeSection.dataset.state = stopped ? "stopped" : "done";
           d.progressBar.style.width = "100%";
-          if (result.stats.elapsedMs > 500) this.movesPerSecond = result.stats.moves / (result.stats.elapsedMs / 1000);
+          this.preview.measured(result.stats.moves, result.stats.elapsedMs);
           this.last = { read, result, scenario, runSeconds: result.stats.elapsedMs / 1000 };
           this.setOptimizeEnabled();
           this.showResult(stopped);
@@ -254,21 +189,6 @@ export class PaneController {
       },
     );
     this.setOptimizeEnabled();
-  }
-
-  private showProgress(p: Progress, seconds: number | undefined): void {
-    const d = this.dom;
-    d.progressBar.style.width = `${Math.round(p.fraction * 100)}%`;
-    d.progressBar.parentElement?.setAttribute("aria-valuenow", String(Math.round(p.fraction * 100)));
-    d.statElapsed.textContent = formatDuration(p.elapsedMs / 1000);
-    const remaining =
-      seconds !== undefined ? seconds - p.elapsedMs / 1000 : p.fraction > 0 ? (p.elapsedMs / 1000) * (1 / p.fraction - 1) : NaN;
-    d.statRemaining.textContent = formatDuration(Math.max(0, remaining));
-    d.statCurrent.textContent = formatCost(p.currentCost);
-    d.statBest.textContent = Number.isFinite(p.bestCost) ? formatCost(p.bestCost) : "none feasible yet";
-    d.statAccept.textContent = `${(p.acceptanceRate * 100).toFixed(1)}%`;
-    d.statTemp.textContent = p.temperature.toPrecision(3);
-    this.convergence.add(p);
   }
 
   private showResult(stopped: boolean): void {
@@ -319,17 +239,9 @@ export class PaneController {
     const d = this.dom;
     const sheet = await this.rerunSheet();
     if (!sheet) return void (d.rerunStatus.textContent = "Choose a plan sheet first.");
-    const stored = (await this.source.port.readSettings())[scenarioSettingsKey(sheet)];
-    if (!stored) {
-      d.rerunStatus.textContent = `"${sheet}" is not a plan sheet made by Kiln (no stored settings). Go to a plan sheet and try again.`;
-      return;
-    }
-    const loaded = parseRunRecord(stored);
-    if (!loaded.ok) {
-      d.rerunStatus.textContent = `The settings stored for "${sheet}" cannot be read (${loaded.message}); optimize with the pane's settings instead.`;
-      return;
-    }
-    const record = loaded.record;
+    const stored = await storedRunRecord(this.source.port, sheet);
+    if ("message" in stored) return void (d.rerunStatus.textContent = stored.message);
+    const record = stored.record;
     writeForm(d, formFromSettings(record.settings, record.scenario, readForm(d)));
     d.rerunStatus.textContent = `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}). Optimize writes a new sheet.`;
     this.settingsChanged();
@@ -354,12 +266,4 @@ export class PaneController {
   protected picked(read: PickedTable["read"]): PickedTable {
     return { read, address: sourceOf(read) };
   }
-}
-
-function formatCost(cost: number): string {
-  return Number.isFinite(cost) ? cost.toLocaleString("en", { maximumFractionDigits: 1 }) : "–";
-}
-
-function formatCount(n: number): string {
-  return n >= 1e6 ? `${(n / 1e6).toPrecision(3)} M` : n >= 1e3 ? `${Math.round(n / 1e3)} k` : String(n);
 }

@@ -2,9 +2,7 @@
  * The pane's side of the solver worker: starts runs, forwards stop, and turns sample requests
  * into promises. Only plain data crosses (the Problem's typed arrays are structured-cloned).
  */
-import type { Issue, Problem } from "../core/model.js";
-import type { Progress } from "../core/options.js";
-import type { SolveResult } from "../core/solve.js";
+import type { Issue, Problem, Progress, SolveResult } from "../core/index.js";
 import type { FromWorker, ToWorker, WorkerSolveOptions } from "./workerProtocol.js";
 
 /** Callbacks of one run. */
@@ -94,7 +92,7 @@ export class SolverClient {
   }
 
   private receive(m: FromWorker): void {
-    if (m.type === "sampled" || m.type === "previewed" || (m.type === "error" && m.requestId !== undefined)) {
+    if (m.type === "sampled" || (m.type === "error" && m.requestId !== undefined)) {
       const id = m.requestId;
       const pending = id !== undefined ? this.requests.get(id) : undefined;
       if (pending && id !== undefined) {

@@ -2,8 +2,10 @@
  * The summary under a picked table: its address, the columns recognised and the row count,
  * and the table's errors with clickable cell addresses.
  */
-import type { Issue } from "../core/model.js";
+import type { Issue } from "../core/index.js";
 import type { ColumnMatch } from "../sheets/ReadResult.js";
+import type { PaneDom } from "./paneDom.js";
+import type { PickedTable } from "./PaneSource.js";
 
 /**
  * Show a table's summary and issues.
@@ -72,4 +74,32 @@ export function renderTableSummary(
     item.append(issue.message.startsWith(prefix) ? issue.message.slice(prefix.length).trimStart() : issue.message);
     list.append(item);
   }
+}
+
+/**
+ * Show the summaries of both picked tables; an issue goes under the fleet when it names the
+ * fleet's sheet (and that is not also the stops' sheet), under the stops otherwise.
+ *
+ * @param d - the pane's elements
+ * @param stops - the picked stops table, if any
+ * @param fleet - the picked fleet table, if any
+ * @param columns - the columns recognised in each table
+ * @param issues - every error and warning of the read
+ * @param onCell - called with (sheet, cell) when an address is clicked
+ */
+export function renderPickedTables(
+  d: PaneDom,
+  stops: PickedTable | undefined,
+  fleet: PickedTable | undefined,
+  columns: { readonly stops: readonly ColumnMatch[]; readonly fleet: readonly ColumnMatch[] },
+  issues: readonly (Issue & { readonly warning?: boolean })[],
+  onCell: ((sheet: string, cell: string) => void) | undefined,
+): void {
+  const stopsSheet = stops?.read.sheet;
+  const fleetSheet = fleet?.read.sheet;
+  const forFleet = issues.filter((i) => i.sheet === fleetSheet && i.sheet !== stopsSheet);
+  const forStops = issues.filter((i) => !forFleet.includes(i));
+  const rows = (t: PickedTable | undefined) => t && { address: t.address, rows: Math.max(0, t.read.values.length - 1) };
+  renderTableSummary(d.stopsSummary, d.stopsIssues, rows(stops), columns.stops, forStops, onCell);
+  renderTableSummary(d.fleetSummary, d.fleetIssues, rows(fleet), columns.fleet, forFleet, onCell);
 }

@@ -7,13 +7,17 @@
  * `stop` message that arrived meanwhile is seen before the next slice (the worker's event loop
  * delivers it between two deferred callbacks).
  */
-import type { Issue, Problem } from "../core/model.js";
-import type { AcceptanceRule, CoolingSpec, Progress, SolveOptions } from "../core/options.js";
-import { createSolver, type SolveResult, type Solver } from "../core/solve.js";
-import { validateProblem } from "../core/validateProblem.js";
-import { sampleMeanUphill } from "../core/anneal/sampleMeanUphill.js";
-import { profile, type ProfilePoint } from "../core/anneal/profile.js";
-import { describeProfile } from "../core/anneal/describeProfile.js";
+import {
+  createSolver,
+  sampleMeanUphill,
+  validateProblem,
+  type Issue,
+  type Problem,
+  type Progress,
+  type SolveOptions,
+  type SolveResult,
+  type Solver,
+} from "../core/index.js";
 
 /** The solve options that cross the worker boundary (plain data: no clock, callback or signal). */
 export type WorkerSolveOptions = Partial<Omit<SolveOptions, "now" | "onProgress" | "signal">>;
@@ -28,19 +32,6 @@ export type ToWorker =
       readonly problem: Problem;
       readonly seed?: number | string;
       readonly samples?: number;
-    }
-  | {
-      readonly type: "preview";
-      readonly requestId: number;
-      readonly cooling: CoolingSpec;
-      readonly rule: AcceptanceRule;
-      readonly meanUphill: number;
-      /** The sampled changes behind meanUphill, so the preview calibrates tEnd as the run does. */
-      readonly uphill?: readonly number[];
-      readonly budgetMoves: number;
-      readonly p0?: number;
-      readonly pEnd?: number;
-      readonly points?: number;
     };
 
 /** Messages from the worker to the pane. */
@@ -53,12 +44,6 @@ export type FromWorker =
       readonly meanUphill: number;
       readonly samples: number;
       readonly uphill: readonly number[];
-    }
-  | {
-      readonly type: "previewed";
-      readonly requestId: number;
-      readonly points: readonly ProfilePoint[];
-      readonly reading: string;
     }
   | {
       readonly type: "error";
@@ -188,17 +173,8 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
           });
           return post({ type: "sampled", requestId: msg.requestId, ...sampled });
         }
-        case "preview": {
-          const points = profile(msg.cooling, msg.rule, msg.meanUphill, msg.budgetMoves, {
-            ...(msg.p0 !== undefined ? { p0: msg.p0 } : {}),
-            ...(msg.pEnd !== undefined ? { pEnd: msg.pEnd } : {}),
-            ...(msg.points !== undefined ? { points: msg.points } : {}),
-            ...(msg.uphill !== undefined ? { uphill: msg.uphill } : {}),
-          });
-          return post({ type: "previewed", requestId: msg.requestId, points, reading: describeProfile(points, msg.rule) });
-        }
         default:
-          return fail(ids, `Unknown message ${JSON.stringify(typeOf(message))}: expected start, stop, sample or preview.`);
+          return fail(ids, `Unknown message ${JSON.stringify(typeOf(message))}: expected start, stop or sample.`);
       }
     } catch (err) {
       fail(ids, err);

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { getDistance } from "geolib";
 import type { Problem, Stop, Vehicle } from "../../src/core/model.js";
 import { buildMatrix } from "../../src/core/geo/buildMatrix.js";
+import { describeProfile, profile } from "../../src/core/index.js";
 import { createEngineHost, type FromWorker, type ToWorker } from "../../src/taskpane/workerProtocol.js";
 
 // Demo data (invented): a depot in the middle of Lyon and eight drops around it.
@@ -153,38 +154,26 @@ describe("worker protocol", () => {
     const first = sent[0]!;
     if (first.type === "error") {
       expect(first.requestId).toBe(4);
-      expect(first.message).toMatch(/start, stop, sample or preview/);
+      expect(first.message).toMatch(/start, stop or sample/);
     }
   });
 
-  it("sample then preview: the first point accepts the mean uphill change at p0 by the Metropolis formula exp(-dE/T)", () => {
+  it("sample, then the pane's preview profile: the first point accepts the mean uphill change at p0 by the Metropolis formula exp(-dE/T)", () => {
     const { host, sent } = harness();
     host.handle({ type: "sample", requestId: 1, problem: demoProblem(), seed: 1, samples: 200 });
     const sampled = sent[0]!;
     expect(sampled.type).toBe("sampled");
     if (sampled.type !== "sampled") return;
     expect(sampled.meanUphill).toBeGreaterThan(0);
-    host.handle({
-      type: "preview",
-      requestId: 2,
-      cooling: { kind: "timeFraction" },
-      rule: "metropolis",
-      meanUphill: sampled.meanUphill,
-      budgetMoves: 10_000,
-      p0: 0.5,
-      pEnd: 0.001,
-      points: 11,
-    });
-    const preview = sent[1]!;
-    expect(preview.type).toBe("previewed");
-    if (preview.type !== "previewed") return;
-    expect(preview.points).toHaveLength(11);
-    const first = preview.points[0]!;
-    const last = preview.points[10]!;
+    // The pane draws the preview itself from the sampled changes (CoolingPreview), as here.
+    const points = profile({ kind: "timeFraction" }, "metropolis", sampled.meanUphill, 10_000, { p0: 0.5, pEnd: 0.001, points: 11 });
+    expect(points).toHaveLength(11);
+    const first = points[0]!;
+    const last = points[10]!;
     // Metropolis et al. (1953): P = exp(-dE / T).
     expect(Math.exp(-sampled.meanUphill / first.temperature)).toBeCloseTo(0.5, 6);
     expect(Math.exp(-sampled.meanUphill / last.temperature)).toBeCloseTo(0.001, 6);
-    expect(preview.reading.length).toBeGreaterThan(10);
+    expect(describeProfile(points, "metropolis").length).toBeGreaterThan(10);
   });
 
   it("one run at a time: a second start posts the first run's best plan (stopped) before the new run goes", () => {
