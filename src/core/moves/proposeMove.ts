@@ -2,22 +2,17 @@ import type { Random } from "../anneal/createRandom.js";
 import type { Neighbours } from "../neighbours/buildNeighbours.js";
 import { MAX_PIECES, RESULT_COUNT, RESULT_SIZE, type SearchState } from "./SearchState.js";
 
-/** The kinds of move the search draws. */
+/** The kinds of move between two placed stops, drawn uniformly (pool and open-route moves are drawn before). */
 export const MoveKind = {
   relocateAfter: 0,
   relocateBefore: 1,
   swap: 2,
   twoOpt: 3,
   orOpt: 4,
-  insertFromPool: 5,
-  removeToPool: 6,
-  swapWithPool: 7,
-  openRoute: 8,
 } as const;
 
 /** A proposed move: the new content of one or two routes as pieces, and pool changes. */
 export class Move {
-  kind = 0;
   vA = -1;
   mA = 0;
   readonly piecesA = new Int32Array(4 * MAX_PIECES);
@@ -74,7 +69,6 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
     m = piece(A, m, rv, 1, cut, 0);
     m = single(A, m, u);
     m = piece(A, m, rv, cut + 1, len, 0);
-    mv.kind = MoveKind.insertFromPool;
     mv.vA = rv;
     mv.mA = m;
     mv.poolIn = u;
@@ -90,11 +84,9 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
       // Serve v instead of u.
       if (!cp.compatible[v * V + ru]) return false;
       m = single(A, m, v);
-      mv.kind = MoveKind.swapWithPool;
       mv.poolIn = v;
-    } else {
-      mv.kind = MoveKind.removeToPool;
     }
+    // Otherwise u only leaves for the pool.
     mv.vA = ru;
     mv.mA = piece(A, m, ru, p + 1, a, 0);
     mv.poolOut = u;
@@ -106,7 +98,6 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
     if (state.routes[w]!.len !== 0 || !cp.compatible[u * V + w]) return false;
     let m = piece(A, 0, ru, 1, p - 1, 0);
     m = piece(A, m, ru, p + 1, a, 0);
-    mv.kind = MoveKind.openRoute;
     mv.vA = ru;
     mv.mA = m;
     mv.vB = w;
@@ -118,7 +109,6 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
   const rb = state.routes[rv]!;
   const b = rb.len;
   const kind = rng.int(5);
-  mv.kind = kind;
   if (ru !== rv) {
     mv.vA = ru;
     mv.vB = rv;
