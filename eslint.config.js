@@ -32,13 +32,22 @@ export default tseslint.config(
       "import-x/no-restricted-paths": [
         "error",
         {
-          zones: LAYER_RULES.flatMap((r) =>
-            r.from.map((from) => ({
-              target: r.target,
-              from,
-              message: `${r.target.slice(6)} must not import ${from.slice(6)} (layers point inward; see DEVELOPERS.md).`,
-            })),
-          ),
+          zones: [
+            ...LAYER_RULES.flatMap((r) =>
+              r.from.map((from) => ({
+                target: r.target,
+                from,
+                message: `${r.target.slice(6)} must not import ${from.slice(6)} (layers point inward; see DEVELOPERS.md).`,
+              })),
+            ),
+            {
+              // The other layers see the core only through its public entry.
+              target: "./src/!(core)/**/*",
+              from: "./src/core",
+              except: ["./index.ts"],
+              message: "Import the core through src/core/index.ts, its single public entry (see DEVELOPERS.md).",
+            },
+          ],
         },
       ],
     },

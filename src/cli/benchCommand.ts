@@ -1,15 +1,22 @@
 import { readFile } from "node:fs/promises";
 import { basename, extname } from "node:path";
-import { detectFormat } from "../core/formats/detectFormat.js";
-import { parseSolomon, type SolomonInstance } from "../core/formats/parseSolomon.js";
-import { parseTsplib, type TsplibInstance } from "../core/formats/parseTsplib.js";
-import { solomonRoutesDistance } from "../core/formats/solomonRoutesDistance.js";
-import { solomonToProblem } from "../core/formats/solomonToProblem.js";
-import { tsplibToProblem } from "../core/formats/tsplibToProblem.js";
-import { tsplibTourLength } from "../core/formats/tsplibTourLength.js";
-import type { Issue, Plan, Problem } from "../core/model.js";
-import type { Budget } from "../core/options.js";
-import { solve, type RunStats } from "../core/solve.js";
+import {
+  detectFormat,
+  parseSolomon,
+  type SolomonInstance,
+  parseTsplib,
+  type TsplibInstance,
+  solomonRoutesDistance,
+  solomonToProblem,
+  tsplibToProblem,
+  tsplibTourLength,
+  type Issue,
+  type Plan,
+  type Problem,
+  type Budget,
+  solve,
+  type RunStats,
+} from "../core/index.js";
 import type { CliIO } from "./CliIO.js";
 import { numberOption, parseArgs } from "./parseArgs.js";
 

@@ -1,8 +1,4 @@
-import { sampleMeanUphill } from "../core/anneal/sampleMeanUphill.js";
-import { calibrateTemperatures } from "../core/anneal/calibrateTemperatures.js";
-import { describeProfile } from "../core/anneal/describeProfile.js";
-import { profile, type ProfilePoint } from "../core/anneal/profile.js";
-import { SOLVE_DEFAULTS } from "../core/options.js";
+import { sampleMeanUphill, calibrateTemperatures, describeProfile, profile, type ProfilePoint, SOLVE_DEFAULTS } from "../core/index.js";
 import { formatCooling } from "../sheets/formatCooling.js";
 import type { CliIO } from "./CliIO.js";
 import { parseArgs } from "./parseArgs.js";

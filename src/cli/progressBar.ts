@@ -1,4 +1,4 @@
-import type { Progress } from "../core/options.js";
+import type { Progress } from "../core/index.js";
 import type { CliIO } from "./CliIO.js";
 
 /** A one-line progress display of a run. */

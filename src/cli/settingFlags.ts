@@ -3,7 +3,7 @@
  * `flag` of a `SETTING_FIELDS` entry and is parsed and refused exactly like the same value on a
  * Settings sheet or in the pane (the message is the same; the CLI puts the option in front).
  */
-import type { CoolingSpec } from "../core/options.js";
+import type { CoolingSpec } from "../core/index.js";
 import type { PlanSettings } from "../sheets/PlanSettings.js";
 import { SCHEDULE_PARAMETERS, SETTING_FIELDS, type SettingKey } from "../sheets/settingFields.js";
 import { buildCooling, parseSettingValue, type ScheduleParams } from "../sheets/settingsSchema.js";

@@ -1,8 +1,6 @@
 import { access, readFile, realpath, writeFile } from "node:fs/promises";
 import { basename, dirname, extname, join, resolve } from "node:path";
-import type { Issue } from "../core/model.js";
-import type { SolveOptions } from "../core/options.js";
-import { solve } from "../core/solve.js";
+import { type Issue, type SolveOptions, solve } from "../core/index.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
 import { formatCooling } from "../sheets/formatCooling.js";
 import { SETTING_FIELDS } from "../sheets/settingFields.js";

@@ -1,4 +1,4 @@
-import type { AcceptanceRule, CoolingSpec } from "../core/options.js";
+import type { AcceptanceRule, CoolingSpec } from "../core/index.js";
 
 /**
  * Everything a user can set for one scenario run: from CLI flags, the optional

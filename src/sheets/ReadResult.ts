@@ -1,4 +1,4 @@
-import type { Issue, Problem } from "../core/model.js";
+import type { Issue, Problem } from "../core/index.js";
 import type { CellValue } from "./grid.js";
 import type { PlanSettings } from "./PlanSettings.js";
 

@@ -1,4 +1,4 @@
-import type { LatLon } from "../core/model.js";
+import type { LatLon } from "../core/index.js";
 import type { SheetRead } from "./grid.js";
 import { isBlank } from "./cellValue.js";
 import { findHeaderRow } from "./findHeaderRow.js";

@@ -1,4 +1,4 @@
-import { DAY_MIN } from "../core/constants.js";
+import { DAY_MIN } from "../core/index.js";
 
 /**
  * Minutes from midnight as "hh:mm" for messages; past midnight gets "+1d".

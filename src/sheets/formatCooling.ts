@@ -1,4 +1,4 @@
-import type { AcceptanceRule, CoolingSpec } from "../core/options.js";
+import type { AcceptanceRule, CoolingSpec } from "../core/index.js";
 
 /**
  * A short text of a cooling schedule (and optionally its acceptance rule) for the settings

@@ -1,4 +1,4 @@
-import type { Plan } from "../core/model.js";
+import type { Plan } from "../core/index.js";
 import { formatCooling } from "./formatCooling.js";
 import type { SheetGrid } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";

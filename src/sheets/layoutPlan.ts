@@ -1,4 +1,4 @@
-import type { Plan, Problem } from "../core/model.js";
+import type { Plan, Problem } from "../core/index.js";
 import { CAUTION_TEXT } from "./caution.js";
 import { columnWidths } from "./columnWidths.js";
 import { formatCooling, formatRule } from "./formatCooling.js";

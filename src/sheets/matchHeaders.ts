@@ -1,4 +1,4 @@
-import type { Issue } from "../core/model.js";
+import type { Issue } from "../core/index.js";
 import type { ColumnMatch } from "./ReadResult.js";
 import { columnLetter, cellAddress } from "./cellAddress.js";
 import { plainCell } from "./cellValue.js";

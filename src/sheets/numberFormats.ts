@@ -1,4 +1,4 @@
-import { DAY_MIN } from "../core/constants.js";
+import { DAY_MIN } from "../core/index.js";
 
 /**
  * The Excel number formats the result sheets use (ECMA-376 Part 1, §18.8.31 numFmt codes).

@@ -1,5 +1,4 @@
-import { DAY_MIN } from "../core/constants.js";
-import type { Issue, LatLon } from "../core/model.js";
+import { DAY_MIN, type Issue, type LatLon } from "../core/index.js";
 import type { SheetRead } from "./grid.js";
 import { plainCell } from "./cellValue.js";
 import type { TableColumns } from "./matchHeaders.js";

@@ -1,4 +1,4 @@
-import type { Issue } from "../core/model.js";
+import type { Issue } from "../core/index.js";
 import type { SheetRead } from "./grid.js";
 import { excelError, isBlank, plainCell, readNumber, shownValue } from "./cellValue.js";
 import { cellIssue } from "./readTable.js";

@@ -1,5 +1,4 @@
-import type { Issue } from "../core/model.js";
-import type { CoolingSpec } from "../core/options.js";
+import type { Issue, CoolingSpec } from "../core/index.js";
 import type { SheetRead } from "./grid.js";
 import { excelError, isBlank, plainCell } from "./cellValue.js";
 import { headerWords } from "./matchHeaders.js";

@@ -1,4 +1,4 @@
-import type { Issue, LatLon, TimeWindow } from "../core/model.js";
+import type { Issue, LatLon, TimeWindow } from "../core/index.js";
 import type { CellValue } from "./grid.js";
 import { plainCell } from "./cellValue.js";
 import { cellIssue, readTable } from "./readTable.js";

@@ -1,5 +1,4 @@
-import { DAY_MIN } from "../core/constants.js";
-import type { TimeWindow } from "../core/model.js";
+import { DAY_MIN, type TimeWindow } from "../core/index.js";
 import { plainCell } from "./cellValue.js";
 import { parseTime } from "./parseTime.js";
 

@@ -1,6 +1,4 @@
-import { buildMatrix, userMatrix } from "../core/geo/buildMatrix.js";
-import { validateProblem } from "../core/validateProblem.js";
-import type { Issue, LatLon, Problem, Stop, Vehicle } from "../core/model.js";
+import { buildMatrix, userMatrix, validateProblem, type Issue, type LatLon, type Problem, type Stop, type Vehicle } from "../core/index.js";
 import type { SheetRead } from "./grid.js";
 import { formatClock } from "./formatClock.js";
 import { parseFleet, type ParsedFleet, type ParsedVehicle } from "./parseFleet.js";

@@ -1,4 +1,4 @@
-import type { Problem, Plan, Route } from "../core/model.js";
+import type { Problem, Plan, Route } from "../core/index.js";
 import { formatLoad } from "./formatLoad.js";
 import type { CellValue } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";

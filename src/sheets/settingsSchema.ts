@@ -4,7 +4,7 @@
  * Messages name the setting and the accepted range; callers add only where (cell, flag, field).
  */
 import { z } from "zod";
-import type { CoolingSpec } from "../core/options.js";
+import type { CoolingSpec } from "../core/index.js";
 import { plainCell, readNumber, shownValue } from "./cellValue.js";
 import { headerWords } from "./matchHeaders.js";
 import { parseDuration } from "./parseDuration.js";

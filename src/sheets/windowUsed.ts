@@ -1,4 +1,4 @@
-import type { Stop, TimeWindow, Visit } from "../core/model.js";
+import type { Stop, TimeWindow, Visit } from "../core/index.js";
 
 /** Minutes of slack when comparing times that went through floating-point sums. */
 const EPS_MIN = 1e-6;

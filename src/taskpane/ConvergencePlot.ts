@@ -3,7 +3,7 @@
  * progress reports, which the worker sends at most every 200 ms.
  */
 import uPlot from "uplot";
-import type { Progress } from "../core/options.js";
+import type { Progress } from "../core/index.js";
 
 /** A uPlot chart of cost over the run. */
 export class ConvergencePlot {

@@ -5,7 +5,7 @@
  * so a test can see the preview change.
  */
 import uPlot from "uplot";
-import type { ProfilePoint } from "../core/anneal/profile.js";
+import type { ProfilePoint } from "../core/index.js";
 
 /** A uPlot chart of a cooling profile that follows its container's width. */
 export class CoolingPlot {

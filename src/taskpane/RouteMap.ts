@@ -3,7 +3,7 @@
  * server, nothing fetched), one colour per vehicle, a hover tooltip with the stop's name,
  * arrival and load. The canvas' `data-routes` attribute lists the drawn routes for tests.
  */
-import type { Plan, Problem } from "../core/model.js";
+import type { Plan, Problem } from "../core/index.js";
 import { fitEquirectangular } from "./fitEquirectangular.js";
 import { formatClock } from "./formatClock.js";
 import { vehicleColour } from "./vehicleColour.js";

@@ -3,7 +3,7 @@
  * uniformly so every point fits inside `width x height` pixels with `paddingPx` to spare.
  * Over a delivery area (tens of km) the distortion is negligible (common practice for local maps).
  */
-import type { LatLon } from "../core/model.js";
+import type { LatLon } from "../core/index.js";
 
 /** A fitted projection. */
 export interface FittedProjection {

@@ -1,8 +1,7 @@
 /**
  * The result's status line, totals and broken rules (the map is drawn by `RouteMap`).
  */
-import type { Problem } from "../core/model.js";
-import type { SolveResult } from "../core/solve.js";
+import type { Problem, SolveResult } from "../core/index.js";
 import type { PaneDom } from "./paneDom.js";
 
 /**

@@ -2,8 +2,7 @@
  * The pane's settings and cooling fields as plain strings, and their conversion to and from
  * `PlanSettings`. Pure (no DOM), so a bad entry becomes an `Issue`, never an exception.
  */
-import type { Issue } from "../core/model.js";
-import type { CoolingSpec } from "../core/options.js";
+import type { Issue, CoolingSpec } from "../core/index.js";
 import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "../sheets/PlanSettings.js";
 import { PARAMETERS_OF, SETTING_FIELDS, type SettingKey } from "../sheets/settingFields.js";
 import { buildCooling, crossProblems, parseSettingValue, type ScheduleParams } from "../sheets/settingsSchema.js";

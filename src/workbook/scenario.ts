@@ -1,5 +1,4 @@
-import type { Issue } from "../core/model.js";
-import type { SolveResult } from "../core/solve.js";
+import type { Issue, SolveResult } from "../core/index.js";
 import { cellAddress } from "../sheets/cellAddress.js";
 import { excelSerialFromDate } from "../sheets/excelSerial.js";
 import { COMPARE_SHEET, layoutCompareHeader, layoutCompareRow } from "../sheets/layoutCompare.js";

@@ -43,8 +43,18 @@ describe("lint: layers point inward", () => {
     expect(ids).toContain("no-restricted-properties");
   });
 
-  it("accepts src/sheets importing src/core", async () => {
-    const ids = await ruleIds('import { DAY_MIN } from "../core/constants.js";\nexport const d = DAY_MIN;\n', "src/sheets/inward.ts");
+  it("accepts src/sheets importing src/core through its public entry", async () => {
+    const ids = await ruleIds('import { DAY_MIN } from "../core/index.js";\nexport const d = DAY_MIN;\n', "src/sheets/inward.ts");
     expect(ids).toEqual([]);
+  });
+
+  it("refuses a layer reaching past src/core/index.ts into the core's files", async () => {
+    const sheets = await ruleIds('import { DAY_MIN } from "../core/constants.js";\nexport const d = DAY_MIN;\n', "src/sheets/deep.ts");
+    const excel = await ruleIds(
+      'import type { LatLon } from "../../core/model.js";\nexport type L = LatLon;\n',
+      "src/workbook/excel/deep.ts",
+    );
+    expect(sheets).toContain("import-x/no-restricted-paths");
+    expect(excel).toContain("import-x/no-restricted-paths");
   });
 });

@@ -1,4 +1,4 @@
-import type { LatLon } from "../../core/model.js";
+import type { LatLon } from "../../core/index.js";
 
 /** What one cell of `Range.valuesAsJson` (ExcelApi 1.16) says about a place. */
 export type GeographyCell =
