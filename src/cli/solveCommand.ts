@@ -1,6 +1,6 @@
 import { access, readFile, realpath, writeFile } from "node:fs/promises";
 import { basename, dirname, extname, join, resolve } from "node:path";
-import { type Issue, type SolveOptions, solve } from "../core/index.js";
+import { type Issue, type Plan, type Problem, type SolveOptions, solve } from "../core/index.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
 import { formatCooling } from "../sheets/formatCooling.js";
 import { SETTING_FIELDS } from "../sheets/settingFields.js";
@@ -92,7 +92,8 @@ export async function runSolve(args: string[], io: CliIO): Promise<number> {
     `Distance: ${t.distanceKm.toFixed(1)} km`,
     `Cost: ${t.cost.toFixed(2)}`,
     `Unassigned: ${t.unassigned}${plan.unassigned.length ? ` (${plan.unassigned.map((u) => read.problem.stops[u.stop]?.id ?? u.stop).join(", ")})` : ""}`,
-    `Feasible: ${plan.feasible ? "yes" : "no"}`,
+    ...mustServeLines(read.problem, plan),
+    `Feasible: ${plan.feasible ? "yes" : plan.violations.length === 0 ? `no: ${t.mustServeUnassigned} must-serve stop(s) left out, every route keeps the rules` : "no"}`,
     ...plan.violations.map((v) => `  ${v}`),
     `Run: ${result.stats.moves} moves in ${runSeconds.toFixed(1)} s, seed ${s.seed}, ${formatCooling(s.cooling, s.rule)}`,
   ];
@@ -102,6 +103,22 @@ export async function runSolve(args: string[], io: CliIO): Promise<number> {
   lines.push(CAUTION_TEXT);
   io.stdout(lines.join("\n") + "\n");
   return 0;
+}
+
+/**
+ * The lines that tell a dispatcher that stops which must be served were left out, with each
+ * distinct reason once ("total demand 1 640 kg is more than the fleet's 900 kg; ...").
+ */
+function mustServeLines(problem: Problem, plan: Plan): string[] {
+  const n = plan.totals.mustServeUnassigned;
+  if (n === 0) return [];
+  const left = plan.unassigned.filter((u) => problem.stops[u.stop]?.unservedCost === undefined);
+  const reasons = new Map<string, string[]>();
+  for (const u of left) reasons.set(u.reason, [...(reasons.get(u.reason) ?? []), problem.stops[u.stop]?.id ?? String(u.stop)]);
+  return [
+    `MUST-SERVE STOPS LEFT OUT: ${n} (they have no Priority, so every one of them should be served):`,
+    ...[...reasons].map(([reason, ids]) => `  ${ids.join(", ")}: ${reason}`),
+  ];
 }
 
 /** A workbook opened and read, ready to solve or profile. */

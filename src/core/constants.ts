@@ -14,3 +14,9 @@ export const DEFAULT_SPEED_KMH = 40;
 
 /** Minutes in a day. */
 export const DAY_MIN = 1440;
+
+/**
+ * Name of the one load dimension when the user's tables give no unit (a plain Demand and a
+ * plain Capacity). Messages then print amounts without a unit word.
+ */
+export const PLAIN_DIMENSION = "load";

@@ -174,7 +174,10 @@ export interface PlanTotals {
   readonly lateMin: number;
   /** Route costs + unserved costs. */
   readonly cost: number;
+  /** Stops not served, optional or not. */
   readonly unassigned: number;
+  /** Of those, the stops that must be served (no priority cost): a dispatcher must act on them. */
+  readonly mustServeUnassigned: number;
 }
 
 /** The solved routes. */
@@ -182,8 +185,11 @@ export interface Plan {
   readonly routes: readonly Route[];
   readonly unassigned: readonly Unassigned[];
   readonly totals: PlanTotals;
-  /** True when no capacity, window (hard), shift or max-stops rule is broken. */
+  /** True when no capacity, window (hard), shift, feature or max-stops rule is broken and every must-serve stop is served. */
   readonly feasible: boolean;
-  /** Every broken rule, in words, e.g. "Van 2: 14 kg over capacity". Empty when feasible. */
+  /**
+   * Every rule a route breaks, in words, e.g. "Van 2: 14 kg over capacity". Empty in a plan
+   * returned by `solve` (it leaves stops out instead, see `keepHardRules`).
+   */
   readonly violations: readonly string[];
 }

@@ -8,6 +8,7 @@ import { adaptPenalties, ADAPT_EVERY } from "./search/adaptPenalties.js";
 import { BestPlan } from "./search/BestPlan.js";
 import { EliminationSchedule } from "./search/EliminationSchedule.js";
 import { prepareRun } from "./search/prepareRun.js";
+import { keepHardRules } from "./schedule/keepHardRules.js";
 import type { SolveResult, Solver } from "./search/runTypes.js";
 
 export type { RunStats, SolveResult, Solver } from "./search/runTypes.js";
@@ -26,7 +27,10 @@ const QUENCH_FROM = 0.95;
  * Plan routes by simulated annealing (Kirkpatrick, Gelatt & Vecchi 1983) with Metropolis or
  * logistic acceptance over relocate, swap, 2-opt, 2-opt*, or-opt and pool moves in a granular
  * neighbourhood, time-warp and load penalties that adapt so the search crosses infeasible
- * plans, and the best feasible plan kept (else the least violating, violations listed).
+ * plans, and the best feasible plan kept. When no plan serves every must-serve stop within the
+ * rules, the least violating one is cut back to the rules (`keepHardRules`): the stops left out
+ * are unassigned with a reason, so the plan returned never breaks capacity, a hard window, a
+ * shift, a feature or max stops.
  *
  * @param problem - a problem without `validateProblem` issues
  * @param options - seed, budget, rule, cooling, ... (defaults `SOLVE_DEFAULTS`)
@@ -156,7 +160,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
       return progress;
     },
     result(): SolveResult {
-      const plan = best.plan();
+      const plan = keepHardRules(problem, best.plan());
       return {
         plan,
         stats: { moves, evaluations, elapsedMs, t0, tEnd, meanUphill: run.meanUphill, accepted, feasibleFound: best.feasibleFound },

@@ -1,6 +1,5 @@
 import type { CellValue } from "./grid.js";
 import { roundTo } from "./numberFormats.js";
-import { safeText } from "./safeText.js";
 
 /**
  * The Load cell of a route row: one load dimension as a number, several as text joined with
@@ -20,5 +19,5 @@ export function formatLoad(load: readonly number[], dimensions: readonly string[
   }
   if (load.length === 0) return null;
   if (load.length === 1) return roundTo(load[0]!, 2);
-  return safeText(load.map((x, i) => `${roundTo(x, 2)} ${dimensions[i]!}`.trim()).join(" / "));
+  return load.map((x, i) => `${roundTo(x, 2)} ${dimensions[i]!}`.trim()).join(" / ");
 }

@@ -3,7 +3,6 @@ import { formatCooling } from "./formatCooling.js";
 import type { SheetGrid } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
 import type { RunRecord } from "./PlanSettings.js";
-import { safeText } from "./safeText.js";
 
 /** Name of the sheet that collects one row per scenario. */
 export const COMPARE_SHEET = "Compare";
@@ -17,13 +16,14 @@ export const COMPARE_HEADER = [
   "Cost",
   "Late min",
   "Unassigned",
+  "Must-serve left out",
   "Schedule",
   "Seed",
   "Created",
 ] as const;
 
 /** Width hints of the Compare columns, in characters. */
-const COMPARE_WIDTHS = [24, 9, 9, 8, 11, 9, 11, 40, 8, 17];
+const COMPARE_WIDTHS = [24, 9, 9, 8, 11, 9, 11, 11, 40, 8, 17];
 
 /**
  * The header of the Compare sheet: written once when the sheet is created, frozen and bold.
@@ -51,19 +51,20 @@ export function layoutCompareHeader(): SheetGrid {
  * @param plan - its plan
  * @returns a one-row grid in the column order of `COMPARE_HEADER`
  * @throws TypeError when `run` or `plan` is missing
- * @example layoutCompareRow(run, plan).values[0][7] // => "geometric a=0.94 L=1000, Metropolis"
+ * @example layoutCompareRow(run, plan).values[0][8] // => "geometric a=0.94 L=1000, Metropolis"
  */
 export function layoutCompareRow(run: RunRecord, plan: Plan): SheetGrid {
   if (!run || !plan) throw new TypeError("layoutCompareRow: run and plan are required");
   const t = plan.totals;
   const cells: [string | number, string | null][] = [
-    [safeText(run.scenario), F.text],
+    [run.scenario, F.text],
     [t.vehiclesUsed, F.integer],
     [roundTo(t.distanceKm, 1), F.km],
     [dayFraction(t.dutyMin), F.duration],
     [roundTo(t.cost, 2), F.money],
     [roundTo(t.lateMin, 1), F.minutes],
     [t.unassigned, F.integer],
+    [t.mustServeUnassigned, F.integer],
     [formatCooling(run.settings.cooling, run.settings.rule), F.text],
     [run.settings.seed, null],
     [run.createdSerial, F.dateTime],

@@ -7,7 +7,6 @@ import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
 import type { RunRecord } from "./PlanSettings.js";
 import type { StopRow } from "./ReadResult.js";
 import { LATITUDE_COL, LONGITUDE_COL, routeTableRows, type FormattedRow } from "./routeTableRows.js";
-import { safeText } from "./safeText.js";
 
 /** A scenario sheet as data: the grid, the route chart and where the route table sits. */
 export interface PlanLayout {
@@ -54,6 +53,7 @@ export const TOTALS_LABELS = [
   "Late min",
   "Cost",
   "Unassigned",
+  "Must-serve left out",
 ] as const;
 
 /** Header of the unassigned table. */
@@ -94,7 +94,7 @@ export function layoutPlan(input: LayoutPlanInput): PlanLayout {
     rows.push(row);
     return rows.length - 1;
   };
-  const titleRow = add(textRow([`Kiln plan: ${run.scenario}`]), true);
+  const titleRow = add(textRow([planTitle(run.scenario, plan)]), true);
   const cautionRow = add(textRow([CAUTION_TEXT]));
   add(textRow(SETTINGS_LABELS), true);
   add(settingsValues(run));
@@ -107,7 +107,7 @@ export function layoutPlan(input: LayoutPlanInput): PlanLayout {
   for (const u of plan.unassigned) {
     const stop = problem.stops[u.stop];
     if (!stop) throw new RangeError(`layoutPlan: unassigned stop ${u.stop} is outside the problem`);
-    reasonRows.push(add(textRow([safeText(stop.id), safeText(stop.name), safeText(u.reason)])));
+    reasonRows.push(add(textRow([stop.id, stop.name, u.reason])));
   }
 
   const values = rows.map((r) => pad(r.values, width, null));
@@ -139,15 +139,15 @@ export function layoutPlan(input: LayoutPlanInput): PlanLayout {
 function settingsValues(run: RunRecord): FormattedRow {
   const s = run.settings;
   return cellRow([
-    [safeText(run.scenario), F.text],
+    [run.scenario, F.text],
     [run.createdSerial, F.dateTime],
     [s.seed, null],
     [formatCooling(s.cooling), F.text],
     [formatRule(s.rule), F.text],
     [run.moves, F.integer],
     [roundTo(run.runSeconds, 1), F.minutes],
-    [safeText(run.stopsSource), F.text],
-    [safeText(run.fleetSource), F.text],
+    [run.stopsSource, F.text],
+    [run.fleetSource, F.text],
     [s.detourFactor, F.factor],
     [s.speedKmh, null],
     [s.hardWindows ? "hard" : `soft, ${s.lateCostPerMin} per min late`, F.text],
@@ -165,7 +165,18 @@ function totalsValues(plan: Plan): FormattedRow {
     [roundTo(t.lateMin, 1), F.minutes],
     [roundTo(t.cost, 2), F.money],
     [t.unassigned, F.integer],
+    [t.mustServeUnassigned, F.integer],
   ]);
+}
+
+/**
+ * The title says at a glance when stops that must be served are missing, so a plan that
+ * leaves them out never looks complete (the count is also in the totals and on Compare).
+ */
+function planTitle(scenario: string, plan: Plan): string {
+  const n = plan.totals.mustServeUnassigned;
+  if (n === 0) return `Kiln plan: ${scenario}`;
+  return `Kiln plan: ${scenario}. ${n} stop${n === 1 ? "" : "s"} that must be served ${n === 1 ? "is" : "are"} NOT served; see the unassigned table below`;
 }
 
 /** A row of text cells, all marked `@`; user text in it was made safe by the caller. */

@@ -11,8 +11,9 @@ import { cellIssue } from "./readTable.js";
 import { SETTING_FIELDS } from "./settingFields.js";
 import { crossProblems } from "./settingsSchema.js";
 
-/** Name of the one load dimension when neither Demand nor Capacity carries a unit word. */
-export const PLAIN_DIMENSION = "load";
+/** Name of the one load dimension when neither Demand nor Capacity carries a unit word (defined in core). */
+import { PLAIN_DIMENSION } from "../core/index.js";
+export { PLAIN_DIMENSION };
 
 /**
  * Read the stops and fleet tables (and the optional Settings and matrix sheets) into a

@@ -3,7 +3,6 @@ import { formatLoad } from "./formatLoad.js";
 import type { CellValue } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
 import type { StopRow } from "./ReadResult.js";
-import { safeText } from "./safeText.js";
 import { windowUsed } from "./windowUsed.js";
 
 /** The route table's header row (DESIGN.md §5), before the carried-through stop columns. */
@@ -75,7 +74,7 @@ export function routeTableRows(
   for (const route of plan.routes) {
     if (route.visits.length === 0) continue;
     const first = rows.length;
-    const name = safeText(vehicleOf(problem, route).id);
+    const name = vehicleOf(problem, route).id;
     rows.push(depotRow(problem, route, "start", extraHeaders.length));
     route.visits.forEach((visit, i) => {
       const stop = problem.stops[visit.stop];
@@ -86,8 +85,8 @@ export function routeTableRows(
         cells([
           [name, F.text],
           [i + 1, F.integer],
-          [safeText(stop.id), F.text],
-          [safeText(stop.name), F.text],
+          [stop.id, F.text],
+          [stop.name, F.text],
           [dayFraction(visit.arrivalMin), F.timeOfDay],
           [roundTo(visit.waitMin, 1), F.minutes],
           [dayFraction(visit.startMin), F.timeOfDay],
@@ -107,7 +106,7 @@ export function routeTableRows(
     rows.push(depotRow(problem, route, "end", extraHeaders.length));
     routes.push({ vehicle: route.vehicle, name, first, count: rows.length - first });
   }
-  return { header: [...ROUTE_TABLE_HEADER, ...extraHeaders.map(safeText)], rows, routes };
+  return { header: [...ROUTE_TABLE_HEADER, ...extraHeaders], rows, routes };
 }
 
 type Cell = readonly [CellValue, string | null];
@@ -122,13 +121,13 @@ function depotRow(problem: Problem, route: Route, end: "start" | "end", extras: 
     [dayFraction(v.shiftStartMin), F.timeOfDay],
     [dayFraction(v.shiftEndMin), F.timeOfDay],
   ];
-  const head: Cell[] = [[safeText(v.id), F.text]];
+  const head: Cell[] = [[v.id, F.text]];
   const row: Cell[] =
     end === "start"
       ? [
           ...head,
           [0, F.integer],
-          [safeText(name || "Depot"), F.text],
+          [name || "Depot", F.text],
           [DEPOT_START_NAME, F.text],
           blank,
           blank,
@@ -143,7 +142,7 @@ function depotRow(problem: Problem, route: Route, end: "start" | "end", extras: 
       : [
           ...head,
           [route.visits.length + 1, F.integer],
-          [safeText(name || "Depot"), F.text],
+          [name || "Depot", F.text],
           [DEPOT_END_NAME, F.text],
           [dayFraction(route.returnMin), F.timeOfDay],
           blank,
@@ -177,7 +176,7 @@ function windowEdge(min: number, open: boolean): Cell {
 function extraCells(extra: Readonly<Record<string, CellValue>> | undefined, headers: readonly string[]): Cell[] {
   return headers.map((h) => {
     const v = extra?.[h] ?? null;
-    return typeof v === "string" ? [safeText(v), F.text] : [v, null];
+    return typeof v === "string" ? [v, F.text] : [v, null];
   });
 }
 

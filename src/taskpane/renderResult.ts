@@ -18,9 +18,12 @@ export function renderResult(dom: PaneDom, problem: Problem, result: SolveResult
   const t = plan.totals;
   const status = dom.resultStatus;
   const how = stopped ? "Stopped early; best plan so far" : "Finished";
+  const left = t.mustServeUnassigned;
   status.textContent = plan.feasible
     ? `${how}: every rule kept (${stats.moves.toLocaleString("en")} moves).`
-    : `${how}: this plan breaks ${plan.violations.length} rule(s); see below.`;
+    : plan.violations.length === 0
+      ? `${how}: ${left} stop${left === 1 ? "" : "s"} that must be served could not be served within capacity, windows and shifts; see below.`
+      : `${how}: this plan breaks ${plan.violations.length} rule(s); see below.`;
   status.className = plan.feasible ? "status ok" : "status bad";
   status.dataset.feasible = String(plan.feasible);
   const rows: [string, string][] = [
@@ -32,6 +35,7 @@ export function renderResult(dom: PaneDom, problem: Problem, result: SolveResult
     ["Late", `${Math.round(t.lateMin)} min`],
     ["Cost", t.cost.toLocaleString("en", { maximumFractionDigits: 2 })],
     ["Unserved", String(t.unassigned)],
+    ["Must-serve left out", String(left)],
   ];
   dom.totals.replaceChildren(
     ...rows.flatMap(([k, v]) => {

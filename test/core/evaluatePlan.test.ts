@@ -90,7 +90,7 @@ describe("evaluatePlan (time-warp timing of Vidal et al. 2013, figures worked by
     expect(soft.totals.cost - hard.totals.cost).toBeCloseTo(2 * 10, 9);
   });
 
-  it("reports overtime, excess load and unserved must-serve stops as violations", () => {
+  it("reports overtime and excess load as violations, and counts unserved must-serve stops", () => {
     const p = lineProblem([
       [{ earliestMin: 0, latestMin: Infinity }],
       [{ earliestMin: 0, latestMin: Infinity }],
@@ -101,8 +101,10 @@ describe("evaluatePlan (time-warp timing of Vidal et al. 2013, figures worked by
     expect(plan.routes[0]!.overtimeMin).toBeGreaterThan(0);
     expect(plan.violations).toContain("Van: 5 kg over capacity");
     const partial = evaluatePlan(p, [[0]], [{ stop: 1, reason: "test" }]);
-    expect(partial.violations).toContain("Stop S2 is not served: test");
-    expect(partial.violations).toContain("Stop S3 is not served: not in any route");
+    expect(partial.violations).toEqual([]);
+    expect(partial.totals.mustServeUnassigned).toBe(2);
+    expect(partial.feasible).toBe(false);
+    expect(partial.unassigned).toContainEqual({ stop: 2, reason: "not in any route" });
     expect(() => evaluatePlan(p, [[0, 0]])).toThrow(RangeError);
   });
 });

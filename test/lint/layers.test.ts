@@ -13,7 +13,7 @@ async function ruleIds(code: string, filePath: string): Promise<string[]> {
 describe("lint: layers point inward", () => {
   it("refuses src/core importing src/sheets", async () => {
     const ids = await ruleIds(
-      'import { safeText } from "../sheets/safeText.js";\nexport const x = safeText("a");\n',
+      'import { CAUTION_TEXT } from "../sheets/caution.js";\nexport const x = CAUTION_TEXT;\n',
       "src/core/outward.ts",
     );
     expect(ids).toContain("import-x/no-restricted-paths");

@@ -9,7 +9,9 @@ import { extraHeaders, plan, problem, run, stopRows, CREATED_SERIAL } from "../f
 /** The route-table header exactly as DESIGN.md §5 gives it. */
 const DESIGN_ROUTE_HEADER =
   "Vehicle | Seq | Stop | Name | Arrival | Wait min | Start | Departure | Load | Leg km | Total km | Earliest | Latest | Late min | Latitude | Longitude";
-const DESIGN_COMPARE_HEADER = "Scenario | Vehicles | Km | Hours | Cost | Late min | Unassigned | Schedule | Seed | Created";
+/** DESIGN.md §5's Compare header plus "Must-serve left out" after Unassigned (issue 9 asks Compare to say it). */
+const DESIGN_COMPARE_HEADER =
+  "Scenario | Vehicles | Km | Hours | Cost | Late min | Unassigned | Must-serve left out | Schedule | Seed | Created";
 
 /** Compare with a JSON golden file; `UPDATE_GOLDEN=1` (re)writes it instead. */
 function expectGolden(name: string, actual: unknown): void {
@@ -45,6 +47,13 @@ describe("layoutPlan golden files (invented data: layout rules only)", () => {
 });
 
 describe("scenario sheet layout (DESIGN.md §5)", () => {
+  it("the title says when stops that must be served are left out", () => {
+    const short = { ...plan, totals: { ...plan.totals, mustServeUnassigned: 3 } };
+    expect(layoutPlan({ problem, plan: short, run }).grid.values[0]![0]).toBe(
+      "Kiln plan: -Tuesday late. 3 stops that must be served are NOT served; see the unassigned table below",
+    );
+  });
+
   it("has a title line, then the caution line", () => {
     expect(at(0, 0)).toBe("Kiln plan: -Tuesday late");
     expect(at(1, 0)).toBe(CAUTION_TEXT);
@@ -81,7 +90,7 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
       "Windows",
     ]);
     expect(values[3]!.slice(0, 12)).toEqual([
-      "'-Tuesday late",
+      "-Tuesday late",
       CREATED_SERIAL,
       7,
       "geometric a=0.94 L=1000",
@@ -99,8 +108,8 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
     expect(fmt(3, 1)).toBe("yyyy-mm-dd hh:mm");
   });
 
-  it("totals block: vehicles, km to 0.1, driving/duty/waiting as [h]:mm durations, late, cost, unassigned", () => {
-    expect(values[4]!.slice(0, 8)).toEqual([
+  it("totals block: vehicles, km to 0.1, driving/duty/waiting as [h]:mm durations, late, cost, unassigned, must-serve left out", () => {
+    expect(values[4]!.slice(0, 9)).toEqual([
       "Vehicles used",
       "Km",
       "Driving hours",
@@ -109,9 +118,10 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
       "Late min",
       "Cost",
       "Unassigned",
+      "Must-serve left out",
     ]);
-    expect(values[5]!.slice(0, 8)).toEqual([2, 27.1, 76.5 / 1440, 255 / 1440, 30 / 1440, 10, 298.57, 1]);
-    expect(numberFormats![5]!.slice(0, 8)).toEqual(["0", "0.0", "[h]:mm", "[h]:mm", "[h]:mm", "0.0", "0.00", "0"]);
+    expect(values[5]!.slice(0, 9)).toEqual([2, 27.1, 76.5 / 1440, 255 / 1440, 30 / 1440, 10, 298.57, 1, 0]);
+    expect(numberFormats![5]!.slice(0, 9)).toEqual(["0", "0.0", "[h]:mm", "[h]:mm", "[h]:mm", "0.0", "0.00", "0", "0"]);
   });
 
   it("510 minutes is written as 0.3541666... with format hh:mm (ECMA-376: time of day is the day fraction)", () => {
@@ -136,9 +146,9 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
       ["Van 1", 2, "S2"],
       ["Van 1", 3, "3-4"],
       ["Van 1", 4, "Kiln Yard"],
-      ["'=Night", 0, "North Gate"],
-      ["'=Night", 1, "S4"],
-      ["'=Night", 2, "Kiln Yard"],
+      ["=Night", 0, "North Gate"],
+      ["=Night", 1, "S4"],
+      ["=Night", 2, "Kiln Yard"],
     ]);
   });
 
@@ -173,11 +183,13 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
     expect([open[col("Earliest")], open[col("Latest")]]).toEqual([null, null]);
   });
 
-  it("negative coordinates and numeric extras stay numbers; text extras are carried through safely", () => {
+  it("negative coordinates and numeric extras stay numbers; text extras are carried through exactly, formatted @", () => {
     const s1 = routeRows().find((r) => r[col("Stop")] === "S1")!;
     expect(s1[col("Longitude")]).toBe(-0.0922);
     expect(s1[col("Door code")]).toBe(-5);
-    expect(s1[col("Phone")]).toBe("'+44 20 7946 0000");
+    expect(s1[col("Phone")]).toBe("+44 20 7946 0000");
+    const r = values.indexOf(s1);
+    expect(fmt(r, col("Phone"))).toBe("@");
   });
 
   it("unassigned table Stop | Name | Reason lists the stops not served", () => {
@@ -198,7 +210,7 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
 
 describe("route chart spec", () => {
   it("one series per used vehicle over its Longitude (x) and Latitude (y) cells, depot rows included", () => {
-    expect(layout.chart.series.map((s) => s.name)).toEqual(["Van 1", "'=Night"]);
+    expect(layout.chart.series.map((s) => s.name)).toEqual(["Van 1", "=Night"]);
     const [van1, night] = layout.chart.series;
     expect(van1!.x.col).toBe(col("Longitude"));
     expect(van1!.y.col).toBe(col("Latitude"));
@@ -224,9 +236,9 @@ describe("Compare sheet (DESIGN.md §5)", () => {
   it("row: scenario, vehicles, km, duty hours, cost, late, unassigned, schedule with rule, seed, created", () => {
     const row = layoutCompareRow(run, plan);
     expect(row.values).toEqual([
-      ["'-Tuesday late", 2, 27.1, 255 / 1440, 298.57, 10, 1, "geometric a=0.94 L=1000, Metropolis", 7, CREATED_SERIAL],
+      ["-Tuesday late", 2, 27.1, 255 / 1440, 298.57, 10, 1, 0, "geometric a=0.94 L=1000, Metropolis", 7, CREATED_SERIAL],
     ]);
-    expect(row.numberFormats).toEqual([["@", "0", "0.0", "[h]:mm", "0.00", "0.0", "0", "@", null, "yyyy-mm-dd hh:mm"]]);
+    expect(row.numberFormats).toEqual([["@", "0", "0.0", "[h]:mm", "0.00", "0.0", "0", "0", "@", null, "yyyy-mm-dd hh:mm"]]);
   });
 });
 

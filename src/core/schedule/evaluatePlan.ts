@@ -16,7 +16,8 @@ import type { Plan, Problem, Route, Unassigned, Visit } from "../model.js";
  * @param problem - the problem the routes belong to
  * @param routes - `routes[v]` = stop indices of vehicle v in visiting order (one entry per vehicle)
  * @param unassigned - stops left out, with reasons; stops missing from both get "not in any route"
- * @returns the plan
+ * @returns the plan; `violations` lists the broken rules of the routes, and a plan that leaves a
+ *   must-serve stop out is not `feasible` (its count is `totals.mustServeUnassigned`)
  * @throws RangeError when `routes` does not have one entry per vehicle or a stop index is out of range or repeated
  * @example evaluatePlan(problem, [[0, 2], [1]]).totals.distanceKm // => total km of both routes
  */
@@ -44,9 +45,10 @@ export function evaluatePlan(problem: Problem, routes: readonly (readonly number
   }
   for (let s = 0; s < n; s++) if (!seen[s]) left.push({ stop: s, reason: "not in any route" });
   let unservedCost = 0;
+  let mustServeUnassigned = 0;
   for (const u of left) {
     const stop = problem.stops[u.stop]!;
-    if (stop.unservedCost === undefined) violations.push(`Stop ${stop.id} is not served: ${u.reason}`);
+    if (stop.unservedCost === undefined) mustServeUnassigned++;
     else unservedCost += stop.unservedCost;
   }
   const sum = (f: (r: Route) => number): number => planRoutes.reduce((a, r) => a + f(r), 0);
@@ -62,13 +64,24 @@ export function evaluatePlan(problem: Problem, routes: readonly (readonly number
       lateMin: sum((r) => r.lateMin),
       cost: sum((r) => r.cost) + unservedCost,
       unassigned: left.length,
+      mustServeUnassigned,
     },
-    feasible: violations.length === 0,
+    feasible: violations.length === 0 && mustServeUnassigned === 0,
     violations,
   };
 }
 
-function evaluateRoute(problem: Problem, v: number, stops: readonly number[], violations: string[]): Route {
+/**
+ * Evaluate one vehicle's route from scratch, as `evaluatePlan` does for each route.
+ *
+ * @param problem - the problem
+ * @param v - index of the vehicle
+ * @param stops - its stop indices in visiting order
+ * @param violations - receives each broken rule of the route in words
+ * @returns the route with its timing, load and cost
+ * @example evaluateRoute(problem, 0, [2, 5], []).distanceKm
+ */
+export function evaluateRoute(problem: Problem, v: number, stops: readonly number[], violations: string[]): Route {
   const veh = problem.vehicles[v]!;
   const m = problem.matrix;
   const L = m.size;

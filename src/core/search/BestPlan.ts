@@ -83,7 +83,7 @@ export class BestPlan {
     return evaluatePlan(
       this.problem,
       state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1))),
-    ).feasible;
+    ).violations.length === 0;
   }
 
   /** Copy the routes changed since the previous copy (every accepted move marks its routes). */
