@@ -33,7 +33,14 @@ const TYPES: Record<string, string> = {
 export async function serveStatic(root: string, port = 0): Promise<{ server: Server; url: string }> {
   const base = resolve(root);
   const server = createServer((req, res) => {
-    const path = decodeURIComponent(new URL(req.url ?? "/", "http://x").pathname);
+    let path: string;
+    try {
+      path = decodeURIComponent(new URL(req.url ?? "/", "http://x").pathname);
+    } catch {
+      // A malformed escape ("%E0%A4%A") must not take the server down (RFC 3986 §2.1).
+      res.writeHead(400, { "content-type": "text/plain" }).end("bad request: malformed percent-encoding in the URL");
+      return;
+    }
     const file = normalize(join(base, path === "/" ? "taskpane.html" : path));
     if (file !== base && !file.startsWith(base + sep)) {
       res.writeHead(403).end("forbidden");

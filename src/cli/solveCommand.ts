@@ -6,6 +6,7 @@ import { formatCooling } from "../sheets/formatCooling.js";
 import { SETTING_FIELDS } from "../sheets/settingFields.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { ExcelJsWorkbook } from "../workbook/exceljs/ExcelJsWorkbook.js";
+import { describeUnreadableWorkbook } from "../workbook/exceljs/unreadableWorkbook.js";
 import { partsNotKept } from "../workbook/exceljs/zipEntryNames.js";
 import { findInputSheets } from "../workbook/findInputSheets.js";
 import { readScenarioInput, sourceOf, writeScenarioResult } from "../workbook/scenario.js";
@@ -161,7 +162,7 @@ export async function prepareRun(parsed: ParsedArgs): Promise<PreparedRun | { er
   try {
     book = await ExcelJsWorkbook.fromBuffer(bytes);
   } catch {
-    return { errors: [`${parsed.positional[0]}: not an .xlsx workbook; save it as "Excel Workbook (*.xlsx)" and try again`] };
+    return { errors: [describeUnreadableWorkbook(bytes, parsed.positional[0]!)] };
   }
   const found = await findInputSheets(book);
   const stops = parsed.values.get("stops") ?? found.stops;

@@ -11,6 +11,29 @@
  * @example parseCsv('a,"b ""x"""\r\n1,2') // => [["a", 'b "x"'], ["1", "2"]]
  */
 export function parseCsv(text: string): string[][] {
+  return readCsv(text).rows;
+}
+
+/** What `readCsv` found. */
+export interface CsvRead {
+  readonly rows: string[][];
+  readonly separator: "," | ";";
+  /** Where a quote opens that is never closed (1-based line and column), if one does. */
+  readonly unclosedQuote?: { readonly line: number; readonly column: number };
+}
+
+/**
+ * `parseCsv` that also says where an unclosed quote opens (the rest of the file would
+ * otherwise vanish into one field), and, for a `;`-separated file, reads numbers written
+ * with a decimal comma ("45,5", "1.234,5", "1 234,5") as numbers with a decimal point: a
+ * semicolon separator is what spreadsheets write in decimal-comma locales (common practice).
+ *
+ * @param text - the file's content
+ * @returns the rows, the separator and any unclosed quote
+ * @throws TypeError when `text` is not a string
+ * @example readCsv('a;b\n"x;45,5').unclosedQuote // => { line: 2, column: 1 }
+ */
+export function readCsv(text: string): CsvRead {
   if (typeof text !== "string") throw new TypeError("text must be a string");
   const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   const sep = pickSeparator(src);
@@ -18,9 +41,16 @@ export function parseCsv(text: string): string[][] {
   let row: string[] = [];
   let field = "";
   let quoted = false;
+  let line = 1;
+  let lineStart = 0;
+  let openedAt = { line: 1, column: 1 };
   let i = 0;
   while (i < src.length) {
     const ch = src[i]!;
+    if (ch === "\n" || (ch === "\r" && src[i + 1] !== "\n")) {
+      line++;
+      lineStart = i + 1;
+    }
     if (quoted) {
       if (ch === '"') {
         if (src[i + 1] === '"') {
@@ -37,6 +67,7 @@ export function parseCsv(text: string): string[][] {
     }
     if (ch === '"' && field === "") {
       quoted = true;
+      openedAt = { line, column: i - lineStart + 1 };
     } else if (ch === sep) {
       row.push(field);
       field = "";
@@ -45,7 +76,11 @@ export function parseCsv(text: string): string[][] {
       rows.push(row);
       row = [];
       field = "";
-      if (ch === "\r" && src[i + 1] === "\n") i++;
+      if (ch === "\r" && src[i + 1] === "\n") {
+        i++;
+        line++;
+        lineStart = i + 1;
+      }
     } else {
       field += ch;
     }
@@ -55,7 +90,15 @@ export function parseCsv(text: string): string[][] {
     row.push(field);
     rows.push(row);
   }
-  return rows;
+  const read = sep === ";" ? rows.map((r) => r.map(decimalComma)) : rows;
+  return quoted ? { rows: read, separator: sep, unclosedQuote: openedAt } : { rows: read, separator: sep };
+}
+
+/** "45,5" -> "45.5", "1.234,5" / "1 234,5" -> "1234.5"; anything else unchanged. */
+function decimalComma(field: string): string {
+  const t = field.trim();
+  if (!/^[-+]?\d{1,3}(?:[. \u00a0\u202f]\d{3})*,\d+$|^[-+]?\d+,\d+$/.test(t)) return field;
+  return t.replace(/[. \u00a0\u202f]/g, "").replace(",", ".");
 }
 
 /** `;` when the first line (outside quotes) has more of them than commas, else `,`. */

@@ -10,6 +10,7 @@ import type { ReadResult, StopRow } from "./ReadResult.js";
 import { cellIssue } from "./readTable.js";
 import { SETTING_FIELDS } from "./settingFields.js";
 import { crossProblems } from "./settingsSchema.js";
+import { foldWarnings, stopWarnings, type KindedIssue } from "./stopWarnings.js";
 
 /** Name of the one load dimension when neither Demand nor Capacity carries a unit word (defined in core). */
 import { PLAIN_DIMENSION } from "../core/index.js";
@@ -26,10 +27,10 @@ export { PLAIN_DIMENSION };
  * (`userMatrix`) when one is given. Load dimensions pair Demand <unit> with Capacity <unit>;
  * a plain Demand and a plain Capacity make one dimension named "load".
  *
- * Checks beyond single cells: a stop whose every window lies outside every vehicle's shift
- * (an issue under hard windows, a warning under soft ones, where it can be served late); a
- * stop whose demand no vehicle can carry, or whose features no vehicle has (warnings: the
- * solver reports it unassigned).
+ * Checks beyond single cells, all warnings (the stop is planned around, left unassigned with
+ * its reason): a stop whose every window lies outside every vehicle's shift, whose demand no
+ * vehicle can carry, whose features no vehicle has, or whose window no vehicle reaches; doubtful
+ * coordinates and backwards windows (`stopWarnings`). Repeated warnings of one kind fold into one line.
  *
  * @param input - the tables as read from the workbook
  * @param overrides - settings that win over the Settings sheet
@@ -41,7 +42,8 @@ export function readProblem(
   overrides: Partial<PlanSettings> = {},
 ): ReadResult {
   const issues: Issue[] = [];
-  const warnings: Issue[] = [];
+  const warnings: KindedIssue[] = [];
+  const warned = new Set<number>();
   const fromSheet = input.settings ? parseSettingsSheet(input.settings) : { settings: {}, issues: [] };
   issues.push(...fromSheet.issues);
   const settings: PlanSettings = { ...PLAN_SETTINGS_DEFAULTS, ...defined(fromSheet.settings), ...defined(overrides) };
@@ -62,7 +64,7 @@ export function readProblem(
       ),
     );
   }
-  checkServable(stops, fleet.vehicles, dims, settings.hardWindows, input.stops.sheet, issues, warnings);
+  checkServable(stops, fleet, dims, settings.hardWindows, { stops: input.stops.sheet, fleet: input.fleet.sheet }, warnings, warned);
   if (issues.length > 0 || dims === undefined) return { ok: false, issues, stopColumns, fleetColumns };
 
   const locations: (LatLon & { name?: string })[] = [];
@@ -128,7 +130,17 @@ export function readProblem(
   const model = validateProblem(problem);
   if (model.length > 0) return { ok: false, issues: model, stopColumns, fleetColumns };
   const stopRows: StopRow[] = stops.stops.map((s, i) => ({ stop: i, sheetRow: s.sheetRow, extra: s.extra }));
-  return { ok: true, problem, settings, stopRows, extraHeaders: stops.extraHeaders, stopColumns, fleetColumns, warnings };
+  warnings.push(...stopWarnings(problem, stops, input.stops.sheet, warned));
+  return {
+    ok: true,
+    problem,
+    settings,
+    stopRows,
+    extraHeaders: stops.extraHeaders,
+    stopColumns,
+    fleetColumns,
+    warnings: foldWarnings(warnings),
+  };
 }
 
 /** One load dimension: its name and the unit word of its stop and fleet columns. */
@@ -183,23 +195,47 @@ function pairDimensions(
   return ok ? out : undefined;
 }
 
-/** Stops no vehicle can serve, judged on the rows that were read cleanly. */
+/**
+ * Stops no vehicle can serve, judged on the rows that were read cleanly: well-formed data that
+ * makes a stop unservable is planned around (the stop is left unassigned with its reason), so
+ * each gets a warning naming its cell, never an input error. A fleet without capacity in a load
+ * dimension gets one message instead of one per stop.
+ */
 function checkServable(
   stops: ParsedStops,
-  vs: readonly ParsedVehicle[],
+  fleet: ParsedFleet,
   dims: readonly Dimension[] | undefined,
   hardWindows: boolean,
-  sheet: string,
-  issues: Issue[],
-  warnings: Issue[],
+  sheets: { readonly stops: string; readonly fleet: string },
+  warnings: KindedIssue[],
+  warned: Set<number>,
 ): void {
+  const vs = fleet.vehicles;
   if (vs.length === 0 || !stops.columns) return;
+  const sheet = sheets.stops;
   const f = stops.columns.fields;
   const windowCol = f.get("earliest") ?? f.get("windows") ?? f.get("latest") ?? 0;
   const demandCol = [...f.entries()].find(([k]) => k === "demand" || k.startsWith("demand:"))?.[1] ?? 0;
   const firstShift = Math.min(...vs.map((v) => v.shiftStartMin));
   const lastShift = Math.max(...vs.map((v) => v.shiftEndMin));
-  for (const s of stops.stops) {
+  const empty = (dims ?? []).filter(
+    (d) => d.fleet !== undefined && d.stops !== undefined && vs.every((v) => (v.capacity.get(d.fleet!) ?? 0) === 0),
+  );
+  const emptyNeeded = empty.filter((d) => stops.stops.some((s) => (s.demand.get(d.stops!) ?? 0) > 0));
+  if (emptyNeeded.length > 0) {
+    const names = emptyNeeded.map((d) => (d.name === PLAIN_DIMENSION ? "capacity" : `capacity ${d.name}`)).join(", ");
+    const capCol = fleet.columns?.fields.get(emptyNeeded[0]!.fleet ? `capacity:${emptyNeeded[0]!.fleet}` : "capacity");
+    warnings.push({
+      kind: "fleet-empty",
+      issue: cellIssue(
+        sheets.fleet,
+        fleet.headerRow0,
+        fleet.col0 + (capCol ?? fleet.columns?.fields.get("capacity") ?? 0),
+        `every vehicle has ${names} 0, so no stop with a demand can be served (they will all be left unassigned); fill in the Capacity column of the fleet.`,
+      ),
+    });
+  }
+  for (const [i, s] of stops.stops.entries()) {
     const overlaps = s.windows.some((w) => vs.some((v) => w.latestMin >= v.shiftStartMin && w.earliestMin <= v.shiftEndMin));
     if (!overlaps) {
       const when = s.windows.map((w) => `${formatClock(w.earliestMin)}-${formatClock(w.latestMin)}`).join(", ");
@@ -208,36 +244,43 @@ function checkServable(
         : s.windows.every((w) => w.earliestMin > lastShift)
           ? `opens after every vehicle's shift ends (last shift end ${formatClock(lastShift)})`
           : "falls outside every vehicle's shift";
-      const text = `the time window of stop "${s.id}" (${when}) ${side}; widen the window or change a shift.`;
-      // Under soft windows a stop can still be served late, so it only deserves a warning.
-      if (hardWindows) issues.push(cellIssue(sheet, s.sheetRow0, stops.col0 + windowCol, text));
-      else warnings.push(cellIssue(sheet, s.sheetRow0, stops.col0 + windowCol, `${text} With soft windows it can only be served late.`));
+      const text = `the time window of stop "${s.id}" (${when}) ${side};`;
+      // Under soft windows a stop can still be served late; under hard ones it is left unassigned.
+      const then = hardWindows
+        ? " it will be left unassigned unless you widen the window or change a shift."
+        : " with soft windows it can only be served late; widen the window or change a shift.";
+      warnings.push({ kind: "window-outside-shifts", issue: cellIssue(sheet, s.sheetRow0, stops.col0 + windowCol, text + then) });
+      warned.add(i);
     }
     if (dims !== undefined && dims.length > 0) {
       const demand = dims.map((d) => (d.stops === undefined ? 0 : (s.demand.get(d.stops) ?? 0)));
       const carriable = vs.some((v) => dims.every((d, k) => d.fleet === undefined || demand[k]! <= (v.capacity.get(d.fleet) ?? 0)));
-      if (!carriable) {
+      if (!carriable) warned.add(i);
+      if (!carriable && !dims.some((d, k) => emptyNeeded.includes(d) && demand[k]! > 0)) {
         const amounts = demand.map((x, k) => (dims[k]!.name === PLAIN_DIMENSION ? `${x}` : `${x} ${dims[k]!.name}`)).join(", ");
-        warnings.push(
-          cellIssue(
+        warnings.push({
+          kind: "over-capacity",
+          issue: cellIssue(
             sheet,
             s.sheetRow0,
             stops.col0 + demandCol,
             `the demand of stop "${s.id}" (${amounts}) exceeds every vehicle's capacity; it will be left unassigned unless you split the stop into smaller ones or add a larger vehicle.`,
           ),
-        );
+        });
       }
     }
     const need = s.requiredFeatures ?? [];
     if (need.length > 0 && !vs.some((v) => need.every((x) => (v.features ?? []).includes(x)))) {
-      warnings.push(
-        cellIssue(
+      warned.add(i);
+      warnings.push({
+        kind: "features",
+        issue: cellIssue(
           sheet,
           s.sheetRow0,
           stops.col0 + (f.get("features") ?? 0),
           `no vehicle has all the features stop "${s.id}" requires (${need.join(", ")}); it will be left unassigned unless a vehicle lists them under Features.`,
         ),
-      );
+      });
     }
   }
 }

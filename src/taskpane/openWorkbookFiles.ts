@@ -2,9 +2,10 @@
  * Open workbook files chosen in the standalone page: one .xlsx, or one or more .csv files
  * (each becomes a sheet named after its file). Everything happens in the page.
  */
-import { parseCsv } from "../sheets/parseCsv.js";
+import { readCsv } from "../sheets/parseCsv.js";
 import { uniqueSheetName } from "../sheets/uniqueSheetName.js";
 import { ExcelJsWorkbook } from "../workbook/exceljs/ExcelJsWorkbook.js";
+import { describeUnreadableWorkbook } from "../workbook/exceljs/unreadableWorkbook.js";
 
 /** An opened workbook and the name to offer for its download. */
 export interface OpenedWorkbook {
@@ -28,13 +29,12 @@ export async function openWorkbookFiles(files: readonly File[]): Promise<OpenedW
   const csv = files.filter((f) => /\.csv$/i.test(f.name));
   if (xlsx.length === 1 && csv.length === 0) {
     const file = xlsx[0]!;
+    const bytes = new Uint8Array(await file.arrayBuffer());
     try {
-      const book = await ExcelJsWorkbook.fromBuffer(new Uint8Array(await file.arrayBuffer()));
+      const book = await ExcelJsWorkbook.fromBuffer(bytes);
       return { book, downloadName: file.name.replace(/\.xlsx$/i, "") + ".plan.xlsx", label: file.name };
-    } catch (err) {
-      return {
-        error: `${file.name} could not be read as an .xlsx workbook (${err instanceof Error ? err.message : String(err)}). Save it from Excel as .xlsx and try again.`,
-      };
+    } catch {
+      return { error: describeUnreadableWorkbook(bytes, file.name) };
     }
   }
   if (csv.length > 0 && xlsx.length === 0) {
@@ -44,7 +44,14 @@ export async function openWorkbookFiles(files: readonly File[]): Promise<OpenedW
         file.name.replace(/\.csv$/i, ""),
         sheets.map((s) => s.name),
       );
-      sheets.push({ name, values: parseCsv(await file.text()) });
+      const csvRead = readCsv(await file.text());
+      if (csvRead.unclosedQuote) {
+        const { line, column } = csvRead.unclosedQuote;
+        return {
+          error: `${file.name}: the quote (") that opens on line ${line}, column ${column} is never closed, so everything after it would be read as one cell. Close the quote there (write "" for a quote inside quoted text) and open the file again.`,
+        };
+      }
+      sheets.push({ name, values: csvRead.rows });
     }
     const base = csv.length === 1 ? csv[0]!.name.replace(/\.csv$/i, "") : "kiln";
     return { book: ExcelJsWorkbook.fromGrids(sheets), downloadName: `${base}.plan.xlsx`, label: csv.map((f) => f.name).join(" + ") };

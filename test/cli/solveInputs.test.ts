@@ -19,7 +19,7 @@ describe("kiln solve input checks", () => {
     await writeFile(text, "Stop,Latitude\nS1,52\n");
     const cap = captureIO();
     expect(await runSolve([text], cap.io)).toBe(2);
-    expect(cap.err()).toMatch(/not an \.xlsx workbook/);
+    expect(cap.err()).toMatch(/stops\.xlsx is a text file \(CSV or similar\) with a workbook's name; rename it to \.csv/);
     const none = captureIO();
     expect(await runSolve([join(dir, "absent.xlsx")], none.io)).toBe(2);
     expect(none.err()).toMatch(/cannot read the file/);

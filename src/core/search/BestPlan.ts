@@ -80,10 +80,12 @@ export class BestPlan {
   }
 
   private isExactlyFeasible(state: SearchState): boolean {
-    return evaluatePlan(
-      this.problem,
-      state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1))),
-    ).violations.length === 0;
+    return (
+      evaluatePlan(
+        this.problem,
+        state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1))),
+      ).violations.length === 0
+    );
   }
 
   /** Copy the routes changed since the previous copy (every accepted move marks its routes). */
