@@ -1,19 +1,23 @@
 /**
- * `npm run bench`: runs the public benchmark suites of `../shared/benchmarks` (TSPLIB95 and
+ * `npm run bench`: runs the public benchmark suites of the benchmark folder (TSPLIB95 and
  * Solomon 1987) through the same path as `kiln bench`, prints a markdown table against the
  * published optima / best-known results, and writes the records to `bench/out/suites.json`.
  *
  *   npm run bench -- [--seconds S] [--only NAME,NAME] [--suite tsplib|solomon] [--seed N]
  *
  * Small GEO instances (burma14, ulysses16, ulysses22) always get 1 s; the others `--seconds`
- * (default 30). EUC_2D instances run only when named with `--only`.
+ * (default 30). EUC_2D instances run only when named with `--only`. The benchmark folder is
+ * `KILN_BENCHMARKS_DIR` when set, otherwise `../shared/benchmarks` beside the checkout.
  */
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { benchInstance, loadBenchFile, type SolomonBenchRecord, type TsplibBenchRecord } from "../src/cli/benchCommand.js";
 import { numberOption, parseArgs } from "../src/cli/parseArgs.js";
 
-const BENCHMARKS_DIR = fileURLToPath(new URL("../../shared/benchmarks/", import.meta.url));
+const BENCHMARKS_DIR = process.env["KILN_BENCHMARKS_DIR"]
+  ? resolve(process.env["KILN_BENCHMARKS_DIR"]) + "/"
+  : fileURLToPath(new URL("../../shared/benchmarks/", import.meta.url));
 const OUT_DIR = fileURLToPath(new URL("./out/", import.meta.url));
 const SMALL_GEO = ["burma14", "ulysses16", "ulysses22"];
 const LARGE_GEO = ["gr96", "gr202", "gr431"];
@@ -35,7 +39,10 @@ async function runSuites(argv: string[]): Promise<number> {
   if (suite !== undefined && suite !== "tsplib" && suite !== "solomon")
     parsed.errors.push(`--suite must be tsplib or solomon, got "${suite}"`);
   if (parsed.positional.length > 0) parsed.errors.push(`unexpected argument "${parsed.positional[0]}"`);
-  if (!existsSync(BENCHMARKS_DIR)) parsed.errors.push("../shared/benchmarks not found beside the checkout; nothing to run");
+  if (!existsSync(BENCHMARKS_DIR))
+    parsed.errors.push(
+      `benchmark folder ${BENCHMARKS_DIR} not found: put the suites in ../shared/benchmarks beside the checkout or set KILN_BENCHMARKS_DIR`,
+    );
   if (parsed.errors.length > 0) {
     for (const e of parsed.errors) process.stderr.write(e + "\n");
     return 2;

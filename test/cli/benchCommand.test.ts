@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { runBench } from "../../src/cli/benchCommand.js";
 import type { CliIO } from "../../src/cli/CliIO.js";
-import { BENCHMARKS_DIR, benchmarksAvailable, benchmarkText } from "../reference/benchmarksDir.js";
+import { FIXTURES_DIR, fixtureText } from "../reference/benchmarksDir.js";
 import { checkSolomonPlan, readRawSolomon } from "../reference/solomonChecker.js";
 
 function capture(): { io: CliIO; out: string[]; err: string[] } {
@@ -12,10 +12,10 @@ function capture(): { io: CliIO; out: string[]; err: string[] } {
   return { io: { stdout: (s) => void out.push(s), stderr: (s) => void err.push(s), isTTY: false, now: () => (clock += 1) }, out, err };
 }
 
-describe.skipIf(!benchmarksAvailable("kiln bench JSON"))("kiln bench JSON lines (DESIGN.md §6) on published benchmarks", () => {
+describe("kiln bench JSON lines (DESIGN.md §6) on published benchmarks (fixtures)", () => {
   it("TSPLIB burma14: fields, tour of the file's node numbers from 1, length = TSPLIB95 optimum 3323", async () => {
     const c = capture();
-    expect(await runBench([BENCHMARKS_DIR + "tsplib/burma14.tsp", "--moves", "100000", "--seed", "2"], c.io)).toBe(0);
+    expect(await runBench([FIXTURES_DIR + "burma14.tsp", "--moves", "100000", "--seed", "2"], c.io)).toBe(0);
     const lines = c.out.join("").trim().split("\n");
     expect(lines).toHaveLength(1);
     const rec = JSON.parse(lines[0]!) as Record<string, unknown>;
@@ -31,7 +31,7 @@ describe.skipIf(!benchmarksAvailable("kiln bench JSON"))("kiln bench JSON lines 
 
   it("Solomon C101 and R101: fields, routes feasible by the independent checker, distance to 1e-6 (Solomon 1987)", async () => {
     const c = capture();
-    const files = ["C101", "R101"].map((n) => BENCHMARKS_DIR + `solomon/${n}.txt`);
+    const files = ["C101", "R101"].map((n) => FIXTURES_DIR + `${n}.txt`);
     expect(await runBench([...files, "--moves", "60000"], c.io)).toBe(0);
     const lines = c.out.join("").trim().split("\n");
     expect(lines).toHaveLength(2);
@@ -40,7 +40,7 @@ describe.skipIf(!benchmarksAvailable("kiln bench JSON"))("kiln bench JSON lines 
       expect(Object.keys(rec)).toEqual(["instance", "format", "seed", "seconds", "moves", "vehicles", "distance", "feasible", "routes"]);
       expect(rec["instance"]).toBe(name);
       expect(rec["seed"]).toBe(1);
-      const check = checkSolomonPlan(readRawSolomon(benchmarkText(`solomon/${name}.txt`)), rec.routes);
+      const check = checkSolomonPlan(readRawSolomon(fixtureText(`${name}.txt`)), rec.routes);
       expect(check.violations).toEqual([]);
       expect(rec["feasible"]).toBe(true);
       expect(rec["vehicles"]).toBe(rec.routes.length);

@@ -5,17 +5,17 @@ import { parseSolomon } from "../../src/core/formats/parseSolomon.js";
 import { solomonRoutesDistance } from "../../src/core/formats/solomonRoutesDistance.js";
 import { solomonToProblem } from "../../src/core/formats/solomonToProblem.js";
 import { solve } from "../../src/core/solve.js";
-import { BENCHMARKS_DIR, benchmarksAvailable, benchmarkText } from "./benchmarksDir.js";
+import { BENCHMARKS_DIR, benchmarkCsv, benchmarksAvailable, benchmarkText, fixtureCsv, fixtureText } from "./benchmarksDir.js";
 import { checkSolomonPlan, readRawSolomon } from "./solomonChecker.js";
 
 // Solomon (1987) instances of three classes: clustered, random, random-clustered long horizon.
 const INSTANCES = ["C101", "R101", "RC201"];
 const MOVES = 60_000;
 
-describe.skipIf(!benchmarksAvailable("Solomon feasibility"))("Solomon (1987) plans pass an independent checker", () => {
+describe("Solomon (1987) plans pass an independent checker (fixtures)", () => {
   for (const name of INSTANCES) {
     it(`${name}: every customer once, capacity, windows, depot due date; distance recomputed to 1e-6`, () => {
-      const text = benchmarkText(`solomon/${name}.txt`);
+      const text = fixtureText(`${name}.txt`);
       const inst = parseSolomon(text);
       expect(inst.issues).toEqual([]);
       const raw = readRawSolomon(text);
@@ -34,6 +34,22 @@ describe.skipIf(!benchmarksAvailable("Solomon feasibility"))("Solomon (1987) pla
     });
   }
 
+  it("the checker itself rejects broken plans (C101: one route for all, a customer left out)", () => {
+    const raw = readRawSolomon(fixtureText("C101.txt"));
+    const ids = raw.rows.slice(1).map((r) => r[0]!);
+    const oneRoute = checkSolomonPlan(raw, [ids]).violations.join("; ");
+    expect(oneRoute).toContain("over capacity 200");
+    expect(oneRoute).toContain("after its due date");
+    expect(
+      checkSolomonPlan(
+        raw,
+        ids.slice(1).map((id) => [id]),
+      ).violations.join("; "),
+    ).toContain("customer 1 served 0 times");
+  });
+});
+
+describe.skipIf(!benchmarksAvailable("Solomon suite files"))("Solomon (1987) suite in the benchmark folder", () => {
   it("every Solomon file of the folder reads as the raw numbers say (25 vehicles, depot + 100 customers)", () => {
     const files = readdirSync(BENCHMARKS_DIR + "solomon").filter((f) => f.endsWith(".txt"));
     expect(files.length).toBeGreaterThan(0);
@@ -54,17 +70,9 @@ describe.skipIf(!benchmarksAvailable("Solomon feasibility"))("Solomon (1987) pla
     }
   });
 
-  it("the checker itself rejects broken plans (C101: one route for all, a customer left out)", () => {
-    const raw = readRawSolomon(benchmarkText("solomon/C101.txt"));
-    const ids = raw.rows.slice(1).map((r) => r[0]!);
-    const oneRoute = checkSolomonPlan(raw, [ids]).violations.join("; ");
-    expect(oneRoute).toContain("over capacity 200");
-    expect(oneRoute).toContain("after its due date");
-    expect(
-      checkSolomonPlan(
-        raw,
-        ids.slice(1).map((id) => [id]),
-      ).violations.join("; "),
-    ).toContain("customer 1 served 0 times");
+  it("the committed fixtures are the suite's files, byte for byte, and best-known.csv agrees", () => {
+    for (const name of INSTANCES) expect(fixtureText(`${name}.txt`), name).toBe(benchmarkText(`solomon/${name}.txt`));
+    const suiteRows = benchmarkCsv("solomon/best-known.csv");
+    for (const row of fixtureCsv("best-known.csv").slice(1)) expect(suiteRows).toContainEqual(row);
   });
 });

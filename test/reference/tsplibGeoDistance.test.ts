@@ -1,11 +1,11 @@
-import { describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { detectFormat } from "../../src/core/formats/detectFormat.js";
 import { parseTsplib } from "../../src/core/formats/parseTsplib.js";
 import { tsplibEdge } from "../../src/core/formats/tsplibEdge.js";
 import { tsplibToProblem } from "../../src/core/formats/tsplibToProblem.js";
 import { tsplibTourLength } from "../../src/core/formats/tsplibTourLength.js";
 import { tsplibDistance, tsplibGeoDegrees } from "../../src/core/geo/tsplibDistance.js";
-import { benchmarkCsv, benchmarksAvailable, benchmarkText } from "./benchmarksDir.js";
+import { benchmarkCsv, benchmarksAvailable, benchmarkText, fixtureCsv, fixtureText } from "./benchmarksDir.js";
 
 // Optimal tours, from memory; their lengths are checked against TSPLIB95's optimal.csv.
 const OPTIMAL_TOURS: Record<string, number[]> = {
@@ -16,15 +16,20 @@ const OPTIMAL_TOURS: Record<string, number[]> = {
 // The published optimal lengths (TSPLIB95 optimal.csv), also stated here so a changed file is noticed.
 const PUBLISHED: Record<string, number> = { burma14: 3323, ulysses16: 6859, ulysses22: 7013 };
 
-describe.skipIf(!benchmarksAvailable("TSPLIB GEO optimal tours"))("TSPLIB95 GEO distance on published optima", () => {
-  const optimal = new Map(
-    benchmarkCsv("tsplib/optimal.csv")
-      .slice(1)
-      .map(([name, len]) => [name!, Number(len)]),
-  );
+// The three instances and optimal.csv are committed fixtures (test/fixtures/reference): always run.
+describe("TSPLIB95 GEO distance on published optima (fixtures)", () => {
+  let optimal = new Map<string, number>();
+  beforeAll(() => {
+    optimal = new Map(
+      fixtureCsv("optimal.csv")
+        .slice(1)
+        .map(([name, len]) => [name!, Number(len)]),
+    );
+  });
+
   for (const [name, tour] of Object.entries(OPTIMAL_TOURS)) {
     it(`${name}: the optimal tour has the length of TSPLIB95 optimal.csv (${PUBLISHED[name]})`, () => {
-      const inst = parseTsplib(benchmarkText(`tsplib/${name}.tsp`));
+      const inst = parseTsplib(fixtureText(`${name}.tsp`));
       expect(inst.issues).toEqual([]);
       expect(inst.edgeWeightType).toBe("GEO");
       expect(optimal.get(name)).toBe(PUBLISHED[name]);
@@ -33,21 +38,29 @@ describe.skipIf(!benchmarksAvailable("TSPLIB GEO optimal tours"))("TSPLIB95 GEO 
   }
 
   it("a tour length does not depend on the starting node or the direction (TSPLIB95: closed tour)", () => {
-    const inst = parseTsplib(benchmarkText("tsplib/burma14.tsp"));
+    const inst = parseTsplib(fixtureText("burma14.tsp"));
     const tour = OPTIMAL_TOURS["burma14"]!;
     const rotated = [...tour.slice(5), ...tour.slice(0, 5)];
     expect(tsplibTourLength(inst, rotated)).toBe(3323);
     expect(tsplibTourLength(inst, [...tour].reverse())).toBe(3323);
   });
+});
 
-  it("every TSPLIB file of the folder parses without issues and with DIMENSION nodes", () => {
-    for (const [name] of benchmarkCsv("tsplib/optimal.csv").slice(1)) {
+describe.skipIf(!benchmarksAvailable("TSPLIB suite files"))("TSPLIB95 suite in the benchmark folder", () => {
+  it("every TSPLIB file of optimal.csv parses without issues and with DIMENSION nodes", () => {
+    const rows = benchmarkCsv("tsplib/optimal.csv").slice(1);
+    expect(rows.length).toBeGreaterThan(3);
+    for (const [name] of rows) {
       const text = benchmarkText(`tsplib/${name}.tsp`);
       expect(detectFormat(text), name).toBe("tsplib");
       const inst = parseTsplib(text);
       expect(inst.issues, name).toEqual([]);
       expect(inst.nodes.length, name).toBe(inst.dimension);
     }
+  });
+
+  it("the committed fixtures are the suite's files, byte for byte", () => {
+    for (const name of Object.keys(OPTIMAL_TOURS)) expect(fixtureText(`${name}.tsp`), name).toBe(benchmarkText(`tsplib/${name}.tsp`));
   });
 });
 
