@@ -66,7 +66,8 @@ module.exports = (env, argv) => {
     output: {
       path: path.join(root, "dist"),
       filename: "[name].js",
-      clean: true,
+      // dist/cli/ is the compiled command line (npm run build:cli), not this build's to remove.
+      clean: { keep: /^cli[\\/]/ },
     },
     resolve: {
       extensions: [".ts", ".js"],

@@ -1,9 +1,10 @@
 import { createHash } from "node:crypto";
+import { existsSync } from "node:fs";
 import { execFile } from "node:child_process";
 import { access, readFile, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { promisify } from "node:util";
-import { describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { outputPath, runSolve } from "../../src/cli/solveCommand.js";
 import { COMPARE_SHEET } from "../../src/sheets/layoutCompare.js";
 import { captureIO, demoCopy, loadWithExcelJs, sheetValues, withCell } from "../workbook/harness.js";
@@ -125,9 +126,13 @@ describe("output path rules", () => {
   });
 });
 
-describe("kiln solve as a child process (node bin/kiln.mjs)", () => {
+describe("kiln solve as a child process (the compiled dist/cli/cli/kiln.js that `bin` names)", () => {
   const run = promisify(execFile);
-  const bin = new URL("../../bin/kiln.mjs", import.meta.url).pathname;
+  const bin = new URL("../../dist/cli/cli/kiln.js", import.meta.url).pathname;
+  beforeAll(() => {
+    // `npm test` builds it first (pretest); a lone `npx vitest run` needs `npm run build:cli`.
+    if (!existsSync(bin)) throw new Error("dist/cli/cli/kiln.js is missing: run `npm run build:cli` (npm test does it first)");
+  });
   const kiln = async (args: string[]): Promise<{ code: number; stdout: string; stderr: string }> => {
     try {
       const { stdout, stderr } = await run(process.execPath, [bin, ...args], { env: { ...process.env, KILN_DEBUG: "" } });
