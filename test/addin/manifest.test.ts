@@ -4,7 +4,7 @@
  * - XML 1.0 (W3C Recommendation, 5th ed.): well-formedness (§2.1, §3.1 tag balance and
  *   unique attributes, §4.1 character and entity references, §2.5 comments) and
  *   Namespaces in XML 1.0 (W3C): every prefix used is declared.
- * - The Office add-in manifest schema as summarised in ../shared/OFFICE-NOTES.md: element
+ * - The Office add-in manifest schema as summarised in docs/OFFICE-NOTES.md: element
  *   order of OfficeApp, Hosts/Workbook, ReadWriteDocument, VersionOverrides V1_0,
  *   ShowTaskpane, icon sizes 16/32/80, short strings <= 125 and long strings <= 250 chars.
  * - RFC 4122 (GUID text form 8-4-4-4-12 hex digits).
