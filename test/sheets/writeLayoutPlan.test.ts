@@ -1,4 +1,3 @@
-import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { CAUTION_TEXT } from "../../src/sheets/caution.js";
 import type { CellBlock, CellValue } from "../../src/sheets/grid.js";
@@ -13,17 +12,8 @@ const DESIGN_ROUTE_HEADER =
 const DESIGN_COMPARE_HEADER =
   "Scenario | Vehicles | Km | Hours | Cost | Late min | Unassigned | Must-serve left out | Schedule | Seed | Created";
 
-/** Compare with a JSON golden file; `UPDATE_GOLDEN=1` (re)writes it instead. */
-function expectGolden(name: string, actual: unknown): void {
-  const url = new URL(`../fixtures/${name}`, import.meta.url);
-  const json = JSON.stringify(actual, null, 1) + "\n";
-  if (process.env.UPDATE_GOLDEN === "1") {
-    writeFileSync(url, json);
-    return;
-  }
-  if (!existsSync(url)) throw new Error(`golden file test/fixtures/${name} is missing: run once with UPDATE_GOLDEN=1`);
-  expect(JSON.parse(json)).toEqual(JSON.parse(readFileSync(url, "utf8")));
-}
+/** The layout as the golden file holds it: indented JSON. `npx vitest run -u` rewrites the files; review the diff by eye. */
+const goldenJson = (actual: unknown): string => JSON.stringify(actual, null, 1) + "\n";
 
 const layout = layoutPlan({ problem, plan, run, stopRows, extraHeaders });
 const { values, numberFormats } = layout.grid;
@@ -38,11 +28,12 @@ const blockCells = (b: CellBlock): CellValue[] => {
 };
 
 describe("layoutPlan golden files (invented data: layout rules only)", () => {
-  it("the scenario sheet matches test/fixtures/writePlanLayout.golden.json", () => {
-    expectGolden("writePlanLayout.golden.json", layout);
+  it("the scenario sheet matches test/fixtures/writePlanLayout.golden.json", async () => {
+    await expect(goldenJson(layout)).toMatchFileSnapshot("../fixtures/writePlanLayout.golden.json");
   });
-  it("the Compare header and row match test/fixtures/writeCompare.golden.json", () => {
-    expectGolden("writeCompare.golden.json", { header: layoutCompareHeader(), row: layoutCompareRow(run, plan) });
+  it("the Compare header and row match test/fixtures/writeCompare.golden.json", async () => {
+    const compare = { header: layoutCompareHeader(), row: layoutCompareRow(run, plan) };
+    await expect(goldenJson(compare)).toMatchFileSnapshot("../fixtures/writeCompare.golden.json");
   });
 });
 
