@@ -32,3 +32,12 @@ export function cellAddress(row0: number, col0: number): string {
   if (!Number.isInteger(row0) || row0 < 0) throw new RangeError(`row0 must be an integer >= 0, got ${row0}`);
   return `${columnLetter(col0)}${row0 + 1}`;
 }
+
+/**
+ * A sheet name as Excel writes it in a reference: quoted when it is not a plain word, with
+ * quotes doubled ('My stops'!A1; common practice of Excel's formula syntax).
+ * @example sheetRef("Bob's van") // => "'Bob''s van'"
+ */
+export function sheetRef(name: string): string {
+  return /^[A-Za-z_][A-Za-z0-9_.]*$/.test(name) ? name : `'${name.replace(/'/g, "''")}'`;
+}

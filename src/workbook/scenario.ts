@@ -1,5 +1,5 @@
 import type { Issue, SolveResult } from "../core/index.js";
-import { cellAddress } from "../sheets/cellAddress.js";
+import { cellAddress, sheetRef } from "../sheets/cellAddress.js";
 import { excelSerialFromDate } from "../sheets/excelSerial.js";
 import { COMPARE_SHEET, layoutCompareHeader, layoutCompareRow } from "../sheets/layoutCompare.js";
 import { layoutPlan } from "../sheets/layoutPlan.js";
@@ -109,8 +109,7 @@ export async function writeScenarioResult(port: WorkbookPort, input: ScenarioOut
 export function sourceOf(read: SheetRead): string {
   const rows = read.values.length;
   const cols = Math.max(0, ...read.values.map((r) => r.length));
-  // Excel quotes sheet names that are not plain words in references ('My stops'!A1), doubling quotes.
-  const sheet = /^[A-Za-z_][A-Za-z0-9_.]*$/.test(read.sheet) ? read.sheet : `'${read.sheet.replace(/'/g, "''")}'`;
+  const sheet = sheetRef(read.sheet);
   if (rows === 0 || cols === 0) return sheet;
   return `${sheet}!${cellAddress(read.row, read.col)}:${cellAddress(read.row + rows - 1, read.col + cols - 1)}`;
 }

@@ -9,7 +9,7 @@ import { queueGridWrite } from "./queueGridWrite.js";
 import { queuePrintSetup } from "./queuePrintSetup.js";
 import { queueRouteChart } from "./queueRouteChart.js";
 import { checkPrintSetup } from "../../sheets/printSetup.js";
-import { parseRangeAddress } from "./rangeAddress.js";
+import { parseBlock, parseRangeAddress } from "./rangeAddress.js";
 import { readGeographyIn, type GeographyRead } from "./readGeographyIn.js";
 
 export type { ExcelCapabilities, GeographyRead, SelectionRead };
@@ -194,7 +194,9 @@ export class ExcelWorkbook implements WorkbookPort {
 
   /**
    * Reads Geography (linked entity) cells of `address` through `valuesAsJson` (ExcelApi 1.16)
-   * and returns their latitude/longitude where the entity exposes them.
+   * in row blocks and returns their latitude/longitude where the entity exposes them. Guarded
+   * by `isSetSupported` and by the member being present; any failure is `available: false`
+   * with a reason for the pane, never an exception, so the plain values stay usable.
    * @throws RangeError when `address` is not sheet-qualified A1 style
    */
   async readGeography(address: string): Promise<GeographyRead> {
@@ -206,7 +208,13 @@ export class ExcelWorkbook implements WorkbookPort {
         reason: "Geography cells need Excel with ExcelApi 1.16 (Microsoft 365); type latitude and longitude into two columns instead.",
       };
     }
-    return this.#run(`read the Geography cells of ${address}`, (context) => readGeographyIn(context, parsed.sheet, parsed.range));
+    const block = parseBlock(parsed.range);
+    if (!block) throw new RangeError(`address must look like "Stops!C2:C81", got "${address}"`);
+    try {
+      return await Excel.run((context) => readGeographyIn(context, parsed.sheet, block));
+    } catch (error) {
+      return { available: false, reason: new OfficeActionError(`read the Geography cells of ${address}`, error).message };
+    }
   }
 
   /**

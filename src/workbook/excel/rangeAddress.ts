@@ -68,3 +68,20 @@ export function blockContains(outer: CellBlock, inner: CellBlock): boolean {
 
 const MAX_ROWS = 1_048_576;
 const MAX_COLS = 16_384;
+
+/**
+ * The block of a local A1 range such as "C2:D81" or "B3" (no sheet name, no "$").
+ * @returns 0-based start and size, or `undefined` when malformed
+ * @example parseBlock("C2:D81") // { row: 1, col: 2, rows: 80, cols: 2 }
+ */
+export function parseBlock(range: string): CellBlock | undefined {
+  const m = /^([A-Z]{1,3})([0-9]{1,7})(?::([A-Z]{1,3})([0-9]{1,7}))?$/.exec(range);
+  if (!m) return undefined;
+  const col = (letters: string): number => [...letters].reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0) - 1;
+  const r1 = Number(m[2]) - 1;
+  const c1 = col(m[1]!);
+  const r2 = m[4] !== undefined ? Number(m[4]) - 1 : r1;
+  const c2 = m[3] !== undefined ? col(m[3]) : c1;
+  if (r1 < 0 || r2 < r1 || c2 < c1) return undefined;
+  return { row: r1, col: c1, rows: r2 - r1 + 1, cols: c2 - c1 + 1 };
+}
