@@ -1,19 +1,23 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { isFormulaLike, planGridWrite } from "../../src/workbook/excel/planGridWrite.js";
+import { cellPayloadBytes, isFormulaLike, planGridWrite } from "../../src/workbook/excel/planGridWrite.js";
 import { columnWidthPoints } from "../../src/workbook/excel/columnWidthPoints.js";
 import type { CellValue } from "../../src/sheets/grid.js";
 
 describe("planGridWrite: what the Office.js adapter assigns", () => {
-  it("keeps every text cell as text: '@' always, and Excel's apostrophe before = + - @ (OWASP CSV Injection, common practice)", () => {
+  it("keeps every text cell as text by the format '@' alone and sends the text unchanged (OFFICE-NOTES.md: no apostrophe)", () => {
     const plan = planGridWrite({ values: [['=HYPERLINK("x")', "+44 20", "-3", "@SUM(A1)", "\tTab", "Mill", "", 7, true, null]] });
     const chunk = plan.chunks[0]!;
-    expect(chunk.values[0]).toEqual(['\'=HYPERLINK("x")', "'+44 20", "'-3", "'@SUM(A1)", "'\tTab", "Mill", "", 7, true, ""]);
+    expect(chunk.values[0]).toEqual(['=HYPERLINK("x")', "+44 20", "-3", "@SUM(A1)", "\tTab", "Mill", "", 7, true, ""]);
     expect(chunk.numberFormats[0]).toEqual(["@", "@", "@", "@", "@", "@", "General", "General", "General", "General"]);
+    expect(plan.checkCells.map((c) => c.col)).toEqual([0, 1, 2, 3, 4]);
   });
 
-  it("does not prefix text twice when the layout already made it safe", () => {
-    expect(planGridWrite({ values: [["'=SUM(A1)"]], numberFormats: [["@"]] }).chunks[0]!.values).toEqual([["'=SUM(A1)"]]);
+  it("a place name that starts with an apostrophe is sent as is, formatted '@' and listed for the read-back", () => {
+    const plan = planGridWrite({ values: [["'s-Hertogenbosch"]], numberFormats: [[null]] }, { startRow: 3 });
+    expect(plan.chunks[0]!.values).toEqual([["'s-Hertogenbosch"]]);
+    expect(plan.chunks[0]!.numberFormats).toEqual([["@"]]);
+    expect(plan.checkCells).toEqual([{ row: 3, col: 0, text: "'s-Hertogenbosch" }]);
     expect(isFormulaLike("'=SUM(A1)")).toBe(false);
   });
 
@@ -41,34 +45,46 @@ describe("planGridWrite: what the Office.js adapter assigns", () => {
     expect(plan.columnWidths).toEqual([{ address: "A:A", widthPt: 56.25 }]);
   });
 
-  it("splits into row chunks that cover every row once, in order, each within the cell budget (property)", () => {
+  it("splits into row chunks that cover every row once, in order, each within the byte budget unless one row alone exceeds it (property)", () => {
     fc.assert(
       fc.property(
         fc.integer({ min: 1, max: 60 }),
         fc.integer({ min: 1, max: 12 }),
-        fc.integer({ min: 1, max: 200 }),
-        (rows, cols, budget) => {
-          const values: CellValue[][] = Array.from({ length: rows }, (_, r) => Array.from({ length: cols }, (_, c) => r * 100 + c));
-          const plan = planGridWrite({ values }, { chunkCells: budget });
-          expect(plan.chunks.flatMap((c) => c.values)).toEqual(values);
+        fc.integer({ min: 1, max: 3000 }),
+        fc.string({ maxLength: 40 }),
+        (rows, cols, budget, text) => {
+          const values: CellValue[][] = Array.from({ length: rows }, (_, r) =>
+            Array.from({ length: cols }, (_, c) => (c % 2 === 0 ? `${text}${r}` : r * 100 + c)),
+          );
+          const plan = planGridWrite({ values }, { budgetBytes: budget });
+          expect(plan.chunks.flatMap((c) => c.values)).toEqual(values.map((r) => r.map((v) => v)));
           let next = 0;
           for (const chunk of plan.chunks) {
             expect(chunk.row).toBe(next);
             next += chunk.values.length;
             expect(chunk.numberFormats.length).toBe(chunk.values.length);
-            if (plan.chunks.length > 1) expect(chunk.values.length * cols).toBeLessThanOrEqual(Math.max(budget, cols));
+            const bytes = chunk.values.flatMap((row, r) => row.map((v, c) => cellPayloadBytes(v, chunk.numberFormats[r]![c]!)));
+            const total = bytes.reduce((a, b) => a + b, 0);
+            if (chunk.values.length > 1) expect(total).toBeLessThanOrEqual(budget);
           }
-          if (rows * cols <= budget) expect(plan.chunks).toHaveLength(1);
+          expect(next).toBe(rows);
         },
       ),
     );
+  });
+
+  it("estimates a cell's bytes as its JSON in UTF-8 (RFC 8259 strings; 'ø' is 2 bytes, '€' 3, an emoji 4)", () => {
+    expect(cellPayloadBytes("Mill", "@")).toBe(6 + 3 + 2);
+    expect(cellPayloadBytes("ø€", "@")).toBe(2 + 2 + 3 + 3 + 2);
+    expect(cellPayloadBytes("\u{1F69A}", "@")).toBe(2 + 4 + 3 + 2);
+    expect(cellPayloadBytes(12.5, "0.0")).toBe(4 + 5 + 2);
   });
 
   it("rejects ragged rows, mismatched formats and non-finite numbers, naming the argument", () => {
     expect(() => planGridWrite({ values: [[1, 2], [3]] })).toThrow(/grid\.values\[1\]/);
     expect(() => planGridWrite({ values: [[1, 2]], numberFormats: [["0"]] })).toThrow(/grid\.numberFormats\[0\]/);
     expect(() => planGridWrite({ values: [[Number.NaN]] })).toThrow(RangeError);
-    expect(() => planGridWrite({ values: [[1]] }, { chunkCells: 0 })).toThrow(/chunkCells/);
+    expect(() => planGridWrite({ values: [[1]] }, { budgetBytes: 0 })).toThrow(/budgetBytes/);
   });
 
   it("writes nothing for an empty grid", () => {

@@ -212,14 +212,15 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
   it("checks the name, then writes formats before values, widths, bold, frozen rows and the chart in one sync", async () => {
     const book = install({ sheets: { Stops: "empty" } });
     await book.addSheet("Run 1", grid, chart);
-    expect(host().syncs()).toBe(2); // one read (is the name free?) and one write
+    expect(host().syncs()).toBe(3); // one read (is the name free?), one write, one read-back of "=SUM(A1)"
     const kinds = host().log.map((e) => e[0]);
     expect(kinds.slice(0, 3)).toEqual(["getItemOrNullObject", "sync", "add"]);
     expect(kinds.indexOf("numberFormat")).toBeLessThan(kinds.indexOf("values"));
+    expect(kinds.indexOf("charts.add")).toBeLessThan(kinds.indexOf("sync", kinds.indexOf("add")));
     expect(kinds.lastIndexOf("sync")).toBe(kinds.length - 1);
     const [, , address, values] = entries("values")[0]!;
     expect(address).toBe("A1:C6");
-    expect((values as unknown[][])[0]).toEqual(["Scenario", "'=SUM(A1)", ""]);
+    expect((values as unknown[][])[0]).toEqual(["Scenario", "=SUM(A1)", ""]);
     const formats = entries("numberFormat")[0]![3] as string[][];
     expect(formats[0]).toEqual(["@", "@", "General"]);
     expect(formats[2]).toEqual(["@", "0.0000", "0.0000"]);
@@ -260,8 +261,8 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
 
   it("splits a large grid into row chunks with one sync each, formats before values in every chunk", async () => {
     install({});
-    const rows = Array.from({ length: 10 }, (_, r) => [`S${r}`, r, r * 2]);
-    const small = new ExcelWorkbook({ chunkCells: 9 }); // 3 rows of 3 cells per chunk
+    const rows = Array.from({ length: 10 }, (_, r) => [`S${r}`, r, r]);
+    const small = new ExcelWorkbook({ budgetBytes: 100 }); // each row is 33 bytes: 3 rows per chunk
     await small.addSheet("Big", { values: rows });
     expect(entries("values").map((e) => e[2])).toEqual(["A1:C3", "A4:C6", "A7:C9", "A10:C10"]);
     expect(host().syncs()).toBe(1 + 4);
@@ -271,11 +272,21 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
     expect(kinds).toEqual(["sync", ...Array(4).fill(["numberFormat", "values", "sync"]).flat()]);
   });
 
-  it("never sends user text that starts with = + - @ as a formula: format '@' and Excel's text prefix", async () => {
+  it("keeps user text that starts with = + - @ or ' as text: format '@' before the unchanged values, then a read-back", async () => {
     const book = install({});
-    await book.addSheet("Inject", { values: [["=SUM(A1)", "+1", "-x", "@cmd", "plain", 5]] });
-    expect(entries("values")[0]![3]).toEqual([["'=SUM(A1)", "'+1", "'-x", "'@cmd", "plain", 5]]);
-    expect(entries("numberFormat")[0]![3]).toEqual([["@", "@", "@", "@", "@", "General"]]);
+    await book.addSheet("Inject", { values: [["=SUM(A1)", "+1", "-x", "@cmd", "'s-Hertogenbosch", "plain", 5]] });
+    expect(entries("numberFormat")[0]![3]).toEqual([["@", "@", "@", "@", "@", "@", "General"]]);
+    expect(entries("values")[0]![3]).toEqual([["=SUM(A1)", "+1", "-x", "@cmd", "'s-Hertogenbosch", "plain", 5]]);
+    const kinds = host().log.map((e) => e[0]);
+    expect(kinds.indexOf("numberFormat")).toBeLessThan(kinds.indexOf("values"));
+    expect(entries("range.load").map((e) => e[2])).toEqual(["A1", "B1", "C1", "D1", "E1"]);
+    expect(host().notices).toEqual([]);
+  });
+
+  it("names the cells whose text Excel did not keep (here: a leading apostrophe taken as Excel's text marker)", async () => {
+    const book = install({ textStored: (t) => (t.startsWith("'") ? t.slice(1) : t) });
+    await book.addSheet("Towns", { values: [["Town"], ["'s-Hertogenbosch"], ["Oss"]] });
+    expect(host().notices.join(" ")).toMatch(/Excel did not keep a text cell as written: Towns!A2 .*"'s-Hertogenbosch".*"s-Hertogenbosch"/);
   });
 
   it("a failing write sync deletes the half-written sheet in a new batch and keeps Office's debugInfo", async () => {
@@ -421,8 +432,9 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
       stopsSource: "Stops!A1:N85",
       fleetSource: "Fleet!A1:O6",
     });
-    // listSheets 1, addSheet 2 (name check, write), appendRows 2 (missing sheet found, create), writeSetting 1
-    expect(host().syncs() - readSyncs).toBe(6);
+    // listSheets 1, addSheet 3 (name check, write, read-back of the scenario text), appendRows 3
+    // (missing sheet found, create, read-back), writeSetting 1
+    expect(host().syncs() - readSyncs).toBe(8);
     const planWrites = entries("values").filter((e) => e[1] === sheetName);
     expect(planWrites).toHaveLength(1); // one assignment of the whole grid
     const written = planWrites[0]![3] as unknown[][];

@@ -35,7 +35,27 @@ function a1Size(address: string): { rows: number; cols: number } {
   return { rows: Number(b[2]) - Number(a[2]) + 1, cols: col(b[1]!) - col(a[1]!) + 1 };
 }
 
+/**
+ * What the fake workbook holds in each written cell ("Sheet!B7" -> value), so a read-back of
+ * `values` sees what Excel would store. `textStored` models how Excel stores a text cell
+ * (identity by default; a test may make it drop a leading apostrophe, as typing does).
+ */
+const cells = new Map<string, unknown>();
+let textStored: (text: string) => unknown = (text) => text;
+
+function columnNumber(letters: string): number {
+  return [...letters].reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0);
+}
+
+function columnLetters(n: number): string {
+  let s = "";
+  for (let x = n; x > 0; x = Math.floor((x - 1) / 26)) s = String.fromCharCode(65 + ((x - 1) % 26)) + s;
+  return s;
+}
+
 function recordingRange(log: Entry[], sheet: string, address: string): unknown {
+  const [start] = address.split(":");
+  const m = /^([A-Z]+)(\d+)$/.exec(start ?? "");
   const sized = (what: string, v: unknown[][]) => {
     if (/^[A-Z]+:[A-Z]+$/.test(address)) return;
     const { rows, cols } = a1Size(address);
@@ -50,6 +70,19 @@ function recordingRange(log: Entry[], sheet: string, address: string): unknown {
     set values(v: unknown[][]) {
       sized("values", v);
       log.push(["values", sheet, address, v]);
+      if (!m) return;
+      v.forEach((row, r) =>
+        row.forEach((value, c) => {
+          const key = `${sheet}!${columnLetters(columnNumber(m[1]!) + c)}${Number(m[2]) + r}`;
+          cells.set(key, typeof value === "string" ? textStored(value) : value);
+        }),
+      );
+    },
+    get values(): unknown[][] {
+      return [[cells.get(`${sheet}!${address}`) ?? ""]];
+    },
+    load(what: unknown) {
+      log.push(["range.load", sheet, address, what]);
     },
     format: {
       set columnWidth(v: number) {
@@ -140,6 +173,8 @@ function recordingSheet(log: Entry[], name: string): unknown {
 export interface Setup {
   sheets?: Record<string, { values: unknown[][]; rowIndex?: number; columnIndex?: number } | "empty">;
   excelApi?: string;
+  /** How Excel stores written text (default: exactly as sent). */
+  textStored?: (text: string) => unknown;
   /** `address` and `values` are the filled part; `selected` what the user selected (default: the same). */
   selection?: { sheet: string; address: string; selected?: string; values: unknown[][]; rowIndex: number; columnIndex: number };
   table?: { name: string; address: string; values: unknown[][]; rowIndex: number; columnIndex: number };
@@ -150,6 +185,8 @@ export interface Setup {
 
 export function install(setup: Setup, options: ExcelWorkbookOptions = {}): ExcelWorkbook {
   const log: Entry[] = [];
+  cells.clear();
+  textStored = setup.textStored ?? ((text) => text);
   const present = new Set(Object.keys(setup.sheets ?? {}));
   let syncCount = 0;
   const failures = new Map<number, unknown>();

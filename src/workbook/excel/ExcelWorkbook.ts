@@ -4,7 +4,8 @@ import { excelCapabilities, type ExcelCapabilities } from "./excelCapabilities.j
 import { readSelectionIn, readUsedRange, toRead, type SelectionRead } from "./excelReads.js";
 import { checkSheetName, writeNewSheet } from "./excelSheetWrite.js";
 import { OfficeActionError } from "./OfficeActionError.js";
-import { planGridWrite } from "./planGridWrite.js";
+import { planGridWrite, type GridWritePlan } from "./planGridWrite.js";
+import { textCheckNotice, verifyTextCells } from "./verifyTextCells.js";
 import { queueGridWrite } from "./queueGridWrite.js";
 import { queuePrintSetup } from "./queuePrintSetup.js";
 import { queueRouteChart } from "./queueRouteChart.js";
@@ -16,8 +17,8 @@ export type { ExcelCapabilities, GeographyRead, SelectionRead };
 
 /** Options of `ExcelWorkbook`. */
 export interface ExcelWorkbookOptions {
-  /** Cells per sync above which writes are split into row chunks (default 20 000). */
-  readonly chunkCells?: number;
+  /** Estimated request bytes above which writes are split into row chunks (default `PAYLOAD_BUDGET_BYTES`, 2 MB). */
+  readonly budgetBytes?: number;
   /** Told, in a sentence for the pane, when a feature is skipped because this Excel lacks it. */
   readonly onNotice?: (message: string) => void;
 }
@@ -25,7 +26,7 @@ export interface ExcelWorkbookOptions {
 /**
  * `WorkbookPort` over Office.js, the only code that touches the `Excel` and `Office` globals.
  * Follows STYLE.md §8: one `Excel.run` per call, only the properties read are loaded, one
- * sync per read and one per write (plus one per row chunk above `chunkCells`). It writes
+ * sync per read and one per write (plus one per row chunk above the payload budget, and one to read back formula-like text). It writes
  * only to sheets it creates, and to the end of the Compare sheet in `appendRows`.
  *
  * @example
@@ -33,12 +34,12 @@ export interface ExcelWorkbookOptions {
  * const stops = await book.readSheet("Stops"); // { sheet: "Stops", row: 0, col: 0, values: [...] }
  */
 export class ExcelWorkbook implements WorkbookPort {
-  readonly #chunkCells: number | undefined;
+  readonly #budgetBytes: number | undefined;
   readonly #notice: (message: string) => void;
 
   /** @param options - chunk threshold and the notice callback */
   constructor(options: ExcelWorkbookOptions = {}) {
-    this.#chunkCells = options.chunkCells;
+    this.#budgetBytes = options.budgetBytes;
     this.#notice = options.onNotice ?? (() => undefined);
   }
 
@@ -76,7 +77,7 @@ export class ExcelWorkbook implements WorkbookPort {
   async addSheet(name: string, grid: SheetGrid, chart?: RouteChart): Promise<void> {
     checkSheetName(name);
     if (grid.print) checkPrintSetup(grid.print, grid.values.length);
-    const plan = planGridWrite(grid, { chunkCells: this.#chunkCells });
+    const plan = planGridWrite(grid, { budgetBytes: this.#budgetBytes });
     const caps = this.capabilities();
     await this.#run(`add the sheet "${name}"`, async (context) => {
       const existing = context.workbook.worksheets.getItemOrNullObject(name);
@@ -91,8 +92,16 @@ export class ExcelWorkbook implements WorkbookPort {
         }
       });
       if (!caps.freezePanes && plan.freezeRows > 0) this.#notice(`Header rows of "${name}" are not frozen: that needs ExcelApi 1.7.`);
+      await this.#checkText(context, name, plan);
       if (grid.print) await this.#applyPrintSetup(context, name, grid.print, caps.printLayout);
     });
+  }
+
+  /** Reads back the risky text cells just written and tells the pane about any Excel changed. */
+  async #checkText(context: Excel.RequestContext, name: string, plan: GridWritePlan): Promise<void> {
+    if (plan.checkCells.length === 0) return;
+    const notice = textCheckNotice(name, await verifyTextCells(context, context.workbook.worksheets.getItem(name), plan));
+    if (notice) this.#notice(notice);
   }
 
   /**
@@ -128,8 +137,8 @@ export class ExcelWorkbook implements WorkbookPort {
     await this.#run(`append rows to the sheet "${name}"`, async (context) => {
       const used = await readUsedRange(context, name, "isNullObject, rowIndex, rowCount");
       const start = used === undefined || used.isNullObject ? 0 : used.rowIndex + used.rowCount;
-      const headerPlan = start === 0 ? planGridWrite(header, { chunkCells: this.#chunkCells }) : undefined;
-      const rowsPlan = planGridWrite(rows, { startRow: start + (headerPlan?.rows ?? 0), chunkCells: this.#chunkCells });
+      const headerPlan = start === 0 ? planGridWrite(header, { budgetBytes: this.#budgetBytes }) : undefined;
+      const rowsPlan = planGridWrite(rows, { startRow: start + (headerPlan?.rows ?? 0), budgetBytes: this.#budgetBytes });
       const write = async (sheet: Excel.Worksheet): Promise<void> => {
         if (headerPlan) await queueGridWrite(context, sheet, headerPlan, { freeze: caps.freezePanes && used === undefined });
         await queueGridWrite(context, sheet, rowsPlan, { freeze: false });
@@ -139,6 +148,7 @@ export class ExcelWorkbook implements WorkbookPort {
         await write(context.workbook.worksheets.getItem(name));
         await context.sync();
       }
+      await this.#checkText(context, name, rowsPlan);
     });
   }
 

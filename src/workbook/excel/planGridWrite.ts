@@ -16,8 +16,13 @@ export interface GridChunk {
 export interface GridWritePlan {
   readonly rows: number;
   readonly cols: number;
-  /** One chunk unless the grid has more than `chunkCells` cells (each chunk then gets its own sync). */
+  /** One chunk unless the grid's estimated payload exceeds `budgetBytes` (each chunk then gets its own sync). */
   readonly chunks: readonly GridChunk[];
+  /**
+   * 0-based sheet rows and columns of text cells Excel might not keep as typed through the API
+   * (starting with = + - @ or an apostrophe): the adapter reads them back after writing.
+   */
+  readonly checkCells: readonly { readonly row: number; readonly col: number; readonly text: string }[];
   /** Whole-column addresses ("C:C") and their widths in points. */
   readonly columnWidths: readonly { readonly address: string; readonly widthPt: number }[];
   /** A1 addresses of the rows to show bold. */
@@ -29,15 +34,39 @@ export interface GridWritePlan {
 export interface PlanGridWriteOptions {
   /** 0-based sheet row where the grid's first row goes (default 0, i.e. A1). */
   readonly startRow?: number;
-  /** Cells per sync above which the write is split into row chunks (default `CHUNK_CELLS_DEFAULT`). */
-  readonly chunkCells?: number;
+  /** Estimated request bytes above which the write is split into row chunks (default `PAYLOAD_BUDGET_BYTES`). */
+  readonly budgetBytes?: number;
 }
 
 /**
- * Cells per request before the write is split: far below Excel on the web's 5 MB request
- * cap (OFFICE-NOTES.md) even with long text in every cell.
+ * Estimated bytes per request before a write is split: Excel on the web caps one request at
+ * 5 MB (Microsoft, "Resource limits and performance optimization"); about 2 MB leaves room
+ * for the request's own JSON around the values and formats.
  */
-export const CHUNK_CELLS_DEFAULT = 20_000;
+export const PAYLOAD_BUDGET_BYTES = 2_000_000;
+
+/**
+ * Bytes a cell's value and number format add to a request, estimated as their JSON text in
+ * UTF-8 plus the separators: what Office.js sends for `values` and `numberFormat`.
+ * @example cellPayloadBytes("Mill", "@") // => 12
+ */
+export function cellPayloadBytes(value: string | number | boolean, format: string): number {
+  return utf8Length(JSON.stringify(value)) + utf8Length(JSON.stringify(format)) + 2;
+}
+
+function utf8Length(text: string): number {
+  let n = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c < 0x80) n += 1;
+    else if (c < 0x800) n += 2;
+    else if (c >= 0xd800 && c <= 0xdbff) {
+      n += 4; // a surrogate pair is one 4-byte character
+      i++;
+    } else n += 3;
+  }
+  return n;
+}
 
 /**
  * Whether Excel would read this text as a formula when assigned to `values`
@@ -50,24 +79,26 @@ export function isFormulaLike(text: string): boolean {
 }
 
 /**
- * Turns a `SheetGrid` into the assignments the adapter makes: every text cell gets the
- * text format "@" (so Excel keeps it as typed: no formula, number or date conversion),
- * and formula-like text is also prefixed with an apostrophe, Excel's text marker, because
- * it is unverified which of the two Excel honours through the API (OFFICE-NOTES.md).
- * `null` becomes "" and a missing format "General".
+ * Turns a `SheetGrid` into the assignments the adapter makes. Text is kept as text by one
+ * documented mechanism: every text cell gets the number format "@" (Text), assigned before
+ * the values in the same batch, and the text itself is sent exactly as the user typed it (no
+ * apostrophe is added: Office.js has no quote-prefix property, OFFICE-NOTES.md). Text that
+ * starts with = + - @ or an apostrophe is listed in `checkCells` for a read-back check.
+ * `null` becomes "" and a missing format "General". Rows are grouped into chunks whose
+ * estimated payload (`cellPayloadBytes`) stays within `budgetBytes`.
  *
  * @param grid - the pure layout (rows of equal length)
- * @param options - start row and chunk threshold
- * @returns the chunks, column widths in points, bold rows and frozen rows
+ * @param options - start row and payload budget
+ * @returns the chunks, cells to read back, column widths in points, bold rows and frozen rows
  * @throws RangeError when rows differ in length, a format row does not match, or a number is not finite
  * @example planGridWrite({ values: [["=1+1", 2]] }).chunks[0]
- *   // { row: 0, address: "A1:B1", values: [["'=1+1", 2]], numberFormats: [["@", "General"]] }
+ *   // { row: 0, address: "A1:B1", values: [["=1+1", 2]], numberFormats: [["@", "General"]] }
  */
 export function planGridWrite(grid: SheetGrid, options: PlanGridWriteOptions = {}): GridWritePlan {
   const startRow = options.startRow ?? 0;
-  const chunkCells = options.chunkCells ?? CHUNK_CELLS_DEFAULT;
+  const budget = options.budgetBytes ?? PAYLOAD_BUDGET_BYTES;
   if (!Number.isInteger(startRow) || startRow < 0) throw new RangeError(`options.startRow must be a non-negative integer, got ${startRow}`);
-  if (!(chunkCells >= 1)) throw new RangeError(`options.chunkCells must be at least 1, got ${chunkCells}`);
+  if (!(budget >= 1)) throw new RangeError(`options.budgetBytes must be at least 1, got ${budget}`);
   const rows = grid.values.length;
   const cols = grid.values[0]?.length ?? 0;
   const values: (string | number | boolean)[][] = [];
@@ -80,18 +111,31 @@ export function planGridWrite(grid: SheetGrid, options: PlanGridWriteOptions = {
     formats.push(row.map((v, c) => cellFormat(v, formatRow?.[c] ?? null)));
   });
   const chunks: GridChunk[] = [];
-  if (rows > 0 && cols > 0) {
-    const rowsPerChunk = rows * cols > chunkCells ? Math.max(1, Math.floor(chunkCells / cols)) : rows;
-    for (let r = 0; r < rows; r += rowsPerChunk) {
-      const n = Math.min(rowsPerChunk, rows - r);
-      chunks.push({
-        row: startRow + r,
-        address: blockA1({ row: startRow + r, col: 0, rows: n, cols }),
-        values: values.slice(r, r + n),
-        numberFormats: formats.slice(r, r + n),
-      });
+  const checkCells: { row: number; col: number; text: string }[] = [];
+  let from = 0;
+  let bytes = 0;
+  const flush = (to: number): void => {
+    if (to === from || cols === 0) return;
+    chunks.push({
+      row: startRow + from,
+      address: blockA1({ row: startRow + from, col: 0, rows: to - from, cols }),
+      values: values.slice(from, to),
+      numberFormats: formats.slice(from, to),
+    });
+    from = to;
+    bytes = 0;
+  };
+  for (let r = 0; r < rows; r++) {
+    let rowBytes = 0;
+    for (let c = 0; c < cols; c++) {
+      const v = values[r]![c]!;
+      rowBytes += cellPayloadBytes(v, formats[r]![c]!);
+      if (typeof v === "string" && (isFormulaLike(v) || v.startsWith("'"))) checkCells.push({ row: startRow + r, col: c, text: v });
     }
+    if (r > from && bytes + rowBytes > budget) flush(r);
+    bytes += rowBytes;
   }
+  flush(rows);
   const columnWidths = (grid.columnWidths ?? []).map((w, c) => {
     const letter = cellA1(0, c).replace(/[0-9]+$/, "");
     return { address: `${letter}:${letter}`, widthPt: columnWidthPoints(w) };
@@ -100,18 +144,17 @@ export function planGridWrite(grid: SheetGrid, options: PlanGridWriteOptions = {
     cols === 0
       ? []
       : (grid.boldRows ?? []).filter((r) => r >= 0 && r < rows).map((r) => blockA1({ row: startRow + r, col: 0, rows: 1, cols }));
-  return { rows, cols, chunks, columnWidths, boldRanges, freezeRows: Math.max(0, Math.min(grid.freezeRows ?? 0, rows)) };
+  return { rows, cols, chunks, checkCells, columnWidths, boldRanges, freezeRows: Math.max(0, Math.min(grid.freezeRows ?? 0, rows)) };
 }
 
 function cellValue(v: CellValue, r: number, c: number): string | number | boolean {
   if (v === null) return "";
   if (typeof v === "number" && !Number.isFinite(v))
     throw new RangeError(`grid.values[${r}][${c}] is ${v}: Excel cells hold finite numbers only`);
-  if (typeof v === "string" && isFormulaLike(v)) return `'${v}`;
   return v;
 }
 
 function cellFormat(v: CellValue, format: string | null): string {
-  if (typeof v === "string" && v !== "" && (isFormulaLike(v) || format === null || format === "General")) return "@";
+  if (typeof v === "string" && v !== "" && (isFormulaLike(v) || v.startsWith("'") || format === null || format === "General")) return "@";
   return format ?? "General";
 }
