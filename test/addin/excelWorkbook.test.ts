@@ -262,7 +262,7 @@ describe("writing a scenario sheet (office-addin-mock recorders; batching per ST
   it("splits a large grid into row chunks with one sync each, formats before values in every chunk", async () => {
     install({});
     const rows = Array.from({ length: 10 }, (_, r) => [`S${r}`, r, r]);
-    const small = new ExcelWorkbook({ budgetBytes: 100 }); // each row is 33 bytes: 3 rows per chunk
+    const small = new ExcelWorkbook({ budgetBytes: 125 }); // 4 + 39 bytes a row (33 of cells, 6 of brackets): 3 rows per chunk
     await small.addSheet("Big", { values: rows });
     expect(entries("values").map((e) => e[2])).toEqual(["A1:C3", "A4:C6", "A7:C9", "A10:C10"]);
     expect(host().syncs()).toBe(1 + 4);

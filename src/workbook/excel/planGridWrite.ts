@@ -54,6 +54,11 @@ export function cellPayloadBytes(value: string | number | boolean, format: strin
   return utf8Length(JSON.stringify(value)) + utf8Length(JSON.stringify(format)) + 2;
 }
 
+/** A row's brackets and separator in the values and the formats arrays: "[", "]", ",". */
+const ROW_BYTES = 6;
+/** The outer brackets of the values and the formats arrays. */
+const CHUNK_BYTES = 4;
+
 function utf8Length(text: string): number {
   let n = 0;
   for (let i = 0; i < text.length; i++) {
@@ -113,7 +118,7 @@ export function planGridWrite(grid: SheetGrid, options: PlanGridWriteOptions = {
   const chunks: GridChunk[] = [];
   const checkCells: { row: number; col: number; text: string }[] = [];
   let from = 0;
-  let bytes = 0;
+  let bytes = CHUNK_BYTES;
   const flush = (to: number): void => {
     if (to === from || cols === 0) return;
     chunks.push({
@@ -123,10 +128,10 @@ export function planGridWrite(grid: SheetGrid, options: PlanGridWriteOptions = {
       numberFormats: formats.slice(from, to),
     });
     from = to;
-    bytes = 0;
+    bytes = CHUNK_BYTES;
   };
   for (let r = 0; r < rows; r++) {
-    let rowBytes = 0;
+    let rowBytes = ROW_BYTES;
     for (let c = 0; c < cols; c++) {
       const v = values[r]![c]!;
       rowBytes += cellPayloadBytes(v, formats[r]![c]!);
