@@ -3,7 +3,7 @@
  * in), error addresses select their cell, plans are written through `ExcelWorkbook`.
  */
 import { ExcelWorkbook } from "../workbook/excel/ExcelWorkbook.js";
-import type { LatLon } from "../core/model.js";
+import type { LatLon } from "../core/index.js";
 import { fillGeographyCoordinates } from "../sheets/fillGeographyCoordinates.js";
 import { placeColumns } from "../sheets/placeColumns.js";
 import { sheetRef } from "../sheets/cellAddress.js";

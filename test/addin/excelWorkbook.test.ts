@@ -444,7 +444,7 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
       .flatMap((row, r) => row.map((v, c) => ({ v, f: formats[r]![c] })))
       .filter((x) => String(x.v).replace(/^'/, "") === "=Monday");
     expect(scenarioCells.length).toBeGreaterThan(0);
-    for (const cell of scenarioCells) expect(cell).toEqual({ v: "'=Monday", f: "@" });
+    for (const cell of scenarioCells) expect(cell).toEqual({ v: "=Monday", f: "@" }); // raw text, kept by the '@' format
     const used = result.plan.routes.filter((r) => r.visits.length > 0).length;
     expect(entries("series.name").length + entries("series.add").length).toBe(used);
     expect(entries("add").map((e) => e[1])).toEqual([sheetName, "Compare"]);
