@@ -7,7 +7,7 @@
  * fails under CI.
  */
 import { execFileSync } from "node:child_process";
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import type { Server } from "node:http";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
@@ -18,6 +18,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
 import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
 import { installFakeExcel } from "./fakeExcelHost.js";
+import { OFFICE_JS_CDN } from "../../scripts/addinBuild.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
 const DIST = join(ROOT, "dist");
@@ -52,7 +53,7 @@ function newest(dir: string): number {
 
 function ensureBuild(): void {
   const built = join(DIST, "taskpane.html");
-  const sources = Math.max(newest(join(ROOT, "src")), statSync(join(ROOT, "webpack.config.cjs")).mtimeMs);
+  const sources = Math.max(newest(join(ROOT, "src")), statSync(join(ROOT, "webpack.config.js")).mtimeMs);
   if (existsSync(built) && statSync(built).mtimeMs >= sources) return;
   execFileSync(process.execPath, [join(ROOT, "node_modules", "webpack", "bin", "webpack.js"), "--mode", "production"], {
     cwd: ROOT,
@@ -340,20 +341,54 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
     }
   }, 120_000);
 
-  it("with an Office host hint but no host, office.js loads from the build and the page falls back to the standalone pane", async () => {
+  it("with an Office host hint but no host, office.js is requested from Microsoft's CDN only and the page falls back to the standalone pane", async () => {
     const requested: string[] = [];
     const listener = (req: { url(): string }) => void requested.push(req.url());
     page.on("request", listener);
+    // The CDN is never contacted: its files are served from the npm copy (tests only), the rest refused.
+    const cdnDir = OFFICE_JS_CDN.slice(0, OFFICE_JS_CDN.lastIndexOf("/") + 1);
+    await page.route(`${cdnDir}**`, (route) => {
+      const file = join(ROOT, "node_modules", "@microsoft", "office-js", "dist", route.request().url().slice(cdnDir.length).split("?")[0]!);
+      return existsSync(file) ? route.fulfill({ path: file, contentType: "application/javascript" }) : route.fulfill({ status: 404 });
+    });
     try {
       // The query Office appends to a pane's URL (from memory: _host_Info=<app>$<platform>$<version>$<locale>...).
       await page.goto(`${baseUrl}/taskpane.html?_host_Info=Excel$Web$16.01$en-US$$$$0`);
-      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
-      expect(requested.some((u) => u.startsWith(`${baseUrl}/office/office.js`))).toBe(true);
+      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 60_000 });
+      expect(requested).toContain(OFFICE_JS_CDN);
+      expect(requested.filter((u) => !u.startsWith(baseUrl) && !u.startsWith(cdnDir) && !/^(blob|data):/.test(u))).toEqual([]);
+      expect(requested.some((u) => u.startsWith(`${baseUrl}/office/`))).toBe(false); // no local office.js any more
       await expect(page.locator("#mode-badge").textContent()).resolves.toMatch(/standalone/);
     } finally {
       page.off("request", listener);
+      await page.unroute(`${cdnDir}**`);
     }
   }, 120_000);
+
+  it("with a host hint and office.js unreachable, the page says so and runs standalone at once", async () => {
+    const cdnDir = OFFICE_JS_CDN.slice(0, OFFICE_JS_CDN.lastIndexOf("/") + 1);
+    await page.route(`${cdnDir}**`, (route) => route.abort());
+    try {
+      await page.goto(`${baseUrl}/taskpane.html?kiln-host=office`);
+      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+      await expect(page.locator("#pane-error-text").textContent()).resolves.toMatch(/office\.js could not be loaded from Microsoft's CDN/);
+      await expect(page.locator("#diagnostics").textContent()).resolves.toMatch(/No Office host/);
+    } finally {
+      await page.unroute(`${cdnDir}**`);
+    }
+  }, 120_000);
+
+  it("the built page references the CDN office.js (hint only) and nothing else outside its origin; files are content-hashed; no source maps", () => {
+    const html = readFileSync(join(DIST, "taskpane.html"), "utf8");
+    const urls = [...html.matchAll(/(?:src|href)=["']?([^"' >]+)/g)].map((m) => m[1]!);
+    expect(urls.filter((u) => /^[a-z]+:/i.test(u) || u.startsWith("//"))).toEqual([OFFICE_JS_CDN]);
+    expect(html).toMatch(/if \(hint\)\s*document\.write\(/); // written only when a host may be around
+    const files = readdirSync(DIST);
+    expect(files.filter((f) => f.endsWith(".map"))).toEqual([]);
+    expect(files.filter((f) => /\.(js|css)$/.test(f) && !/\.[0-9a-f]{8}\.(js|css)$/.test(f))).toEqual([]);
+    expect(existsSync(join(DIST, "office"))).toBe(false);
+    for (const u of urls.filter((x) => /\.(js|css)$/.test(x) && !/^https:/.test(x))) expect(existsSync(join(DIST, u))).toBe(true);
+  });
 
   it("Excel mode (fake Excel host): Use selection shows address, columns and rows; error cells select their cell; Rerun reads the stored settings", async () => {
     const input = await inputWorkbook();

@@ -1,34 +1,29 @@
-// Builds the task pane (taskpane.html + its script, the solver worker, office.js and icons) into dist/.
-// `npm run build` = production build; `npm start` = HTTPS dev server on https://localhost:3000.
-const path = require("node:path");
-const fs = require("node:fs");
-const os = require("node:os");
-const HtmlWebpackPlugin = require("html-webpack-plugin");
-const CopyWebpackPlugin = require("copy-webpack-plugin");
+// Builds the task pane (taskpane.html + its script, the solver worker and icons) into dist/.
+// `npm run build` = production build for https://localhost:3000; `npm run build -- --env base=https://host/path`
+// writes dist/manifest.xml for that deployment. `npm start` = HTTPS dev server on https://localhost:3000.
+// File names carry a content hash (Office hosts cache hard); the production build has no source maps;
+// office.js comes from Microsoft's CDN in the Office host and is not copied (the standalone page loads none).
+import { createHash } from "node:crypto";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import HtmlWebpackPlugin from "html-webpack-plugin";
+import CopyWebpackPlugin from "copy-webpack-plugin";
+import { DEV_BASE, OFFICE_JS_CDN, manifestForBase, parseBase } from "./scripts/addinBuild.js";
 
-const root = __dirname;
-const officeDist = path.join(root, "node_modules", "@microsoft", "office-js", "dist");
+const root = path.dirname(fileURLToPath(import.meta.url));
 const certDir = path.join(os.homedir(), ".office-addin-dev-certs");
 
-/** office.js loads its host scripts and strings next to itself: copy only what Excel and the standalone page use. */
-const officeFiles = [
-  "office.js",
-  "o15apptofilemappingtable.js",
-  "es6-promise.js",
-  "excel-*.js",
-  "excelwebapp-*.js",
-  "en-us/*.js",
-  "telemetry/**",
-  "ariatelemetry/**",
-].map((pattern) => ({
-  from: pattern,
-  context: officeDist,
-  to: "office/",
-  noErrorOnMissing: true,
-  globOptions: { ignore: ["**/*.debug.js"] },
-  // Already minified by Microsoft: tell the minimizer to leave them alone (saves minutes per build).
-  info: { minimized: true },
-}));
+/** "taskpane.css" -> "taskpane.1a2b3c4d.css": the name a copied file gets, from its content. */
+function hashedName(file) {
+  const hash = createHash("sha256")
+    .update(fs.readFileSync(path.join(root, file)))
+    .digest("hex")
+    .slice(0, 8);
+  const ext = path.extname(file);
+  return `${path.basename(file, ext)}.${hash}${ext}`;
+}
 
 /** The HTTPS options of the dev server: office-addin-dev-certs files when present, else a self-signed cert. */
 function httpsOptions() {
@@ -48,24 +43,27 @@ function httpsOptions() {
 }
 
 const SIDELOAD_STEPS = `
-[kiln] Task pane: https://localhost:3000/taskpane.html  (also works as a standalone page outside Excel)
+[kiln] Task pane: ${DEV_BASE}/taskpane.html  (also works as a standalone page outside Excel)
 [kiln] Sideload in Excel on the web: Home > Add-ins > Upload my add-in > choose manifest.xml from the project root.
 [kiln] Sideload in Excel desktop (Windows): share a folder holding manifest.xml, add its \\\\host\\share path under
 [kiln]   File > Options > Trust Center > Trust Center Settings > Trusted Add-in Catalogs (tick "Show in Menu"),
 [kiln]   restart Excel, then Home > Add-ins > More Add-ins > Shared Folder.
 `;
 
-module.exports = (env, argv) => {
+export default (env = {}, argv = {}) => {
   const production = argv.mode === "production";
-  const serving = Boolean(env && env.WEBPACK_SERVE);
+  const serving = Boolean(env.WEBPACK_SERVE);
+  const base = parseBase(typeof env.base === "string" ? env.base : DEV_BASE);
+  const css = { taskpane: hashedName("src/taskpane/taskpane.css"), uplot: hashedName("node_modules/uplot/dist/uPlot.min.css") };
   return {
     mode: production ? "production" : "development",
-    devtool: production ? "source-map" : "eval-source-map",
+    devtool: production ? false : "eval-source-map",
     context: root,
     entry: { taskpane: "./src/taskpane/taskpane.ts" },
     output: {
       path: path.join(root, "dist"),
-      filename: "[name].js",
+      filename: "[name].[contenthash:8].js",
+      chunkFilename: "[name].[contenthash:8].js",
       // dist/cli/ is the compiled command line (npm run build:cli), not this build's to remove.
       clean: { keep: /^cli[\\/]/ },
     },
@@ -82,7 +80,7 @@ module.exports = (env, argv) => {
         {
           test: /\.ts$/,
           exclude: /node_modules/,
-          use: { loader: "ts-loader", options: { transpileOnly: true, compilerOptions: { noEmit: false, sourceMap: true } } },
+          use: { loader: "ts-loader", options: { transpileOnly: true, compilerOptions: { noEmit: false, sourceMap: !production } } },
         },
         { test: /\.css$/, type: "asset/source" },
       ],
@@ -100,17 +98,18 @@ module.exports = (env, argv) => {
         filename: "taskpane.html",
         chunks: ["taskpane"],
         scriptLoading: "defer",
+        officeJs: OFFICE_JS_CDN,
+        css,
       }),
       // The manifest's FunctionFile and SupportUrl pages: static, no bundle.
       new HtmlWebpackPlugin({ template: "./src/taskpane/commands.html", filename: "commands.html", chunks: [], inject: false }),
       new HtmlWebpackPlugin({ template: "./src/taskpane/help.html", filename: "help.html", chunks: [], inject: false }),
       new CopyWebpackPlugin({
         patterns: [
-          ...officeFiles,
-          { from: "src/taskpane/taskpane.css", to: "taskpane.css" },
-          { from: "node_modules/uplot/dist/uPlot.min.css", to: "uPlot.min.css" },
+          { from: "src/taskpane/taskpane.css", to: css.taskpane },
+          { from: "node_modules/uplot/dist/uPlot.min.css", to: css.uplot, info: { minimized: true } },
           { from: "assets", to: "assets", noErrorOnMissing: true },
-          { from: "manifest.xml", to: "manifest.xml", noErrorOnMissing: true },
+          { from: "manifest.xml", to: "manifest.xml", transform: (content) => manifestForBase(content.toString(), base) },
         ],
       }),
     ],
