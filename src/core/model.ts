@@ -40,6 +40,36 @@ export interface Stop {
   readonly unservedCost?: number;
   /** Features a vehicle must have to serve this stop (e.g. "fridge"). */
   readonly requiredFeatures?: readonly string[];
+  /**
+   * Amount collected here per load dimension (returned crates, empties); same length as
+   * `Problem.loadDimensions`. Absent means nothing to collect. It rides on board to the end depot.
+   */
+  readonly pickup?: readonly number[];
+  /** Ids of the only vehicles that may serve this stop (a pin); absent means any. */
+  readonly allowedVehicles?: readonly string[];
+  /** Ids of vehicles that must not serve this stop. */
+  readonly excludedVehicles?: readonly string[];
+}
+
+/**
+ * A break after at most `driveMin` minutes of driving: `breakMin` minutes, taken at a stop
+ * (on arrival, overlapping any waiting, or after service). Any break at least this long
+ * resets the driving count. The values are the user's; none is a legal default.
+ */
+export interface DrivingBreakRule {
+  readonly driveMin: number;
+  readonly breakMin: number;
+}
+
+/**
+ * A break of `breakMin` minutes lying entirely inside [`earliestMin`, `latestMin`] (a lunch
+ * window), taken at a stop. Due only when the duty overlaps the window so that the break can
+ * neither end by the departure nor start after the return.
+ */
+export interface WindowBreakRule {
+  readonly earliestMin: number;
+  readonly latestMin: number;
+  readonly breakMin: number;
 }
 
 /** One vehicle (one driver shift). */
@@ -66,6 +96,12 @@ export interface Vehicle {
   readonly features?: readonly string[];
   /** Maximum number of stops on the route; `undefined` means no limit. */
   readonly maxStops?: number;
+  /** Hard limits on the route's driving minutes, duty minutes and kilometres; `undefined`: none. */
+  readonly maxDrivingMin?: number;
+  readonly maxDutyMin?: number;
+  readonly maxKm?: number;
+  readonly drivingBreak?: DrivingBreakRule;
+  readonly windowBreak?: WindowBreakRule;
 }
 
 /**
@@ -125,13 +161,25 @@ export interface Visit {
   readonly waitMin: number;
   readonly startMin: number;
   readonly departureMin: number;
-  /** Load on board after this stop, per dimension (deliveries: falls along the route). */
+  /** Load on board after this stop, per dimension (falls with deliveries, rises with pickups). */
   readonly loadAfter: readonly number[];
   readonly legKm: number;
   /** Cumulative distance from the start depot to this stop. */
   readonly totalKm: number;
   /** Minutes after the latest start of the window used (0 when on time). */
   readonly lateMin: number;
+}
+
+/** A break in a route, taken at a visit (before or after its service). */
+export interface BreakVisit {
+  /** Index into `Route.visits` of the visit where the break is taken. */
+  readonly at: number;
+  /** True when taken on arrival (before service), false when after service. */
+  readonly beforeService: boolean;
+  /** "driving": after the driving limit; "window": inside the break window (it also resets the driving count when long enough). */
+  readonly kind: "driving" | "window";
+  readonly startMin: number;
+  readonly endMin: number;
 }
 
 /** The route of one vehicle. Every vehicle has one, possibly empty. */
@@ -144,6 +192,10 @@ export interface Route {
   readonly returnMin: number;
   /** Load leaving the depot per dimension (sum of the route's demands). */
   readonly load: readonly number[];
+  /** Highest load on board at any point of the route, per dimension. */
+  readonly maxLoad: readonly number[];
+  /** Breaks in time order (empty when the vehicle has no break rule or needs none). */
+  readonly breaks: readonly BreakVisit[];
   readonly distanceKm: number;
   readonly drivingMin: number;
   /** From departure to return. */
@@ -152,7 +204,7 @@ export interface Route {
   readonly lateMin: number;
   /** Return after the shift end, in minutes (0 when back in time). */
   readonly overtimeMin: number;
-  /** Load over capacity summed over dimensions (0 when within capacity). */
+  /** Highest load over capacity at any point, summed over dimensions (0 when within capacity). */
   readonly excessLoad: number;
   /** Fixed + distance + duty cost (+ late cost under soft windows); 0 for an empty route. */
   readonly cost: number;
@@ -185,7 +237,10 @@ export interface Plan {
   readonly routes: readonly Route[];
   readonly unassigned: readonly Unassigned[];
   readonly totals: PlanTotals;
-  /** True when no capacity, window (hard), shift, feature or max-stops rule is broken and every must-serve stop is served. */
+  /**
+   * True when no capacity (at any point), window (hard), shift, feature, max-stops, working-time,
+   * break or pin rule is broken and every must-serve stop is served.
+   */
   readonly feasible: boolean;
   /**
    * Every rule a route breaks, in words, e.g. "Van 2: 14 kg over capacity". Empty in a plan

@@ -46,6 +46,20 @@ export function validateProblem(problem: Problem): Issue[] {
     s.demand.forEach((q) => {
       if (!(q >= 0) || !Number.isFinite(q)) add(at, "demand", `stop ${s.id}: demand ${q} must be a number, 0 or more`);
     });
+    if (s.pickup !== undefined) {
+      if (s.pickup.length !== dims) add(at, "pickup", `stop ${s.id} has ${s.pickup.length} pickup values for ${dims} load dimensions`);
+      s.pickup.forEach((q) => {
+        if (!(q >= 0) || !Number.isFinite(q)) add(at, "pickup", `stop ${s.id}: pickup ${q} must be a number, 0 or more`);
+      });
+    }
+    for (const [field, list] of [
+      ["allowedVehicles", s.allowedVehicles],
+      ["excludedVehicles", s.excludedVehicles],
+    ] as const) {
+      for (const id of list ?? []) {
+        if (!problem.vehicles.some((v) => v.id === id)) add(at, field, `stop ${s.id} names vehicle "${id}", which the fleet does not have`);
+      }
+    }
     if (s.windows.length === 0) add(at, "windows", `stop ${s.id} has no time window; use [0, Infinity] for "any time"`);
     let prevLatest = -Infinity;
     for (const w of s.windows) {
@@ -83,6 +97,25 @@ export function validateProblem(problem: Problem): Issue[] {
       if (!(x >= 0) || !Number.isFinite(x)) add(at, name, `vehicle ${v.id}: ${name} ${x} must be 0 or more`);
     }
     if (!(v.speedKmh > 0) || !Number.isFinite(v.speedKmh)) add(at, "speedKmh", `vehicle ${v.id}: speed ${v.speedKmh} km/h must be above 0`);
+    for (const [name, x] of [
+      ["maxDrivingMin", v.maxDrivingMin],
+      ["maxDutyMin", v.maxDutyMin],
+      ["maxKm", v.maxKm],
+      ["drivingBreak.driveMin", v.drivingBreak?.driveMin],
+      ["drivingBreak.breakMin", v.drivingBreak?.breakMin],
+      ["windowBreak.breakMin", v.windowBreak?.breakMin],
+    ] as const) {
+      if (x !== undefined && !(x >= 0)) add(at, name, `vehicle ${v.id}: ${name} ${x} must be 0 or more`);
+    }
+    if (v.drivingBreak !== undefined && !(v.drivingBreak.driveMin > 0))
+      add(at, "drivingBreak.driveMin", `vehicle ${v.id}: driving before a break must be above 0 minutes`);
+    const wb = v.windowBreak;
+    if (wb !== undefined && !(wb.latestMin - wb.earliestMin >= wb.breakMin))
+      add(
+        at,
+        "windowBreak",
+        `vehicle ${v.id}: the break window ${wb.earliestMin}..${wb.latestMin} is shorter than the break (${wb.breakMin} min)`,
+      );
     if (v.maxStops !== undefined && !(Number.isInteger(v.maxStops) && v.maxStops >= 0))
       add(at, "maxStops", `vehicle ${v.id}: max stops ${v.maxStops} must be a whole number, 0 or more`);
   });

@@ -24,6 +24,10 @@ export interface CompiledProblem {
   readonly windowed: Uint8Array;
   /** `n * dims` demands; the last dimension is 1 (one stop). */
   readonly demand: Float64Array;
+  /** `n * dims` pickups (collected at the stop); the last dimension is 0. */
+  readonly pickup: Float64Array;
+  /** True when some stop collects something (load then varies along the route). */
+  readonly anyPickup: boolean;
   /** Typical demand per dimension: load excess is measured in these units. */
   readonly loadScale: Float64Array;
   /** Cost of leaving the stop unserved; `mustServeCost` for a stop that must be served. */
@@ -39,9 +43,15 @@ export interface CompiledProblem {
   readonly costPerHour: Float64Array;
   /** Multiplier of `travelMin` for each vehicle (reference speed / own speed). */
   readonly travelFactor: Float64Array;
+  /** Per vehicle: limits on driving minutes, duty minutes and km (Infinity when none). */
+  readonly maxDrivingMin: Float64Array;
+  readonly maxDutyMin: Float64Array;
+  readonly maxKm: Float64Array;
+  /** 1 when the vehicle has a break rule (its routes are then timed by `scheduleRoute`). */
+  readonly hasBreaks: Uint8Array;
   /** `V * dims` capacities; the last dimension is `maxStops` (or Infinity). */
   readonly capacity: Float64Array;
-  /** `n * V`: 1 when vehicle v may serve stop s (features, capacity, reachable in its shift). */
+  /** `n * V`: 1 when vehicle v may serve stop s (features, pins, capacity, reachable in its shift). */
   readonly compatible: Uint8Array;
   /** True when some stop/vehicle pair is incompatible (moves must then check). */
   readonly anyIncompatible: boolean;
@@ -75,6 +85,8 @@ export function compileProblem(problem: Problem): CompiledProblem {
   const latestMin = new Float64Array(n);
   const windowed = new Uint8Array(n);
   const demand = new Float64Array(n * dims);
+  const pickup = new Float64Array(n * dims);
+  let anyPickup = false;
   const loadScale = new Float64Array(dims).fill(1);
   const unservedCost = new Float64Array(n);
   const optional = new Uint8Array(n);
@@ -93,6 +105,11 @@ export function compileProblem(problem: Problem): CompiledProblem {
     windowed[i] = open ? 0 : 1;
     for (let d = 0; d < baseDims; d++) demand[i * dims + d] = s.demand[d] ?? 0;
     demand[i * dims + baseDims] = 1;
+    for (let d = 0; d < baseDims; d++) {
+      const p = s.pickup?.[d] ?? 0;
+      pickup[i * dims + d] = p;
+      if (p > 0) anyPickup = true;
+    }
     if (s.unservedCost !== undefined) {
       optional[i] = 1;
       unservedCost[i] = s.unservedCost;
@@ -119,6 +136,10 @@ export function compileProblem(problem: Problem): CompiledProblem {
   const costPerKm = Float64Array.from(vs, (v) => v.costPerKm);
   const costPerHour = Float64Array.from(vs, (v) => v.costPerHour);
   const travelFactor = Float64Array.from(vs, (v) => (m.userSupplied ? 1 : problem.referenceSpeedKmh / v.speedKmh));
+  const maxDrivingMin = Float64Array.from(vs, (v) => v.maxDrivingMin ?? Infinity);
+  const maxDutyMin = Float64Array.from(vs, (v) => v.maxDutyMin ?? Infinity);
+  const maxKm = Float64Array.from(vs, (v) => v.maxKm ?? Infinity);
+  const hasBreaks = Uint8Array.from(vs, (v) => (v.drivingBreak !== undefined || v.windowBreak !== undefined ? 1 : 0));
   const capacity = new Float64Array(V * dims);
   vs.forEach((v, k) => {
     for (let d = 0; d < baseDims; d++) capacity[k * dims + d] = v.capacity[d] ?? 0;
@@ -131,11 +152,11 @@ export function compileProblem(problem: Problem): CompiledProblem {
   const maxFactor = Math.max(...travelFactor);
   let routeBound = 0;
   for (let k = 0; k < V; k++) routeBound += fixedCost[k]!;
-  const maxKm = Math.max(...costPerKm);
+  const maxPerKm = Math.max(...costPerKm);
   const maxHour = Math.max(...costPerHour);
   let serviceSum = 0;
   for (let i = 0; i < n; i++) serviceSum += serviceMin[i]!;
-  routeBound += (n + V) * (maxKm * maxRow + (maxHour * maxTravel * maxFactor) / 60) + (maxHour * serviceSum) / 60;
+  routeBound += (n + V) * (maxPerKm * maxRow + (maxHour * maxTravel * maxFactor) / 60) + (maxHour * serviceSum) / 60;
   // Far above any plan's route cost, so a stop without unserved cost is always worth serving.
   const mustServeCost = 1000 * (routeBound + 1);
   for (let i = 0; i < n; i++) if (!optional[i]) unservedCost[i] = mustServeCost;
@@ -145,16 +166,22 @@ export function compileProblem(problem: Problem): CompiledProblem {
   let anyIncompatible = false;
   for (let i = 0; i < n; i++) {
     const s = problem.stops[i]!;
+    let pinOk = 0;
     let featureOk = 0;
     let capOk = 0;
     let ok = 0;
     for (let k = 0; k < V; k++) {
       const v = vs[k]!;
+      if (s.allowedVehicles !== undefined && !s.allowedVehicles.includes(v.id)) continue;
+      if (s.excludedVehicles?.includes(v.id)) continue;
+      pinOk++;
       const feats = s.requiredFeatures ?? [];
       if (!feats.every((f) => (v.features ?? []).includes(f))) continue;
       featureOk++;
       let fits = capacity[k * dims + baseDims]! >= 1;
-      for (let d = 0; d < baseDims; d++) if (demand[i * dims + d]! > capacity[k * dims + d]!) fits = false;
+      for (let d = 0; d < baseDims; d++) {
+        if (demand[i * dims + d]! > capacity[k * dims + d]! || pickup[i * dims + d]! > capacity[k * dims + d]!) fits = false;
+      }
       if (!fits) continue;
       capOk++;
       if (problem.hardWindows && !reachable(problem, i, k, travelFactor[k]!)) continue;
@@ -162,7 +189,13 @@ export function compileProblem(problem: Problem): CompiledProblem {
       ok++;
     }
     if (ok < V) anyIncompatible = true;
-    unservableReason.push(ok > 0 ? "" : reasonFor(problem, i, featureOk, capOk));
+    unservableReason.push(
+      ok > 0
+        ? ""
+        : pinOk === 0
+          ? "no vehicle is left once its pin and excluded vehicles are applied"
+          : reasonFor(problem, i, featureOk, capOk),
+    );
   }
   return {
     problem,
@@ -178,6 +211,8 @@ export function compileProblem(problem: Problem): CompiledProblem {
     latestMin,
     windowed,
     demand,
+    pickup,
+    anyPickup,
     loadScale,
     unservedCost,
     optional,
@@ -190,6 +225,10 @@ export function compileProblem(problem: Problem): CompiledProblem {
     costPerKm,
     costPerHour,
     travelFactor,
+    maxDrivingMin,
+    maxDutyMin,
+    maxKm,
+    hasBreaks,
     capacity,
     compatible,
     anyIncompatible,
@@ -225,6 +264,8 @@ function reasonFor(problem: Problem, i: number, featureOk: number, capOk: number
       const largest = Math.max(...problem.vehicles.map((v) => v.capacity[d] ?? 0));
       const q = s.demand[d] ?? 0;
       if (q > largest) return `demand ${q} ${dims[d]} is more than the largest capacity, ${largest} ${dims[d]}`;
+      const p = s.pickup?.[d] ?? 0;
+      if (p > largest) return `pickup ${p} ${dims[d]} is more than the largest capacity, ${largest} ${dims[d]}`;
     }
     return "no vehicle may take another stop (max stops)";
   }

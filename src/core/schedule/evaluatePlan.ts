@@ -1,4 +1,5 @@
-import type { Plan, Problem, Route, Unassigned, Visit } from "../model.js";
+import type { Plan, Problem, Route, Unassigned, Vehicle, Visit } from "../model.js";
+import { scheduleRoute } from "./timeRoute.js";
 
 /**
  * Evaluate routes from scratch: exact timing with every window of every stop, loads,
@@ -12,6 +13,9 @@ import type { Plan, Problem, Route, Unassigned, Visit } from "../model.js";
  * delayed by the waiting it can absorb without being later anywhere, so waiting before
  * the first stop is not paid. Duty = return - departure; cost = fixed (when used) +
  * km x costPerKm + duty hours x costPerHour (+ late minutes x lateCostPerMin under soft windows).
+ * Breaks are placed by `scheduleRoute` and count in duty. Load leaves the depot as the sum of
+ * the route's deliveries, falls by each delivery and rises by each pickup; capacity must hold
+ * at every point. Working-time limits (driving, duty, km), break rules and pins are hard rules.
  *
  * @param problem - the problem the routes belong to
  * @param routes - `routes[v]` = stop indices of vehicle v in visiting order (one entry per vehicle)
@@ -85,7 +89,6 @@ export function evaluateRoute(problem: Problem, v: number, stops: readonly numbe
   const veh = problem.vehicles[v]!;
   const m = problem.matrix;
   const L = m.size;
-  const factor = m.userSupplied ? 1 : problem.referenceSpeedKmh / veh.speedKmh;
   const dims = problem.loadDimensions.length;
   const load = new Array<number>(dims).fill(0);
   for (const s of stops) for (let d = 0; d < dims; d++) load[d] = load[d]! + (problem.stops[s]!.demand[d] ?? 0);
@@ -97,6 +100,8 @@ export function evaluateRoute(problem: Problem, v: number, stops: readonly numbe
       departureMin: t,
       returnMin: t,
       load,
+      maxLoad: load,
+      breaks: [],
       distanceKm: 0,
       drivingMin: 0,
       dutyMin: 0,
@@ -107,27 +112,18 @@ export function evaluateRoute(problem: Problem, v: number, stops: readonly numbe
       cost: 0,
     };
   }
-  // First pass from the shift start: how much later could we leave without being later anywhere?
-  const first = simulate(problem, veh, stops, factor, veh.shiftStartMin);
-  const delay = Math.min(first.slack, first.waitMin);
-  const sim = delay > 0 ? simulate(problem, veh, stops, factor, veh.shiftStartMin + delay) : first;
-  let excessLoad = 0;
-  for (let d = 0; d < dims; d++) {
-    const over = load[d]! - (veh.capacity[d] ?? 0);
-    if (over > 1e-9) {
-      excessLoad += over;
-      violations.push(`${veh.id}: ${round(over)} ${problem.loadDimensions[d]} over capacity`);
-    }
-  }
+  const sim = scheduleRoute(problem, v, stops, stops.length, true);
   const visits: Visit[] = [];
   let onBoard = load.slice();
+  const maxLoad = load.slice();
   let totalKm = 0;
   let prev = veh.startLocation;
   for (let k = 0; k < stops.length; k++) {
     const s = problem.stops[stops[k]!]!;
     const legKm = m.distanceKm[prev * L + s.location]!;
     totalKm += legKm;
-    onBoard = onBoard.map((q, d) => q - (s.demand[d] ?? 0));
+    onBoard = onBoard.map((q, d) => q - (s.demand[d] ?? 0) + (s.pickup?.[d] ?? 0));
+    for (let d = 0; d < dims; d++) maxLoad[d] = Math.max(maxLoad[d]!, onBoard[d]!);
     const t = sim.times[k]!;
     visits.push({ stop: stops[k]!, ...t, loadAfter: onBoard, legKm, totalKm });
     if (t.lateMin > 1e-9 && problem.hardWindows) {
@@ -135,15 +131,28 @@ export function evaluateRoute(problem: Problem, v: number, stops: readonly numbe
     }
     const missing = (s.requiredFeatures ?? []).filter((f) => !(veh.features ?? []).includes(f));
     if (missing.length > 0) violations.push(`${veh.id} lacks ${missing.join(", ")} needed at stop ${s.id}`);
+    if (s.allowedVehicles !== undefined && !s.allowedVehicles.includes(veh.id)) {
+      violations.push(`${veh.id} serves stop ${s.id}, which is pinned to ${s.allowedVehicles.join(" or ")}`);
+    }
+    if (s.excludedVehicles?.includes(veh.id)) violations.push(`${veh.id} serves stop ${s.id}, which excludes it`);
     prev = s.location;
+  }
+  let excessLoad = 0;
+  for (let d = 0; d < dims; d++) {
+    const over = maxLoad[d]! - (veh.capacity[d] ?? 0);
+    if (over > 1e-9) {
+      excessLoad += over;
+      violations.push(`${veh.id}: ${round(over)} ${problem.loadDimensions[d]} over capacity`);
+    }
   }
   const distanceKm = totalKm + m.distanceKm[prev * L + veh.endLocation]!;
   if (sim.overtimeMin > 1e-9) violations.push(`${veh.id}: back ${round(sim.overtimeMin)} min after the shift end`);
   if (veh.maxStops !== undefined && stops.length > veh.maxStops) {
     violations.push(`${veh.id}: ${stops.length} stops, more than its maximum of ${veh.maxStops}`);
   }
-  const lateMin = sim.times.reduce((a, t) => a + t.lateMin, 0);
+  const lateMin = sim.lateMin;
   const dutyMin = sim.returnMin - sim.departureMin;
+  violations.push(...limitViolations(veh, sim.drivingMin, dutyMin, distanceKm, sim.breakViolationMin));
   const cost =
     veh.fixedCost +
     veh.costPerKm * distanceKm +
@@ -155,6 +164,8 @@ export function evaluateRoute(problem: Problem, v: number, stops: readonly numbe
     departureMin: sim.departureMin,
     returnMin: sim.returnMin,
     load,
+    maxLoad,
+    breaks: sim.breaks,
     distanceKm,
     drivingMin: sim.drivingMin,
     dutyMin,
@@ -166,65 +177,20 @@ export function evaluateRoute(problem: Problem, v: number, stops: readonly numbe
   };
 }
 
-interface Timing {
-  readonly arrivalMin: number;
-  readonly waitMin: number;
-  readonly startMin: number;
-  readonly departureMin: number;
-  readonly lateMin: number;
-}
-
-/** Forward pass from a departure time; `slack` = how much later it could leave without more lateness. */
-function simulate(problem: Problem, veh: Problem["vehicles"][number], stops: readonly number[], factor: number, departMin: number) {
-  const m = problem.matrix;
-  const L = m.size;
-  let t = departMin;
-  let prev = veh.startLocation;
-  let waitBefore = 0;
-  let slack = Infinity;
-  let propagates = true;
-  let drivingMin = 0;
-  const times: Timing[] = [];
-  for (const index of stops) {
-    const s = problem.stops[index]!;
-    const travel = m.travelMin[prev * L + s.location]! * factor;
-    drivingMin += travel;
-    let arrivalMin = t + travel;
-    const w = s.windows.find((x) => x.latestMin >= arrivalMin);
-    let startMin: number;
-    let lateMin = 0;
-    if (w) {
-      startMin = Math.max(arrivalMin, w.earliestMin);
-      if (propagates) slack = Math.min(slack, waitBefore + (w.latestMin - arrivalMin));
-    } else {
-      const close = s.windows.length > 0 ? s.windows[s.windows.length - 1]!.latestMin : arrivalMin;
-      lateMin = arrivalMin - close;
-      startMin = close;
-      // Any later arrival here is later still; past a warp, delays no longer propagate.
-      if (propagates) slack = Math.min(slack, waitBefore);
-      propagates = false;
-    }
-    // A departure delayed by exactly the waiting lands on the opening up to rounding: no wait.
-    if (startMin > arrivalMin && startMin - arrivalMin < 1e-9) arrivalMin = startMin;
-    const waitMin = startMin > arrivalMin ? startMin - arrivalMin : 0;
-    waitBefore += waitMin;
-    times.push({ arrivalMin, waitMin, startMin, departureMin: startMin + s.serviceMin, lateMin });
-    t = startMin + s.serviceMin;
-    prev = s.location;
+/** Working-time limits and break rules broken by one route, in words. */
+function limitViolations(veh: Vehicle, drivingMin: number, dutyMin: number, km: number, breakMin: number): string[] {
+  const out: string[] = [];
+  if (veh.maxDrivingMin !== undefined && drivingMin > veh.maxDrivingMin + 1e-9) {
+    out.push(`${veh.id}: ${round(drivingMin - veh.maxDrivingMin)} min of driving over its maximum of ${round(veh.maxDrivingMin)} min`);
   }
-  const back = m.travelMin[prev * L + veh.endLocation]! * factor;
-  drivingMin += back;
-  const arriveEnd = t + back;
-  let overtimeMin = 0;
-  let returnMin = arriveEnd;
-  if (arriveEnd > veh.shiftEndMin) {
-    overtimeMin = arriveEnd - veh.shiftEndMin;
-    returnMin = veh.shiftEndMin;
-    if (propagates) slack = Math.min(slack, waitBefore);
-  } else if (propagates) {
-    slack = Math.min(slack, waitBefore + (veh.shiftEndMin - arriveEnd));
+  if (veh.maxDutyMin !== undefined && dutyMin > veh.maxDutyMin + 1e-9) {
+    out.push(`${veh.id}: ${round(dutyMin - veh.maxDutyMin)} min of duty over its maximum of ${round(veh.maxDutyMin)} min`);
   }
-  return { times, departureMin: departMin, returnMin, drivingMin, waitMin: waitBefore, overtimeMin, slack: Math.max(0, slack) };
+  if (veh.maxKm !== undefined && km > veh.maxKm + 1e-9) {
+    out.push(`${veh.id}: ${round(km - veh.maxKm)} km over its maximum of ${round(veh.maxKm)} km`);
+  }
+  if (breakMin > 1e-9) out.push(`${veh.id}: break rule broken by ${round(breakMin)} min (driving past the limit or a break window missed)`);
+  return out;
 }
 
 function round(x: number): number {
