@@ -196,6 +196,8 @@ export interface Route {
   readonly maxLoad: readonly number[];
   /** Breaks in time order (empty when the vehicle has no break rule or needs none). */
   readonly breaks: readonly BreakVisit[];
+  /** Minutes by which a break rule is broken (driving past the limit, a break window missed); 0 when kept. */
+  readonly breakViolationMin: number;
   readonly distanceKm: number;
   readonly drivingMin: number;
   /** From departure to return. */

@@ -142,6 +142,19 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
   ],
   priority: ["priority", "unservedcost", "penalty", "skipcost", "dropcost", "missedcost", "optionalcost"],
   features: ["features", "requiredfeatures", "requires", "required", "skills", "requirements", "needs", "equipment"],
+  pickup: ["pickup", "pickups", "collect", "collection", "collected", "returns", "return", "empties"],
+  vehicle: ["vehicle", "van", "driver", "truck", "pinnedvehicle", "pintovehicle", "pin", "assignedvehicle", "onlyvehicle"],
+  notVehicle: [
+    "notvehicle",
+    "notvan",
+    "notdriver",
+    "nottruck",
+    "excludevehicle",
+    "excludedvehicle",
+    "excludedvehicles",
+    "novehicle",
+    "avoidvehicle",
+  ],
 };
 
 const FLEET_SYNONYMS: Record<string, readonly string[]> = {
@@ -299,10 +312,29 @@ const FLEET_SYNONYMS: Record<string, readonly string[]> = {
   speedKmh: ["speedkmh", "speed", "kmh", "averagespeed", "avgspeed", "speedkph", "kph"],
   maxStops: ["maxstops", "stopslimit", "maximumstops", "stoplimit", "maxdrops", "maxvisits", "maxdeliveries", "stopsmax"],
   features: ["features", "skills", "equipment", "capabilities", "tags", "has"],
+  driveBeforeBreak: [
+    "drivebeforebreak",
+    "drivebeforebreakh",
+    "drivehbeforebreak",
+    "drivinghbeforebreak",
+    "drivingbeforebreak",
+    "drivingbeforebreakh",
+    "breakafter",
+    "breakafterh",
+    "breakafterhours",
+    "breakafterdriving",
+  ],
+  breakMin: ["breakmin", "break", "breakminutes", "breaklength", "breakduration", "breaklengthmin", "breakdurationmin"],
+  windowBreakMin: ["windowbreakmin", "lunchmin", "lunchbreakmin", "lunch", "lunchbreak", "lunchminutes"],
+  breakFrom: ["breakfrom", "breakstart", "breakwindowfrom", "breakwindowstart", "lunchfrom", "lunchstart", "breakearliest"],
+  breakTo: ["breakto", "breakend", "breakuntil", "breakwindowto", "breakwindowend", "lunchto", "lunchend", "lunchuntil", "breaklatest"],
+  maxDrivingH: ["maxdrivingh", "maxdriving", "maxdrivinghours", "maxdriveh", "maxdrive", "drivinglimith", "drivinglimit", "maxdrivingtime"],
+  maxDutyH: ["maxdutyh", "maxduty", "maxdutyhours", "maxdutytime", "dutylimith", "dutylimit", "maxworkh", "maxworkinghours"],
+  maxKm: ["maxkm", "kmlimit", "maxdistance", "maxdistancekm", "distancelimit", "distancelimitkm", "maxkilometres", "maxkilometers"],
 };
 
 /** Fields whose header may carry a unit word (a load dimension). */
-const DIMENSIONED: Record<TableKind, string> = { stops: "demand", fleet: "capacity" };
+const DIMENSIONED: Record<TableKind, readonly string[]> = { stops: ["demand", "pickup"], fleet: ["capacity"] };
 /** Fields where a second matching column is carried through instead of being an issue. */
 const DESCRIPTIVE = new Set(["id", "name", "address"]);
 /** Fields that may repeat as numbered pairs. */
@@ -345,11 +377,12 @@ export function matchHeader(text: string, kind: TableKind): HeaderField | undefi
     const base = lookup(table, numbered[1]!);
     if (base !== undefined && NUMBERED.has(base)) return { base, index: Number(numbered[2]) };
   }
-  // "Demand kg", "Capacity crates": a load column with its unit word.
-  const dimensioned = DIMENSIONED[kind];
+  // "Demand kg", "Capacity crates", "Pickup crates": a load column with its unit word.
   for (let k = words.length - 1; k >= 1; k--) {
-    if (table[dimensioned]!.includes(words.slice(0, k).join(""))) {
-      return { base: dimensioned, dimension: words.slice(k).join(" ") };
+    for (const dimensioned of DIMENSIONED[kind]) {
+      if (table[dimensioned]!.includes(words.slice(0, k).join(""))) {
+        return { base: dimensioned, dimension: words.slice(k).join(" ") };
+      }
     }
   }
   return undefined;

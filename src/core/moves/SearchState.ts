@@ -1,6 +1,7 @@
 import type { CompiledProblem } from "../schedule/compileProblem.js";
 import { RouteArrays } from "../schedule/RouteArrays.js";
 import { evaluatePieces } from "./evaluatePieces.js";
+import { hasRouteRules } from "./routeRules.js";
 import { penalisedCost } from "./penalisedCost.js";
 import { R_COST, R_COUNT, R_ENDTW, R_EXCESS, R_REAL, R_SIZE, R_STOPTW, R_VIOL } from "./routeResults.js";
 
@@ -41,6 +42,12 @@ export class SearchState {
   mustInPool = 0;
   /** Scratch load per dimension of the evaluation under way. */
   readonly scratchLoad: Float64Array;
+  /** 1 for vehicles with a rule of `routeRules` (pickups, breaks, working-time limits); their scratch. */
+  readonly rulesOn: Uint8Array;
+  readonly rulesStops: Int32Array;
+  readonly rulesLoad: Float64Array;
+  readonly rulesPick: Float64Array;
+  readonly rulesMax: Float64Array;
   private readonly tmp: Int32Array[];
 
   /**
@@ -62,6 +69,11 @@ export class SearchState {
     this.rStats = new Float64Array(V * R_SIZE);
     this.dirty = new Uint8Array(V).fill(1);
     this.scratchLoad = new Float64Array(cp.dims);
+    this.rulesStops = new Int32Array(cp.n + 1);
+    this.rulesLoad = new Float64Array(cp.dims);
+    this.rulesPick = new Float64Array(cp.dims);
+    this.rulesMax = new Float64Array(cp.dims);
+    this.rulesOn = Uint8Array.from({ length: V }, (_, v) => (hasRouteRules(cp, v) ? 1 : 0));
     this.tmp = [new Int32Array(cp.n + 1), new Int32Array(cp.n + 1)];
     this.wTime = wTime;
     this.wLoad = wLoad;

@@ -33,6 +33,14 @@ export class RouteArrays {
   cumWin: Int32Array = new Int32Array(0);
   /** `(len + 2) * dims` prefix loads. */
   preLoad: Float64Array = new Float64Array(0);
+  /**
+   * Only when some stop collects (`cp.anyPickup`), `(len + 2) * dims` each: prefix pickups, and
+   * the highest load over stops 1..i (`preMax`) and over stops i..len (`sufMax`) counted as
+   * "deliveries still to make in the segment + pickups made in it" (see `routeRules`).
+   */
+  prePick: Float64Array = new Float64Array(0);
+  preMax: Float64Array = new Float64Array(0);
+  sufMax: Float64Array = new Float64Array(0);
 
   /**
    * @param cp - the compiled problem
@@ -123,6 +131,7 @@ export class RouteArrays {
       preE[i] = Math.max(e2 - delta, E1) - wt;
       preL[i] = Math.min(l2 - delta, L1) + tw;
     }
+    if (cp.anyPickup) this.rebuildPickups(lo, hi);
     const { sufD, sufTW, sufE, sufL } = this;
     if (len > 0 && hi >= len) {
       const s = this.nodes[len]!;
@@ -148,6 +157,36 @@ export class RouteArrays {
       sufTW[i] = TW2 + tw;
       sufE[i] = Math.max(e2 - delta, E1) - wt;
       sufL[i] = Math.min(l2 - delta, L1) + tw;
+    }
+  }
+
+  /** Pickup summaries (segment concatenation of loads in both directions). */
+  private rebuildPickups(lo: number, hi: number): void {
+    const cp = this.cp;
+    const dims = cp.dims;
+    const len = this.len;
+    const { prePick, preMax, sufMax, preLoad } = this;
+    for (let d = 0; d < dims; d++) prePick[d] = preMax[d] = 0;
+    for (let i = lo; i <= len; i++) {
+      const s = this.nodes[i]!;
+      for (let d = 0; d < dims; d++) {
+        const q = cp.demand[s * dims + d]!;
+        const p = cp.pickup[s * dims + d]!;
+        prePick[i * dims + d] = prePick[(i - 1) * dims + d]! + p;
+        // Stops 1..i-1 then stop i: max(M1 + q, P1 + max(q, p)).
+        preMax[i * dims + d] = Math.max(preMax[(i - 1) * dims + d]! + q, prePick[(i - 1) * dims + d]! + Math.max(q, p));
+      }
+    }
+    for (let d = 0; d < dims; d++) sufMax[(len + 1) * dims + d] = 0;
+    for (let i = Math.min(hi, len); i >= 1; i--) {
+      const s = this.nodes[i]!;
+      for (let d = 0; d < dims; d++) {
+        const q = cp.demand[s * dims + d]!;
+        const p = cp.pickup[s * dims + d]!;
+        const restQ = preLoad[len * dims + d]! - preLoad[i * dims + d]!;
+        // Stop i then stops i+1..len: max(max(q, p) + D2, p + M2).
+        sufMax[i * dims + d] = Math.max(Math.max(q, p) + restQ, p + sufMax[(i + 1) * dims + d]!);
+      }
     }
   }
 
@@ -177,6 +216,11 @@ export class RouteArrays {
     this.cumSvc = F(size);
     this.cumWin = I(size);
     this.preLoad = F(size * this.cp.dims);
+    if (this.cp.anyPickup) {
+      this.prePick = F(size * this.cp.dims);
+      this.preMax = F(size * this.cp.dims);
+      this.sufMax = F(size * this.cp.dims);
+    }
     this.capacity = cap;
   }
 }
