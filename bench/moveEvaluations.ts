@@ -6,6 +6,11 @@
  * whose evaluations are divided by the time spent in `step` only (medians of `--repeat N` runs, default 5) (setup excluded; accepted
  * moves, their route rebuilds and best-plan copies included).
  *
+ * `--rules pickups|limits|breaks|all` adds the dispatcher's rules to every instance (pickups at
+ * every third stop; driving 8 h, duty 10 h, 300 km; a break of 45 min after 4.5 h of driving
+ * and 30 min inside 12:00-13:30, invented values for the measurement only) to measure what they
+ * cost; `--sizes 100,1000` picks the sizes.
+ *
  * Run: npx tsx bench/moveEvaluations.ts   (writes bench/out/moveEvaluations.json)
  */
 import { mkdirSync, writeFileSync } from "node:fs";
@@ -61,6 +66,33 @@ function instance(n: number): Problem {
     hardWindows: true,
     lateCostPerMin: 0,
     objective: "weighted",
+  };
+}
+
+/** `--rules` of the command line: which of the dispatcher's rules to add. */
+const rulesAt = process.argv.indexOf("--rules");
+const RULES = rulesAt > 0 ? (process.argv[rulesAt + 1] ?? "none") : "none";
+const sizesAt = process.argv.indexOf("--sizes");
+const SIZES =
+  sizesAt > 0
+    ? (process.argv[sizesAt + 1] ?? "")
+        .split(",")
+        .map(Number)
+        .filter((x) => x > 0)
+    : [100, 1000, 5000];
+
+function withRules(p: Problem, rules: string): Problem {
+  const on = (r: string): boolean => rules === r || rules === "all";
+  return {
+    ...p,
+    stops: p.stops.map((s, i) => (on("pickups") && i % 3 === 0 ? { ...s, pickup: [1 + (i % 7), i % 2] } : s)),
+    vehicles: p.vehicles.map((v) => ({
+      ...v,
+      ...(on("limits") ? { maxDrivingMin: 480, maxDutyMin: 600, maxKm: 300 } : {}),
+      ...(on("breaks")
+        ? { drivingBreak: { driveMin: 270, breakMin: 45 }, windowBreak: { earliestMin: 720, latestMin: 810, breakMin: 30 } }
+        : {}),
+    })),
   };
 }
 
@@ -121,8 +153,8 @@ const rows: {
   rawRuns: number[];
   inRunRuns: number[];
 }[] = [];
-for (const n of [100, 1000, 5000]) {
-  const problem = instance(n);
+for (const n of SIZES) {
+  const problem = withRules(instance(n), RULES);
   const rawRuns: number[] = [];
   const inRunRuns: number[] = [];
   let last = { perSecond: 0, cost: 0, feasible: false };
@@ -142,7 +174,7 @@ for (const n of [100, 1000, 5000]) {
     inRunRuns,
   });
 }
-console.log(`Medians of ${REPEAT} runs per size (raw: 1 s each; in run: a 2 s createSolver run each).`);
+console.log(`Medians of ${REPEAT} runs per size (raw: 1 s each; in run: a 2 s createSolver run each); rules: ${RULES}.`);
 console.log("| stops | vehicles | raw evaluations/s | in-run evaluations/s | 2 s plan cost | feasible |");
 console.log("|---:|---:|---:|---:|---:|:---|");
 for (const r of rows)
@@ -150,4 +182,7 @@ for (const r of rows)
     `| ${r.stops} | ${r.vehicles} | ${r.rawPerSecond.toLocaleString("en")} | ${r.inRunPerSecond.toLocaleString("en")} | ${r.runCost} | ${r.feasible} |`,
   );
 mkdirSync(new URL("./out/", import.meta.url), { recursive: true });
-writeFileSync(new URL("./out/moveEvaluations.json", import.meta.url), JSON.stringify({ node: process.version, rows }, null, 2));
+writeFileSync(
+  new URL("./out/moveEvaluations.json", import.meta.url),
+  JSON.stringify({ node: process.version, rules: RULES, rows }, null, 2),
+);

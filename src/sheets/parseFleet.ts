@@ -6,6 +6,7 @@ import { readDegrees } from "./parseCoordinate.js";
 import { parseFeatures } from "./parseFeatures.js";
 import { parseLatLon } from "./parseLatLon.js";
 import { cellIssue, readTable } from "./readTable.js";
+import { readWorkRules, type WorkRules } from "./readWorkRules.js";
 import { rowReader, type RowReader } from "./rowReader.js";
 
 /** Cost per km of a vehicle row that gives none, so that a fleet without costs minimises km. */
@@ -29,6 +30,8 @@ export interface ParsedVehicle {
   readonly speedKmh?: number;
   readonly maxStops?: number;
   readonly features?: readonly string[];
+  /** Working-time limits and break rules of the row. */
+  readonly rules: WorkRules;
   /** 0-based sheet row of the fleet row it came from. */
   readonly sheetRow0: number;
 }
@@ -51,7 +54,9 @@ export interface ParsedFleet {
  * Start longitude (or one Depot column with "lat, lon"), End latitude, End longitude (blank:
  * back to the start depot), Shift start, Shift end (blank: 00:00 and 24:00; an end before the
  * start rolls over midnight), Fixed cost (blank 0), Cost per km (blank 1), Cost per hour
- * (blank 0), Speed km/h (blank: the settings speed), Max stops, Features. A Count of 2 or more
+ * (blank 0), Speed km/h (blank: the settings speed), Max stops, Features, and the working-time
+ * columns of `readWorkRules` (Drive before break, Break min, Break from, Break to, Max driving h,
+ * Max duty h, Max km). A Count of 2 or more
  * makes "Van A 1", "Van A 2", ...; a Count of 0 leaves the row out; blank keeps one vehicle
  * with the row's name. Without a Vehicle column vehicles are named "Vehicle 1", "Vehicle 2"...
  *
@@ -111,6 +116,7 @@ export function parseFleet(read: SheetRead): ParsedFleet {
     const speedKmh = r.num("speedKmh", "speed (km/h)", { above: 0, example: "40" });
     const maxStops = r.num("maxStops", "max stops", { min: 1, integer: true, example: "20" });
     const featureText = r.text("features");
+    const rules = readWorkRules(r, name);
     if (issues.length > before || start === undefined || end === undefined) return;
     for (let k = 1; k <= count; k++) {
       const id = count > 1 ? `${name} ${k}` : name;
@@ -134,6 +140,7 @@ export function parseFleet(read: SheetRead): ParsedFleet {
         ...(speedKmh !== undefined ? { speedKmh } : {}),
         ...(maxStops !== undefined ? { maxStops } : {}),
         ...(featureText !== undefined ? { features: parseFeatures(featureText) } : {}),
+        rules,
         sheetRow0: row.sheetRow0,
       });
     }

@@ -17,6 +17,11 @@ export interface ParsedStop {
   readonly position: LatLon;
   /** Demand per load column: "" for a plain Demand column, else the unit word. */
   readonly demand: ReadonlyMap<string, number>;
+  /** Amount to collect per pickup column: "" for a plain Pickup (or Collect, Returns), else the unit word. */
+  readonly pickup: ReadonlyMap<string, number>;
+  /** Names in the Vehicle (pin) and Not vehicle cells, as typed. */
+  readonly vehicleNames?: readonly string[];
+  readonly notVehicleNames?: readonly string[];
   readonly windows: readonly TimeWindow[];
   /** Service minutes, `undefined` when blank (the settings default applies). */
   readonly serviceMin?: number;
@@ -40,6 +45,8 @@ export interface ParsedStops {
   readonly extraHeaders: readonly string[];
   /** Unit words of the demand columns ("" for a plain Demand), in sheet order. */
   readonly dimensions: readonly string[];
+  /** Unit words of the pickup columns ("" for a plain Pickup), in sheet order. */
+  readonly pickupDimensions: readonly string[];
   readonly issues: readonly Issue[];
 }
 
@@ -49,7 +56,9 @@ export interface ParsedStops {
  * Columns (DESIGN.md §5; headers matched with synonyms): Stop, Name, Address, Latitude,
  * Longitude (or one Coordinates column with "lat, lon"), Demand (or Demand kg, Demand crates,
  * ...), Earliest, Latest (repeatable: Earliest 2 / Latest 2, or a Windows column with
- * "08:00-10:00; 14:00-16:00"), Service min, Priority, Features. Only the coordinates are
+ * "08:00-10:00; 14:00-16:00"), Service min, Priority, Features, Pickup (or Pickup kg, Collect
+ * crates, Returns, ...: what to collect), Vehicle (a pin: one or more vehicle names) and Not
+ * vehicle (vehicles that must not serve it). Only the coordinates are
  * required. Without a Stop column the id of a stop is its sheet row number ("7"); a Stop
  * column with an empty cell is an issue. Name defaults to the id. Blank demand is 0, a blank
  * Priority means the stop must be served, blank windows mean open all day.
@@ -68,6 +77,7 @@ export function parseStops(read: SheetRead): ParsedStops {
     headerRow0: table?.headerRow0 ?? read.row,
     extraHeaders: [],
     dimensions: [],
+    pickupDimensions: [],
     issues,
   };
   if (!table) return empty;
@@ -86,6 +96,9 @@ export function parseStops(read: SheetRead): ParsedStops {
     return { ...empty, issues };
   }
   const dimensions = [...f.keys()].filter((k) => k === "demand" || k.startsWith("demand:")).map((k) => (k === "demand" ? "" : k.slice(7)));
+  const pickupDimensions = [...f.keys()]
+    .filter((k) => k === "pickup" || k.startsWith("pickup:"))
+    .map((k) => (k === "pickup" ? "" : k.slice(7)));
   const windowIndexes = [...f.keys()].flatMap((k) => {
     const m = /^(earliest|latest|windows)(?::(\d+))?$/.exec(k);
     return m ? [m[2] === undefined ? 1 : Number(m[2])] : [];
@@ -115,6 +128,13 @@ export function parseStops(read: SheetRead): ParsedStops {
       const key = dim === "" ? "demand" : `demand:${dim}`;
       demand.set(dim, r.num(key, dim === "" ? "demand" : `demand (${dim})`, { min: 0, example: "12" }) ?? 0);
     }
+    const pickup = new Map<string, number>();
+    for (const dim of pickupDimensions) {
+      const key = dim === "" ? "pickup" : `pickup:${dim}`;
+      pickup.set(dim, r.num(key, dim === "" ? "pickup" : `pickup (${dim})`, { min: 0, example: "4" }) ?? 0);
+    }
+    const vehicleText = r.text("vehicle");
+    const notVehicleText = r.text("notVehicle");
     const windows: TimeWindow[] = [];
     for (let i = 1; i <= maxWindow; i++) windows.push(...readWindowPair(r, i));
     const serviceMin = r.duration("serviceMin", "service time");
@@ -128,6 +148,9 @@ export function parseStops(read: SheetRead): ParsedStops {
       name,
       position,
       demand,
+      pickup,
+      ...(vehicleText !== undefined ? { vehicleNames: splitNames(vehicleText) } : {}),
+      ...(notVehicleText !== undefined ? { notVehicleNames: splitNames(notVehicleText) } : {}),
       windows: mergeWindows(windows),
       ...(serviceMin !== undefined ? { serviceMin } : {}),
       ...(unservedCost !== undefined ? { unservedCost } : {}),
@@ -138,7 +161,24 @@ export function parseStops(read: SheetRead): ParsedStops {
     });
   }
   const extraHeaders = table.columns.extras.map((x) => x.header);
-  return { stops, columns: table.columns, col0: read.col, headerRow0: table.headerRow0, extraHeaders, dimensions, issues };
+  return {
+    stops,
+    columns: table.columns,
+    col0: read.col,
+    headerRow0: table.headerRow0,
+    extraHeaders,
+    dimensions,
+    pickupDimensions,
+    issues,
+  };
+}
+
+/** Vehicle names of a pin cell: one name, or several separated by ";" or ",". */
+function splitNames(text: string): string[] {
+  return text
+    .split(/[;,]/)
+    .map((x) => x.trim())
+    .filter((x) => x !== "");
 }
 
 /** Latitude/longitude of a row from the two columns or the one Coordinates column. */

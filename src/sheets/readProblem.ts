@@ -8,6 +8,7 @@ import { parseStops, type ParsedStops } from "./parseStops.js";
 import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "./PlanSettings.js";
 import type { ReadResult, StopRow } from "./ReadResult.js";
 import { cellIssue } from "./readTable.js";
+import { pickupDimensions, resolvePins, type LoadDimension } from "./resolveStopRules.js";
 import { SETTING_FIELDS } from "./settingFields.js";
 import { crossProblems } from "./settingsSchema.js";
 import { foldWarnings, stopWarnings, type KindedIssue } from "./stopWarnings.js";
@@ -65,6 +66,7 @@ export function readProblem(
     );
   }
   checkServable(stops, fleet, dims, settings.hardWindows, { stops: input.stops.sheet, fleet: input.fleet.sheet }, warnings, warned);
+  const pickupDims = dims === undefined ? new Map<string, number>() : pickupDimensions(stops, dims, input.stops.sheet, issues);
   if (issues.length > 0 || dims === undefined) return { ok: false, issues, stopColumns, fleetColumns };
 
   const locations: (LatLon & { name?: string })[] = [];
@@ -92,11 +94,14 @@ export function readProblem(
     speedKmh: v.speedKmh ?? settings.speedKmh,
     ...(v.features !== undefined ? { features: v.features } : {}),
     ...(v.maxStops !== undefined ? { maxStops: v.maxStops } : {}),
+    ...v.rules,
   }));
   if (depotNames.length === 1) depotNames[0]!.push("Depot");
   const depots = locations.length;
-  const problemStops: Stop[] = stops.stops.map((s, i) => {
+  const unpinned: Stop[] = stops.stops.map((s, i) => {
     locations.push({ lat: s.position.lat, lon: s.position.lon, name: s.name });
+    const pickup = dims.map(() => 0);
+    for (const [unit, d] of pickupDims) pickup[d] = pickup[d]! + (s.pickup.get(unit) ?? 0);
     return {
       id: s.id,
       name: s.name,
@@ -106,8 +111,18 @@ export function readProblem(
       serviceMin: s.serviceMin ?? settings.serviceMin,
       ...(s.unservedCost !== undefined ? { unservedCost: s.unservedCost } : {}),
       ...(s.requiredFeatures !== undefined ? { requiredFeatures: s.requiredFeatures } : {}),
+      ...(pickup.some((q) => q > 0) ? { pickup } : {}),
     };
   });
+  const problemStops = resolvePins(
+    stops,
+    unpinned,
+    vehicles,
+    fleet.vehicles.map((v) => v.rowName),
+    input.stops.sheet,
+    issues,
+  );
+  if (issues.length > 0) return { ok: false, issues, stopColumns, fleetColumns };
   let matrix = buildMatrix(locations, { detourFactor: settings.detourFactor, speedKmh: settings.speedKmh });
   if (input.matrix) {
     const names = [...depotNames, ...problemStops.map((s) => [s.id])];
@@ -143,12 +158,7 @@ export function readProblem(
   };
 }
 
-/** One load dimension: its name and the unit word of its stop and fleet columns. */
-interface Dimension {
-  readonly name: string;
-  readonly stops?: string;
-  readonly fleet?: string;
-}
+type Dimension = LoadDimension;
 
 function pairDimensions(
   input: { stops: SheetRead; fleet: SheetRead },

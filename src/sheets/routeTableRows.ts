@@ -1,4 +1,4 @@
-import type { Problem, Plan, Route } from "../core/index.js";
+import type { BreakVisit, Problem, Plan, Route } from "../core/index.js";
 import { formatLoad } from "./formatLoad.js";
 import type { CellValue } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
@@ -32,6 +32,11 @@ export const LONGITUDE_COL = ROUTE_TABLE_HEADER.indexOf("Longitude");
 /** Text in the Name column of the depot rows. */
 export const DEPOT_START_NAME = "Depot start";
 export const DEPOT_END_NAME = "Depot end";
+/** Text in the Stop column of a break row, and in its Name column by kind. */
+export const BREAK_STOP = "Break";
+export const BREAK_NAMES = { driving: "Driving break", window: "Break in its window" } as const;
+/** Header of the column showing what to collect at each stop (present only when some stop collects). */
+export const COLLECT_HEADER = "Collect";
 
 /** One row of cells with the number format of each. */
 export interface FormattedRow {
@@ -51,7 +56,10 @@ export interface RouteTableRows {
  * The rows of the route table: for each used vehicle a start-depot row (Seq 0, the full
  * load, departure), one row per visit, and an end-depot row (Seq n+1, return time, the
  * distance back, minutes back after the shift end in Late min). Depot rows show the shift as
- * Earliest/Latest. Unused vehicles are left out. Times are day fractions (`hh:mm`),
+ * Earliest/Latest. A break is a row of its own ("Break" in Stop, its start in Start and its end
+ * in Departure, its window in Earliest/Latest), before or after the visit it is taken at. When
+ * some stop collects, a Collect column after Longitude shows what to collect, and Load is the
+ * load on board after each stop (deliveries off, pickups on). Unused vehicles are left out. Times are day fractions (`hh:mm`),
  * kilometres rounded to 0.1, user text made safe and marked `@`.
  *
  * @param problem - the problem the plan solves
@@ -69,18 +77,21 @@ export function routeTableRows(
   extraHeaders: readonly string[] = [],
 ): RouteTableRows {
   const extraByStop = new Map(stopRows.map((r) => [r.stop, r.extra]));
+  const collect = problem.stops.some((s) => (s.pickup ?? []).some((q) => q > 0));
+  const tail = extraHeaders.length + (collect ? 1 : 0);
   const rows: FormattedRow[] = [];
   const routes: { vehicle: number; name: string; first: number; count: number }[] = [];
   for (const route of plan.routes) {
     if (route.visits.length === 0) continue;
     const first = rows.length;
     const name = vehicleOf(problem, route).id;
-    rows.push(depotRow(problem, route, "start", extraHeaders.length));
+    rows.push(depotRow(problem, route, "start", tail));
     route.visits.forEach((visit, i) => {
       const stop = problem.stops[visit.stop];
       if (!stop) throw new RangeError(`routeTableRows: plan visits stop ${visit.stop}, problem has ${problem.stops.length}`);
       const w = windowUsed(stop, visit);
       const { lat, lon } = locationOf(problem, stop.location);
+      for (const b of route.breaks) if (b.at === i && b.beforeService) rows.push(breakRow(problem, route, b, lat, lon, tail));
       rows.push(
         cells([
           [name, F.text],
@@ -99,14 +110,44 @@ export function routeTableRows(
           [roundTo(visit.lateMin, 1), F.minutes],
           [lat, null],
           [lon, null],
+          ...(collect ? [loadCell(stop.pickup ?? problem.loadDimensions.map(() => 0), problem.loadDimensions)] : []),
           ...extraCells(extraByStop.get(visit.stop), extraHeaders),
         ]),
       );
+      for (const b of route.breaks) if (b.at === i && !b.beforeService) rows.push(breakRow(problem, route, b, lat, lon, tail));
     });
-    rows.push(depotRow(problem, route, "end", extraHeaders.length));
+    rows.push(depotRow(problem, route, "end", tail));
     routes.push({ vehicle: route.vehicle, name, first, count: rows.length - first });
   }
-  return { header: [...ROUTE_TABLE_HEADER, ...extraHeaders], rows, routes };
+  const header = [...ROUTE_TABLE_HEADER, ...(collect ? [COLLECT_HEADER] : []), ...extraHeaders];
+  return { header, rows, routes };
+}
+
+/** A break as a row of its own: "Break" in Stop, its start in Start and its end in Departure. */
+function breakRow(problem: Problem, route: Route, b: BreakVisit, lat: number, lon: number, extras: number): FormattedRow {
+  const v = vehicleOf(problem, route);
+  const blank: Cell = [null, null];
+  const w = b.kind === "window" ? v.windowBreak : undefined;
+  const row: Cell[] = [
+    [v.id, F.text],
+    blank,
+    [BREAK_STOP, F.text],
+    [BREAK_NAMES[b.kind], F.text],
+    blank,
+    blank,
+    [dayFraction(b.startMin), F.timeOfDay],
+    [dayFraction(b.endMin), F.timeOfDay],
+    blank,
+    blank,
+    blank,
+    w ? [dayFraction(w.earliestMin), F.timeOfDay] : blank,
+    w ? [dayFraction(w.latestMin), F.timeOfDay] : blank,
+    blank,
+    [lat, null],
+    [lon, null],
+  ];
+  for (let i = 0; i < extras; i++) row.push(blank);
+  return cells(row);
 }
 
 type Cell = readonly [CellValue, string | null];

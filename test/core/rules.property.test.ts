@@ -1,34 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { createRandom } from "../../src/core/anneal/createRandom.js";
-import type { Problem, Route, Vehicle } from "../../src/core/model.js";
+import type { Problem, Route } from "../../src/core/model.js";
 import { applyMove, Move, proposeMove } from "../../src/core/moves/proposeMove.js";
 import { SearchState } from "../../src/core/moves/SearchState.js";
 import { buildNeighbours } from "../../src/core/neighbours/buildNeighbours.js";
 import { compileProblem, type CompiledProblem } from "../../src/core/schedule/compileProblem.js";
 import { evaluatePlan } from "../../src/core/schedule/evaluatePlan.js";
-import { randomInstance } from "./randomInstance.js";
-
-/** A random instance with the dispatcher's rules added (invented data). */
-export function rulesInstance(seed: number, stops: number, vehicles: number, rules: { breaks: boolean; limits: boolean }): Problem {
-  const base = randomInstance(seed, { stops, vehicles, windows: seed % 2 === 0, hard: true });
-  const rng = createRandom(seed * 7 + 1);
-  const ids = base.vehicles.map((v) => v.id);
-  return {
-    ...base,
-    stops: base.stops.map((s, i) => ({
-      ...s,
-      pickup: [Math.floor(rng.next() * 30), rng.next() < 0.5 ? Math.floor(rng.next() * 4) : 0],
-      ...(i % 5 === 1 ? { allowedVehicles: [ids[i % ids.length]!] } : {}),
-      ...(i % 7 === 3 ? { excludedVehicles: [ids[0]!] } : {}),
-    })),
-    vehicles: base.vehicles.map((v, k): Vehicle => ({
-      ...v,
-      ...(rules.breaks && k % 2 === 0 ? { drivingBreak: { driveMin: 60, breakMin: 15 } } : {}),
-      ...(rules.breaks && k % 3 !== 1 ? { windowBreak: { earliestMin: 720, latestMin: 810, breakMin: 30 } } : {}),
-      ...(rules.limits ? { maxDrivingMin: 150, maxDutyMin: 330, maxKm: 90 + 10 * k } : {}),
-    })),
-  };
-}
+import { rulesInstance } from "./rulesInstance.js";
 
 /** Penalised total computed only from `evaluatePlan`'s independent numbers (max load at any point, every rule). */
 function penalisedFromPlan(problem: Problem, cp: CompiledProblem, state: SearchState): number {
