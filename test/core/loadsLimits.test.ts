@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import type { Problem, Stop, Vehicle } from "../../src/core/model.js";
 import { compileProblem } from "../../src/core/schedule/compileProblem.js";
 import { evaluatePlan } from "../../src/core/schedule/evaluatePlan.js";
+import { keepHardRules } from "../../src/core/schedule/keepHardRules.js";
 
 /** Depot and three stops on a line, 20 km and 30 min apart (invented data). */
 function line(stops: Partial<Stop>[], vehicle: Partial<Vehicle> = {}): Problem {
@@ -92,5 +93,19 @@ describe("simultaneous pickup and delivery, limits and pins (figures worked by h
     expect(plan.violations).toEqual(["Van serves stop S1, which is pinned to Truck"]);
     const swapped = evaluatePlan(p, [[2], [0, 1]]);
     expect(swapped.violations).toEqual(["Truck serves stop S2, which excludes it"]);
+  });
+
+  it("a plan cut back to the rules keeps limits, pins and the load at every point", () => {
+    // Van limited to 100 km cannot reach S3 and back (120 km); the Truck may not take S2 and S3 is pinned to the Van.
+    const p = line(
+      [{ demand: [6], pickup: [0] }, { demand: [2], pickup: [5], excludedVehicles: ["Truck"] }, { allowedVehicles: ["Van"] }],
+      {
+        maxKm: 100,
+      },
+    );
+    const kept = keepHardRules(p, evaluatePlan(p, [[2, 1, 0], []]));
+    expect(kept.violations).toEqual([]);
+    expect(kept.unassigned.map((u) => u.stop)).toEqual([2]);
+    expect(kept.routes[0]!.visits.map((v) => v.stop)).toContain(1);
   });
 });

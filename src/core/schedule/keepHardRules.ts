@@ -7,8 +7,8 @@ const TIME_CANDIDATES = 60;
 
 /**
  * Turn a plan that breaks a hard rule into one that keeps every rule, serving as many stops
- * as it can: capacity, hard windows, shift ends, required features and max stops are never
- * broken in the plan returned. A plan that already keeps them is returned as it is.
+ * as it can: capacity (at every point), hard windows, shift ends, required features, max
+ * stops, pins, working-time limits and breaks are never broken in the plan returned. A plan that already keeps them is returned as it is.
  *
  * Stops are taken off a broken route greedily (a stop without the vehicle's features; for
  * load, an optional stop first, then the smallest stop that clears the excess, else the
@@ -101,7 +101,31 @@ function repairRoute(problem: Problem, v: number, stops: number[]): number[] {
     if (timeExcess(problem, route) <= 1e-9) break;
     take(pickForTime(problem, v, stops, route));
   }
+  // Rules the loops above do not measure (load at every point with pickups, pins, working-time
+  // limits, breaks): take the stop whose removal leaves the fewest broken rules, until none is.
+  for (;;) {
+    const violations: string[] = [];
+    evaluateRoute(problem, v, stops, violations);
+    if (violations.length === 0 || stops.length === 0) break;
+    take(pickForRules(problem, v, stops));
+  }
   return out;
+}
+
+/** The stop whose removal leaves the fewest broken rules (ties: optional first, then the cheaper route). */
+function pickForRules(problem: Problem, v: number, stops: readonly number[]): number {
+  let best = stops.length - 1;
+  let bestKey: [number, number, number] = [Infinity, 1, Infinity];
+  for (let k = 0; k < stops.length; k++) {
+    const violations: string[] = [];
+    const trial = evaluateRoute(problem, v, [...stops.slice(0, k), ...stops.slice(k + 1)], violations);
+    const key: [number, number, number] = [violations.length, isOptional(problem, stops[k]!) ? 0 : 1, trial.cost];
+    if (lexLess(key, bestKey)) {
+      best = k;
+      bestKey = key;
+    }
+  }
+  return best;
 }
 
 /** An optional stop first; then the smallest demand that clears `excess` alone; else the largest. */
