@@ -13,7 +13,8 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { benchInstance, loadBenchFile, type SolomonBenchRecord, type TsplibBenchRecord } from "../src/cli/benchCommand.js";
-import { numberOption, parseArgs } from "../src/cli/parseArgs.js";
+import { Command } from "commander";
+import { settingFlags } from "../src/cli/settingFlags.js";
 
 const BENCHMARKS_DIR = process.env["KILN_BENCHMARKS_DIR"]
   ? resolve(process.env["KILN_BENCHMARKS_DIR"]) + "/"
@@ -32,25 +33,39 @@ interface Row {
 }
 
 async function runSuites(argv: string[]): Promise<number> {
-  const parsed = parseArgs(argv, { values: ["seconds", "only", "suite", "seed"] });
-  const seconds = numberOption(parsed, "seconds", { min: 0 }) ?? 30;
-  const seed = numberOption(parsed, "seed", { min: 0, integer: true }) ?? 1;
-  const suite = parsed.values.get("suite");
-  if (suite !== undefined && suite !== "tsplib" && suite !== "solomon")
-    parsed.errors.push(`--suite must be tsplib or solomon, got "${suite}"`);
-  if (parsed.positional.length > 0) parsed.errors.push(`unexpected argument "${parsed.positional[0]}"`);
+  const program = new Command("bench/suites")
+    .description(
+      "Run the TSPLIB and Solomon suites of the benchmark folder (KILN_BENCHMARKS_DIR or ../shared/benchmarks) and print a table and JSON.",
+    )
+    .option("--seconds <S>", "seconds per large instance", "30")
+    .option("--seed <N>", "seed of every run", "1")
+    .option("--suite <NAME>", "tsplib or solomon (default both)")
+    .option("--only <NAMES>", "comma-separated instance names")
+    .exitOverride();
+  try {
+    program.parse(argv, { from: "user" });
+  } catch {
+    return 2;
+  }
+  const opts = program.opts<{ seconds: string; seed: string; suite?: string; only?: string }>();
+  const errors: string[] = [];
+  const flags = settingFlags({ seconds: opts.seconds, seed: opts.seed });
+  errors.push(...flags.errors);
+  const seconds = flags.overrides.seconds ?? 30;
+  const seed = flags.overrides.seed ?? 1;
+  const suite = opts.suite;
+  if (suite !== undefined && suite !== "tsplib" && suite !== "solomon") errors.push(`--suite must be tsplib or solomon, got "${suite}"`);
   if (!existsSync(BENCHMARKS_DIR))
-    parsed.errors.push(
+    errors.push(
       `benchmark folder ${BENCHMARKS_DIR} not found: put the suites in ../shared/benchmarks beside the checkout or set KILN_BENCHMARKS_DIR`,
     );
-  if (parsed.errors.length > 0) {
-    for (const e of parsed.errors) process.stderr.write(e + "\n");
+  if (errors.length > 0) {
+    for (const e of errors) process.stderr.write(e + "\n");
     return 2;
   }
   const optimal = readCsv("tsplib/optimal.csv");
   const bestKnown = readCsv("solomon/best-known.csv");
-  const only = parsed.values
-    .get("only")
+  const only = opts.only
     ?.split(",")
     .map((s) => s.trim().toLowerCase())
     .filter(Boolean);

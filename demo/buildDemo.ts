@@ -160,7 +160,7 @@ function readmeGrid(): SheetGrid {
     "Fleet: one row per van. Capacity per load dimension, start and end depot, shift, costs, speed and an optional stop limit.",
     "Van 5 starts and ends at the Tadcaster depot; the others at the bakery.",
     "Settings: defaults for a run; command-line options and the pane override them.",
-    "Try: npx kiln solve demo/kiln-demo.xlsx --moves 1000000 (a few seconds), then open demo/kiln-demo.plan.xlsx.",
+    "Try: npx kiln plan demo/kiln-demo.xlsx --moves 1000000 (a few seconds), then open demo/kiln-demo.plan.xlsx.",
     "All business names, addresses and phone numbers are invented (phones use the 01632 960xxx drama range).",
   ];
   return { values: lines.map((l) => [l]), columnWidths: [120], boldRows: [0, 2] };

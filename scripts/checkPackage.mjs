@@ -1,6 +1,6 @@
 // `npm run check:package`: packs the package, installs the tarball into an empty temporary
 // folder (no repository, no TypeScript tooling) and runs the installed command there:
-// `npx kiln --help` and `npx kiln solve` on a copy of the demo workbook. Exits 1 on any failure.
+// `npx kiln --help` and `npx kiln plan` on a copy of the demo workbook. Exits 1 on any failure.
 import { execFileSync } from "node:child_process";
 import { copyFileSync, existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -34,8 +34,8 @@ try {
   if (!/solve/.test(help)) problems.push(`kiln --help did not list the solve command:\n${help}`);
 
   copyFileSync(join(root, "demo", "kiln-demo.xlsx"), join(app, "demo.xlsx"));
-  const solved = run("npx", ["--no-install", "kiln", "solve", "demo.xlsx", "--moves", "20000", "--seed", "1"], app);
-  if (!existsSync(join(app, "demo.plan.xlsx"))) problems.push(`kiln solve wrote no demo.plan.xlsx:\n${solved}`);
+  const solved = run("npx", ["--no-install", "kiln", "plan", "demo.xlsx", "--moves", "20000", "--seed", "1"], app);
+  if (!existsSync(join(app, "demo.plan.xlsx"))) problems.push(`kiln plan wrote no demo.plan.xlsx:\n${solved}`);
   console.log(`${packed.filename}: ${shipped.length} files, ${(packed.size / 1024).toFixed(0)} kB packed; installed and ran:`);
   console.log(solved.trim().split("\n").slice(0, 6).join("\n"));
 } catch (err) {

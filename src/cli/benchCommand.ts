@@ -18,7 +18,9 @@ import {
   type RunStats,
 } from "../core/index.js";
 import type { CliIO } from "./CliIO.js";
-import { numberOption, parseArgs } from "./parseArgs.js";
+import { Option, type Command } from "commander";
+import { SETTING_FIELDS, rangeText } from "../sheets/settingFields.js";
+import { settingFlags } from "./settingFlags.js";
 
 /** Seconds per instance when neither `--seconds` nor `--moves` is given. */
 const DEFAULT_SECONDS = 10;
@@ -52,33 +54,50 @@ export interface TsplibBenchRecord {
   tour: number[];
 }
 
-/** Usage text of `kiln bench`. */
-export const BENCH_USAGE = `kiln bench FILE... [--seconds S | --moves K] [--seed N]
-  Solve TSPLIB (.tsp) or Solomon VRPTW files (format told by content) and print one JSON
-  object per line. --seconds S per instance (default ${DEFAULT_SECONDS}), or --moves K for a
-  reproducible run; --seed N (default 1).`;
+/** Declare `kiln bench` on the program. */
+export function declareBench(program: Command, io: CliIO, exit: (code: number) => void): Command {
+  const opt = (key: "seconds" | "moves" | "seed", extra: string): Option => {
+    const f = SETTING_FIELDS[key];
+    return new Option(`--${f.flag} <${f.valueName}>`, `${f.label}: ${f.help} per instance; ${rangeText(f)}${extra}`);
+  };
+  return program
+    .command("bench")
+    .summary("solve TSPLIB or Solomon benchmark files, one JSON line each")
+    .description(
+      "Solve TSPLIB (.tsp) or Solomon VRPTW files (format told by content) and print one JSON\n" +
+        "object per line (every file is read and checked before any is solved).",
+    )
+    .argument("<FILE...>", "TSPLIB or Solomon files")
+    .addOption(opt("seconds", ` (default ${DEFAULT_SECONDS})`))
+    .addOption(opt("moves", ""))
+    .addOption(opt("seed", " (default 1)"))
+    .action(async (files: string[], opts: { seconds?: string; moves?: string; seed?: string }) => {
+      exit(await runBenchOf(files, opts, io));
+    });
+}
 
 /**
- * `kiln bench FILE... [--seconds S] [--seed N] [--moves K]`: solves each file and prints
+ * `kiln bench FILE... [--seconds S | --moves K] [--seed N]`: solves each file and prints
  * one JSON object per line on stdout (DESIGN.md §6). Every file is read and checked before
- * any is solved, so all input errors are reported at once.
+ * any is solved, so all input errors are reported at once. Option values follow the settings
+ * schema (the same ranges and messages as `plan`).
  *
- * @param args - the arguments after `bench`
+ * @param files - the FILE arguments
+ * @param opts - the option texts given
  * @param io - output streams and clock
- * @returns exit code: 0 ok, 2 input errors (one per line on stderr), 1 anything else
- * @example await runBench(["burma14.tsp", "--moves", "20000"], io) // => 0, prints {"instance":"burma14",...}
+ * @returns exit code: 0 ok, 2 input errors (one per line on stderr)
+ * @example await runBenchOf(["burma14.tsp"], { moves: "20000" }, io) // => 0, prints {"instance":"burma14",...}
  */
-export async function runBench(args: string[], io: CliIO): Promise<number> {
-  const parsed = parseArgs(args, { values: ["seconds", "seed", "moves"], flags: ["help"] });
-  if (parsed.flags.has("help")) {
-    io.stdout(BENCH_USAGE + "\n");
-    return 0;
-  }
-  const seconds = numberOption(parsed, "seconds", { min: 0 });
-  const moves = numberOption(parsed, "moves", { min: 1, integer: true });
-  const seed = numberOption(parsed, "seed", { min: 0, integer: true }) ?? 1;
-  if (seconds !== undefined && moves !== undefined) parsed.errors.push("use --seconds or --moves, not both");
-  if (parsed.positional.length === 0) parsed.errors.push("no FILE given; usage: " + BENCH_USAGE.split("\n")[0]);
+export async function runBenchOf(
+  files: readonly string[],
+  opts: { seconds?: string; moves?: string; seed?: string },
+  io: CliIO,
+): Promise<number> {
+  const flags = settingFlags(opts);
+  const seconds = flags.overrides.seconds;
+  const moves = flags.overrides.moves;
+  const seed = flags.overrides.seed ?? 1;
+  const parsed = { positional: files, errors: flags.errors };
   const errors = [...parsed.errors];
   const loaded: BenchInstance[] = [];
   for (const path of parsed.positional) {

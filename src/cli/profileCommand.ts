@@ -1,41 +1,51 @@
 import { sampleMeanUphill, calibrateTemperatures, describeProfile, profile, type ProfilePoint, SOLVE_DEFAULTS } from "../core/index.js";
 import { formatCooling } from "../sheets/formatCooling.js";
 import type { CliIO } from "./CliIO.js";
-import { parseArgs } from "./parseArgs.js";
-import { RUN_VALUE_OPTIONS, prepareRun } from "./solveCommand.js";
+import type { Command } from "commander";
+import { reportErrors } from "./planCommand.js";
+import { prepareRun } from "./prepareRun.js";
+import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptions.js";
 
 /** Rows of the printed table (fraction 0 to 1 inclusive, every 1/15 of the run). */
 export const PROFILE_ROWS = 16;
 
-/** Usage text of `kiln profile`. */
-export const PROFILE_USAGE = `kiln profile WORKBOOK.xlsx [--stops SHEET] [--fleet SHEET] [--settings SHEET]
-  [--rule metropolis|logistic] [--schedule geometric|linear|lundy-mees|time] [--alpha A] [--level L]
-  [--steps N] [--beta B] [--t0 T] [--tend T] [--seed N] [--seconds S | --moves K] [--detour F]
-  [--speed KMH] [--soft-windows]
-  Sample random moves from the first plan, print the mean uphill cost change and the
-  temperature / P(accept) profile of the chosen schedule, without solving.`;
+/** Declare `kiln profile` on the program. */
+export function declareProfile(program: Command, io: CliIO, exit: (code: number) => void): Command {
+  const cmd = program
+    .command("profile")
+    .summary("show the temperature and P(accept) profile of a schedule, without solving")
+    .description(
+      "Sample random moves from the first plan, print the mean uphill cost change and the\n" +
+        "temperature / P(accept) profile of the chosen schedule, without solving.",
+    )
+    .argument("<WORKBOOK.xlsx>", "the workbook with the Stops and Fleet sheets");
+  addRunOptions(cmd);
+  cmd.action(async (workbook: string, opts: InputSheetOptions & { softWindows?: boolean }) => {
+    exit(await runProfileOf(workbook, opts, givenSettings(cmd), io));
+  });
+  return cmd;
+}
 
 /**
  * `kiln profile`: read the problem, sample the mean uphill change from the first plan
  * (`sampleMeanUphill`), and print the schedule's temperature and the probability of accepting
  * that change over the run as a table, plus a one-line reading (`describeProfile`).
  *
- * @param args - the arguments after `profile`
+ * @param workbook - the WORKBOOK.xlsx argument
+ * @param opts - sheet options and `--soft-windows`
+ * @param settings - the setting options given, by flag
  * @param io - output streams and clock
- * @returns exit code: 0 ok, 2 input errors (one line each on stderr), 1 anything else
- * @example await runProfile(["demo/kiln-demo.xlsx", "--schedule", "geometric", "--moves", "100000"], io) // => 0
+ * @returns exit code: 0 ok, 2 input errors (one line each on stderr)
+ * @example await runProfileOf("demo/kiln-demo.xlsx", {}, { schedule: "geometric", moves: "100000" }, io) // => 0
  */
-export async function runProfile(args: string[], io: CliIO): Promise<number> {
-  const parsed = parseArgs(args, { values: [...RUN_VALUE_OPTIONS], flags: ["soft-windows", "help"] });
-  if (parsed.flags.has("help")) {
-    io.stdout(PROFILE_USAGE + "\n");
-    return 0;
-  }
-  const prepared = await prepareRun(parsed);
-  if ("errors" in prepared) {
-    for (const e of prepared.errors) io.stderr(e + "\n");
-    return 2;
-  }
+export async function runProfileOf(
+  workbook: string,
+  opts: InputSheetOptions & { softWindows?: boolean },
+  settings: Readonly<Record<string, string>>,
+  io: CliIO,
+): Promise<number> {
+  const prepared = await prepareRun(workbook, opts, settings, opts.softWindows);
+  if ("errors" in prepared) return reportErrors(io, prepared.errors);
   const { read } = prepared;
   const s = read.settings;
   const sample = sampleMeanUphill(read.problem, { seed: s.seed, samples: SOLVE_DEFAULTS.calibrationSamples });

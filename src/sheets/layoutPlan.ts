@@ -41,6 +41,7 @@ export const SETTINGS_LABELS = [
   "Detour factor",
   "Speed km/h",
   "Windows",
+  "Distances",
 ] as const;
 
 /** Labels of the totals block. */
@@ -151,7 +152,15 @@ function settingsValues(run: RunRecord): FormattedRow {
     [s.detourFactor, F.factor],
     [s.speedKmh, null],
     [s.hardWindows ? "hard" : `soft, ${s.lateCostPerMin} per min late`, F.text],
+    [distancesText(run), F.text],
   ]);
+}
+
+/** Where the plan's kilometres come from: the road-distance matrix sheet, or great-circle times the detour factor. */
+function distancesText(run: RunRecord): string {
+  return run.matrixSource !== undefined
+    ? `road-distance matrix ${run.matrixSource}`
+    : `great-circle x ${run.settings.detourFactor} (estimate)`;
 }
 
 function totalsValues(plan: Plan): FormattedRow {

@@ -31,6 +31,8 @@ export interface ScenarioOutput {
   /** Where the input came from, e.g. "Stops!A1:N85". */
   readonly stopsSource: string;
   readonly fleetSource: string;
+  /** Where the road-distance matrix came from ("Km!A1:J11"), when one replaced great-circle distances. */
+  readonly matrixSource?: string;
 }
 
 /**
@@ -90,6 +92,7 @@ export async function writeScenarioResult(port: WorkbookPort, input: ScenarioOut
     runSeconds: input.runSeconds,
     stopsSource: input.stopsSource,
     fleetSource: input.fleetSource,
+    ...(input.matrixSource !== undefined ? { matrixSource: input.matrixSource } : {}),
   };
   const { problem, stopRows, extraHeaders } = input.read;
   const layout = layoutPlan({ problem, plan: input.result.plan, run, stopRows, extraHeaders });

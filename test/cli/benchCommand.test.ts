@@ -1,8 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { runBench } from "../../src/cli/benchCommand.js";
+import { main } from "../../src/cli/main.js";
 import type { CliIO } from "../../src/cli/CliIO.js";
 import { FIXTURES_DIR, fixtureText } from "../reference/benchmarksDir.js";
 import { checkSolomonPlan, readRawSolomon } from "../reference/solomonChecker.js";
+
+const runBench = (args: string[], io: CliIO): Promise<number> => main(["bench", ...args], io);
 
 function capture(): { io: CliIO; out: string[]; err: string[] } {
   const out: string[] = [];

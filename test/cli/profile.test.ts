@@ -1,6 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { acceptanceProbability } from "../../src/core/anneal/acceptanceProbability.js";
-import { runProfile } from "../../src/cli/profileCommand.js";
+import { main } from "../../src/cli/main.js";
+import type { CliIO } from "../../src/cli/CliIO.js";
+
+const runProfile = (args: string[], io: CliIO): Promise<number> => main(["profile", ...args], io);
 import { captureIO, demoCopy, withCell } from "../workbook/harness.js";
 import { join } from "node:path";
 

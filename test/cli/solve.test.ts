@@ -5,7 +5,11 @@ import { access, readFile, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { promisify } from "node:util";
 import { beforeAll, describe, expect, it } from "vitest";
-import { outputPath, runSolve } from "../../src/cli/solveCommand.js";
+import { main } from "../../src/cli/main.js";
+import { outputPath } from "../../src/cli/outputPath.js";
+import type { CliIO } from "../../src/cli/CliIO.js";
+
+const runSolve = (args: string[], io: CliIO): Promise<number> => main(["plan", ...args], io);
 import { COMPARE_SHEET } from "../../src/sheets/layoutCompare.js";
 import { captureIO, demoCopy, loadWithExcelJs, sheetValues, withCell } from "../workbook/harness.js";
 

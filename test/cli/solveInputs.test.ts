@@ -1,7 +1,10 @@
 import { readFile, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { runSolve } from "../../src/cli/solveCommand.js";
+import { main } from "../../src/cli/main.js";
+import type { CliIO } from "../../src/cli/CliIO.js";
+
+const runSolve = (args: string[], io: CliIO): Promise<number> => main(["plan", ...args], io);
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { captureIO, demoCopy } from "../workbook/harness.js";
 

@@ -3,10 +3,13 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
-import { runSolve } from "../../src/cli/solveCommand.js";
+import type { CliIO } from "../../src/cli/CliIO.js";
+import { main } from "../../src/cli/main.js";
 import { COMPARE_HEADER, COMPARE_SHEET } from "../../src/sheets/layoutCompare.js";
 import { TOTALS_LABELS } from "../../src/sheets/layoutPlan.js";
 import { captureIO, loadWithExcelJs, sheetValues } from "../workbook/harness.js";
+
+const runSolve = (args: string[], io: CliIO): Promise<number> => main(["plan", ...args], io);
 
 /**
  * Invented scenario: 12 stops of 100 kg around a depot (1 200 kg) and two 300 kg vans (600 kg),

@@ -3,7 +3,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import type { CorpusExpectation } from "../../scripts/corpusCases.js";
-import { runSolve } from "../../src/cli/solveCommand.js";
+import { main } from "../../src/cli/main.js";
 import { UNASSIGNED_HEADER } from "../../src/sheets/layoutPlan.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { findInputSheets } from "../../src/workbook/findInputSheets.js";
@@ -23,7 +23,7 @@ describe("corpus of bad and unusual workbooks (scripts/buildCorpus.ts): the comm
     await copyFile(new URL(c.file, import.meta.url), path);
     const out = join(dir, "out.xlsx");
     const cap = captureIO();
-    const code = await runSolve([path, "--moves", "3000", "--out", out], cap.io);
+    const code = await main(["plan", path, "--moves", "3000", "--out", out], cap.io);
     expect(code, cap.err()).toBe(c.expect.exit);
     for (const s of c.expect.stderr ?? []) expect(cap.err()).toContain(s);
     const warnings = cap

@@ -5,7 +5,7 @@ import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { settingFlags } from "../../src/cli/settingFlags.js";
-import { runSolve } from "../../src/cli/solveCommand.js";
+import { main } from "../../src/cli/main.js";
 import { parseSettingsSheet } from "../../src/sheets/parseSettingsSheet.js";
 import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
 import { scenarioSettingsKey } from "../../src/sheets/scenarioSettingsKey.js";
@@ -114,7 +114,7 @@ describe("one settings schema", () => {
     // Values at the edges of the ranges that the paths used to disagree on.
     const flags = ["--moves", "3000", "--seed", "0", "--detour", "2.5", "--schedule", "geometric", "--alpha", "0.3"];
     const cap = captureIO();
-    expect(await runSolve([path, ...flags, "--scenario", "Odd", "--out", out], cap.io)).toBe(0);
+    expect(await main(["plan", path, ...flags, "--scenario", "Odd", "--out", out], cap.io)).toBe(0);
     const book = await ExcelJsWorkbook.fromBuffer(await readFile(out));
     const stored = (await book.readSettings())[scenarioSettingsKey("Odd")];
     expect(stored).toBeDefined();

@@ -1,0 +1,145 @@
+import { writeFile } from "node:fs/promises";
+import type { Command } from "commander";
+import { type Plan, type Problem, type SolveOptions, solve } from "../core/index.js";
+import { CAUTION_TEXT } from "../sheets/caution.js";
+import { formatCooling } from "../sheets/formatCooling.js";
+import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
+import type { CliIO } from "./CliIO.js";
+import { formatIssue } from "./formatIssue.js";
+import { outputPath } from "./outputPath.js";
+import { prepareRun } from "./prepareRun.js";
+import { progressBar } from "./progressBar.js";
+import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptions.js";
+
+/** Declare `kiln plan` (alias `solve`, its name before 0.2) on the program. */
+export function declarePlan(program: Command, io: CliIO, exit: (code: number) => void): Command {
+  const cmd = program
+    .command("plan")
+    .alias("solve")
+    .summary("plan routes from a workbook's Stops and Fleet into a new workbook")
+    .description(
+      "Plan routes and write a new workbook: every original sheet, a new plan sheet and the Compare sheet.\n" +
+        "OUT defaults to WORKBOOK.plan.xlsx beside the input (then .plan-2, ...); the input is never overwritten.\n" +
+        "Exit 0 ok, 2 input errors, 1 anything else.",
+    )
+    .argument("<WORKBOOK.xlsx>", "the workbook with the Stops and Fleet sheets")
+    .option("--scenario <NAME>", "name of the plan sheet to write", "Plan")
+    .option("--out <OUT.xlsx>", "where to write the new workbook (never the input itself)");
+  addRunOptions(cmd);
+  cmd.action(async (workbook: string, opts: InputSheetOptions & { scenario: string; out?: string; softWindows?: boolean }) => {
+    exit(await runPlan(workbook, opts, givenSettings(cmd), io));
+  });
+  return cmd;
+}
+
+/**
+ * `kiln plan`: read the stops and fleet of a workbook (and a road-distance matrix when
+ * `--matrix` names one), plan, and write the input sheets unchanged plus a plan sheet and the
+ * Compare row into a new file.
+ *
+ * @param workbook - the WORKBOOK.xlsx argument
+ * @param opts - sheet options, `--scenario`, `--out`, `--soft-windows`
+ * @param settings - the setting options given, by flag
+ * @param io - output streams and clock
+ * @returns exit code: 0 ok, 2 input errors (one line each on stderr)
+ * @example await runPlan("demo/kiln-demo.xlsx", { scenario: "Plan" }, { moves: "20000" }, io) // => 0
+ */
+export async function runPlan(
+  workbook: string,
+  opts: InputSheetOptions & { scenario: string; out?: string; softWindows?: boolean },
+  settings: Readonly<Record<string, string>>,
+  io: CliIO,
+): Promise<number> {
+  const prepared = await prepareRun(workbook, opts, settings, opts.softWindows);
+  if ("errors" in prepared) return reportErrors(io, prepared.errors);
+  const { book, read, inputPath } = prepared;
+  const out = await outputPath(inputPath, opts.out);
+  if ("error" in out) return reportErrors(io, [out.error]);
+  for (const w of read.warnings) io.stderr(`warning: ${formatIssue(w)}\n`);
+  if (prepared.notKept.length > 0) {
+    io.stderr(
+      `warning: ${workbook} has ${prepared.notKept.join(", ")}; the new workbook keeps every sheet's cells but not these (the file library cannot write them). The input file itself is not changed.\n`,
+    );
+  }
+
+  const s = read.settings;
+  const bar = progressBar(io);
+  const started = io.now();
+  const options: Partial<SolveOptions> = {
+    seed: s.seed,
+    budget: s.moves !== undefined ? { moves: s.moves } : { seconds: s.seconds },
+    rule: s.rule,
+    cooling: s.cooling,
+    p0: s.p0,
+    pEnd: s.pEnd,
+    now: io.now,
+    onProgress: (p) => bar.update(p),
+  };
+  const result = solve(read.problem, options);
+  bar.done();
+  const runSeconds = (io.now() - started) / 1000;
+
+  const source = async (sheet: string): Promise<string> => sourceOf((await book.readSheet(sheet))!);
+  const matrixSource = prepared.sheets.matrix !== undefined ? await source(prepared.sheets.matrix) : undefined;
+  const { sheetName } = await writeScenarioResult(book, {
+    read,
+    result,
+    runSeconds,
+    scenario: opts.scenario,
+    createdAt: new Date(),
+    stopsSource: await source(prepared.sheets.stops),
+    fleetSource: await source(prepared.sheets.fleet),
+    ...(matrixSource !== undefined ? { matrixSource } : {}),
+  });
+  // An explicit --out may replace an existing file; the default path never does ("wx").
+  await writeFile(out.path, await book.toBuffer(), { flag: out.explicit ? "w" : "wx" });
+
+  const plan = result.plan;
+  const t = plan.totals;
+  const lines = [
+    `Wrote sheet "${sheetName}" and a Compare row to ${out.path}`,
+    `Vehicles used: ${t.vehiclesUsed} of ${read.problem.vehicles.length}`,
+    `Distance: ${t.distanceKm.toFixed(1)} km${matrixSource !== undefined ? ` (road distances from ${matrixSource})` : ""}`,
+    `Cost: ${t.cost.toFixed(2)}`,
+    `Unassigned: ${t.unassigned}${plan.unassigned.length ? ` (${plan.unassigned.map((u) => read.problem.stops[u.stop]?.id ?? u.stop).join(", ")})` : ""}`,
+    ...mustServeLines(read.problem, plan),
+    `Feasible: ${plan.feasible ? "yes" : plan.violations.length === 0 ? `no: ${t.mustServeUnassigned} must-serve stop(s) left out, every route keeps the rules` : "no"}`,
+    ...plan.violations.map((v) => `  ${v}`),
+    `Run: ${result.stats.moves} moves in ${runSeconds.toFixed(1)} s, seed ${s.seed}, ${formatCooling(s.cooling, s.rule)}`,
+  ];
+  if (book.skippedCharts.length > 0) {
+    lines.push("Route chart: not drawn in the file (exceljs cannot write charts); the Excel add-in draws it.");
+  }
+  lines.push(CAUTION_TEXT);
+  io.stdout(lines.join("\n") + "\n");
+  return 0;
+}
+
+/**
+ * The lines that tell a dispatcher that stops which must be served were left out, with each
+ * distinct reason once ("total demand 1 640 kg is more than the fleet's 900 kg; ...").
+ */
+function mustServeLines(problem: Problem, plan: Plan): string[] {
+  const n = plan.totals.mustServeUnassigned;
+  if (n === 0) return [];
+  const left = plan.unassigned.filter((u) => problem.stops[u.stop]?.unservedCost === undefined);
+  const reasons = new Map<string, string[]>();
+  for (const u of left) reasons.set(u.reason, [...(reasons.get(u.reason) ?? []), problem.stops[u.stop]?.id ?? String(u.stop)]);
+  return [
+    `MUST-SERVE STOPS LEFT OUT: ${n} (they have no Priority, so every one of them should be served):`,
+    ...[...reasons].map(([reason, ids]) => `  ${ids.join(", ")}: ${reason}`),
+  ];
+}
+
+/**
+ * Print each user error on its own line of stderr.
+ *
+ * @param io - output streams
+ * @param errors - the lines
+ * @returns 2, the exit code of input errors
+ * @example reportErrors(io, ["--seed: ..."]) // => 2
+ */
+export function reportErrors(io: CliIO, errors: readonly string[]): number {
+  for (const e of errors) io.stderr(e + "\n");
+  return 2;
+}

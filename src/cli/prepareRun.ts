@@ -1,0 +1,82 @@
+import { readFile } from "node:fs/promises";
+import { resolve } from "node:path";
+import type { ReadResult } from "../sheets/ReadResult.js";
+import { ExcelJsWorkbook } from "../workbook/exceljs/ExcelJsWorkbook.js";
+import { describeUnreadableWorkbook } from "../workbook/exceljs/unreadableWorkbook.js";
+import { partsNotKept } from "../workbook/exceljs/zipEntryNames.js";
+import { findInputSheets } from "../workbook/findInputSheets.js";
+import { readScenarioInput } from "../workbook/scenario.js";
+import { formatIssue } from "./formatIssue.js";
+import type { InputSheetOptions } from "./runOptions.js";
+import { applySchedule, settingFlags } from "./settingFlags.js";
+
+/** A workbook opened and read, ready to plan or profile. */
+export interface PreparedRun {
+  readonly book: ExcelJsWorkbook;
+  readonly inputPath: string;
+  readonly sheets: { readonly stops: string; readonly fleet: string; readonly settings?: string; readonly matrix?: string };
+  readonly read: ReadResult & { readonly ok: true };
+  /** What the input holds that a copy saved through exceljs loses ("charts", ...). */
+  readonly notKept: readonly string[];
+}
+
+/**
+ * Shared first steps of `plan` and `profile`: check the setting options with the settings schema,
+ * open the workbook, find the input sheets (and the matrix sheet, when named), read the problem
+ * and apply the schedule options. Never throws on user mistakes.
+ *
+ * @param workbook - the WORKBOOK.xlsx argument as typed
+ * @param sheets - the sheet options given
+ * @param settings - the setting options given, by flag (`givenSettings`)
+ * @param softWindows - `--soft-windows` was given
+ * @returns the prepared run, or every user error as one line each
+ * @example await prepareRun("demo/kiln-demo.xlsx", {}, { seed: "3" }) // => { book, read, ... }
+ */
+export async function prepareRun(
+  workbook: string,
+  sheets: InputSheetOptions,
+  settings: Readonly<Record<string, string>>,
+  softWindows = false,
+): Promise<PreparedRun | { errors: string[] }> {
+  const flags = settingFlags(settings, softWindows);
+  if (flags.errors.length > 0) return { errors: flags.errors };
+  const inputPath = resolve(workbook);
+  let bytes: Uint8Array;
+  try {
+    bytes = await readFile(inputPath);
+  } catch {
+    return { errors: [`${workbook}: cannot read the file; check the path`] };
+  }
+  let book: ExcelJsWorkbook;
+  try {
+    book = await ExcelJsWorkbook.fromBuffer(bytes);
+  } catch {
+    return { errors: [describeUnreadableWorkbook(bytes, workbook)] };
+  }
+  const errors: string[] = [];
+  const found = await findInputSheets(book);
+  const stops = sheets.stops ?? found.stops;
+  const fleet = sheets.fleet ?? found.fleet;
+  const settingsSheet = sheets.settings ?? found.settings;
+  const matrix = sheets.matrix;
+  if (!stops) errors.push(`${workbook}: no sheet named "Stops" and none with Latitude and Longitude headers; name it with --stops SHEET`);
+  if (!fleet) errors.push(`${workbook}: no sheet named "Fleet" and none with Vehicle or Capacity headers; name it with --fleet SHEET`);
+  if (!stops || !fleet) return { errors };
+  const read = await readScenarioInput(book, {
+    stopsSheet: stops,
+    fleetSheet: fleet,
+    ...(settingsSheet ? { settingsSheet } : {}),
+    ...(matrix ? { matrixSheet: matrix } : {}),
+    overrides: flags.overrides,
+  });
+  if (!read.ok) return { errors: read.issues.map(formatIssue) };
+  const cooling = applySchedule(read.settings.cooling, flags.schedule);
+  if ("errors" in cooling) return { errors: cooling.errors };
+  return {
+    book,
+    inputPath,
+    notKept: partsNotKept(bytes),
+    sheets: { stops, fleet, ...(settingsSheet ? { settings: settingsSheet } : {}), ...(matrix ? { matrix } : {}) },
+    read: { ...read, settings: { ...read.settings, cooling: cooling.spec } },
+  };
+}

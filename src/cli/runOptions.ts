@@ -1,0 +1,94 @@
+/**
+ * The options of the commands that read a workbook (`plan`, `profile`), declared once each with
+ * their help text: the input sheets, then every plan setting of `SETTING_FIELDS` (range and
+ * default in the help come from the one settings schema).
+ */
+import { Option, type Command } from "commander";
+import { PLAN_SETTINGS_DEFAULTS } from "../sheets/PlanSettings.js";
+import { SETTING_FIELDS, rangeText, type SettingKey } from "../sheets/settingFields.js";
+import { RUN_SETTING_KEYS } from "./settingFlags.js";
+
+/** Options that name input sheets (commander attribute name -> flag). */
+export interface InputSheetOptions {
+  readonly stops?: string;
+  readonly fleet?: string;
+  readonly settings?: string;
+  readonly matrix?: string;
+}
+
+/** The sheet options of a workbook command. */
+const SHEET_OPTIONS: readonly [flag: keyof InputSheetOptions, help: string][] = [
+  ["stops", 'sheet with the stops (default: the sheet named "Stops", or one with Latitude and Longitude headers)'],
+  ["fleet", 'sheet with the vehicles (default: the sheet named "Fleet", or one with Vehicle or Capacity headers)'],
+  ["settings", 'sheet of Setting | Value rows (default: the sheet named "Settings", if any); options below win over it'],
+  ["matrix", "sheet with a road-distance matrix in km (first row and column name the locations) used instead of great-circle distances"],
+];
+
+function defaultText(key: SettingKey): string {
+  const d = PLAN_SETTINGS_DEFAULTS;
+  switch (key) {
+    case "windows":
+      return d.hardWindows ? "hard" : "soft";
+    case "schedule":
+      return "time-based";
+    case "alpha":
+      return "0.94";
+    case "steps":
+      return "20";
+    case "moves":
+    case "movesPerLevel":
+    case "beta":
+    case "t0":
+    case "tEnd":
+      return "";
+    default:
+      return String(d[key as keyof typeof d]);
+  }
+}
+
+/**
+ * Declare the sheet options and the plan-setting options on a command.
+ *
+ * @param cmd - a commander command
+ * @returns the command, for chaining
+ * @example addRunOptions(program.command("plan"))
+ */
+export function addRunOptions(cmd: Command): Command {
+  for (const [flag, help] of SHEET_OPTIONS) cmd.addOption(new Option(`--${flag} <SHEET>`, help));
+  for (const key of RUN_SETTING_KEYS) {
+    const f = SETTING_FIELDS[key];
+    const d = defaultText(key);
+    cmd.addOption(new Option(`--${f.flag} <${f.valueName}>`, `${f.label}: ${f.help}; ${rangeText(f)}${d ? ` (default ${d})` : ""}`));
+  }
+  cmd.addOption(new Option("--soft-windows", "same as --windows soft"));
+  return cmd;
+}
+
+/**
+ * The setting options the user gave, by flag name (as `settingFlags` takes them).
+ *
+ * @param cmd - the command after parsing
+ * @returns option texts by flag, only those given
+ * @example givenSettings(cmd) // => { detour: "1.5", seed: "7" }
+ */
+export function givenSettings(cmd: Command): Record<string, string> {
+  const opts = cmd.opts<Record<string, unknown>>();
+  const out: Record<string, string> = {};
+  for (const key of RUN_SETTING_KEYS) {
+    const flag = SETTING_FIELDS[key].flag;
+    const value = opts[attributeName(flag)];
+    if (typeof value === "string") out[flag] = value;
+  }
+  return out;
+}
+
+/**
+ * Commander's attribute name of a long option ("late-cost" -> "lateCost").
+ *
+ * @param flag - the option name without dashes
+ * @returns the key in `cmd.opts()`
+ * @example attributeName("soft-windows") // => "softWindows"
+ */
+export function attributeName(flag: string): string {
+  return flag.replace(/-([a-z])/g, (_, c: string) => c.toUpperCase());
+}
