@@ -79,7 +79,10 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
       "Detour factor",
       "Speed km/h",
       "Windows",
+      "Distances",
     ]);
+    // Without a matrix sheet the kilometres are the great-circle estimate times the detour factor.
+    expect(values[3]![12]).toBe("great-circle x 1.3 (estimate)");
     expect(values[3]!.slice(0, 12)).toEqual([
       "-Tuesday late",
       CREATED_SERIAL,
