@@ -48,15 +48,16 @@ export async function runProfileOf(
   if ("errors" in prepared) return reportErrors(io, prepared.errors);
   const { read } = prepared;
   const s = read.settings;
-  const sample = sampleMeanUphill(read.problem, { seed: s.seed, samples: SOLVE_DEFAULTS.calibrationSamples });
+  const sample = sampleMeanUphill(read.problem, { seed: s.seed, samples: SOLVE_DEFAULTS.calibrationSamples, now: io.now });
   if (!(sample.meanUphill > 0)) {
     io.stdout(`No uphill move found among the sampled moves (seed ${s.seed}): there is no cost change to calibrate the temperature on.\n`);
     return 0;
   }
-  // A seconds budget has no move count until the run: the table then assumes the default budget.
-  const defaultBudget = SOLVE_DEFAULTS.budget;
-  const budgetMoves = s.moves ?? ("moves" in defaultBudget ? defaultBudget.moves : 2_000_000);
-  const assumed = s.moves === undefined;
+  // A seconds budget has no move count until the run: the table expects the moves per second
+  // measured on this problem by a short timed burst.
+  const rate = sample.movesPerSecond ?? 0;
+  const budgetMoves = s.moves ?? Math.max(1, Math.round(rate * s.seconds));
+  const expected = s.moves === undefined;
   const points = profile(s.cooling, s.rule, sample.meanUphill, budgetMoves, {
     p0: s.p0,
     pEnd: s.pEnd,
@@ -66,9 +67,9 @@ export async function runProfileOf(
   const { t0, tEnd } = calibrateTemperatures(sample.meanUphill, s.rule, s.p0, s.pEnd, sample.uphill);
   const lines = [
     `Mean uphill change: ${sample.meanUphill.toPrecision(4)} (cost units, from ${sample.samples} uphill moves sampled from the first plan, seed ${s.seed})`,
-    `Schedule: ${formatCooling(s.cooling, s.rule)}; calibrated T0 ${t0.toPrecision(4)}, T end ${tEnd.toPrecision(4)} (p0 ${s.p0}, p end ${s.pEnd})`,
-    assumed
-      ? `Moves: ${budgetMoves} assumed (the run is bounded by ${s.seconds} s; pass --moves K for an exact table)`
+    `Schedule: ${formatCooling(s.cooling, s.rule, s)}; calibrated T0 ${t0.toPrecision(4)}, T end ${tEnd.toPrecision(4)} (p0 ${s.p0}, p end ${s.pEnd})`,
+    expected
+      ? `Moves: about ${budgetMoves} expected in ${s.seconds} s (${formatRate(rate)} measured on this problem; pass --moves K for an exact table)`
       : `Moves: ${budgetMoves}`,
     "",
     ...profileTable(points),
@@ -93,4 +94,8 @@ export function profileTable(points: readonly ProfilePoint[]): string[] {
     row(["fraction", "moves", "T", "P(accept)"]),
     ...points.map((p) => row([p.fraction.toFixed(3), String(p.moves), p.temperature.toPrecision(4), p.pAccept.toPrecision(4)])),
   ];
+}
+
+function formatRate(movesPerSecond: number): string {
+  return `${(movesPerSecond / 1e6).toPrecision(3)} M moves/s`;
 }

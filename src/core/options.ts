@@ -19,11 +19,15 @@ export type CoolingSpec =
    * T <- alpha * T every `movesPerLevel` moves. Without `movesPerLevel` the levels are spread
    * evenly over the run (moves or seconds) so that T reaches tEnd at its end.
    */
-  | { readonly kind: "geometric"; readonly alpha: number; readonly movesPerLevel?: number; readonly t0?: number; readonly tEnd?: number }
+  /** Without `alpha` but with `movesPerLevel`, alpha is fitted so that T reaches tEnd at the end of the budget. */
+  | { readonly kind: "geometric"; readonly alpha?: number; readonly movesPerLevel?: number; readonly t0?: number; readonly tEnd?: number }
   /** T falls linearly from t0 to tEnd in `steps` equal steps, each held for budget/steps moves. */
   | { readonly kind: "linear"; readonly steps: number; readonly t0?: number; readonly tEnd?: number }
-  /** Lundy & Mees (1986): T <- T / (1 + beta * T) every move. */
-  | { readonly kind: "lundyMees"; readonly beta: number; readonly t0?: number }
+  /**
+   * Lundy & Mees (1986): T <- T / (1 + beta * T) every move. Without `beta`, beta is fitted so that
+   * T reaches tEnd at the end of the budget: 1/tEnd = 1/t0 + M beta for M moves.
+   */
+  | { readonly kind: "lundyMees"; readonly beta?: number; readonly t0?: number; readonly tEnd?: number }
   /** T(f) = t0 * (tEnd / t0)^f with f the fraction of the budget (moves or seconds) used. */
   | { readonly kind: "timeFraction"; readonly t0?: number; readonly tEnd?: number };
 
@@ -75,12 +79,14 @@ export interface SolveOptions {
   readonly signal?: AbortFlag;
 }
 
+/** The geometric factor when neither it nor moves per level is given: 0.94 is a usual choice (common practice). */
+export const GEOMETRIC_ALPHA = 0.94;
+
 /** Defaults of `SolveOptions`. Values are common practice unless a source is named. */
 export const SOLVE_DEFAULTS: Omit<SolveOptions, "now" | "onProgress" | "signal"> = {
   seed: 1,
   budget: { moves: 2_000_000 },
   rule: "metropolis",
-  // A geometric factor of 0.94 is a usual choice (common practice).
   cooling: { kind: "timeFraction" },
   p0: 0.5,
   pEnd: 0.001,

@@ -60,7 +60,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   const o: SolveOptions = { ...SOLVE_DEFAULTS, ...options };
   const now = o.now;
   const startedAt = now ? now() : 0;
-  const run = prepareRun(problem, o);
+  const run = prepareRun(problem, o, startedAt);
   const { cp, rng, nb, state, active, cooling, t0, tEnd, budgetMoves, seconds } = run;
 
   const best = new BestPlan(problem, cp);
@@ -163,7 +163,18 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
       const plan = keepHardRules(problem, best.plan());
       return {
         plan,
-        stats: { moves, evaluations, elapsedMs, t0, tEnd, meanUphill: run.meanUphill, accepted, feasibleFound: best.feasibleFound },
+        stats: {
+          moves,
+          evaluations,
+          elapsedMs,
+          t0,
+          tEnd,
+          meanUphill: run.meanUphill,
+          accepted,
+          feasibleFound: best.feasibleFound,
+          cooling,
+          ...(run.movesPerSecond === undefined ? {} : { measuredMovesPerSecond: run.movesPerSecond }),
+        },
       };
     },
   };

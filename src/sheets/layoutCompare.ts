@@ -65,7 +65,7 @@ export function layoutCompareRow(run: RunRecord, plan: Plan): SheetGrid {
     [roundTo(t.lateMin, 1), F.minutes],
     [t.unassigned, F.integer],
     [t.mustServeUnassigned, F.integer],
-    [formatCooling(run.settings.cooling, run.settings.rule), F.text],
+    [formatCooling(run.settings.cooling, run.settings.rule, run.settings), F.text],
     [run.settings.seed, null],
     [run.createdSerial, F.dateTime],
   ];

@@ -143,7 +143,7 @@ function settingsValues(run: RunRecord): FormattedRow {
     [run.scenario, F.text],
     [run.createdSerial, F.dateTime],
     [s.seed, null],
-    [formatCooling(s.cooling), F.text],
+    [formatCooling(s.cooling, undefined, s), F.text],
     [formatRule(s.rule), F.text],
     [run.moves, F.integer],
     [roundTo(run.runSeconds, 1), F.minutes],

@@ -322,9 +322,9 @@ export type ScheduleParameter = (typeof SCHEDULE_PARAMETERS)[number];
 
 /** Which parameters each schedule uses. */
 export const PARAMETERS_OF: Readonly<Record<keyof typeof SCHEDULE_NAMES, readonly ScheduleParameter[]>> = {
-  geometric: ["alpha", "movesPerLevel", "t0"],
+  geometric: ["alpha", "movesPerLevel", "t0", "tEnd"],
   linear: ["steps", "t0", "tEnd"],
-  lundyMees: ["beta", "t0"],
+  lundyMees: ["beta", "t0", "tEnd"],
   timeFraction: ["t0", "tEnd"],
 };
 

@@ -4,7 +4,7 @@
  * Messages name the setting and the accepted range; callers add only where (cell, flag, field).
  */
 import { z } from "zod";
-import type { CoolingSpec } from "../core/index.js";
+import { GEOMETRIC_ALPHA, type CoolingSpec } from "../core/index.js";
 import { plainCell, readNumber, shownValue } from "./cellValue.js";
 import { headerWords } from "./matchHeaders.js";
 import { parseDuration } from "./parseDuration.js";
@@ -21,7 +21,7 @@ import {
 } from "./settingFields.js";
 
 /** Geometric factor 0.94 (common practice); no moves per level: the levels then fit the run. */
-export const GEOMETRIC_DEFAULTS = { alpha: 0.94, movesPerLevel: undefined } as const;
+export const GEOMETRIC_DEFAULTS = { alpha: GEOMETRIC_ALPHA, movesPerLevel: undefined } as const;
 /** Number of levels of the linear schedule when none is given. */
 export const LINEAR_DEFAULT_STEPS = 20;
 
@@ -38,13 +38,13 @@ const n = (key: SettingKey): z.ZodNumber => numberSchema(SETTING_FIELDS[key] as 
 export const coolingSchema = z.discriminatedUnion("kind", [
   z.object({
     kind: z.literal("geometric"),
-    alpha: n("alpha"),
+    alpha: n("alpha").optional(),
     movesPerLevel: n("movesPerLevel").optional(),
     t0: n("t0").optional(),
     tEnd: n("tEnd").optional(),
   }),
   z.object({ kind: z.literal("linear"), steps: n("steps"), t0: n("t0").optional(), tEnd: n("tEnd").optional() }),
-  z.object({ kind: z.literal("lundyMees"), beta: n("beta"), t0: n("t0").optional() }),
+  z.object({ kind: z.literal("lundyMees"), beta: n("beta").optional(), t0: n("t0").optional(), tEnd: n("tEnd").optional() }),
   z.object({ kind: z.literal("timeFraction"), t0: n("t0").optional(), tEnd: n("tEnd").optional() }),
 ]);
 
@@ -154,26 +154,29 @@ export function buildCooling(
   const opt = <T extends object>(o: T): T => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as T;
   let spec: CoolingSpec | undefined;
   switch (kind) {
-    case "geometric":
-      spec = opt({ kind, alpha: get("alpha") ?? GEOMETRIC_DEFAULTS.alpha, movesPerLevel: get("movesPerLevel"), t0 });
+    case "geometric": {
+      // Moves per level without a factor: the factor is fitted to reach T end at the end of the run.
+      const movesPerLevel = get("movesPerLevel");
+      spec = opt({
+        kind,
+        alpha: get("alpha") ?? (movesPerLevel === undefined ? GEOMETRIC_DEFAULTS.alpha : undefined),
+        movesPerLevel,
+        t0,
+        tEnd,
+      });
       break;
+    }
     case "linear":
       spec = opt({ kind, steps: get("steps") ?? LINEAR_DEFAULT_STEPS, t0, tEnd });
       break;
-    case "lundyMees": {
-      const beta = get("beta");
-      if (beta === undefined)
-        problems.push({
-          key: "schedule",
-          message: `the ${SCHEDULE_NAMES.lundyMees} schedule needs Beta (${rangeText(SETTING_FIELDS.beta)}); give it or choose another schedule.`,
-        });
-      else spec = opt({ kind, beta, t0 });
+    case "lundyMees":
+      // Without Beta, beta is fitted to reach T end at the end of the run.
+      spec = opt({ kind, beta: get("beta"), t0, tEnd });
       break;
-    }
     case "timeFraction":
       spec = opt({ kind, t0, tEnd });
   }
-  if (spec && (spec.kind === "linear" || spec.kind === "timeFraction")) problems.push(...temperatureProblems(spec));
+  if (spec) problems.push(...temperatureProblems(spec));
   return problems.length > 0 || spec === undefined ? { problems } : { spec };
 }
 

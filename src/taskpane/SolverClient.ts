@@ -72,16 +72,23 @@ export class SolverClient {
    *
    * @param problem - the problem
    * @param seed - seed of the sampling
-   * @returns the mean uphill change (cost units) and the number of samples
+   * @returns the mean uphill change (cost units), the number of samples and the moves per second
+   *   measured on this problem
    * @throws WorkerError (as a rejected promise) when the problem has defects
    */
-  sample(problem: Problem, seed: number | string): Promise<{ meanUphill: number; samples: number; uphill: readonly number[] }> {
+  sample(
+    problem: Problem,
+    seed: number | string,
+  ): Promise<{ meanUphill: number; samples: number; uphill: readonly number[]; movesPerSecond?: number }> {
     const requestId = this.nextId++;
     return new Promise<FromWorker>((resolve, reject) => {
       this.requests.set(requestId, { resolve, reject });
       this.post({ type: "sample", requestId, problem, seed });
     }).then((m) => {
-      if (m.type === "sampled") return { meanUphill: m.meanUphill, samples: m.samples, uphill: m.uphill };
+      if (m.type === "sampled") {
+        const { meanUphill, samples, uphill, movesPerSecond } = m;
+        return movesPerSecond === undefined ? { meanUphill, samples, uphill } : { meanUphill, samples, uphill, movesPerSecond };
+      }
       if (m.type === "error") throw new WorkerError(m.message, m.issues);
       throw new Error(`Unexpected reply ${m.type} to a sample request`);
     });

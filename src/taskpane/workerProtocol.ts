@@ -44,6 +44,8 @@ export type FromWorker =
       readonly meanUphill: number;
       readonly samples: number;
       readonly uphill: readonly number[];
+      /** Moves per second measured by a timed burst on this problem (see `measureMoveRate`). */
+      readonly movesPerSecond?: number;
     }
   | {
       readonly type: "error";
@@ -168,6 +170,7 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
           const issues = safeValidate(msg.problem);
           if (issues.length > 0) return fail(ids, "The problem has defects; nothing was sampled.", issues);
           const sampled = sampleMeanUphill(msg.problem, {
+            now: deps.now,
             ...(msg.seed !== undefined ? { seed: msg.seed } : {}),
             ...(msg.samples !== undefined ? { samples: msg.samples } : {}),
           });

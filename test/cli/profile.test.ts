@@ -51,11 +51,14 @@ describe("kiln profile", () => {
     expect(rows[0]!.p).toBeLessThanOrEqual(0.5);
   });
 
-  it("says when the move count is assumed because the run is bounded by seconds", async () => {
+  it("expects the move count of a seconds run from the speed measured on the problem", async () => {
     const { path } = await demoCopy();
     const cap = captureIO();
     expect(await runProfile([path, "--seconds", "5"], cap.io)).toBe(0);
-    expect(cap.out()).toMatch(/assumed \(the run is bounded by 5 s/);
+    const m = /Moves: about (\d+) expected in 5 s \(([\d.]+) M moves\/s measured on this problem/.exec(cap.out());
+    expect(m).not.toBeNull();
+    // The count is the measured rate times the seconds (the rate is printed to 3 digits).
+    expect(Number(m![1]) / 5 / 1e6).toBeCloseTo(Number(m![2]), 1);
   });
 
   it("exits 2 and names the cell on bad input", async () => {

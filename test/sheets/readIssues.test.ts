@@ -210,14 +210,15 @@ describe("readProblem reports defects by sheet and cell", () => {
     expectIssue(list, "Settings", "E8", "hard, soft");
   });
 
-  it("schedule parameters that do not fit, and Lundy-Mees without Beta", () => {
+  it("schedule parameters that do not fit", () => {
     const settings = sheet("Settings", [
       ["Schedule", "Lundy-Mees"],
       ["Alpha", 0.9],
     ]);
     const list = issues(read([OK_STOP], [OK_VAN], { settings }));
     expectIssue(list, "Settings", "B2", "Alpha does not apply to the Lundy-Mees schedule; clear it or choose the Geometric schedule.");
-    expectIssue(list, "Settings", "B1", "the Lundy-Mees schedule needs Beta");
+    // Lundy-Mees without Beta is no longer an issue: beta is fitted to the run's budget.
+    expect(list.filter((i) => /Beta/.test(i.message))).toEqual([]);
   });
 
   it("a matrix sheet missing a location or holding a bad distance", () => {

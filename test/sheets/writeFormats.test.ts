@@ -38,14 +38,28 @@ describe("roundTo", () => {
 });
 
 describe("formatCooling", () => {
-  it("writes each schedule short, with the rule after a comma", () => {
+  it("writes each schedule in words, with the rule after a comma", () => {
     expect(formatCooling({ kind: "geometric", alpha: 0.94, movesPerLevel: 1000 }, "metropolis")).toBe(
-      "geometric a=0.94 L=1000, Metropolis",
+      "geometric ×0.94 every 1000 moves, Metropolis",
     );
-    expect(formatCooling({ kind: "linear", steps: 50, t0: 12.3456, tEnd: 0.01 })).toBe("linear steps=50 T0=12.35 Tend=0.01");
-    expect(formatCooling({ kind: "lundyMees", beta: 0.0001 }, "logistic")).toBe("Lundy-Mees b=0.0001, logistic (Barker)");
-    expect(formatCooling({ kind: "timeFraction" })).toBe("time-fraction");
-    expect(formatCooling({ kind: "geometric", alpha: 0.9, movesPerLevel: 123457 })).toBe("geometric a=0.9 L=123457");
+    expect(formatCooling({ kind: "linear", steps: 50, t0: 12.3456, tEnd: 0.01 })).toBe("linear in 50 steps, T0 12.35 → 0.01");
+    expect(formatCooling({ kind: "lundyMees", beta: 0.0001 }, "logistic")).toBe("Lundy-Mees β=0.0001, logistic (Barker)");
+    expect(formatCooling({ kind: "timeFraction" })).toBe("time-based");
+    expect(formatCooling({ kind: "geometric", alpha: 0.9, movesPerLevel: 123457 })).toBe("geometric ×0.9 every 123457 moves");
+  });
+  it("names the calibrated ends by the acceptance they aim at, only where the schedule reaches them", () => {
+    const acc = { p0: 0.5, pEnd: 0.001 };
+    expect(formatCooling({ kind: "timeFraction" }, undefined, acc)).toBe("time-based, acceptance 0.50 → 0.001");
+    expect(formatCooling({ kind: "lundyMees" }, "metropolis", acc)).toBe(
+      "Lundy-Mees β fitted to the run, acceptance 0.50 → 0.001, Metropolis",
+    );
+    // A typed beta sets the end itself: only the start is calibrated.
+    expect(formatCooling({ kind: "lundyMees", beta: 1e-4 }, undefined, acc)).toBe("Lundy-Mees β=0.0001, acceptance from 0.50");
+    expect(formatCooling({ kind: "geometric", movesPerLevel: 500 }, undefined, acc)).toBe(
+      "geometric factor fitted to the run every 500 moves, acceptance 0.50 → 0.001",
+    );
+    expect(formatCooling({ kind: "timeFraction", t0: 40 }, undefined, acc)).toBe("time-based, T0 40, acceptance to 0.001");
+    expect(formatCooling({ kind: "linear", steps: 5, t0: 40, tEnd: 1 }, undefined, acc)).toBe("linear in 5 steps, T0 40 → 1");
   });
   it("throws TypeError on an unknown schedule or rule", () => {
     expect(() => formatCooling({ kind: "cosine" } as never)).toThrow(TypeError);

@@ -1,4 +1,4 @@
-import type { CoolingSpec } from "../options.js";
+import { GEOMETRIC_ALPHA, type CoolingSpec } from "../options.js";
 
 /** A cooling schedule with every number fixed, ready for `temperatureAt`. */
 export type ResolvedCooling =
@@ -28,22 +28,29 @@ export function resolveCooling(
   if (!(t0 > 0)) throw new RangeError(`t0 must be > 0, got ${t0}`);
   switch (spec.kind) {
     case "geometric": {
-      if (!(spec.alpha > 0 && spec.alpha < 1)) throw new RangeError(`alpha must be in (0, 1), got ${spec.alpha}`);
       const tEnd = positive(spec.tEnd ?? t.tEnd, "tEnd");
+      if (spec.movesPerLevel !== undefined && !(spec.movesPerLevel >= 1))
+        throw new RangeError(`movesPerLevel must be >= 1, got ${spec.movesPerLevel}`);
+      const movesPerLevel = spec.movesPerLevel === undefined ? undefined : Math.floor(spec.movesPerLevel);
+      const alpha =
+        spec.alpha ?? (movesPerLevel === undefined ? GEOMETRIC_ALPHA : alphaToReach(t0, Math.min(t0, tEnd), movesPerLevel, budget(t)));
+      if (!(alpha > 0 && alpha <= 1) || (spec.alpha !== undefined && alpha === 1))
+        throw new RangeError(`alpha must be in (0, 1), got ${alpha}`);
       // Levels needed to fall from t0 to tEnd; at least one so that a hot tEnd still cools a little.
-      const levels = Math.max(1, Math.ceil(Math.log(Math.min(1, tEnd / t0)) / Math.log(spec.alpha)));
-      if (spec.movesPerLevel === undefined) return { kind: "geometric", t0, alpha: spec.alpha, levels };
-      if (!(spec.movesPerLevel >= 1)) throw new RangeError(`movesPerLevel must be >= 1, got ${spec.movesPerLevel}`);
-      return { kind: "geometric", t0, alpha: spec.alpha, movesPerLevel: Math.floor(spec.movesPerLevel), levels };
+      const levels = alpha === 1 ? 1 : Math.max(1, Math.ceil(Math.log(Math.min(1, tEnd / t0)) / Math.log(alpha)));
+      if (movesPerLevel === undefined) return { kind: "geometric", t0, alpha, levels };
+      return { kind: "geometric", t0, alpha, movesPerLevel, levels };
     }
     case "linear": {
       const tEnd = positive(spec.tEnd ?? t.tEnd, "tEnd");
       if (!(spec.steps >= 1)) throw new RangeError(`steps must be >= 1, got ${spec.steps}`);
       return { kind: "linear", t0, tEnd, steps: Math.floor(spec.steps) };
     }
-    case "lundyMees":
-      if (!(spec.beta > 0)) throw new RangeError(`beta must be > 0, got ${spec.beta}`);
-      return { kind: "lundyMees", t0, beta: spec.beta };
+    case "lundyMees": {
+      const beta = spec.beta ?? betaToReach(t0, Math.min(t0, positive(spec.tEnd ?? t.tEnd, "tEnd")), budget(t));
+      if (!(beta >= 0) || (spec.beta !== undefined && !(beta > 0))) throw new RangeError(`beta must be > 0, got ${beta}`);
+      return { kind: "lundyMees", t0, beta };
+    }
     case "timeFraction":
       return { kind: "timeFraction", t0, tEnd: positive(spec.tEnd ?? t.tEnd, "tEnd") };
   }
@@ -105,6 +112,12 @@ export function alphaToReach(t0: number, tEnd: number, movesPerLevel: number, bu
  */
 export function betaToReach(t0: number, tEnd: number, budgetMoves: number): number {
   return (t0 - tEnd) / (Math.max(1, budgetMoves) * t0 * tEnd);
+}
+
+/** The move budget a fitted parameter is fitted to (a seconds budget passes its expected moves). */
+function budget(t: { readonly budgetMoves: number }): number {
+  if (!(t.budgetMoves >= 1)) throw new RangeError(`a fitted schedule parameter needs a move budget >= 1, got ${t.budgetMoves}`);
+  return t.budgetMoves;
 }
 
 function positive(value: number, name: string): number {

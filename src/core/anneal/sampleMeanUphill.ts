@@ -6,7 +6,9 @@ import { SOLVE_DEFAULTS } from "../options.js";
 import { compileProblem } from "../schedule/compileProblem.js";
 import { validateProblem } from "../validateProblem.js";
 import { createRandom } from "./createRandom.js";
+import { calibrateTemperatures } from "./calibrateTemperatures.js";
 import { initialWeights } from "./initialWeights.js";
+import { measureMoveRate } from "./measureMoveRate.js";
 import { sampleUphill } from "./sampleUphill.js";
 
 /**
@@ -16,16 +18,18 @@ import { sampleUphill } from "./sampleUphill.js";
  * polishes the first plan by a short descent before sampling, so its figure can differ a little.
  *
  * @param problem - a problem without `validateProblem` issues
- * @param options - seed (default 1) and number of sampled moves (default 300)
- * @returns the mean uphill change in cost units, how many uphill moves it averages, and those
- *   changes (`uphill`, for calibrating the end temperature as a run does)
+ * @param options - seed (default 1), number of sampled moves (default 300), and a clock: with
+ *   `now`, a short timed burst also measures the moves per second a run would make
+ * @returns the mean uphill change in cost units, how many uphill moves it averages, those
+ *   changes (`uphill`, for calibrating the end temperature as a run does) and, with `now`, the
+ *   measured moves per second
  * @throws RangeError when the problem has issues or samples is not a positive integer
  * @example sampleMeanUphill(problem, { seed: 1 }) // => { meanUphill: 41.7, samples: 300, uphill: [12.5, ...] }
  */
 export function sampleMeanUphill(
   problem: Problem,
-  options: { seed?: number | string; samples?: number } = {},
-): { meanUphill: number; samples: number; uphill: number[] } {
+  options: { seed?: number | string; samples?: number; now?: () => number } = {},
+): { meanUphill: number; samples: number; uphill: number[]; movesPerSecond?: number } {
   const samples = options.samples ?? SOLVE_DEFAULTS.calibrationSamples;
   if (!(Number.isInteger(samples) && samples >= 1)) throw new RangeError(`samples must be a positive integer, got ${samples}`);
   const issues = validateProblem(problem);
@@ -37,5 +41,10 @@ export function sampleMeanUphill(
   constructPlan(state, nb);
   if (cp.hierarchical) state.vehicleWeight = 2 * (state.realCost() + Math.abs(state.total())) + 1;
   const active = Int32Array.from(Array.from({ length: cp.n }, (_, s) => s).filter((s) => !cp.unservableReason[s]));
-  return sampleUphill(state, nb, createRandom(options.seed ?? SOLVE_DEFAULTS.seed), samples, active);
+  const seed = options.seed ?? SOLVE_DEFAULTS.seed;
+  const sampled = sampleUphill(state, nb, createRandom(seed), samples, active);
+  if (!options.now) return sampled;
+  const { t0 } = calibrateTemperatures(sampled.meanUphill, SOLVE_DEFAULTS.rule, SOLVE_DEFAULTS.p0, SOLVE_DEFAULTS.pEnd, sampled.uphill);
+  const movesPerSecond = measureMoveRate(state, nb, active, { seed, now: options.now, rule: SOLVE_DEFAULTS.rule, temperature: t0 });
+  return movesPerSecond === undefined ? sampled : { ...sampled, movesPerSecond };
 }

@@ -1,6 +1,7 @@
 import { calibrateTemperatures } from "../anneal/calibrateTemperatures.js";
 import { createRandom, type Random } from "../anneal/createRandom.js";
 import { initialWeights } from "../anneal/initialWeights.js";
+import { measureMoveRate } from "../anneal/measureMoveRate.js";
 import { resolveCooling, temperatureAt, type ResolvedCooling } from "../anneal/resolveCooling.js";
 import { sampleUphill } from "../anneal/sampleUphill.js";
 import { constructPlan } from "../construct/constructPlan.js";
@@ -31,6 +32,12 @@ export interface PreparedRun {
   readonly meanUphill: number;
   /** Budget as moves or seconds (one of them). */
   readonly budgetMoves: number | undefined;
+  /**
+   * Moves per second measured by a timed burst before a seconds run (undefined for a move
+   * budget, where the count is known); the run's move count is expected to be this times the
+   * seconds left, and schedules that count moves are fitted to that count.
+   */
+  readonly movesPerSecond: number | undefined;
   readonly seconds: number | undefined;
 }
 
@@ -40,10 +47,11 @@ export interface PreparedRun {
  *
  * @param problem - a problem without `validateProblem` issues
  * @param o - complete options
+ * @param startedAt - when the run started by `o.now` (a seconds budget counts from there)
  * @returns the run's state and schedule
  * @throws RangeError when the problem has issues; TypeError when a seconds budget comes without `now`
  */
-export function prepareRun(problem: Problem, o: SolveOptions): PreparedRun {
+export function prepareRun(problem: Problem, o: SolveOptions, startedAt = o.now ? o.now() : 0): PreparedRun {
   const issues = validateProblem(problem);
   if (issues.length > 0) {
     throw new RangeError(`problem has ${issues.length} issue(s); first: ${issues[0]!.sheet}!${issues[0]!.cell}: ${issues[0]!.message}`);
@@ -67,8 +75,16 @@ export function prepareRun(problem: Problem, o: SolveOptions): PreparedRun {
   descend(state, nb, rng, active, DESCENT_MOVES_PER_STOP * active.length);
   const cal = sampleUphill(state, nb, rng, o.calibrationSamples, active);
   const temps = calibrateTemperatures(cal.meanUphill, o.rule, o.p0, o.pEnd, cal.uphill);
-  const cooling = resolveCooling(o.cooling, { ...temps, budgetMoves: budgetMoves ?? 0 });
+  let movesPerSecond: number | undefined;
+  let expectedMoves = budgetMoves ?? 0;
+  if (seconds !== undefined) {
+    const rateOptions = { seed: o.seed, now: o.now!, rule: o.rule, temperature: temps.t0 };
+    movesPerSecond = measureMoveRate(state, nb, active, rateOptions);
+    const secondsLeft = Math.max(0, seconds - (o.now!() - startedAt) / 1000);
+    expectedMoves = Math.max(1, Math.round((movesPerSecond ?? 0) * secondsLeft));
+  }
+  const cooling = resolveCooling(o.cooling, { ...temps, budgetMoves: expectedMoves });
   const t0 = cooling.t0;
-  const tEnd = "tEnd" in cooling ? cooling.tEnd : temperatureAt(cooling, budgetMoves ?? 0, 1);
-  return { cp, rng, nb, state, weights, active, cooling, t0, tEnd, meanUphill: cal.meanUphill, budgetMoves, seconds };
+  const tEnd = "tEnd" in cooling ? cooling.tEnd : temperatureAt(cooling, expectedMoves, 1);
+  return { cp, rng, nb, state, weights, active, cooling, t0, tEnd, meanUphill: cal.meanUphill, budgetMoves, seconds, movesPerSecond };
 }

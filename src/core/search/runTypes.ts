@@ -1,3 +1,4 @@
+import type { ResolvedCooling } from "../anneal/resolveCooling.js";
 import type { Plan } from "../model.js";
 import type { Progress } from "../options.js";
 
@@ -13,6 +14,10 @@ export interface RunStats {
   meanUphill: number;
   accepted: number;
   feasibleFound: boolean;
+  /** The schedule as run, with every fitted number (beta, alpha, levels) fixed. */
+  cooling: ResolvedCooling;
+  /** Moves per second measured before a seconds run (see `measureMoveRate`); absent for a move budget. */
+  measuredMovesPerSecond?: number;
 }
 
 /** The plan a run returns and how it went. */
