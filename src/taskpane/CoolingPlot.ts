@@ -55,7 +55,7 @@ export class CoolingPlot {
             {
               scale: "P",
               side: 1,
-              label: "P(accept)",
+              label: "Worse moves accepted",
               size: 40,
               labelSize: 14,
               grid: { show: false },
@@ -66,7 +66,7 @@ export class CoolingPlot {
           series: [
             { label: "% of run" },
             { label: "temperature", scale: "T", stroke: "#b4532a", width: 2 },
-            { label: "P(accept mean uphill)", scale: "P", stroke: "#0f6cbd", width: 2 },
+            { label: "Worse moves accepted (share)", scale: "P", stroke: "#0f6cbd", width: 2 },
           ],
         },
         data,

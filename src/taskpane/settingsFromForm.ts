@@ -131,8 +131,8 @@ export function settingsFromForm(form: PaneForm): FormReading {
   const before = issues.length;
   for (const p of PARAMETERS_OF[kind]) {
     if ((p === "t0" || p === "tEnd") && !manual) continue;
-    // Blank moves per level: the levels are spread over the run so T reaches its end value.
-    if (p === "movesPerLevel" && String(form["moves-per-level"] ?? "").trim() === "") continue;
+    // Blank factor, moves per level or beta: fitted so that T reaches its end value at the end of the run.
+    if (FITTED_WHEN_BLANK.includes(p) && String(form[FIELD_OF[p]!] ?? "").trim() === "") continue;
     const v = read<number | string>(p, Number.NaN);
     if (typeof v === "number" && !Number.isNaN(v)) params[p] = v;
   }
@@ -182,15 +182,20 @@ export function formFromSettings(settings: PlanSettings, scenario: string, curre
     seed: String(settings.seed),
     rule: settings.rule,
     schedule: c.kind,
-    ...(c.kind === "geometric"
-      ? { alpha: String(c.alpha), "moves-per-level": c.movesPerLevel === undefined ? "" : String(c.movesPerLevel) }
-      : {}),
+    ...(c.kind === "geometric" ? { alpha: blankIfUndefined(c.alpha), "moves-per-level": blankIfUndefined(c.movesPerLevel) } : {}),
     ...(c.kind === "linear" ? { steps: String(c.steps) } : {}),
-    ...(c.kind === "lundyMees" ? { beta: String(c.beta) } : {}),
+    ...(c.kind === "lundyMees" ? { beta: blankIfUndefined(c.beta) } : {}),
     temperatures: manual ? "manual" : "calibrate",
     p0: String(settings.p0),
     "p-end": String(settings.pEnd),
     ...(manual ? { t0: String(c.t0) } : {}),
     ...("tEnd" in c && c.tEnd !== undefined ? { "t-end": String(c.tEnd) } : {}),
   };
+}
+
+/** Schedule parameters a blank field leaves to fitting (see `resolveCooling`). */
+const FITTED_WHEN_BLANK: readonly string[] = ["alpha", "movesPerLevel", "beta"];
+
+function blankIfUndefined(x: number | undefined): string {
+  return x === undefined ? "" : String(x);
 }

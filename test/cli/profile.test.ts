@@ -19,7 +19,7 @@ function table(out: string): { fraction: number; moves: number; t: number; p: nu
 }
 
 describe("kiln profile", () => {
-  it("prints the mean uphill change and a 10-20 row table whose P values follow acceptanceProbability (Metropolis 1953)", async () => {
+  it("prints the mean uphill change and a 10-20 row table that starts at the start acceptance (Metropolis 1953)", async () => {
     const { path } = await demoCopy();
     const cap = captureIO();
     expect(await runProfile([path, "--schedule", "geometric", "--alpha", "0.9", "--level", "1000", "--moves", "50000"], cap.io)).toBe(0);
@@ -31,14 +31,17 @@ describe("kiln profile", () => {
     expect(rows.length).toBeLessThanOrEqual(20);
     expect(rows[0]!.fraction).toBe(0);
     expect(rows[rows.length - 1]!.moves).toBe(50000);
-    for (const r of [rows[0]!, rows[5]!, rows[rows.length - 1]!]) {
-      // Recompute P from the printed T and mean (4 significant digits each).
-      expect(r.p).toBeCloseTo(acceptanceProbability("metropolis", mean, r.t), 3);
-    }
+    // P is the share of the sampled worse moves accepted (Ben-Ameur 2004's acceptance ratio):
+    // calibration puts the start exactly at the default start acceptance 0.5, and it only falls.
+    expect(rows[0]!.p).toBeCloseTo(0.5, 3);
+    for (let i = 1; i < rows.length; i++) expect(rows[i]!.p).toBeLessThanOrEqual(rows[i - 1]!.p);
+    // It is a mean of Metropolis acceptances exp(-d/T) over changes averaging `mean`; by Jensen's
+    // inequality it is at least the acceptance of the mean change.
+    for (const r of rows) expect(r.p).toBeGreaterThanOrEqual(acceptanceProbability("metropolis", mean, r.t) - 5e-4);
     // Geometric: T falls by alpha per 1000 moves (Kirkpatrick et al. 1983).
     const r1 = rows[1]!;
     expect(r1.t / rows[0]!.t).toBeCloseTo(Math.pow(0.9, Math.floor(r1.moves / 1000)), 3);
-    expect(out.trim().split("\n").pop()).toMatch(/^Starts at P = /);
+    expect(out.trim().split("\n").pop()).toMatch(/^Starts by accepting [0-9.]+ of the worse moves/);
   });
 
   it("uses the logistic (Barker 1965) rule when asked", async () => {
@@ -47,8 +50,9 @@ describe("kiln profile", () => {
     expect(await runProfile([path, "--rule", "logistic", "--moves", "20000"], cap.io)).toBe(0);
     const mean = Number(/Mean uphill change: ([\d.e+-]+)/.exec(cap.out())?.[1]);
     const rows = table(cap.out());
-    for (const r of rows.slice(0, 3)) expect(r.p).toBeCloseTo(acceptanceProbability("logistic", mean, r.t), 3);
-    expect(rows[0]!.p).toBeLessThanOrEqual(0.5);
+    // The logistic rule never accepts half of the worse moves: a start of 0.5 is read as 0.49.
+    expect(rows[0]!.p).toBeCloseTo(0.49, 3);
+    for (const r of rows) expect(r.p).toBeGreaterThanOrEqual(acceptanceProbability("logistic", mean, r.t) - 5e-4);
   });
 
   it("expects the move count of a seconds run from the speed measured on the problem", async () => {

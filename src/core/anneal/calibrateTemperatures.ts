@@ -6,14 +6,15 @@ import type { AcceptanceRule } from "../options.js";
  * simulated annealing (Kirkpatrick, Gelatt & Vecchi 1983, "Optimization by Simulated Annealing",
  * Science 220:671: start where most moves are accepted; here the target is explicit).
  *
- * - t0 solves P(meanUphill, T) = p0: Metropolis T = -dE / ln p; logistic T = dE / ln(1/p - 1).
- * - tEnd solves P(meanUphill, T) = pEnd the same way; when the sampled uphill changes are given,
- *   it solves instead "the mean acceptance probability of the sampled changes = pEnd" (the
- *   acceptance-ratio form of Ben-Ameur 2004, "Computing the Initial Temperature of Simulated
- *   Annealing", Comput. Optim. Appl. 29:369). The mean change is dominated by a few large moves
- *   (a stop sent across the map), while the end of a run is decided by the small ones; the ratio
- *   form makes pEnd mean "this share of the uphill moves one would sample is still accepted".
- *   By Jensen's inequality it is never hotter than the mean form.
+ * - Without samples, t0 solves P(meanUphill, T) = p0 and tEnd solves P(meanUphill, T) = pEnd:
+ *   Metropolis T = -dE / ln p; logistic T = dE / ln(1/p - 1).
+ * - When the sampled uphill changes are given, both solve instead "the mean acceptance
+ *   probability of the sampled changes = p" (the acceptance-ratio form of Ben-Ameur 2004,
+ *   "Computing the Initial Temperature of Simulated Annealing", Comput. Optim. Appl. 29:369).
+ *   The mean change is dominated by a few large moves (a stop sent across the map), while the
+ *   search is decided by the many small ones; the ratio form makes p0 and pEnd mean one thing,
+ *   "this share of the worse moves one would sample is accepted", which is also what the preview
+ *   plots. By Jensen's inequality it is never hotter than the mean form.
  *
  * @param meanUphill - mean of the sampled positive cost changes (cost units, > 0)
  * @param rule - acceptance rule
@@ -39,10 +40,12 @@ export function calibrateTemperatures(
   if (!(p0 > 0 && p0 < 1)) throw new RangeError(`p0 must be in (0, 1), got ${p0}`);
   const start = Math.min(p0, maxInitialAcceptance(rule) - 0.01);
   if (!(pEnd > 0 && pEnd < start)) throw new RangeError(`pEnd must be in (0, ${start}), got ${pEnd}`);
-  const t0 = temperatureFor(meanUphill, rule, start);
-  const tMean = temperatureFor(meanUphill, rule, pEnd);
   const samples = uphill?.filter((d) => d > 0 && Number.isFinite(d)) ?? [];
-  return { t0, tEnd: samples.length > 0 ? ratioTemperature(samples, rule, pEnd, tMean) : tMean };
+  const at = (p: number): number => {
+    const tMean = temperatureFor(meanUphill, rule, p);
+    return samples.length > 0 ? ratioTemperature(samples, rule, p, tMean) : tMean;
+  };
+  return { t0: at(start), tEnd: at(pEnd) };
 }
 
 /**

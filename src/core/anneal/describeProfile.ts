@@ -13,7 +13,7 @@ import type { ProfilePoint } from "./profile.js";
  * @returns one sentence
  * @throws RangeError when fewer than 2 points are given
  * @example describeProfile(profile({ kind: "timeFraction" }, "metropolis", 20, 1e5))
- * // => "Starts at P = 0.50, halves by 10% of the run and ends at 0.001: a balanced schedule."
+ * // => "Starts by accepting 0.50 of the worse moves, halves by 10% of the run and ends at 0.001: a balanced schedule."
  */
 export function describeProfile(points: readonly ProfilePoint[], rule: AcceptanceRule = "metropolis"): string {
   const first = points[0];
@@ -24,9 +24,10 @@ export function describeProfile(points: readonly ProfilePoint[], rule: Acceptanc
   const end = last.pAccept;
   const flatUntil = lastFraction(points, (p) => p.pAccept >= 0.8 * start);
   const halfBy = firstFraction(points, (p) => p.pAccept <= start / 2);
-  const head = `Starts at P = ${fmt(start)}`;
+  // Worded like the pane's and the Settings sheet's acceptance fields: the same quantity.
+  const head = `Starts by accepting ${fmt(start)} of the worse moves`;
   if (start < 0.05) {
-    return `${head}: close to a greedy descent from the first move; raise the start temperature or p0.`;
+    return `${head}: close to a greedy descent from the first move; raise the start temperature or the start acceptance.`;
   }
   if (start >= 0.8 * ceiling && flatUntil >= 0.5) {
     return `${head} and stays flat until ${pct(flatUntil)} of the run: close to a random walk; cool faster or lower the start temperature.`;

@@ -9,7 +9,11 @@ export interface ProfilePoint {
   readonly fraction: number;
   readonly moves: number;
   readonly temperature: number;
-  /** Probability of accepting the mean uphill change at this temperature. */
+  /**
+   * Share of the sampled worse moves accepted at this temperature (the mean acceptance of the
+   * `uphill` samples when given, else the acceptance of the mean uphill change): the quantity
+   * p0 and pEnd set.
+   */
   readonly pAccept: number;
 }
 
@@ -54,6 +58,7 @@ export function profile(
   if (!(o.points >= 2)) throw new RangeError(`points must be >= 2, got ${o.points}`);
   const { t0, tEnd } = calibrateTemperatures(meanUphill, rule, o.p0, o.pEnd, o.uphill);
   const cooling = resolveCooling(spec, { t0, tEnd, budgetMoves });
+  const samples = o.uphill?.filter((d) => d > 0 && Number.isFinite(d)) ?? [];
   const out: ProfilePoint[] = [];
   const n = Math.floor(o.points);
   for (let i = 0; i < n; i++) {
@@ -61,7 +66,20 @@ export function profile(
     // The last point is the state after the final move, so it reaches the end temperature.
     const moves = Math.round(fraction * budgetMoves);
     const temperature = temperatureAt(cooling, moves, fraction);
-    out.push({ fraction, moves, temperature, pAccept: acceptanceProbability(rule, meanUphill, temperature) });
+    out.push({ fraction, moves, temperature, pAccept: acceptanceShare(rule, meanUphill, temperature, samples) });
   }
   return out;
+}
+
+/**
+ * Share of worse moves accepted at temperature `t`: the mean acceptance of the samples, or the
+ * acceptance of the mean change when there are none (as `calibrateTemperatures` reads p0 and pEnd).
+ *
+ * @example acceptanceShare("metropolis", 10, 10, []) // => 0.3679
+ */
+export function acceptanceShare(rule: AcceptanceRule, meanUphill: number, t: number, samples: readonly number[]): number {
+  if (samples.length === 0) return acceptanceProbability(rule, meanUphill, t);
+  let sum = 0;
+  for (const d of samples) sum += acceptanceProbability(rule, d, t);
+  return sum / samples.length;
 }
