@@ -50,6 +50,11 @@ export interface Progress {
   readonly bestCost: number;
   /** Share of the moves accepted since the previous report, 0..1. */
   readonly acceptanceRate: number;
+  /**
+   * Share of the worse moves (see `isWorseMove`) accepted since the previous report: the quantity
+   * the acceptance targets and the preview speak of; undefined when none was drawn.
+   */
+  readonly worseAccepted?: number | undefined;
   readonly elapsedMs: number;
 }
 

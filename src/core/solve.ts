@@ -1,5 +1,6 @@
 import { acceptanceProbability } from "./anneal/acceptanceProbability.js";
 import { temperatureAt } from "./anneal/resolveCooling.js";
+import { isWorseMove } from "./anneal/sampleUphill.js";
 import type { Problem } from "./model.js";
 import { eliminateRoute } from "./moves/eliminateRoute.js";
 import { applyMove, Move, proposeMove } from "./moves/proposeMove.js";
@@ -72,6 +73,8 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   let accepted = 0;
   let acceptedSinceReport = 0;
   let movesSinceReport = 0;
+  let worseSinceReport = 0;
+  let worseAcceptedSinceReport = 0;
   let elapsedMs = 0;
   let lastReportAt = startedAt;
   let fraction = 0;
@@ -88,6 +91,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
       currentCost: state.realCost(),
       bestCost: best.feasibleFound ? best.key2 : Infinity,
       acceptanceRate: movesSinceReport > 0 ? acceptedSinceReport / movesSinceReport : 0,
+      worseAccepted: worseSinceReport > 0 ? worseAcceptedSinceReport / worseSinceReport : undefined,
       elapsedMs,
     };
   }
@@ -115,6 +119,10 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
         let accept: boolean;
         if (metropolis && dE <= 0) accept = true;
         else accept = rng.next() < acceptanceProbability(o.rule, dE, temperature);
+        if (dE > 0 && isWorseMove(state, mv)) {
+          worseSinceReport++;
+          if (accept) worseAcceptedSinceReport++;
+        }
         if (accept) {
           applyMove(state, mv);
           accepted++;
@@ -144,6 +152,8 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
             lastReportAt = t;
             acceptedSinceReport = 0;
             movesSinceReport = 0;
+            worseSinceReport = 0;
+            worseAcceptedSinceReport = 0;
           }
           if (done) break;
         }

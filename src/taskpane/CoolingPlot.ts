@@ -1,8 +1,9 @@
 /**
- * The live preview of a cooling schedule (uPlot): temperature (log scale, left) and the
- * probability of accepting the sampled mean uphill change (right) over the run. The
- * container's `data-profile` holds the plotted pAccept at 0, 25, 50, 75 and 100% of the run,
- * so a test can see the preview change.
+ * The live preview of a cooling schedule (uPlot): temperature (log scale, left) and the share of
+ * the sampled worse moves accepted (right) over the run, planned; during and after a run, the
+ * share the run actually accepted is plotted beside it (dots), so the user sees whether the
+ * temperature plan behaved as planned. The container's `data-profile` holds the planned share at
+ * 0, 25, 50, 75 and 100% of the run and `data-observed` the observed points, so a test can see both.
  */
 import uPlot from "uplot";
 import type { ProfilePoint } from "../core/index.js";
@@ -10,6 +11,9 @@ import type { ProfilePoint } from "../core/index.js";
 /** A uPlot chart of a cooling profile that follows its container's width. */
 export class CoolingPlot {
   private plot: uPlot | undefined;
+  private points: readonly ProfilePoint[] = [];
+  /** Observed share per percent of the run (index 0..100), null where none was reported. */
+  private observed: (number | null)[] = new Array<number | null>(101).fill(null);
 
   /** @param container - the element the chart is drawn in */
   constructor(private readonly container: HTMLElement) {
@@ -23,11 +27,8 @@ export class CoolingPlot {
    * @example plot.show(profile({ kind: "timeFraction" }, "metropolis", 20, 1e5))
    */
   show(points: readonly ProfilePoint[]): void {
-    const data: uPlot.AlignedData = [
-      points.map((p) => p.fraction * 100),
-      points.map((p) => Math.max(p.temperature, 1e-12)),
-      points.map((p) => p.pAccept),
-    ];
+    this.points = points;
+    const data = this.data();
     this.container.dataset.profile = JSON.stringify(
       [0, 0.25, 0.5, 0.75, 1].map((f) => {
         const i = Math.round(f * (points.length - 1));
@@ -67,6 +68,14 @@ export class CoolingPlot {
             { label: "% of run" },
             { label: "temperature", scale: "T", stroke: "#b4532a", width: 2 },
             { label: "Worse moves accepted (share)", scale: "P", stroke: "#0f6cbd", width: 2 },
+            {
+              label: "observed",
+              scale: "P",
+              stroke: "#1f7a3a",
+              width: 0,
+              points: { show: true, size: 5, fill: "#1f7a3a" },
+              spanGaps: false,
+            },
           ],
         },
         data,
@@ -75,6 +84,40 @@ export class CoolingPlot {
     } else {
       this.plot.setData(data);
     }
+  }
+
+  /**
+   * Add the share of worse moves the run accepted around `fraction` of the run.
+   *
+   * @param fraction - share of the run done, 0..1
+   * @param share - worse moves accepted over worse moves drawn since the previous report
+   */
+  observe(fraction: number, share: number): void {
+    const i = Math.min(100, Math.max(0, Math.round(fraction * 100)));
+    this.observed[i] = share;
+    this.container.dataset.observed = JSON.stringify(
+      this.observed.flatMap((v, k) => (v === null ? [] : [[k / 100, Number(v.toPrecision(4))]])),
+    );
+    if (this.plot && this.points.length > 0) this.plot.setData(this.data());
+  }
+
+  /** Forget the observed shares. */
+  clearObserved(): void {
+    this.observed = new Array<number | null>(101).fill(null);
+    delete this.container.dataset.observed;
+    if (this.plot && this.points.length > 0) this.plot.setData(this.data());
+  }
+
+  /** The planned profile and the observed shares on one x axis (observed at the nearest percent). */
+  private data(): uPlot.AlignedData {
+    const pts = this.points;
+    const last = Math.max(1, pts.length - 1);
+    return [
+      pts.map((p) => p.fraction * 100),
+      pts.map((p) => Math.max(p.temperature, 1e-12)),
+      pts.map((p) => p.pAccept),
+      pts.map((_, i) => this.observed[Math.round((i / last) * 100)] ?? null),
+    ];
   }
 
   private size(): { width: number; height: number } {

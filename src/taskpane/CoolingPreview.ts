@@ -3,15 +3,12 @@
  * problem in the worker, then draws temperature and acceptance over the run from the form's
  * schedule (computed here: a profile is a closed form of about a hundred points).
  */
-import { describeProfile, profile } from "../core/index.js";
+import { calibrateTemperatures, describeProfile, profile, type Progress } from "../core/index.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { CoolingPlot } from "./CoolingPlot.js";
 import { readForm, type PaneDom } from "./paneDom.js";
 import { settingsFromForm } from "./settingsFromForm.js";
 import { SolverClient, WorkerError } from "./SolverClient.js";
-
-/** Moves per second assumed for the preview of a seconds budget until a run has measured it. */
-const ASSUMED_MOVES_PER_SECOND = 100_000;
 
 /** The form cells that do not affect the cooling preview (their issues are shown elsewhere). */
 const NOT_COOLING = ["Scenario", "Detour factor", "Speed", "Service time", "Seed"];
@@ -22,7 +19,8 @@ export class CoolingPreview {
   private meanUphill: number | undefined;
   private uphill: readonly number[] = [];
   private sampledFor: ReadResult | undefined;
-  private movesPerSecond = ASSUMED_MOVES_PER_SECOND;
+  /** Measured: by the worker's timed burst on the sampled problem, then by each finished run. */
+  private movesPerSecond: number | undefined;
 
   /**
    * @param dom - the pane's elements (plot canvas and reading line)
@@ -45,11 +43,12 @@ export class CoolingPreview {
     if (this.sampledFor === read) return;
     this.dom.coolingReading.textContent = "Sampling cost changes…";
     try {
-      const { meanUphill, uphill } = await this.solver.sample(read.problem, read.settings.seed);
+      const { meanUphill, uphill, movesPerSecond } = await this.solver.sample(read.problem, read.settings.seed);
       if (!isCurrent()) return;
       this.sampledFor = read;
       this.meanUphill = meanUphill;
       this.uphill = uphill;
+      if (movesPerSecond !== undefined) this.movesPerSecond = movesPerSecond;
     } catch (err) {
       if (!(err instanceof WorkerError)) throw err;
       this.meanUphill = undefined;
@@ -64,6 +63,27 @@ export class CoolingPreview {
     if (elapsedMs > 500) this.movesPerSecond = moves / (elapsedMs / 1000);
   }
 
+  /** Put the calibrated start and end temperatures into blank T₀ and T_end fields. */
+  fillCalibratedTemperatures(): void {
+    const d = this.dom;
+    if (this.meanUphill === undefined || !(this.meanUphill > 0)) return;
+    if (d.t0.value.trim() !== "" && d.tEnd.value.trim() !== "") return;
+    const s = settingsFromForm(readForm(d)).settings;
+    const t = calibrateTemperatures(this.meanUphill, s.rule, s.p0, s.pEnd, this.uphill);
+    if (d.t0.value.trim() === "") d.t0.value = String(Number(t.t0.toPrecision(4)));
+    if (d.tEnd.value.trim() === "") d.tEnd.value = String(Number(t.tEnd.toPrecision(4)));
+  }
+
+  /** Plot the share of worse moves a running optimization accepts beside the planned profile. */
+  observe(p: Progress): void {
+    if (p.worseAccepted !== undefined) this.plot.observe(p.fraction, p.worseAccepted);
+  }
+
+  /** Forget the observed shares (a new run starts). */
+  clearObserved(): void {
+    this.plot.clearObserved();
+  }
+
   /** Redraw from the form's settings and the sampled mean uphill change. */
   draw(): void {
     const d = this.dom;
@@ -76,11 +96,16 @@ export class CoolingPreview {
     }
     if (this.meanUphill === undefined || !(this.meanUphill > 0)) return;
     const s = form.settings;
-    const budgetMoves = Math.max(1, Math.round(s.moves ?? s.seconds * this.movesPerSecond));
+    if (s.moves === undefined && this.movesPerSecond === undefined) {
+      d.coolingReading.textContent = "Set a move budget to preview: the speed of this computer could not be measured.";
+      return;
+    }
+    const budgetMoves = Math.max(1, Math.round(s.moves ?? s.seconds * this.movesPerSecond!));
     try {
       const points = profile(s.cooling, s.rule, this.meanUphill, budgetMoves, { p0: s.p0, pEnd: s.pEnd, points: 101, uphill: this.uphill });
       this.plot.show(points);
-      const assumed = s.moves === undefined ? ` (about ${formatCount(budgetMoves)} moves in ${s.seconds} s)` : "";
+      const assumed =
+        s.moves === undefined ? ` (about ${formatCount(budgetMoves)} moves in ${s.seconds} s at the speed measured on this computer)` : "";
       d.coolingReading.textContent = `${describeProfile(points, s.rule)}${assumed}`;
       d.coolingReading.classList.add("ok");
       d.coolingReading.dataset.meanUphill = String(this.meanUphill);

@@ -141,6 +141,8 @@ export class PaneController {
     else delete document.body.dataset.soft;
     for (const el of this.dom.scheduleParams) el.hidden = el.dataset.for !== form.schedule;
     for (const el of this.dom.temperatureParams) el.hidden = el.dataset.temps !== form.temperatures;
+    // Typed temperatures start from the calibrated ones, so switching changes nothing until edited.
+    if (form.temperatures === "manual") this.preview.fillCalibratedTemperatures();
   }
 
   private setOptimizeEnabled(): void {
@@ -159,6 +161,7 @@ export class PaneController {
     const s = read.settings;
     const scenario = form.scenario;
     this.convergence.reset();
+    this.preview.clearObserved();
     d.progressBar.style.width = "0%";
     d.optimizeSection.dataset.state = "running";
     const budget = s.moves !== undefined ? { moves: s.moves } : { seconds: s.seconds };
@@ -172,6 +175,7 @@ export class PaneController {
           if (p.elapsedMs - lastDraw < 200 && p.fraction < 1) return;
           lastDraw = p.elapsedMs;
           showProgress(d, this.convergence, p, s.moves === undefined ? s.seconds : undefined);
+          this.preview.observe(p);
         },
         onResult: (result, stopped) => {
           d.optimizeSection.dataset.state = stopped ? "stopped" : "done";

@@ -38,6 +38,8 @@ export function paneDom() {
     formInputs,
     scheduleParams: [...document.querySelectorAll<HTMLElement>("#cooling-section [data-for]")],
     temperatureParams: [...document.querySelectorAll<HTMLElement>("#cooling-section [data-temps]")],
+    t0: $<HTMLInputElement>("t0"),
+    tEnd: $<HTMLInputElement>("t-end"),
     coolingPlot: $("cooling-plot"),
     coolingReading: $("cooling-reading"),
     optimizeSection: $("optimize-section"),

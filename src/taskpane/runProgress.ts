@@ -24,7 +24,7 @@ export function showProgress(d: PaneDom, convergence: ConvergencePlot, p: Progre
   d.statRemaining.textContent = formatDuration(Math.max(0, remaining));
   d.statCurrent.textContent = formatCost(p.currentCost);
   d.statBest.textContent = Number.isFinite(p.bestCost) ? formatCost(p.bestCost) : "none feasible yet";
-  d.statAccept.textContent = `${(p.acceptanceRate * 100).toFixed(1)}%`;
+  d.statAccept.textContent = p.worseAccepted === undefined ? "–" : `${(p.worseAccepted * 100).toFixed(1)}%`;
   d.statTemp.textContent = p.temperature.toPrecision(3);
   convergence.add(p);
 }

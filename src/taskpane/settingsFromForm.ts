@@ -131,8 +131,9 @@ export function settingsFromForm(form: PaneForm): FormReading {
   const before = issues.length;
   for (const p of PARAMETERS_OF[kind]) {
     if ((p === "t0" || p === "tEnd") && !manual) continue;
-    // Blank factor, moves per level or beta: fitted so that T reaches its end value at the end of the run.
-    if (FITTED_WHEN_BLANK.includes(p) && String(form[FIELD_OF[p]!] ?? "").trim() === "") continue;
+    // Blank factor, moves per level or beta: fitted so that T reaches its end value at the end of
+    // the run; blank typed temperatures: calibrated, as when they are not typed.
+    if (AUTOMATIC_WHEN_BLANK.includes(p) && String(form[FIELD_OF[p]!] ?? "").trim() === "") continue;
     const v = read<number | string>(p, Number.NaN);
     if (typeof v === "number" && !Number.isNaN(v)) params[p] = v;
   }
@@ -193,8 +194,8 @@ export function formFromSettings(settings: PlanSettings, scenario: string, curre
   };
 }
 
-/** Schedule parameters a blank field leaves to fitting (see `resolveCooling`). */
-const FITTED_WHEN_BLANK: readonly string[] = ["alpha", "movesPerLevel", "beta"];
+/** Schedule parameters a blank field leaves to fitting or calibration (see `resolveCooling`). */
+const AUTOMATIC_WHEN_BLANK: readonly string[] = ["alpha", "movesPerLevel", "beta", "t0", "tEnd"];
 
 function blankIfUndefined(x: number | undefined): string {
   return x === undefined ? "" : String(x);

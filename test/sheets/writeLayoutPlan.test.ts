@@ -230,7 +230,19 @@ describe("Compare sheet (DESIGN.md §5)", () => {
   it("row: scenario, vehicles, km, duty hours, cost, late, unassigned, schedule with rule, seed, created", () => {
     const row = layoutCompareRow(run, plan);
     expect(row.values).toEqual([
-      ["-Tuesday late", 2, 27.1, 255 / 1440, 298.57, 10, 1, 0, "geometric ×0.94 every 1000 moves, acceptance from 0.50, Metropolis", 7, CREATED_SERIAL],
+      [
+        "-Tuesday late",
+        2,
+        27.1,
+        255 / 1440,
+        298.57,
+        10,
+        1,
+        0,
+        "geometric ×0.94 every 1000 moves, acceptance from 0.50, Metropolis",
+        7,
+        CREATED_SERIAL,
+      ],
     ]);
     expect(row.numberFormats).toEqual([["@", "0", "0.0", "[h]:mm", "0.00", "0.0", "0", "0", "@", null, "yyyy-mm-dd hh:mm"]]);
   });

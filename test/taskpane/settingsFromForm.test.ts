@@ -40,6 +40,17 @@ describe("settingsFromForm", () => {
     expect(r.settings.detourFactor).toBe(PLAN_SETTINGS_DEFAULTS.detourFactor);
   });
 
+  it("leaves blank factor, beta and typed temperatures to fitting and calibration", () => {
+    const lundy = settingsFromForm({ ...FORM, schedule: "lundyMees", beta: "" });
+    expect(lundy.issues).toEqual([]);
+    expect(lundy.settings.cooling).toEqual({ kind: "lundyMees" });
+    const geo = settingsFromForm({ ...FORM, schedule: "geometric", alpha: "", "moves-per-level": "500" });
+    expect(geo.settings.cooling).toEqual({ kind: "geometric", movesPerLevel: 500 });
+    const blankTemps = settingsFromForm({ ...FORM, temperatures: "manual", t0: "", "t-end": "" });
+    expect(blankTemps.issues).toEqual([]);
+    expect(blankTemps.settings.cooling).toEqual({ kind: "timeFraction" });
+  });
+
   it("builds each cooling schedule with its own parameters; manual temperatures override calibration", () => {
     expect(settingsFromForm({ ...FORM, schedule: "geometric" }).settings.cooling).toEqual({
       kind: "geometric",

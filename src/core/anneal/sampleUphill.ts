@@ -26,20 +26,32 @@ export function sampleUphill(
 ): { meanUphill: number; samples: number; uphill: number[] } {
   if (active.length === 0) return { meanUphill: 1, samples: 0, uphill: [] };
   const mv = new Move();
-  const limit = state.cp.mustServeCost / 10;
   let sum = 0;
   let count = 0;
   const uphill: number[] = [];
   const tries = Math.max(samples, 1) * 20;
   for (let k = 0; k < tries && count < samples; k++) {
     if (!proposeMove(state, nb, rng, mv, active)) continue;
-    const d = mv.delta - state.vehicleWeight * mv.usedDelta;
-    if (state.vehicleWeight > 0 && mv.usedDelta !== 0) continue;
-    if (d > 1e-12 && d < limit) {
-      sum += d;
+    if (isWorseMove(state, mv)) {
+      sum += mv.delta;
       count++;
-      uphill.push(d);
+      uphill.push(mv.delta);
     }
   }
   return { meanUphill: count > 0 ? sum / count : 1, samples: count, uphill };
+}
+
+/**
+ * True for a worse move of the kind calibration samples and the acceptance targets speak of: it
+ * raises the cost, keeps the number of vehicles under the hierarchical objective and drops no
+ * stop that must be served. The run counts the same moves when it reports how many worse moves
+ * it accepted, so the observed share compares with the previewed one.
+ *
+ * @param state - the current solution
+ * @param mv - an evaluated move
+ * @returns whether `mv.delta` is such a change
+ */
+export function isWorseMove(state: SearchState, mv: Move): boolean {
+  if (state.vehicleWeight > 0 && mv.usedDelta !== 0) return false;
+  return mv.delta > 1e-12 && mv.delta < state.cp.mustServeCost / 10;
 }
