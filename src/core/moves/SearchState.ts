@@ -197,7 +197,13 @@ export class SearchState {
     this.write(v, buf, count, 0);
   }
 
-  private materialise(pieces: Int32Array, m: number, into: Int32Array): number {
+  /**
+   * Write the stops of a candidate route, given as pieces (source route, from, to, reversed; or
+   * -1 and a single stop), into `into`.
+   *
+   * @returns how many stops were written
+   */
+  materialise(pieces: Int32Array, m: number, into: Int32Array): number {
     let c = 0;
     for (let k = 0; k < m; k++) {
       const src = pieces[4 * k]!;

@@ -55,21 +55,7 @@ export function hasRouteRules(cp: CompiledProblem, v: number): boolean {
 
 /** Copy the candidate route's stops into `state.rulesStops`; returns how many. */
 function layOut(state: SearchState, pieces: Int32Array, m: number): number {
-  const into = state.rulesStops;
-  let c = 0;
-  for (let k = 0; k < m; k++) {
-    const src = pieces[4 * k]!;
-    const i = pieces[4 * k + 1]!;
-    if (src < 0) {
-      into[c++] = i;
-      continue;
-    }
-    const j = pieces[4 * k + 2]!;
-    const nodes = state.routes[src]!.nodes;
-    if (pieces[4 * k + 3]) for (let p = j; p >= i; p--) into[c++] = nodes[p]!;
-    else for (let p = i; p <= j; p++) into[c++] = nodes[p]!;
-  }
-  return c;
+  return state.materialise(pieces, m, state.rulesStops);
 }
 
 /** Minutes of driving of the candidate route: legs between pieces, prefix sums inside them. */
