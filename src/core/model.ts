@@ -75,6 +75,8 @@ export interface WindowBreakRule {
 /** One vehicle (one driver shift). */
 export interface Vehicle {
   readonly id: string;
+  /** Who drives it, from the fleet's Driver column; shown on route sheets only. */
+  readonly driver?: string;
   /** Capacity per load dimension; same length as `Problem.loadDimensions`. */
   readonly capacity: readonly number[];
   /** Index into `Problem.locations` where the shift starts and ends. */

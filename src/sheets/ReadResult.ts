@@ -19,6 +19,8 @@ export interface StopRow {
   readonly sheetRow: number;
   /** Unrecognised columns of this row, keyed by header text (order as in `extraHeaders`). */
   readonly extra: Readonly<Record<string, CellValue>>;
+  /** The stop's Address cell as typed ("" when blank); absent when the stops table has no Address column. */
+  readonly address?: string;
 }
 
 /** Result of reading the input tables. */

@@ -6,7 +6,7 @@ import type { CellBlock, CellValue, RouteChart, SheetGrid } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
 import type { RunRecord } from "./PlanSettings.js";
 import type { StopRow } from "./ReadResult.js";
-import { LATITUDE_COL, LONGITUDE_COL, routeTableRows, type FormattedRow } from "./routeTableRows.js";
+import { routeTableRows, type FormattedRow } from "./routeTableRows.js";
 
 /** A scenario sheet as data: the grid, the route chart and where the route table sits. */
 export interface PlanLayout {
@@ -116,8 +116,8 @@ export function layoutPlan(input: LayoutPlanInput): PlanLayout {
   const first = headerRow + 1;
   const series = table.routes.map((r) => ({
     name: r.name,
-    x: { row: first + r.first, col: LONGITUDE_COL, rows: r.count, cols: 1 },
-    y: { row: first + r.first, col: LATITUDE_COL, rows: r.count, cols: 1 },
+    x: { row: first + r.first, col: table.longitudeCol, rows: r.count, cols: 1 },
+    y: { row: first + r.first, col: table.latitudeCol, rows: r.count, cols: 1 },
   }));
   const routeTable: CellBlock = { row: headerRow, col: 0, rows: 1 + table.rows.length, cols: table.header.length };
   return {

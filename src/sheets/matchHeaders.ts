@@ -158,7 +158,8 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
 };
 
 const FLEET_SYNONYMS: Record<string, readonly string[]> = {
-  id: ["vehicle", "vehicleid", "vehiclename", "van", "truck", "lorry", "car", "driver", "drivername", "name", "id", "unit", "rig"],
+  id: ["vehicle", "vehicleid", "vehiclename", "van", "truck", "lorry", "car", "name", "id", "unit", "rig"],
+  driver: ["driver", "drivername", "drivenby", "chauffeur", "crew"],
   count: ["count", "number", "howmany", "vehicles", "copies", "fleetsize", "numberofvehicles", "n", "qty", "quantity"],
   capacity: ["capacity", "cap", "maxload", "payload", "capacitylimit", "loadlimit"],
   startLatitude: [

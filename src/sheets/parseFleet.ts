@@ -15,6 +15,8 @@ export const DEFAULT_COST_PER_KM = 1;
 /** One vehicle as read (after `Count` expansion), before it is placed in a `Problem`. */
 export interface ParsedVehicle {
   readonly id: string;
+  /** The Driver cell of its row (trimmed), when the fleet has a Driver column and the cell is filled. */
+  readonly driver?: string;
   /** The Vehicle cell of its row before `Count` expansion ("Van A" for "Van A 2"). */
   readonly rowName: string;
   /** Capacity per load column: "" for a plain Capacity column, else the unit word. */
@@ -56,7 +58,8 @@ export interface ParsedFleet {
  * start rolls over midnight), Fixed cost (blank 0), Cost per km (blank 1), Cost per hour
  * (blank 0), Speed km/h (blank: the settings speed), Max stops, Features, and the working-time
  * columns of `readWorkRules` (Drive before break, Break min, Break from, Break to, Max driving h,
- * Max duty h, Max km). A Count of 2 or more
+ * Max duty h, Max km), Driver (who drives it, for route sheets; names the vehicles when there is no
+ * Vehicle column). A Count of 2 or more
  * makes "Van A 1", "Van A 2", ...; a Count of 0 leaves the row out; blank keeps one vehicle
  * with the row's name. Without a Vehicle column vehicles are named "Vehicle 1", "Vehicle 2"...
  *
@@ -89,7 +92,9 @@ export function parseFleet(read: SheetRead): ParsedFleet {
   table.rows.forEach((row, ordinal) => {
     const r = rowReader(table, row, issues);
     const before = issues.length;
-    const name = r.text("id") ?? `Vehicle ${ordinal + 1}`;
+    // A fleet that names its vehicles only by driver keeps those names as vehicle names.
+    const driver = r.text("driver");
+    const name = r.text("id") ?? (f.has("id") ? undefined : driver) ?? `Vehicle ${ordinal + 1}`;
     const count = r.num("count", "count", { min: 0, integer: true, example: "3" }) ?? 1;
     const capacity = new Map<string, number>();
     for (const dim of dimensions) {
@@ -128,6 +133,7 @@ export function parseFleet(read: SheetRead): ParsedFleet {
       seen.set(id, r.sheetRow);
       vehicles.push({
         id,
+        ...(driver !== undefined ? { driver } : {}),
         rowName: name,
         capacity,
         start,

@@ -32,6 +32,8 @@ export interface ParsedStop {
   /** 0-based sheet row (for issue addresses). */
   readonly sheetRow0: number;
   readonly extra: Readonly<Record<string, CellValue>>;
+  /** The Address cell as typed (trimmed; "" when blank); absent when the table has no Address column. */
+  readonly address?: string;
 }
 
 /** What `parseStops` found. */
@@ -142,6 +144,7 @@ export function parseStops(read: SheetRead): ParsedStops {
     const featureText = r.text("features");
     const extra: Record<string, CellValue> = {};
     for (const x of table.columns.extras) extra[x.header] = plainCell(row.cells[x.col]);
+    const address = r.has("address") ? (r.text("address") ?? "") : undefined;
     if (issues.length > before || position === undefined) continue;
     stops.push({
       id,
@@ -158,6 +161,7 @@ export function parseStops(read: SheetRead): ParsedStops {
       sheetRow: r.sheetRow,
       sheetRow0: row.sheetRow0,
       extra,
+      ...(address !== undefined ? { address } : {}),
     });
   }
   const extraHeaders = table.columns.extras.map((x) => x.header);

@@ -23,7 +23,7 @@ export { PLAIN_DIMENSION };
  *
  * Settings: `overrides` (CLI flags, the pane) over the Settings sheet over
  * `PLAN_SETTINGS_DEFAULTS`. Locations: the distinct depot points of the fleet first (by equal
- * coordinates, named after the first vehicle using them, "Depot (Van A)"), then one per stop.
+ * coordinates, each named after itself by `nameDepots`), then one per stop.
  * The matrix is `buildMatrix(locations, { detourFactor, speedKmh })`, or the matrix sheet's km
  * (`userMatrix`) when one is given. Load dimensions pair Demand <unit> with Capacity <unit>;
  * a plain Demand and a plain Capacity make one dimension named "load".
@@ -74,7 +74,7 @@ export function readProblem(
   const depotIndex = (p: LatLon, v: ParsedVehicle): number => {
     let i = locations.findIndex((l) => l.lat === p.lat && l.lon === p.lon);
     if (i < 0) {
-      i = locations.push({ lat: p.lat, lon: p.lon, name: `Depot (${v.rowName})` }) - 1;
+      i = locations.push({ lat: p.lat, lon: p.lon }) - 1;
       depotNames.push([`Depot (${v.rowName})`]);
     }
     // A matrix sheet may name the depot by any vehicle starting there, or by its row name.
@@ -83,6 +83,7 @@ export function readProblem(
   };
   const vehicles: Vehicle[] = fleet.vehicles.map((v) => ({
     id: v.id,
+    ...(v.driver !== undefined ? { driver: v.driver } : {}),
     capacity: dims.map((d) => (d.fleet === undefined ? Infinity : (v.capacity.get(d.fleet) ?? 0))),
     startLocation: depotIndex(v.start, v),
     endLocation: depotIndex(v.end, v),
@@ -96,7 +97,8 @@ export function readProblem(
     ...(v.maxStops !== undefined ? { maxStops: v.maxStops } : {}),
     ...v.rules,
   }));
-  if (depotNames.length === 1) depotNames[0]!.push("Depot");
+  nameDepots(locations, fleet.vehicles, vehicles);
+  depotNames.forEach((names, i) => names.push(locations[i]!.name!));
   const depots = locations.length;
   const unpinned: Stop[] = stops.stops.map((s, i) => {
     locations.push({ lat: s.position.lat, lon: s.position.lon, name: s.name });
@@ -144,7 +146,12 @@ export function readProblem(
   // Safety net: whatever the rows looked like, the solver only ever sees a consistent problem.
   const model = validateProblem(problem);
   if (model.length > 0) return { ok: false, issues: model, stopColumns, fleetColumns };
-  const stopRows: StopRow[] = stops.stops.map((s, i) => ({ stop: i, sheetRow: s.sheetRow, extra: s.extra }));
+  const stopRows: StopRow[] = stops.stops.map((s, i) => ({
+    stop: i,
+    sheetRow: s.sheetRow,
+    extra: s.extra,
+    ...(s.address !== undefined ? { address: s.address } : {}),
+  }));
   warnings.push(...stopWarnings(problem, stops, input.stops.sheet, warned));
   return {
     ok: true,
@@ -306,4 +313,29 @@ function checkSettings(s: PlanSettings, overrides: Partial<PlanSettings>): Issue
 
 function defined<T extends object>(o: T): Partial<T> {
   return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as Partial<T>;
+}
+
+/** How many vehicle names a depot's name lists before "+ n more". */
+const DEPOT_NAME_LIST = 3;
+
+/**
+ * Names each depot location after itself, so every route's depot rows name their own depot: the
+ * one depot of a fleet is "Depot"; with several, each is "Depot (" + the fleet rows that start or
+ * end there, in fleet order + ")", e.g. "Depot (Van A, Van B)" and "Depot (Van C)", so a van
+ * never shows a depot named only after another van.
+ */
+function nameDepots(locations: (LatLon & { name?: string })[], parsed: readonly ParsedVehicle[], vehicles: readonly Vehicle[]): void {
+  const users = new Map<number, string[]>();
+  vehicles.forEach((v, k) => {
+    for (const at of [v.startLocation, v.endLocation]) {
+      const list = users.get(at) ?? [];
+      const name = parsed[k]!.rowName;
+      if (!list.includes(name)) list.push(name);
+      users.set(at, list);
+    }
+  });
+  for (const [at, names] of users) {
+    const more = names.length > DEPOT_NAME_LIST ? ` + ${names.length - DEPOT_NAME_LIST} more` : "";
+    locations[at]!.name = users.size === 1 ? "Depot" : `Depot (${names.slice(0, DEPOT_NAME_LIST).join(", ")}${more})`;
+  }
 }

@@ -51,7 +51,7 @@ describe("kiln solve with more demand than the fleet carries (issue: a plan neve
     expect(labels.slice(0, TOTALS_LABELS.length)).toEqual([...TOTALS_LABELS]);
     // Independent check of the written route table: load leaving the depot never above 300 kg.
     const header = plan[6]!;
-    const loadCol = header.indexOf("Load");
+    const loadCol = header.indexOf("Load kg"); // one numeric Load column per load dimension
     const seqCol = header.indexOf("Seq");
     const starts = plan.slice(7).filter((r) => r[seqCol] === 0);
     expect(starts.length).toBeGreaterThan(0);

@@ -43,7 +43,8 @@ describe("matchHeader", () => {
     const cases: [string, string][] = [
       ["Van", "id"],
       ["Truck", "id"],
-      ["Driver", "id"],
+      ["Driver", "driver"],
+      ["Driver name", "driver"],
       ["Count", "count"],
       ["Depot lat", "startLatitude"],
       ["Start lng", "startLongitude"],

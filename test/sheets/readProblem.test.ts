@@ -58,7 +58,8 @@ describe("readProblem: a clean table", () => {
     const p = r.problem;
     expect(p.vehicles.map((v) => v.id)).toEqual(["Van A 1", "Van A 2"]);
     expect(p.locations.length).toBe(2);
-    expect(p.locations[0]!.name).toBe("Depot (Van A)");
+    // The fleet's only depot is simply "Depot".
+    expect(p.locations[0]!.name).toBe("Depot");
     expect(p.vehicles.every((v) => v.startLocation === 0 && v.endLocation === 0)).toBe(true);
     expect(p.vehicles[0]!.shiftStartMin).toBe(420);
     expect(p.vehicles[0]!.speedKmh).toBe(40);

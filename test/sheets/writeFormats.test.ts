@@ -201,7 +201,7 @@ describe("the scenario grid survives an xlsx round trip through exceljs (referen
     }
     // The Created serial, read by exceljs as a date: 2026-12-01 18:30 (ECMA-376 1900 date system).
     expect(ws2.getCell(4, 2).value).toEqual(new Date(Date.UTC(2026, 11, 1, 18, 30)));
-    // 08:30 written as 510 / 1440 reads back as 08:30 of exceljs's day zero.
-    expect(ws2.getCell(10, 5).value).toEqual(new Date(Date.UTC(1899, 11, 30, 8, 30)));
+    // 08:30 (S2's arrival, column F after Name and Address) written as 510 / 1440 reads back as 08:30 of exceljs's day zero.
+    expect(ws2.getCell(10, 6).value).toEqual(new Date(Date.UTC(1899, 11, 30, 8, 30)));
   });
 });

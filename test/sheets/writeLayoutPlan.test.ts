@@ -5,9 +5,12 @@ import { COMPARE_HEADER, layoutCompareHeader, layoutCompareRow } from "../../src
 import { layoutPlan } from "../../src/sheets/layoutPlan.js";
 import { extraHeaders, plan, problem, run, stopRows, CREATED_SERIAL } from "../fixtures/writerPlan.js";
 
-/** The route-table header exactly as DESIGN.md §5 gives it. */
+/**
+ * The route-table header of DESIGN.md §5 as issue 8 widens it: Address beside Name, and Load as
+ * one numeric column per load dimension followed by the Drop columns.
+ */
 const DESIGN_ROUTE_HEADER =
-  "Vehicle | Seq | Stop | Name | Arrival | Wait min | Start | Departure | Load | Leg km | Total km | Earliest | Latest | Late min | Latitude | Longitude";
+  "Vehicle | Seq | Stop | Name | Address | Arrival | Wait min | Start | Departure | Load kg | Load crates | Drop kg | Drop crates | Leg km | Total km | Earliest | Latest | Late min | Latitude | Longitude";
 /** DESIGN.md §5's Compare header plus "Must-serve left out" after Unassigned (issue 9 asks Compare to say it). */
 const DESIGN_COMPARE_HEADER =
   "Scenario | Vehicles | Km | Hours | Cost | Late min | Unassigned | Must-serve left out | Schedule | Seed | Created";
@@ -51,11 +54,11 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
     expect(layout.grid.boldRows).toContain(0);
   });
 
-  it("route-table header is exactly DESIGN.md §5's, then the carried-through columns", () => {
+  it("route-table header is DESIGN.md §5's as issue 8 widens it, then the carried-through columns", () => {
     const header = values[layout.routeTable.row]!;
-    expect(header.slice(0, 16).join(" | ")).toBe(DESIGN_ROUTE_HEADER);
-    expect(header.slice(16, 18)).toEqual(["Phone", "Door code"]);
-    expect(layout.routeTable).toEqual({ row: layout.routeTable.row, col: 0, rows: 1 + 5 + 3, cols: 18 });
+    expect(header.slice(0, 20).join(" | ")).toBe(DESIGN_ROUTE_HEADER);
+    expect(header.slice(20, 22)).toEqual(["Phone", "Door code"]);
+    expect(layout.routeTable).toEqual({ row: layout.routeTable.row, col: 0, rows: 1 + 5 + 3, cols: 22 });
     expect(layout.grid.boldRows).toContain(layout.routeTable.row);
   });
 
@@ -146,15 +149,30 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
     ]);
   });
 
-  it("Load is the load after the stop; the start depot shows the full load; two dimensions as text", () => {
+  it("Load is the load after the stop, one number per dimension; the start depot shows the full load", () => {
     const rows = routeRows();
-    expect(rows.map((r) => r[col("Load")]).slice(0, 5)).toEqual([
-      "120 kg / 8 crates",
-      "80 kg / 5 crates",
-      "50 kg / 3 crates",
-      "0 kg / 0 crates",
-      "0 kg / 0 crates",
+    // Hand-worked from the fixture: Van 1 leaves with S1 40+S2 30+3-4 50 = 120 kg and 3+2+3 = 8 crates.
+    expect(rows.map((r) => [r[col("Load kg")], r[col("Load crates")]]).slice(0, 5)).toEqual([
+      [120, 8],
+      [80, 5],
+      [50, 3],
+      [0, 0],
+      [0, 0],
     ]);
+    expect(fmt(layout.routeTable.row + 1, col("Load kg"))).toBeNull();
+  });
+
+  it("Drop is each stop's demand per dimension; the drops of a route add up to the load leaving the depot", () => {
+    const rows = routeRows();
+    const drops = rows.slice(1, 4).map((r) => [r[col("Drop kg")], r[col("Drop crates")]]);
+    expect(drops).toEqual([
+      [40, 3],
+      [30, 2],
+      [50, 3],
+    ]);
+    expect([rows[0]![col("Drop kg")], rows[4]![col("Drop kg")]]).toEqual([null, null]);
+    const sum = (k: number): number => drops.reduce((a, d) => a + (d[k] as number), 0);
+    expect([sum(0), sum(1)]).toEqual([rows[0]![col("Load kg")], rows[0]![col("Load crates")]]);
   });
 
   it("km are rounded to 0.1 with format 0.0; the end row carries the leg back and the route total", () => {
@@ -184,6 +202,16 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
     expect(s1[col("Phone")]).toBe("+44 20 7946 0000");
     const r = values.indexOf(s1);
     expect(fmt(r, col("Phone"))).toBe("@");
+  });
+
+  it("the stop's address sits beside its name, exactly as typed and formatted @; blank where the stop has none", () => {
+    const rows = routeRows();
+    expect(col("Address")).toBe(col("Name") + 1);
+    const s2 = rows.find((r) => r[col("Stop")] === "S2")!;
+    expect(s2[col("Address")]).toBe("=Unit 4, Yard Road");
+    expect(fmt(values.indexOf(s2), col("Address"))).toBe("@");
+    expect(rows.find((r) => r[col("Stop")] === "3-4")![col("Address")]).toBeNull();
+    expect(rows[0]![col("Address")]).toBeNull();
   });
 
   it("unassigned table Stop | Name | Reason lists the stops not served", () => {
