@@ -28,7 +28,13 @@ export class PaneController {
   private readonly solver = new SolverClient();
   private readonly preview = new CoolingPreview(this.dom, this.solver);
   private readonly convergence = new ConvergencePlot(this.dom.convergencePlot);
-  private readonly map = new RouteMap(this.dom.map, this.dom.mapTooltip, this.dom.legend);
+  private readonly map = new RouteMap({
+    canvas: this.dom.map,
+    tooltip: this.dom.mapTooltip,
+    labels: this.dom.mapLabels,
+    legend: this.dom.legend,
+    text: this.dom.mapText,
+  });
   protected stops: PickedTable | undefined;
   protected fleet: PickedTable | undefined;
   private read: ReadResult | undefined;
@@ -203,7 +209,7 @@ export class PaneController {
     d.writeStatus.textContent = "";
     d.download.hidden = true;
     renderResult(d, last.read.problem, last.result, stopped);
-    this.map.draw(last.read.problem, last.result.plan);
+    this.guard("Drawing the map", () => this.map.draw(last.read.problem, last.result.plan))();
   }
 
   /** Write the last result as a new scenario sheet plus its Compare row; the file page then offers the download. */

@@ -1,37 +1,76 @@
 /**
- * The routes drawn on a canvas: stops and depots projected from latitude/longitude (no tile
- * server, nothing fetched), one colour per vehicle, a hover tooltip with the stop's name,
- * arrival and load. The canvas' `data-routes` attribute lists the drawn routes for tests.
+ * The route map in the pane: routes drawn on a canvas in a colour-blind-safe palette with
+ * direction arrows and sequence numbers, depots as labelled squares, vehicle and depot labels
+ * placed so they overlap neither each other nor a depot, a hover text per stop and depot, a
+ * legend whose entries highlight their route (click or keyboard), and the whole map in words
+ * for screen readers. Offline by default (an equirectangular fit, nothing fetched); an optional
+ * background supplies its own projection (see `TileBackground`).
+ * The canvas' `data-routes`, `data-depots` and `data-highlight` attributes say what was drawn, for tests.
  */
-import type { Plan, Problem } from "../core/index.js";
-import { fitEquirectangular } from "./fitEquirectangular.js";
-import { formatClock } from "./formatClock.js";
-import { vehicleColour } from "./vehicleColour.js";
+import type { LatLon, Plan, Problem } from "../core/index.js";
+import { depotName, describeRoutes, stopHoverText } from "./describeRoutes.js";
+import { DEPOT_HALF_PX, drawRouteLayer, type DrawnRoute, type MapPoint } from "./drawRouteLayer.js";
+import { fitEquirectangular, type FittedProjection } from "./fitEquirectangular.js";
+import { placeLabels, type Box, type LabelRequest } from "./placeLabels.js";
+import { vehicleStyle, type RouteStyle } from "./vehicleColour.js";
 
-interface HoverPoint {
-  readonly x: number;
-  readonly y: number;
+/** The elements the map draws into (see taskpane.html). */
+export interface RouteMapElements {
+  /** The canvas (sized by CSS; redrawn at device resolution). */
+  readonly canvas: HTMLCanvasElement;
+  /** An absolutely positioned element inside the canvas' positioned parent. */
+  readonly tooltip: HTMLElement;
+  /** A layer over the canvas, same size, that receives the labels. */
+  readonly labels: HTMLElement;
+  /** A list that receives one entry per used vehicle. */
+  readonly legend: HTMLElement;
+  /** A visually hidden element that receives the map in words. */
+  readonly text: HTMLElement;
+}
+
+/** Where the map gets its pixel positions: a fit of its own, or a background's projection. */
+export interface MapProjector {
+  /** Fit `points` into `width x height` px and return the projection to draw with. */
+  fit(points: readonly LatLon[], width: number, height: number, paddingPx: number): FittedProjection | Promise<FittedProjection>;
+}
+
+interface HoverPoint extends MapPoint {
   readonly text: string;
 }
 
-/** Draws a plan and answers hovers. */
+const LABEL_FONT = "600 11px Segoe UI, sans-serif";
+const LABEL_H_PX = 16;
+const LABEL_PAD_PX = 4;
+/** Numbers go into every stop marker when no two stops are closer than this, px. */
+const NUMBER_SPACING_PX = 17;
+const PADDING_PX = 26;
+
+const offline: MapProjector = { fit: (points, w, h, pad) => fitEquirectangular(points, w, h, pad) };
+
+/** Draws a plan and answers hovers and legend clicks. */
 export class RouteMap {
   private hoverPoints: HoverPoint[] = [];
-  private last: { problem: Problem; plan: Plan } | undefined;
+  private last: { problem: Problem; plan: Plan; projection: FittedProjection; w: number; h: number } | undefined;
+  private highlighted: string | undefined;
+  private projector: MapProjector = offline;
+
+  /** @param el - the map's elements */
+  constructor(private readonly el: RouteMapElements) {
+    el.canvas.addEventListener("mousemove", (e) => this.hover(e.offsetX, e.offsetY));
+    el.canvas.addEventListener("mouseleave", () => (el.tooltip.hidden = true));
+    window.addEventListener("resize", () => void (this.last && this.draw(this.last.problem, this.last.plan)));
+  }
 
   /**
-   * @param canvas - the canvas to draw on (sized by CSS; redrawn at device resolution)
-   * @param tooltip - an absolutely positioned element inside the canvas' positioned parent
-   * @param legend - a list element that receives one item per used vehicle
+   * Use `projector` for the next draws (a tile background), or the offline fit when undefined;
+   * redraws the last plan.
+   *
+   * @param projector - the background's projection, or undefined for none
+   * @example await map.setProjector(undefined)
    */
-  constructor(
-    private readonly canvas: HTMLCanvasElement,
-    private readonly tooltip: HTMLElement,
-    private readonly legend: HTMLElement,
-  ) {
-    canvas.addEventListener("mousemove", (e) => this.hover(e.offsetX, e.offsetY));
-    canvas.addEventListener("mouseleave", () => (this.tooltip.hidden = true));
-    window.addEventListener("resize", () => this.last && this.draw(this.last.problem, this.last.plan));
+  async setProjector(projector: MapProjector | undefined): Promise<void> {
+    this.projector = projector ?? offline;
+    if (this.last) await this.draw(this.last.problem, this.last.plan);
   }
 
   /**
@@ -39,144 +78,170 @@ export class RouteMap {
    *
    * @param problem - the solved problem (locations, stops, vehicles)
    * @param plan - its plan
-   * @example map.draw(read.problem, result.plan)
+   * @example await map.draw(read.problem, result.plan)
    */
-  draw(problem: Problem, plan: Plan): void {
-    this.last = { problem, plan };
-    const cssW = this.canvas.clientWidth || 320;
-    const cssH = this.canvas.clientHeight || 260;
-    const ratio = window.devicePixelRatio || 1;
-    this.canvas.width = Math.round(cssW * ratio);
-    this.canvas.height = Math.round(cssH * ratio);
-    const ctx = this.canvas.getContext("2d");
-    if (!ctx) return;
-    ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
-    ctx.clearRect(0, 0, cssW, cssH);
+  async draw(problem: Problem, plan: Plan): Promise<void> {
+    const w = this.el.canvas.clientWidth || 320;
+    const h = this.el.canvas.clientHeight || 260;
     const used = new Set<number>([
       ...problem.stops.map((s) => s.location),
       ...problem.vehicles.flatMap((v) => [v.startLocation, v.endLocation]),
     ]);
     const shown = [...used].map((i) => problem.locations[i]).filter((p) => p !== undefined);
+    if (this.last?.plan !== plan) this.highlighted = undefined;
     if (shown.length === 0) return;
-    const proj = fitEquirectangular(shown, cssW, cssH, 22);
-    const at = (loc: number) => proj.project(problem.locations[loc] ?? { lat: 0, lon: 0 });
-    this.hoverPoints = [];
-    this.legend.replaceChildren();
-    const drawn: { vehicle: string; stops: string[] }[] = [];
-    // The scale goes first, under routes and depots, so it never hides a depot.
-    this.drawScale(ctx, proj.pxPerKm, cssH);
-
-    plan.routes.forEach((route, r) => {
-      if (route.visits.length === 0) return;
-      const vehicle = problem.vehicles[route.vehicle];
-      if (!vehicle) return;
-      const colour = vehicleColour(r);
-      const path = [vehicle.startLocation, ...route.visits.map((v) => problem.stops[v.stop]?.location ?? 0), vehicle.endLocation];
-      ctx.strokeStyle = colour;
-      ctx.lineWidth = 2;
-      ctx.lineJoin = "round";
-      ctx.beginPath();
-      path.forEach((loc, i) => {
-        const p = at(loc);
-        if (i === 0) ctx.moveTo(p.x, p.y);
-        else ctx.lineTo(p.x, p.y);
-      });
-      ctx.stroke();
-      route.visits.forEach((visit, i) => {
-        const stop = problem.stops[visit.stop];
-        if (!stop) return;
-        const p = at(stop.location);
-        ctx.fillStyle = "#fff";
-        ctx.beginPath();
-        ctx.arc(p.x, p.y, 4.5, 0, 2 * Math.PI);
-        ctx.fill();
-        ctx.lineWidth = 2;
-        ctx.stroke();
-        const load = visit.loadAfter.map((l, d) => `${round1(l)} ${problem.loadDimensions[d] ?? ""}`.trim()).join(", ");
-        this.hoverPoints.push({
-          x: p.x,
-          y: p.y,
-          text: `${stop.name || stop.id} · ${vehicle.id} #${i + 1} · arrives ${formatClock(visit.arrivalMin)} · load after ${load}`,
-        });
-      });
-      // The vehicle label sits at its first stop, so routes from one depot stay distinguishable.
-      const first = route.visits[0];
-      const firstStop = first ? problem.stops[first.stop] : undefined;
-      if (firstStop) {
-        const p = at(firstStop.location);
-        ctx.font = "600 11px Segoe UI, sans-serif";
-        // Keep the label inside the canvas: flip it to the left of the stop near the right edge.
-        const labelW = ctx.measureText(vehicle.id).width;
-        const lx = p.x + 7 + labelW > cssW - 2 ? p.x - 7 - labelW : p.x + 7;
-        const ly = Math.max(12, p.y - 6);
-        ctx.lineWidth = 3;
-        ctx.strokeStyle = "rgba(255,255,255,0.9)";
-        ctx.strokeText(vehicle.id, lx, ly);
-        ctx.fillStyle = colour;
-        ctx.fillText(vehicle.id, lx, ly);
-      }
-      drawn.push({ vehicle: vehicle.id, stops: route.visits.map((v) => problem.stops[v.stop]?.id ?? "?") });
-      const item = document.createElement("li");
-      const swatch = document.createElement("span");
-      swatch.className = "swatch";
-      swatch.style.background = colour;
-      item.append(swatch, `${vehicle.id}: ${route.visits.length} stops, ${round1(route.distanceKm)} km`);
-      this.legend.append(item);
-    });
-
-    // Depots on top: a dark square.
-    const depots = new Set(problem.vehicles.flatMap((v) => [v.startLocation, v.endLocation]));
-    for (const loc of depots) {
-      const p = at(loc);
-      ctx.fillStyle = "#242424";
-      ctx.fillRect(p.x - 5, p.y - 5, 10, 10);
-      const name = problem.locations[loc]?.name ?? "Depot";
-      this.hoverPoints.push({ x: p.x, y: p.y, text: `${name} (depot)` });
-    }
-    // Unassigned stops: grey crosses.
-    for (const u of plan.unassigned) {
-      const stop = problem.stops[u.stop];
-      if (!stop) continue;
-      const p = at(stop.location);
-      ctx.strokeStyle = "#8a8a8a";
-      ctx.lineWidth = 2;
-      ctx.beginPath();
-      ctx.moveTo(p.x - 4, p.y - 4);
-      ctx.lineTo(p.x + 4, p.y + 4);
-      ctx.moveTo(p.x + 4, p.y - 4);
-      ctx.lineTo(p.x - 4, p.y + 4);
-      ctx.stroke();
-      this.hoverPoints.push({ x: p.x, y: p.y, text: `${stop.name || stop.id} · not served: ${u.reason}` });
-    }
-    this.canvas.dataset.routes = JSON.stringify(drawn);
+    const projection = await this.projector.fit(shown, w, h, PADDING_PX);
+    this.last = { problem, plan, projection, w, h };
+    this.render();
   }
 
-  private drawScale(ctx: CanvasRenderingContext2D, pxPerKm: number, cssH: number): void {
-    const targetPx = 80;
-    const km = niceStep(targetPx / pxPerKm);
-    const px = km * pxPerKm;
-    const x = 10,
-      y = cssH - 10;
-    const label = `${km} km (straight line)`;
-    ctx.font = "11px Segoe UI, sans-serif";
-    // A light box keeps the scale readable over routes and depots.
-    ctx.fillStyle = "rgba(247,245,242,0.85)";
-    ctx.fillRect(x - 4, y - 18, Math.max(px, ctx.measureText(label).width + 8) + 8, 22);
-    ctx.strokeStyle = "#424242";
-    ctx.lineWidth = 1.5;
-    ctx.beginPath();
-    ctx.moveTo(x, y - 4);
-    ctx.lineTo(x, y);
-    ctx.lineTo(x + px, y);
-    ctx.lineTo(x + px, y - 4);
-    ctx.stroke();
-    ctx.fillStyle = "#424242";
-    ctx.fillText(label, x + 4, y - 5);
+  /** Redraw the last plan with the last projection (after a highlight change). */
+  private render(): void {
+    const last = this.last;
+    if (!last) return;
+    const { problem, plan, projection, w, h } = last;
+    const canvas = this.el.canvas;
+    const ratio = window.devicePixelRatio || 1;
+    canvas.width = Math.round(w * ratio);
+    canvas.height = Math.round(h * ratio);
+    const ctx = canvas.getContext("2d");
+    if (!ctx) return;
+    ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
+    ctx.clearRect(0, 0, w, h);
+    const at = (loc: number): MapPoint => projection.project(problem.locations[loc] ?? { lat: 0, lon: 0 });
+
+    this.hoverPoints = [];
+    const routes: (DrawnRoute & { vehicle: string; stops: string[]; first: MapPoint; km: number })[] = [];
+    const styles: (RouteStyle | undefined)[] = [];
+    plan.routes.forEach((route, r) => {
+      const vehicle = problem.vehicles[route.vehicle];
+      if (!vehicle || route.visits.length === 0) return;
+      const style = vehicleStyle(routes.length);
+      styles[r] = style;
+      const stops = route.visits.map((v) => at(problem.stops[v.stop]?.location ?? 0));
+      route.visits.forEach((visit, i) =>
+        this.hoverPoints.push({ ...stops[i]!, text: stopHoverText(problem, vehicle.id, visit, i + 1, route.visits.length) }),
+      );
+      routes.push({
+        style,
+        path: [at(vehicle.startLocation), ...stops, at(vehicle.endLocation)],
+        highlighted: this.highlighted === undefined ? undefined : this.highlighted === vehicle.id,
+        vehicle: vehicle.id,
+        stops: route.visits.map((v) => problem.stops[v.stop]?.id ?? "?"),
+        first: stops[0]!,
+        km: route.distanceKm,
+      });
+    });
+    const depotLocs = [...new Set(problem.vehicles.flatMap((v) => [v.startLocation, v.endLocation]))];
+    const depots = depotLocs.map((loc) => ({ ...at(loc), name: depotName(problem, loc) }));
+    for (const d of depots) this.hoverPoints.push({ x: d.x, y: d.y, text: `${d.name}\ndepot` });
+    const unserved = plan.unassigned.flatMap((u) => {
+      const stop = problem.stops[u.stop];
+      if (!stop) return [];
+      const p = at(stop.location);
+      this.hoverPoints.push({ ...p, text: `${stop.name || stop.id}\nnot served: ${u.reason}` });
+      return [p];
+    });
+    const served = routes.flatMap((r) => r.path.slice(1, -1));
+    const scaleBox = drawRouteLayer(ctx, { routes, depots, unserved, pxPerKm: projection.pxPerKm, numbers: isSparse(served) }, h);
+
+    this.placeLabelElements(ctx, depots, routes, scaleBox, w, h);
+    this.renderLegend(routes);
+    const words = describeRoutes(
+      problem,
+      plan,
+      styles.map((s) => (s ? `${s.colourName}${s.dash.length ? " dashed" : ""} line` : "")),
+    );
+    renderText(
+      this.el.text,
+      words,
+      depots.map((d) => d.name),
+    );
+    canvas.dataset.routes = JSON.stringify(routes.map((r) => ({ vehicle: r.vehicle, stops: r.stops })));
+    canvas.dataset.highlight = this.highlighted ?? "";
+    canvas.dataset.depots = JSON.stringify(depots.map((d) => ({ name: d.name, x: Math.round(d.x), y: Math.round(d.y) })));
+  }
+
+  private placeLabelElements(
+    ctx: CanvasRenderingContext2D,
+    depots: readonly (MapPoint & { name: string })[],
+    routes: readonly { vehicle: string; first: MapPoint; style: RouteStyle }[],
+    scaleBox: Box,
+    w: number,
+    h: number,
+  ): void {
+    ctx.font = LABEL_FONT;
+    const size = (text: string) => ({ w: Math.ceil(ctx.measureText(text).width) + 2 * LABEL_PAD_PX + 2, h: LABEL_H_PX });
+    const depotBoxes = depots.map((d) => ({
+      x: d.x - DEPOT_HALF_PX - 1,
+      y: d.y - DEPOT_HALF_PX - 1,
+      w: 2 * DEPOT_HALF_PX + 2,
+      h: 2 * DEPOT_HALF_PX + 2,
+    }));
+    // Depots first: a depot's name matters more than where a vehicle's label sits.
+    const requests: (LabelRequest & { text: string; kind: "depot" | "vehicle"; colour?: string })[] = [
+      ...depots.map((d) => ({ x: d.x, y: d.y, ...size(d.name), text: d.name, kind: "depot" as const })),
+      ...routes.map((r) => ({
+        x: r.first.x,
+        y: r.first.y,
+        ...size(r.vehicle),
+        text: r.vehicle,
+        kind: "vehicle" as const,
+        colour: r.style.colour,
+      })),
+    ];
+    const boxes = placeLabels(requests, { width: w, height: h, obstacles: [...depotBoxes, scaleBox] });
+    const nodes: HTMLElement[] = [];
+    requests.forEach((req, i) => {
+      const box = boxes[i];
+      if (!box) return;
+      const span = document.createElement("span");
+      span.className = `map-label ${req.kind}`;
+      span.textContent = req.text;
+      span.style.left = `${box.x}px`;
+      span.style.top = `${box.y}px`;
+      span.style.width = `${box.w}px`;
+      span.style.height = `${box.h}px`;
+      if (req.colour) span.style.borderLeftColor = req.colour;
+      nodes.push(span);
+    });
+    this.el.labels.replaceChildren(...nodes);
+    this.el.labels.dataset.omitted = String(boxes.filter((b) => !b).length);
+  }
+
+  private renderLegend(routes: readonly { vehicle: string; style: RouteStyle; stops: string[]; km: number }[]): void {
+    this.el.legend.replaceChildren(
+      ...routes.map((r) => {
+        const item = document.createElement("li");
+        const button = document.createElement("button");
+        button.type = "button";
+        button.className = "legend-entry";
+        button.dataset.vehicle = r.vehicle;
+        button.setAttribute("aria-pressed", String(this.highlighted === r.vehicle));
+        button.title = this.highlighted === r.vehicle ? "Show all routes" : `Highlight the route of ${r.vehicle}`;
+        const swatch = document.createElement("span");
+        swatch.className = "swatch";
+        swatch.style.borderTopColor = r.style.colour;
+        swatch.style.borderTopStyle =
+          r.style.dash.length === 0 ? "solid" : r.style.dash.length === 2 ? (r.style.dash[0]! > 4 ? "dashed" : "dotted") : "double";
+        button.append(swatch, `${r.vehicle}: ${r.stops.length} stops, ${Math.round(r.km * 10) / 10} km`);
+        button.addEventListener("click", () => this.toggleHighlight(r.vehicle));
+        item.append(button);
+        return item;
+      }),
+    );
+  }
+
+  private toggleHighlight(vehicle: string): void {
+    this.highlighted = this.highlighted === vehicle ? undefined : vehicle;
+    this.render();
+    // The legend was rebuilt: keep keyboard focus on the entry the user pressed.
+    this.el.legend.querySelector<HTMLButtonElement>(`button[data-vehicle="${CSS.escape(vehicle)}"]`)?.focus();
   }
 
   private hover(x: number, y: number): void {
     let best: HoverPoint | undefined;
-    let bestD = 8 * 8;
+    let bestD = 9 * 9;
     for (const p of this.hoverPoints) {
       const d = (p.x - x) ** 2 + (p.y - y) ** 2;
       if (d <= bestD) {
@@ -184,26 +249,73 @@ export class RouteMap {
         bestD = d;
       }
     }
+    const tip = this.el.tooltip;
     if (!best) {
-      this.tooltip.hidden = true;
+      tip.hidden = true;
       return;
     }
-    this.tooltip.textContent = best.text;
-    this.tooltip.hidden = false;
-    const maxLeft = Math.max(0, this.canvas.clientWidth - this.tooltip.offsetWidth - 4);
-    this.tooltip.style.left = `${Math.min(best.x + 10, maxLeft)}px`;
-    this.tooltip.style.top = `${Math.max(0, best.y - 30)}px`;
+    tip.textContent = best.text;
+    tip.hidden = false;
+    // Keep the whole text inside the map (CSS caps its width to the map's): right of the point when
+    // it fits, else pushed left; above the point when it fits, else below.
+    const wrapW = this.el.canvas.clientWidth;
+    const wrapH = this.el.canvas.clientHeight;
+    const left = clamp(best.x + 10, 2, wrapW - tip.offsetWidth - 2);
+    const above = best.y - tip.offsetHeight - 10;
+    const top = clamp(above >= 2 ? above : best.y + 12, 2, wrapH - tip.offsetHeight - 2);
+    tip.style.left = `${left}px`;
+    tip.style.top = `${top}px`;
   }
 }
 
-function round1(x: number): number {
-  return Math.round(x * 10) / 10;
+function clamp(v: number, lo: number, hi: number): number {
+  return Math.max(lo, Math.min(v, Math.max(lo, hi)));
 }
 
-/** 1, 2 or 5 times a power of ten, at most `x`. */
-function niceStep(x: number): number {
-  if (!(x > 0) || !Number.isFinite(x)) return 1;
-  const p = 10 ** Math.floor(Math.log10(x));
-  const m = x / p;
-  return (m >= 5 ? 5 : m >= 2 ? 2 : 1) * p;
+/** True when no two points are closer than `NUMBER_SPACING_PX` (checked on a grid, so large plans stay fast). */
+function isSparse(points: readonly MapPoint[]): boolean {
+  const cell = NUMBER_SPACING_PX;
+  const grid = new Map<string, MapPoint[]>();
+  for (const p of points) {
+    const gx = Math.floor(p.x / cell);
+    const gy = Math.floor(p.y / cell);
+    for (let dx = -1; dx <= 1; dx++)
+      for (let dy = -1; dy <= 1; dy++)
+        for (const q of grid.get(`${gx + dx},${gy + dy}`) ?? []) if (Math.hypot(p.x - q.x, p.y - q.y) < cell) return false;
+    const key = `${gx},${gy}`;
+    grid.set(key, [...(grid.get(key) ?? []), p]);
+  }
+  return true;
+}
+
+function renderText(target: HTMLElement, words: ReturnType<typeof describeRoutes>, depots: readonly string[]): void {
+  const heading = document.createElement("p");
+  heading.textContent = `Route map in words: ${words.routes.length} route${words.routes.length === 1 ? "" : "s"}; depots: ${[...new Set(depots)].join(", ")}.`;
+  const list = document.createElement("ul");
+  for (const r of words.routes) {
+    const li = document.createElement("li");
+    const ol = document.createElement("ol");
+    ol.append(
+      ...r.stops.map((s) => {
+        const item = document.createElement("li");
+        item.textContent = s;
+        return item;
+      }),
+    );
+    li.append(r.summary, ol);
+    list.append(li);
+  }
+  const nodes: HTMLElement[] = [heading, list];
+  if (words.unserved.length > 0) {
+    const un = document.createElement("ul");
+    un.append(
+      ...words.unserved.map((s) => {
+        const item = document.createElement("li");
+        item.textContent = s;
+        return item;
+      }),
+    );
+    nodes.push(un);
+  }
+  target.replaceChildren(...nodes);
 }

@@ -223,12 +223,12 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
         for (let y = 0; y < box.height; y += 3) {
           for (let x = 0; x < box.width; x += 3) {
             canvas.dispatchEvent(new MouseEvent("mousemove", { clientX: box.left + x, clientY: box.top + y, bubbles: true }));
-            if (!tip.hidden && / arrives /.test(tip.textContent ?? "")) return tip.textContent;
+            if (!tip.hidden && /\narrives /.test(tip.textContent ?? "")) return tip.textContent;
           }
         }
         return null;
       });
-      expect(tooltip).toMatch(/ arrives \d\d:\d\d · load after \d/);
+      expect(tooltip).toMatch(/\narrives \d\d:\d\d( · window \d\d:\d\d–\d\d:\d\d)?(\n\d+ min late)?\nload after \d/);
 
       mkdirSync(ARTIFACTS, { recursive: true });
       await page.screenshot({ path: join(ARTIFACTS, "pane-after-run.png"), fullPage: true });
@@ -451,6 +451,138 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await expect(excelPage.locator("#pane-error").isHidden()).resolves.toBe(true);
     } finally {
       await excelPage.close();
+      input.cleanup();
+    }
+  }, 300_000);
+
+  it("route map: depots and vehicle labels never overlap each other or a depot, hover text stays inside a 350 px pane, a legend entry highlights its route by click and keyboard, the map in words, screenshots at 350 px and desktop width, and no request leaves the page", async () => {
+    const input = await inputWorkbook();
+    const mapPage = await context!.newPage();
+    const requested: string[] = [];
+    mapPage.on("request", (req) => void requested.push(req.url()));
+    try {
+      await mapPage.setViewportSize({ width: 350, height: 900 });
+      await mapPage.goto(`${baseUrl}/taskpane.html`);
+      await mapPage.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+      await mapPage.setInputFiles("#file-input", input.path);
+      await mapPage.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+      await mapPage.fill("#seconds", "3");
+      await mapPage.locator("#seconds").dispatchEvent("change");
+      await mapPage.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+      await mapPage.click("#optimize");
+      await mapPage.waitForSelector("#result-section:not([hidden])", { timeout: 120_000 });
+      await expect.poll(() => mapPage.locator("#route-map").getAttribute("data-routes"), { timeout: 30_000 }).toMatch(/vehicle/);
+      mkdirSync(ARTIFACTS, { recursive: true });
+
+      for (const width of [350, 1200]) {
+        await mapPage.setViewportSize({ width, height: 900 });
+        await expect
+          .poll(() => mapPage.evaluate(() => (document.getElementById("route-map") as HTMLCanvasElement).width / devicePixelRatio), {
+            timeout: 10_000,
+          })
+          .toBeCloseTo(await mapPage.evaluate(() => document.getElementById("route-map")!.clientWidth), 0);
+        const geometry = await mapPage.evaluate(() => {
+          const canvas = document.getElementById("route-map")!;
+          const c = canvas.getBoundingClientRect();
+          const labels = [...document.querySelectorAll<HTMLElement>("#map-labels .map-label")].map((el) => {
+            const r = el.getBoundingClientRect();
+            return {
+              text: el.textContent ?? "",
+              kind: el.classList.contains("depot") ? "depot" : "vehicle",
+              x: r.left,
+              y: r.top,
+              w: r.width,
+              h: r.height,
+            };
+          });
+          return {
+            canvas: { x: c.left, y: c.top, w: c.width, h: c.height },
+            labels,
+            depots: JSON.parse(canvas.dataset.depots ?? "[]") as { name: string; x: number; y: number }[],
+            routes: JSON.parse(canvas.dataset.routes ?? "[]") as { vehicle: string; stops: string[] }[],
+            omitted: Number(document.getElementById("map-labels")!.dataset.omitted),
+            pageWidth: document.documentElement.clientWidth,
+          };
+        });
+        // Bounding boxes (CSSOM View getBoundingClientRect): no two labels share area, none covers a depot square.
+        const shared = (a: { x: number; y: number; w: number; h: number }, b: typeof a) =>
+          Math.max(0, Math.min(a.x + a.w, b.x + b.w) - Math.max(a.x, b.x)) *
+          Math.max(0, Math.min(a.y + a.h, b.y + b.h) - Math.max(a.y, b.y));
+        const { labels, canvas } = geometry;
+        expect(labels.length).toBeGreaterThan(0);
+        for (let i = 0; i < labels.length; i++)
+          for (let j = i + 1; j < labels.length; j++)
+            expect(shared(labels[i]!, labels[j]!), `${labels[i]!.text} / ${labels[j]!.text} at ${width}px`).toBe(0);
+        for (const d of geometry.depots) {
+          const square = { x: canvas.x + d.x - 6, y: canvas.y + d.y - 6, w: 12, h: 12 };
+          for (const l of labels) expect(shared(l, square), `${l.text} over depot ${d.name} at ${width}px`).toBe(0);
+        }
+        for (const l of labels) {
+          expect(l.x).toBeGreaterThanOrEqual(canvas.x - 0.5);
+          expect(l.x + l.w).toBeLessThanOrEqual(canvas.x + canvas.w + 0.5);
+        }
+        // Every used vehicle is labelled unless no free place was left (counted, never drawn over another).
+        const vehicleLabels = labels.filter((l) => l.kind === "vehicle").map((l) => l.text);
+        expect(vehicleLabels.length + geometry.omitted).toBeGreaterThanOrEqual(geometry.routes.length);
+        for (const r of geometry.routes) if (!vehicleLabels.includes(r.vehicle)) expect(geometry.omitted).toBeGreaterThan(0);
+        expect(labels.filter((l) => l.kind === "depot").length).toBeGreaterThan(0);
+
+        // Hover every point of the canvas: each tooltip shown lies inside the map and the page width.
+        const tips = await mapPage.evaluate(() => {
+          const canvas = document.getElementById("route-map")!;
+          const tip = document.getElementById("map-tooltip")!;
+          const box = canvas.getBoundingClientRect();
+          const out: { text: string; left: number; right: number; top: number; bottom: number }[] = [];
+          for (let y = 0; y < box.height; y += 4)
+            for (let x = 0; x < box.width; x += 4) {
+              canvas.dispatchEvent(new MouseEvent("mousemove", { clientX: box.left + x, clientY: box.top + y, bubbles: true }));
+              if (tip.hidden) continue;
+              const r = tip.getBoundingClientRect();
+              out.push({
+                text: tip.textContent ?? "",
+                left: r.left - box.left,
+                right: r.right - box.left,
+                top: r.top - box.top,
+                bottom: r.bottom - box.top,
+              });
+            }
+          canvas.dispatchEvent(new MouseEvent("mouseleave"));
+          return { tips: out, w: box.width, h: box.height };
+        });
+        expect(tips.tips.some((t) => /stop \d+ of \d+\narrives \d\d:\d\d/.test(t.text))).toBe(true);
+        expect(tips.tips.some((t) => /\ndepot$/.test(t.text))).toBe(true);
+        for (const t of tips.tips) {
+          expect(t.left, t.text).toBeGreaterThanOrEqual(0);
+          expect(t.top, t.text).toBeGreaterThanOrEqual(0);
+          expect(t.right, t.text).toBeLessThanOrEqual(tips.w);
+          expect(t.bottom, t.text).toBeLessThanOrEqual(tips.h);
+        }
+        await mapPage.locator("#result-section").screenshot({ path: join(ARTIFACTS, `route-map-${width}px.png`) });
+      }
+
+      // The legend: Enter on an entry highlights its route, Space again shows all (WAI-ARIA toggle button, aria-pressed).
+      const first = mapPage.locator("#map-legend button.legend-entry").first();
+      const vehicle = await first.getAttribute("data-vehicle");
+      await first.focus();
+      await mapPage.keyboard.press("Enter");
+      await expect.poll(() => mapPage.locator("#route-map").getAttribute("data-highlight")).toBe(vehicle);
+      await expect(mapPage.locator(`#map-legend button[data-vehicle="${vehicle}"]`).getAttribute("aria-pressed")).resolves.toBe("true");
+      await mapPage.locator("#result-section").screenshot({ path: join(ARTIFACTS, "route-map-highlight.png") });
+      await mapPage.keyboard.press("Space");
+      await expect.poll(() => mapPage.locator("#route-map").getAttribute("data-highlight")).toBe("");
+      await mapPage.locator("#map-legend button.legend-entry").nth(1).click();
+      await expect.poll(() => mapPage.locator("#route-map").getAttribute("data-highlight")).not.toBe("");
+
+      // The map in words lists every served stop once, in route order.
+      const routes = JSON.parse((await mapPage.locator("#route-map").getAttribute("data-routes")) ?? "[]") as { stops: string[] }[];
+      const spoken = await mapPage.locator("#map-text ol > li").count();
+      expect(spoken).toBe(routes.reduce((s, r) => s + r.stops.length, 0));
+
+      // Without a background template nothing is requested from anywhere but the page's own server.
+      expect(requested.filter((u) => !u.startsWith(baseUrl) && !/^(blob|data):/.test(u))).toEqual([]);
+      await expect(mapPage.locator("#map-tiles").isHidden()).resolves.toBe(true);
+    } finally {
+      await mapPage.close();
       input.cleanup();
     }
   }, 300_000);

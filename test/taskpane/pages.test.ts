@@ -21,4 +21,9 @@ describe("pane pages", () => {
     expect(html).not.toMatch(/<script src="office\/office\.js"><\/script>/);
     expect(html).toMatch(/_host_Info/);
   });
+
+  it("the help page names the published source of the route palette", () => {
+    expect(squash(read("help.html"))).toMatch(/Okabe and Ito, <em>Color Universal Design<\/em> \(2008\)/);
+    expect(read("vehicleColour.ts")).toMatch(/Okabe & Ito \(2008\)/);
+  });
 });
