@@ -55,4 +55,10 @@ export interface RunRecord {
   readonly fleetSource: string;
   /** Sheet and range of the road-distance matrix, when one replaced the great-circle distances. */
   readonly matrixSource?: string;
+  /**
+   * The plan sheet's id in the workbook that holds it (Excel's `worksheet.id`, which survives a
+   * rename; the file's sheet id for workbooks written by the CLI or the page), so Rerun still finds
+   * the record after the user renames the sheet.
+   */
+  readonly sheetId?: string;
 }

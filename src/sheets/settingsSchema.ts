@@ -79,6 +79,7 @@ export const runRecordSchema = z.object({
   stopsSource: z.string(),
   fleetSource: z.string(),
   matrixSource: z.string().optional(),
+  sheetId: z.string().optional(),
 });
 
 // The schemas must describe exactly the TypeScript types the rest of the code uses.

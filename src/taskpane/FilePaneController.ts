@@ -3,7 +3,7 @@
  * fleet sheets from drop-downs, optimize, write the plan into the in-memory workbook and
  * download it. Nothing leaves the machine.
  */
-import { SCENARIO_SETTINGS_PREFIX } from "../sheets/scenarioSettingsKey.js";
+import { runRecordText } from "./storedRunRecord.js";
 import { ExcelJsWorkbook, SETTINGS_SHEET } from "../workbook/exceljs/ExcelJsWorkbook.js";
 import { findInputSheets } from "../workbook/findInputSheets.js";
 import { openWorkbookFiles } from "./openWorkbookFiles.js";
@@ -60,7 +60,8 @@ export class FilePaneController extends PaneController {
     const d = this.dom;
     const names = (await this.book.listSheets()).filter((n) => n !== SETTINGS_SHEET);
     const settings = await this.book.readSettings();
-    const planSheets = names.filter((n) => settings[SCENARIO_SETTINGS_PREFIX + n] !== undefined);
+    const planSheets: string[] = [];
+    for (const n of names) if (runRecordText(settings, n, await this.book.sheetId(n)) !== undefined) planSheets.push(n);
     const fill = (select: HTMLSelectElement, options: readonly string[], wanted: string | undefined, empty: string) => {
       const keep = wanted ?? select.value;
       select.replaceChildren(new Option(empty, ""), ...options.map((n) => new Option(n, n)));

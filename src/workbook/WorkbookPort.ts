@@ -17,9 +17,30 @@ export interface WorkbookPort {
    * when it does not exist.
    */
   appendRows(name: string, header: SheetGrid, rows: SheetGrid): Promise<void>;
+  /**
+   * Write one run's output together: the new sheets (names must be free), then the record in the
+   * settings store, then the rows appended to the Compare sheet. In Excel this is one `Excel.run`;
+   * when it fails, the sheets it added are removed again, so no half plan is left behind.
+   */
+  writeRun(run: RunWrite): Promise<void>;
+  /**
+   * An id of the sheet that survives renaming it (Excel's `worksheet.id`; in a file, its sheet id),
+   * or `undefined` when no sheet has that name.
+   */
+  sheetId(name: string): Promise<string | undefined>;
   /** The add-in's small key/value store of this workbook. */
   readSettings(): Promise<Record<string, string>>;
   writeSetting(key: string, value: string): Promise<void>;
+}
+
+/** One run's output for `WorkbookPort.writeRun`. */
+export interface RunWrite {
+  /** New sheets in the order they are added; the first is the plan sheet whose id the record keeps. */
+  readonly sheets: readonly { readonly name: string; readonly grid: SheetGrid; readonly chart?: RouteChart }[];
+  /** The settings-store entry, given the first sheet's id once it exists. */
+  readonly record: (sheetId: string | undefined) => { readonly key: string; readonly value: string };
+  /** Rows appended below the last used row of a sheet (created with `header` when missing). */
+  readonly append: { readonly name: string; readonly header: SheetGrid; readonly rows: SheetGrid };
 }
 
 export type { CellValue, SheetRead };

@@ -71,8 +71,9 @@ export async function readScenarioInput(port: WorkbookPort, request: ScenarioReq
 
 /**
  * Second half of a scenario run: write the plan to a new, uniquely named scenario sheet (with
- * its route chart where the adapter can draw one), append a row to the Compare sheet, and store
- * the run record as JSON under `scenarioSettingsKey(sheetName)`. Input sheets are not touched.
+ * its route chart where the adapter can draw one), store the run record as JSON under
+ * `scenarioSettingsKey(sheetName)` with the sheet's rename-proof id, and append a row to the
+ * Compare sheet, all in one `WorkbookPort.writeRun`. Input sheets are not touched.
  *
  * @param port - the workbook
  * @param input - the read result, the solver's result and the run's bookkeeping
@@ -96,10 +97,31 @@ export async function writeScenarioResult(port: WorkbookPort, input: ScenarioOut
   };
   const { problem, stopRows, extraHeaders } = input.read;
   const layout = layoutPlan({ problem, plan: input.result.plan, run, stopRows, extraHeaders });
-  await port.addSheet(sheetName, layout.grid, layout.chart);
-  await port.appendRows(COMPARE_SHEET, layoutCompareHeader(), layoutCompareRow(run, input.result.plan));
-  await port.writeSetting(scenarioSettingsKey(sheetName), JSON.stringify(run));
+  await keepRecordOfRenamedSheet(port, sheetName);
+  await port.writeRun({
+    sheets: [{ name: sheetName, grid: layout.grid, ...(layout.chart ? { chart: layout.chart } : {}) }],
+    record: (sheetId) => ({
+      key: scenarioSettingsKey(sheetName),
+      value: JSON.stringify(sheetId !== undefined ? { ...run, sheetId } : run),
+    }),
+    append: { name: COMPARE_SHEET, header: layoutCompareHeader(), rows: layoutCompareRow(run, input.result.plan) },
+  });
   return { sheetName };
+}
+
+/**
+ * A record already stored under the new sheet's name belongs to a plan sheet that was renamed or
+ * deleted since; move it to a key of its own so the renamed sheet keeps its Rerun settings
+ * (records are found by sheet id first, whatever their key).
+ */
+async function keepRecordOfRenamedSheet(port: WorkbookPort, sheetName: string): Promise<void> {
+  const key = scenarioSettingsKey(sheetName);
+  const settings = await port.readSettings();
+  const old = settings[key];
+  if (old === undefined) return;
+  let n = 2;
+  while (settings[`${key} (${n})`] !== undefined) n++;
+  await port.writeSetting(`${key} (${n})`, old);
 }
 
 /**

@@ -432,9 +432,10 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
       stopsSource: "Stops!A1:N85",
       fleetSource: "Fleet!A1:O6",
     });
-    // listSheets 1, addSheet 3 (name check, write, read-back of the scenario text), appendRows 3
-    // (missing sheet found, create, read-back), writeSetting 1
-    expect(host().syncs() - readSyncs).toBe(8);
+    // readSettings 1 (a record left under this name?), listSheets 1, then writeRun in one Excel.run: names 1,
+    // write 1, the sheet's id 1, Compare missing 1, create it with the record 1, closing sync 1, read-backs of the
+    // scenario text "=Monday" on the plan sheet and in the Compare row 2
+    expect(host().syncs() - readSyncs).toBe(10);
     const planWrites = entries("values").filter((e) => e[1] === sheetName);
     expect(planWrites).toHaveLength(1); // one assignment of the whole grid
     const written = planWrites[0]![3] as unknown[][];
@@ -456,6 +457,7 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
     const [, key, value] = entries("settings.add")[0]!;
     expect(key).toBe(scenarioSettingsKey(sheetName));
     expect(JSON.parse(value as string).scenario).toBe(sheetName);
+    expect(JSON.parse(value as string).sheetId).toBe(`{id-${sheetName}}`);
     neverNotLoaded(read);
   });
 });

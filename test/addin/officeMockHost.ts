@@ -133,6 +133,9 @@ function recordingPageLayout(log: Entry[], sheet: string): unknown {
 
 function recordingSheet(log: Entry[], name: string): unknown {
   return {
+    // Excel's worksheet.id is a GUID in braces that stays when the sheet is renamed (ExcelApi 1.1).
+    id: `{id-${name}}`,
+    load: (what: unknown) => log.push(["sheet.load", name, what]),
     getRange: (address: string) => recordingRange(log, name, address),
     freezePanes: { freezeRows: (n: number) => log.push(["freezeRows", name, n]) },
     activate: () => log.push(["activate", name]),
@@ -219,6 +222,7 @@ export function install(setup: Setup, options: ExcelWorkbookOptions = {}): Excel
               log.push(["delete", this.lastName]);
             },
             lastName: "",
+            id: "{id-live}",
           },
           active: { name: "Fleet" },
           ranges: setup.ranges ?? {},

@@ -1,8 +1,8 @@
 import type { PrintSetup, RouteChart, SheetGrid } from "../../sheets/grid.js";
-import type { SheetRead, WorkbookPort } from "../WorkbookPort.js";
+import type { RunWrite, SheetRead, WorkbookPort } from "../WorkbookPort.js";
 import { excelCapabilities, type ExcelCapabilities } from "./excelCapabilities.js";
 import { readSelectionIn, readUsedRange, toRead, type SelectionRead } from "./excelReads.js";
-import { checkSheetName, writeNewSheet } from "./excelSheetWrite.js";
+import { checkSheetName, deleteSheets, writeNewSheet } from "./excelSheetWrite.js";
 import { OfficeActionError } from "./OfficeActionError.js";
 import { planGridWrite, type GridWritePlan } from "./planGridWrite.js";
 import { textCheckNotice, verifyTextCells } from "./verifyTextCells.js";
@@ -135,20 +135,137 @@ export class ExcelWorkbook implements WorkbookPort {
     checkSheetName(name);
     const caps = this.capabilities();
     await this.#run(`append rows to the sheet "${name}"`, async (context) => {
-      const used = await readUsedRange(context, name, "isNullObject, rowIndex, rowCount");
-      const start = used === undefined || used.isNullObject ? 0 : used.rowIndex + used.rowCount;
-      const headerPlan = start === 0 ? planGridWrite(header, { budgetBytes: this.#budgetBytes }) : undefined;
-      const rowsPlan = planGridWrite(rows, { startRow: start + (headerPlan?.rows ?? 0), budgetBytes: this.#budgetBytes });
-      const write = async (sheet: Excel.Worksheet): Promise<void> => {
-        if (headerPlan) await queueGridWrite(context, sheet, headerPlan, { freeze: caps.freezePanes && used === undefined });
-        await queueGridWrite(context, sheet, rowsPlan, { freeze: false });
-      };
-      if (used === undefined) await writeNewSheet(context, name, write);
-      else {
-        await write(context.workbook.worksheets.getItem(name));
-        await context.sync();
-      }
+      const rowsPlan = await this.#queueAppend(context, name, header, rows, caps.freezePanes);
+      await context.sync();
       await this.#checkText(context, name, rowsPlan);
+    });
+  }
+
+  /**
+   * Reads where `name` ends and queues the header (for a new or empty sheet) and the rows below
+   * it; the caller syncs. A missing sheet is added (and removed again if its first write fails).
+   */
+  async #queueAppend(
+    context: Excel.RequestContext,
+    name: string,
+    header: SheetGrid,
+    rows: SheetGrid,
+    freezePanes: boolean,
+    beforeWrite?: () => void,
+  ): Promise<GridWritePlan> {
+    const used = await readUsedRange(context, name, "isNullObject, rowIndex, rowCount");
+    beforeWrite?.();
+    const start = used === undefined || used.isNullObject ? 0 : used.rowIndex + used.rowCount;
+    const headerPlan = start === 0 ? planGridWrite(header, { budgetBytes: this.#budgetBytes }) : undefined;
+    const rowsPlan = planGridWrite(rows, { startRow: start + (headerPlan?.rows ?? 0), budgetBytes: this.#budgetBytes });
+    const write = async (sheet: Excel.Worksheet): Promise<void> => {
+      if (headerPlan) await queueGridWrite(context, sheet, headerPlan, { freeze: freezePanes && used === undefined });
+      await queueGridWrite(context, sheet, rowsPlan, { freeze: false });
+    };
+    if (used === undefined) await writeNewSheet(context, name, write);
+    else await write(context.workbook.worksheets.getItem(name));
+    return rowsPlan;
+  }
+
+  /**
+   * Writes one run's output in one `Excel.run`: the new sheets (with charts), the run record
+   * keyed to the plan sheet's `worksheet.id` (ExcelApi 1.1; it survives renaming), and the
+   * Compare rows. If any of it fails, the sheets it added are deleted in a new batch; a
+   * GeneralException (which desktop Excel raises when another workbook takes focus, OFFICE-NOTES.md)
+   * is retried once. Print settings and the text read-back follow; what they cannot do is a notice.
+   * @throws RangeError when a name breaks Excel's sheet-name rules
+   * @throws OfficeActionError when a name is taken or Excel fails twice
+   */
+  async writeRun(run: RunWrite): Promise<void> {
+    for (const sheet of run.sheets) {
+      checkSheetName(sheet.name);
+      if (sheet.grid.print) checkPrintSetup(sheet.grid.print, sheet.grid.values.length);
+    }
+    checkSheetName(run.append.name);
+    const plans = run.sheets.map((sheet) => planGridWrite(sheet.grid, { budgetBytes: this.#budgetBytes }));
+    const caps = this.capabilities();
+    const action = `write the plan "${run.sheets[0]?.name ?? ""}"`;
+    const attempt = (): Promise<void> =>
+      this.#run(action, async (context) => {
+        const appended = await this.#writeRunIn(context, run, plans, caps);
+        for (const [i, sheet] of run.sheets.entries()) await this.#checkText(context, sheet.name, plans[i]!);
+        await this.#checkText(context, run.append.name, appended);
+        for (const sheet of run.sheets)
+          if (sheet.grid.print) await this.#applyPrintSetup(context, sheet.name, sheet.grid.print, caps.printLayout);
+      });
+    try {
+      await attempt();
+    } catch (error) {
+      if (!(error instanceof OfficeActionError) || error.code !== "GeneralException") throw error;
+      await attempt();
+    }
+  }
+
+  async #writeRunIn(
+    context: Excel.RequestContext,
+    run: RunWrite,
+    plans: readonly GridWritePlan[],
+    caps: ExcelCapabilities,
+  ): Promise<GridWritePlan> {
+    const sheets = context.workbook.worksheets;
+    sheets.load("items/name");
+    await context.sync();
+    const taken = new Set(sheets.items.map((s) => s.name.toLowerCase()));
+    for (const sheet of run.sheets) {
+      if (taken.has(sheet.name.toLowerCase())) throw new Error(`a sheet named "${sheet.name}" already exists; choose a free name`);
+    }
+    const added: string[] = [];
+    try {
+      for (const [i, sheet] of run.sheets.entries()) {
+        const ws = sheets.add(sheet.name);
+        added.push(sheet.name);
+        await queueGridWrite(context, ws, plans[i]!, { freeze: caps.freezePanes });
+        if (sheet.chart && sheet.chart.series.length > 0) {
+          if (caps.charts) queueRouteChart(ws, sheet.chart);
+          else this.#notice(`The route chart on "${sheet.name}" was skipped: it needs Excel with ExcelApi 1.7 or later.`);
+        }
+        if (!caps.freezePanes && plans[i]!.freezeRows > 0)
+          this.#notice(`Header rows of "${sheet.name}" are not frozen: that needs ExcelApi 1.7.`);
+      }
+      await context.sync();
+      let id: string | undefined;
+      const first = run.sheets[0];
+      if (first) {
+        const ws = sheets.getItem(first.name);
+        ws.load("id");
+        await context.sync();
+        id = ws.id;
+      }
+      // The record goes into the same batch as the Compare rows, after the last read that may fail.
+      const { key, value } = run.record(id);
+      const appended = await this.#queueAppend(context, run.append.name, run.append.header, run.append.rows, caps.freezePanes, () =>
+        context.workbook.settings.add(key, value),
+      );
+      await context.sync();
+      return appended;
+    } catch (error) {
+      const kept = await deleteSheets(context, added);
+      const what =
+        added.length === 0
+          ? ""
+          : kept
+            ? " (the sheets it had added were removed)"
+            : ` (remove the half-written sheets ${added.map((n) => `"${n}"`).join(", ")} by hand)`;
+      throw new OfficeActionError(`write the plan${what}`, error);
+    }
+  }
+
+  /**
+   * `worksheet.id` of `name` (ExcelApi 1.1), which stays the same when the sheet is renamed.
+   * @returns the id, or `undefined` when no sheet has that name
+   * @throws OfficeActionError when Excel fails
+   */
+  async sheetId(name: string): Promise<string | undefined> {
+    return this.#run(`find the sheet "${name}"`, async (context) => {
+      const ws = context.workbook.worksheets.getItemOrNullObject(name);
+      ws.load("isNullObject, id");
+      await context.sync();
+      return ws.isNullObject ? undefined : ws.id;
     });
   }
 

@@ -22,17 +22,24 @@ export async function writeNewSheet(
 }
 
 async function deleteSheetIfPresent(context: Excel.RequestContext, name: string): Promise<boolean> {
+  return deleteSheets(context, [name]);
+}
+
+/**
+ * Deletes those of `names` that exist, in a new batch, after a failed write.
+ * @returns false when that failed too (the original failure is the one to report)
+ */
+export async function deleteSheets(context: Excel.RequestContext, names: readonly string[]): Promise<boolean> {
+  if (names.length === 0) return true;
   try {
-    const sheet = context.workbook.worksheets.getItemOrNullObject(name);
-    sheet.load("isNullObject");
+    const sheets = names.map((name) => context.workbook.worksheets.getItemOrNullObject(name));
+    for (const sheet of sheets) sheet.load("isNullObject");
     await context.sync();
-    if (!sheet.isNullObject) {
-      sheet.delete();
-      await context.sync();
-    }
+    for (const sheet of sheets) if (!sheet.isNullObject) sheet.delete();
+    await context.sync();
     return true;
   } catch {
-    return false; // the original failure is the one to report
+    return false;
   }
 }
 

@@ -1,6 +1,6 @@
 import ExcelJS from "exceljs";
 import type { RouteChart, SheetGrid } from "../../sheets/grid.js";
-import type { SheetRead, WorkbookPort } from "../WorkbookPort.js";
+import type { RunWrite, SheetRead, WorkbookPort } from "../WorkbookPort.js";
 import { pinZipDates } from "./pinZipDates.js";
 import { rawCellValue } from "./rawCellValue.js";
 import { writeGrid } from "./writeGrid.js";
@@ -167,6 +167,34 @@ export class ExcelJsWorkbook implements WorkbookPort {
     writeGrid(ws, grid, 1, { date1904: this.date1904 });
     if (grid.print) writePrintSetup(ws, grid.print);
     if (chart) this.skippedCharts.push(ws.name);
+  }
+
+  /**
+   * Write one run's output: the sheets, the rows appended to the Compare sheet, then the record
+   * (keeping the plan sheet's id), so the tabs keep their order. Everything is in memory until `toBuffer`, so nothing is ever
+   * half written to a file.
+   *
+   * @param run - the sheets, the record and the rows to append
+   * @example await book.writeRun({ sheets: [{ name: "Plan", grid }], record: (id) => ({ key, value }), append })
+   */
+  async writeRun(run: RunWrite): Promise<void> {
+    for (const sheet of run.sheets) await this.addSheet(sheet.name, sheet.grid, sheet.chart);
+    await this.appendRows(run.append.name, run.append.header, run.append.rows);
+    const first = run.sheets[0];
+    const { key, value } = run.record(first ? await this.sheetId(first.name) : undefined);
+    await this.writeSetting(key, value);
+  }
+
+  /**
+   * The sheet's id in the file (`sheetId` of ECMA-376 workbook.xml, kept when the sheet is renamed).
+   *
+   * @param name - sheet name, matched ignoring case
+   * @returns the id as text, or `undefined` when no sheet has that name
+   * @example await book.sheetId("Plan") // => "4"
+   */
+  async sheetId(name: string): Promise<string | undefined> {
+    const ws = this.findSheet(name);
+    return ws ? String(ws.id) : undefined;
   }
 
   /**
