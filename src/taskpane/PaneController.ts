@@ -16,7 +16,8 @@ import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
 import { renderResult } from "./renderResult.js";
 import { renderPickedTables } from "./renderTableSummary.js";
 import { RouteMap } from "./RouteMap.js";
-import { showProgress } from "./runProgress.js";
+import { PointerHold } from "./pointerHold.js";
+import { showFinished, showProgress } from "./runProgress.js";
 import { formFromSettings, settingsFromForm } from "./settingsFromForm.js";
 import { SolverClient } from "./SolverClient.js";
 import { storedRunRecord } from "./storedRunRecord.js";
@@ -53,7 +54,9 @@ export class PaneController {
     d.modeBadge.textContent = this.source.mode === "excel" ? "in Excel" : "standalone · files";
     d.caution.textContent = CAUTION_TEXT;
     d.errorClose.addEventListener("click", () => (d.error.hidden = true));
-    const onSettings = this.guard("Reading the settings", () => this.settingsChanged());
+    const settingsChanged = this.guard("Reading the settings", () => this.settingsChanged());
+    const hold = new PointerHold(document);
+    const onSettings = (): void => hold.run(settingsChanged);
     for (const input of d.formInputs) input.addEventListener("change", onSettings);
     for (const input of d.formInputs) if (input instanceof HTMLInputElement) input.addEventListener("input", onSettings);
     d.optimize.addEventListener(
@@ -185,7 +188,7 @@ export class PaneController {
         },
         onResult: (result, stopped) => {
           d.optimizeSection.dataset.state = stopped ? "stopped" : "done";
-          d.progressBar.style.width = "100%";
+          showFinished(d, result, stopped);
           this.preview.measured(result.stats.moves, result.stats.elapsedMs);
           this.last = { read, result, scenario, runSeconds: result.stats.elapsedMs / 1000 };
           this.setOptimizeEnabled();

@@ -4,6 +4,8 @@
  */
 import type { Issue } from "../core/index.js";
 import type { ColumnMatch } from "../sheets/ReadResult.js";
+import type { TableKind } from "../sheets/matchHeaders.js";
+import { readTable } from "../sheets/readTable.js";
 import type { PaneDom } from "./paneDom.js";
 import type { PickedTable } from "./PaneSource.js";
 
@@ -99,7 +101,9 @@ export function renderPickedTables(
   const fleetSheet = fleet?.read.sheet;
   const forFleet = issues.filter((i) => i.sheet === fleetSheet && i.sheet !== stopsSheet);
   const forStops = issues.filter((i) => !forFleet.includes(i));
-  const rows = (t: PickedTable | undefined) => t && { address: t.address, rows: Math.max(0, t.read.values.length - 1) };
-  renderTableSummary(d.stopsSummary, d.stopsIssues, rows(stops), columns.stops, forStops, onCell);
-  renderTableSummary(d.fleetSummary, d.fleetIssues, rows(fleet), columns.fleet, forFleet, onCell);
+  // Data rows as the reader counts them: below the header row, blank rows and title rows left out.
+  const rows = (t: PickedTable | undefined, kind: TableKind) =>
+    t && { address: t.address, rows: readTable(t.read, kind).table?.rows.length ?? 0 };
+  renderTableSummary(d.stopsSummary, d.stopsIssues, rows(stops, "stops"), columns.stops, forStops, onCell);
+  renderTableSummary(d.fleetSummary, d.fleetIssues, rows(fleet, "fleet"), columns.fleet, forFleet, onCell);
 }

@@ -72,6 +72,8 @@ export function installFakeExcel(input: { sheets: FakeSheets; settings: Record<s
         },
         load() {},
         getItem: (name: string) => worksheet(name),
+        getItemOrNullObject: (name: string) =>
+          name in sheets ? { ...worksheet(name), isNullObject: false, id: `{${name}}` } : { isNullObject: true, load() {} },
         getActiveWorksheet: () => worksheet(log.selectSheet),
       },
       settings: { items: Object.entries(settings).map(([key, value]) => ({ key, value })), load() {} },
