@@ -11,6 +11,7 @@ import { cellIssue } from "./readTable.js";
 import { pickupDimensions, resolvePins, type LoadDimension } from "./resolveStopRules.js";
 import { SETTING_FIELDS } from "./settingFields.js";
 import { crossProblems } from "./settingsSchema.js";
+import { sizeWarning } from "./sizeWarning.js";
 import { foldWarnings, stopWarnings, type KindedIssue } from "./stopWarnings.js";
 
 /** Name of the one load dimension when neither Demand nor Capacity carries a unit word (defined in core). */
@@ -35,12 +36,15 @@ export { PLAIN_DIMENSION };
  *
  * @param input - the tables as read from the workbook
  * @param overrides - settings that win over the Settings sheet
+ * @param limits - `maxLocations`: above this many stops and depots the read fails with the size
+ *   message before the distance tables are built (the pane passes `PANE_MAX_LOCATIONS`)
  * @returns `{ ok: true, problem, ... }` or `{ ok: false, issues }`
  * @example readProblem({ stops, fleet }).ok // => true when the tables are clean
  */
 export function readProblem(
   input: { stops: SheetRead; fleet: SheetRead; settings?: SheetRead; matrix?: SheetRead },
   overrides: Partial<PlanSettings> = {},
+  limits: { readonly maxLocations?: number } = {},
 ): ReadResult {
   const issues: Issue[] = [];
   const warnings: KindedIssue[] = [];
@@ -125,6 +129,11 @@ export function readProblem(
     issues,
   );
   if (issues.length > 0) return { ok: false, issues, stopColumns, fleetColumns };
+  const size = sizeWarning(locations.length, problemStops.length, stops, input.stops.sheet);
+  if (size && limits.maxLocations !== undefined && locations.length > limits.maxLocations) {
+    return { ok: false, issues: [size.issue], stopColumns, fleetColumns };
+  }
+  if (size) warnings.push(size);
   let matrix = buildMatrix(locations, { detourFactor: settings.detourFactor, speedKmh: settings.speedKmh });
   if (input.matrix) {
     const names = [...depotNames, ...problemStops.map((s) => [s.id])];

@@ -16,6 +16,7 @@ import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
 import { renderResult } from "./renderResult.js";
 import { renderPickedTables } from "./renderTableSummary.js";
 import { RouteMap } from "./RouteMap.js";
+import { PANE_MAX_LOCATIONS } from "../sheets/sizeWarning.js";
 import { PointerHold } from "./pointerHold.js";
 import { showFinished, showProgress } from "./runProgress.js";
 import { formFromSettings, settingsFromForm } from "./settingsFromForm.js";
@@ -118,7 +119,7 @@ export class PaneController {
       this.setOptimizeEnabled();
       return;
     }
-    const read = readProblem({ stops: this.stops.read, fleet: this.fleet.read }, form.settings);
+    const read = readProblem({ stops: this.stops.read, fleet: this.fleet.read }, form.settings, { maxLocations: PANE_MAX_LOCATIONS });
     if (token !== this.readToken) return;
     this.read = read;
     const issues = read.ok ? read.warnings.map((w) => ({ ...w, warning: true })) : read.issues;
