@@ -97,6 +97,7 @@ export async function runPlan(
   const plan = result.plan;
   const t = plan.totals;
   const lines = [
+    prepared.usedText,
     `Wrote sheet "${sheetName}" and a Compare row to ${out.path}`,
     `Vehicles used: ${t.vehiclesUsed} of ${read.problem.vehicles.length}`,
     `Distance: ${t.distanceKm.toFixed(1)} km${matrixSource !== undefined ? ` (road distances from ${matrixSource})` : ""}`,

@@ -4,8 +4,9 @@ import type { ReadResult } from "../sheets/ReadResult.js";
 import { ExcelJsWorkbook } from "../workbook/exceljs/ExcelJsWorkbook.js";
 import { describeUnreadableWorkbook } from "../workbook/exceljs/unreadableWorkbook.js";
 import { partsNotKept } from "../workbook/exceljs/zipEntryNames.js";
-import { findInputSheets } from "../workbook/findInputSheets.js";
-import { readScenarioInput } from "../workbook/scenario.js";
+import { describeMissingTable, findInputSheets } from "../workbook/findInputSheets.js";
+import { readScenarioInput, sourceOf } from "../workbook/scenario.js";
+import { findHeaderRow } from "../sheets/findHeaderRow.js";
 import { formatIssue } from "./formatIssue.js";
 import type { InputSheetOptions } from "./runOptions.js";
 import { applySchedule, settingFlags } from "./settingFlags.js";
@@ -16,6 +17,8 @@ export interface PreparedRun {
   readonly inputPath: string;
   readonly sheets: { readonly stops: string; readonly fleet: string; readonly settings?: string; readonly matrix?: string };
   readonly read: ReadResult & { readonly ok: true };
+  /** Which sheets and ranges were read, one line: "Read stops from Stops!A1:H21 (header on row 3), fleet from ...". */
+  readonly usedText: string;
   /** What the input holds that a copy saved through exceljs loses ("charts", ...). */
   readonly notKept: readonly string[];
 }
@@ -59,8 +62,8 @@ export async function prepareRun(
   const fleet = sheets.fleet ?? found.fleet;
   const settingsSheet = sheets.settings ?? found.settings;
   const matrix = sheets.matrix;
-  if (!stops) errors.push(`${workbook}: no sheet named "Stops" and none with Latitude and Longitude headers; name it with --stops SHEET`);
-  if (!fleet) errors.push(`${workbook}: no sheet named "Fleet" and none with Vehicle or Capacity headers; name it with --fleet SHEET`);
+  if (!stops) errors.push(`${workbook}: ${describeMissingTable(found, "stops", "name the stops sheet with --stops SHEET")}`);
+  if (!fleet) errors.push(`${workbook}: ${describeMissingTable(found, "fleet", "name the fleet sheet with --fleet SHEET")}`);
   if (!stops || !fleet) return { errors };
   const read = await readScenarioInput(book, {
     stopsSheet: stops,
@@ -75,8 +78,33 @@ export async function prepareRun(
   return {
     book,
     inputPath,
+    usedText: await usedText(book, { stops, fleet, settings: settingsSheet, matrix }),
     notKept: partsNotKept(bytes),
     sheets: { stops, fleet, ...(settingsSheet ? { settings: settingsSheet } : {}), ...(matrix ? { matrix } : {}) },
     read: { ...read, settings: { ...read.settings, cooling: cooling.spec } },
   };
+}
+
+/** "Read stops from Stops!A1:H21 (header on row 3), fleet from Fleet!A1:F4, settings from Settings." */
+async function usedText(
+  book: ExcelJsWorkbook,
+  sheets: { stops: string; fleet: string; settings: string | undefined; matrix: string | undefined },
+): Promise<string> {
+  const part = async (what: "stops" | "fleet" | "settings" | "distance matrix", name: string | undefined): Promise<string[]> => {
+    const read = name === undefined ? undefined : await book.readSheet(name);
+    if (!read) return [];
+    let text = `${what} from ${sourceOf(read)}`;
+    if (what === "stops" || what === "fleet") {
+      const h = findHeaderRow(read.values, what, read);
+      if (h !== undefined && h > 0) text += ` (header on row ${read.row + h + 1})`;
+    }
+    return [text];
+  };
+  const parts = [
+    ...(await part("stops", sheets.stops)),
+    ...(await part("fleet", sheets.fleet)),
+    ...(await part("settings", sheets.settings)),
+    ...(await part("distance matrix", sheets.matrix)),
+  ];
+  return `Read ${parts.join(", ")}.`;
 }

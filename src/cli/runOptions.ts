@@ -18,8 +18,8 @@ export interface InputSheetOptions {
 
 /** The sheet options of a workbook command. */
 const SHEET_OPTIONS: readonly [flag: keyof InputSheetOptions, help: string][] = [
-  ["stops", 'sheet with the stops (default: the sheet named "Stops", or one with Latitude and Longitude headers)'],
-  ["fleet", 'sheet with the vehicles (default: the sheet named "Fleet", or one with Vehicle or Capacity headers)'],
+  ["stops", 'sheet with the stops (default: the sheet named "Stops", or the first whose header, anywhere in its first 30 rows, has the stops\' location columns)'],
+  ["fleet", 'sheet with the vehicles (default: the sheet named "Fleet", or the first whose header has fleet columns such as Capacity or Shift start)'],
   ["settings", 'sheet of Setting | Value rows (default: the sheet named "Settings", if any); options below win over it'],
   ["matrix", "sheet with a road-distance matrix in km (first row and column name the locations) used instead of great-circle distances"],
 ];

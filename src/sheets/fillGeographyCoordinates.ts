@@ -22,7 +22,7 @@ export function fillGeographyCoordinates(
   read: SheetRead,
   places: readonly (readonly (LatLon | undefined)[])[],
 ): { read: SheetRead; filled: number } {
-  const headerAt = findHeaderRow(read.values, "stops");
+  const headerAt = findHeaderRow(read.values, "stops", read);
   if (headerAt === undefined) return { read, filled: 0 };
   const header = read.values[headerAt] ?? [];
   const { fields } = mapColumns(header, "stops", { sheet: read.sheet, row: read.row + headerAt, col: read.col });

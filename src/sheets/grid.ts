@@ -16,6 +16,12 @@ export interface SheetRead {
   readonly col: number;
   /** Raw values: numbers (dates as serials), strings, booleans, "" for empty. */
   readonly values: readonly (readonly unknown[])[];
+  /**
+   * Merged areas whose top-left cell lies in the range, in sheet coordinates (0-based). Absent
+   * when the adapter cannot tell. Adapters differ in what the other cells of a merge read as
+   * (exceljs: the first cell's value; Excel: empty), so readers that care use this list.
+   */
+  readonly merges?: readonly CellBlock[];
 }
 
 /** A cell value as written: text, number, boolean or empty (`null`). */

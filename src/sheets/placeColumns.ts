@@ -15,7 +15,7 @@ import { mapColumns } from "./matchHeaders.js";
  * @example placeColumns({ sheet: "Stops", row: 0, col: 0, values: [["Stop", "City", "Demand"], ["S1", "Oslo", 4]] }) // => [1]
  */
 export function placeColumns(read: SheetRead): number[] {
-  const headerAt = findHeaderRow(read.values, "stops");
+  const headerAt = findHeaderRow(read.values, "stops", read);
   if (headerAt === undefined) return [];
   const header = read.values[headerAt] ?? [];
   const { fields } = mapColumns(header, "stops", { sheet: read.sheet, row: read.row + headerAt, col: read.col });

@@ -46,7 +46,7 @@ export function readTable(read: SheetRead, kind: TableKind): { table?: Table; is
       ],
     };
   }
-  const h = findHeaderRow(read.values, kind);
+  const h = findHeaderRow(read.values, kind, read);
   if (h === undefined) {
     const examples =
       kind === "stops"
@@ -64,7 +64,7 @@ export function readTable(read: SheetRead, kind: TableKind): { table?: Table; is
     };
   }
   const headerRow0 = read.row + h;
-  const columns = mapColumns(read.values[h] ?? [], kind, { sheet: read.sheet, row: headerRow0, col: read.col });
+  const columns = mapColumns(headerCells(read, h), kind, { sheet: read.sheet, row: headerRow0, col: read.col });
   const rows: TableRow[] = [];
   for (let r = h + 1; r < read.values.length; r++) {
     const cells = read.values[r] ?? [];
@@ -97,4 +97,28 @@ export function readTable(read: SheetRead, kind: TableKind): { table?: Table; is
 export function cellIssue(sheet: string, row0: number, col0: number, message: string): Issue {
   const cell = cellAddress(row0, col0);
   return { sheet, cell, message: `${sheet}!${cell}: ${message}` };
+}
+
+/**
+ * The header row's cells (row `h` of `read.values`), where a cell covered by a merge from the row above (a "Stop" header
+ * merged over the group-header row and the header row) takes the merge's value, so both
+ * adapters read the same header whatever they return for covered cells.
+ *
+ * @param read - the range as read, with its merged areas
+ * @param h - 0-based row within `read.values`
+ * @returns the header's cells
+ * @example headerCells({ sheet: "S", row: 0, col: 0, values: [["Stop", "Where"], ["", "Lat"]], merges: [{ row: 0, col: 0, rows: 2, cols: 1 }] }, 1) // => ["Stop", "Lat"]
+ */
+export function headerCells(read: SheetRead, h: number): readonly unknown[] {
+  const cells = [...(read.values[h] ?? [])];
+  const row0 = read.row + h;
+  for (const m of read.merges ?? []) {
+    if (m.row >= row0 || m.row + m.rows <= row0) continue;
+    const first = read.values[m.row - read.row]?.[m.col - read.col];
+    for (let c = m.col; c < m.col + m.cols; c++) {
+      const i = c - read.col;
+      if (i >= 0 && i < cells.length && first !== undefined) cells[i] = first;
+    }
+  }
+  return cells;
 }

@@ -5,7 +5,7 @@
  */
 import { runRecordText } from "./storedRunRecord.js";
 import { ExcelJsWorkbook, SETTINGS_SHEET } from "../workbook/exceljs/ExcelJsWorkbook.js";
-import { findInputSheets } from "../workbook/findInputSheets.js";
+import { describeMissingTable, findInputSheets, type InputSheets } from "../workbook/findInputSheets.js";
 import { openWorkbookFiles } from "./openWorkbookFiles.js";
 import { PaneController } from "./PaneController.js";
 
@@ -14,6 +14,8 @@ export class FilePaneController extends PaneController {
   private book: ExcelJsWorkbook;
   private downloadName = "kiln.plan.xlsx";
   private downloadUrl: string | undefined;
+  /** What the automatic detection found in the open workbook (why a list was left empty). */
+  private found: InputSheets | undefined;
 
   constructor() {
     const book = ExcelJsWorkbook.fromGrids([]);
@@ -51,6 +53,7 @@ export class FilePaneController extends PaneController {
     d.fileName.textContent = opened.label;
     await this.setSource({ mode: "file", port: opened.book });
     const found = await findInputSheets(opened.book);
+    this.found = found;
     await this.fillSheetLists(found.stops, found.fleet);
     await this.pickSheets();
   }
@@ -80,6 +83,11 @@ export class FilePaneController extends PaneController {
     this.stops = stops && this.picked(stops);
     this.fleet = fleet && this.picked(fleet);
     await this.refreshRead();
+    // Say why a list was left empty, so the user knows which sheet to pick.
+    if (this.found && !this.stops && !this.found.stops)
+      d.stopsSummary.textContent = describeMissingTable(this.found, "stops", "choose the stops sheet in the list above");
+    if (this.found && !this.fleet && !this.found.fleet)
+      d.fleetSummary.textContent = describeMissingTable(this.found, "fleet", "choose the fleet sheet in the list above");
   }
 
   protected override async write(): Promise<{ sheetName: string } | undefined> {

@@ -83,6 +83,24 @@ describe("matchHeader", () => {
 });
 
 describe("findHeaderRow", () => {
+  it("gives a merged group header's value to its first cell only, as Excel reads it and as exceljs reads it", () => {
+    const merges = [
+      { row: 4, col: 2, rows: 1, cols: 2 },
+      { row: 4, col: 4, rows: 1, cols: 3 },
+    ];
+    const excel = [
+      ["Customer", "", "Location", "", ""],
+      ["Client", "Street", "Town", "Lat", "Lon"],
+    ];
+    const exceljs = [
+      ["Customer", "Customer", "Location", "Location", "Location"],
+      ["Client", "Street", "Town", "Lat", "Lon"],
+    ];
+    for (const values of [excel, exceljs]) expect(findHeaderRow(values, "stops", { row: 4, col: 2, merges })).toBe(1);
+    // Without the merges the naive reading takes the group row.
+    expect(findHeaderRow(exceljs, "stops")).toBe(0);
+  });
+
   it("skips blank leading rows and a title row", () => {
     expect(findHeaderRow([[], ["Tomorrow's deliveries"], ["", ""], ["Stop", "Lat", "Lon"], ["a", 1, 2]], "stops")).toBe(3);
     expect(

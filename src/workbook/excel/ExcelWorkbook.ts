@@ -1,7 +1,7 @@
 import type { PrintSetup, RouteChart, SheetGrid } from "../../sheets/grid.js";
 import type { RunWrite, SheetRead, WorkbookPort } from "../WorkbookPort.js";
 import { excelCapabilities, type ExcelCapabilities } from "./excelCapabilities.js";
-import { readSelectionIn, readUsedRange, toRead, type SelectionRead } from "./excelReads.js";
+import { readMerges, readSelectionIn, readUsedRange, toRead, type SelectionRead } from "./excelReads.js";
 import { checkSheetName, deleteSheets, writeNewSheet } from "./excelSheetWrite.js";
 import { OfficeActionError } from "./OfficeActionError.js";
 import { planGridWrite, type GridWritePlan } from "./planGridWrite.js";
@@ -64,7 +64,9 @@ export class ExcelWorkbook implements WorkbookPort {
       const used = await readUsedRange(context, name, "isNullObject, values, rowIndex, columnIndex");
       if (used === undefined) return undefined;
       if (used.isNullObject) return { sheet: name, row: 0, col: 0, values: [] };
-      return { sheet: name, row: used.rowIndex, col: used.columnIndex, values: used.values };
+      const read: SheetRead = { sheet: name, row: used.rowIndex, col: used.columnIndex, values: used.values };
+      const merges = this.capabilities().merges ? await readMerges(context, used) : [];
+      return merges.length > 0 ? { ...read, merges } : read;
     });
   }
 

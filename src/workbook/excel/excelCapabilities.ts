@@ -8,6 +8,8 @@ export interface ExcelCapabilities {
   readonly tables: boolean;
   /** `worksheet.pageLayout` and `horizontalPageBreaks`, ExcelApi 1.9. */
   readonly printLayout: boolean;
+  /** `getMergedAreasOrNullObject` (merged group headers above a table), ExcelApi 1.13. */
+  readonly merges: boolean;
   /** `valuesAsJson` (Geography linked entities), ExcelApi 1.16. */
   readonly geography: boolean;
 }
@@ -16,5 +18,12 @@ export interface ExcelCapabilities {
 export function excelCapabilities(): ExcelCapabilities {
   const has = (version: string): boolean =>
     typeof Office !== "undefined" && Office.context?.requirements?.isSetSupported("ExcelApi", version) === true;
-  return { charts: has("1.7"), freezePanes: has("1.7"), tables: has("1.9"), printLayout: has("1.9"), geography: has("1.16") };
+  return {
+    charts: has("1.7"),
+    freezePanes: has("1.7"),
+    tables: has("1.9"),
+    printLayout: has("1.9"),
+    merges: has("1.13"),
+    geography: has("1.16"),
+  };
 }

@@ -1,4 +1,4 @@
-import type { SheetRead } from "../../sheets/grid.js";
+import type { CellBlock, SheetRead } from "../../sheets/grid.js";
 import { isItemNotFound } from "./OfficeActionError.js";
 import { blockContains } from "./rangeAddress.js";
 
@@ -61,4 +61,29 @@ export function toRead(sheet: string, range: Excel.Range): SheetRead {
 
 function blockOf(read: SheetRead): { row: number; col: number; rows: number; cols: number } {
   return { row: read.row, col: read.col, rows: read.values.length, cols: read.values[0]?.length ?? 0 };
+}
+
+/**
+ * The merged areas of a loaded range (ExcelApi 1.13), in one more sync. Excel reads the other
+ * cells of a merge as empty, so the header search needs the areas only to tell a group-header
+ * row from the header; without them (older Excel, more than 512 areas, a proxy without the
+ * member) the read goes on with none.
+ *
+ * @param context - the request context
+ * @param range - a loaded, non-null range
+ * @returns the areas in sheet coordinates (0-based)
+ * @example await readMerges(context, used) // => [{ row: 0, col: 1, rows: 1, cols: 3 }]
+ */
+export async function readMerges(context: Excel.RequestContext, range: Excel.Range): Promise<CellBlock[]> {
+  if (typeof range.getMergedAreasOrNullObject !== "function") return [];
+  try {
+    const merged = range.getMergedAreasOrNullObject();
+    merged.load("isNullObject");
+    merged.areas.load("items/rowIndex, items/columnIndex, items/rowCount, items/columnCount");
+    await context.sync();
+    if (merged.isNullObject) return [];
+    return merged.areas.items.map((a) => ({ row: a.rowIndex, col: a.columnIndex, rows: a.rowCount, cols: a.columnCount }));
+  } catch {
+    return [];
+  }
 }

@@ -142,13 +142,27 @@ export class ExcelJsWorkbook implements WorkbookPort {
     });
     if (bottom < 0) return { sheet: ws.name, row: 0, col: 0, values: [] };
     const values: (number | string | boolean)[][] = [];
+    // Merged areas, from their cells in the range (cheaper than `ws.model.merges`, which builds every row's model).
+    const merges = new Map<string, { row: number; col: number; bottom: number; right: number }>();
     for (let r = top; r <= bottom; r++) {
       const row = ws.getRow(r);
       const line: (number | string | boolean)[] = [];
-      for (let c = left; c <= right; c++) line.push(rawCellValue(row.getCell(c).value));
+      for (let c = left; c <= right; c++) {
+        const cell = row.getCell(c);
+        line.push(rawCellValue(cell.value));
+        if (!cell.isMerged) continue;
+        const master = cell.master;
+        const m = merges.get(master.address) ?? { row: Number(master.row), col: Number(master.col), bottom: r, right: c };
+        m.bottom = Math.max(m.bottom, r);
+        m.right = Math.max(m.right, c);
+        merges.set(master.address, m);
+      }
       values.push(line);
     }
-    return { sheet: ws.name, row: top - 1, col: left - 1, values };
+    const blocks = [...merges.values()]
+      .filter((m) => m.bottom > m.row || m.right > m.col)
+      .map((m) => ({ row: m.row - 1, col: m.col - 1, rows: m.bottom - m.row + 1, cols: m.right - m.col + 1 }));
+    return { sheet: ws.name, row: top - 1, col: left - 1, values, ...(blocks.length > 0 ? { merges: blocks } : {}) };
   }
 
   /**
