@@ -7,6 +7,7 @@ import { partsNotKept } from "../workbook/exceljs/zipEntryNames.js";
 import { describeMissingTable, findInputSheets } from "../workbook/findInputSheets.js";
 import { readScenarioInput, sourceOf } from "../workbook/scenario.js";
 import { findHeaderRow } from "../sheets/findHeaderRow.js";
+import { COLUMN_MAP_KEY, mergeColumnMaps, parseColumnMap, storedColumnMap, type ColumnMapEntry } from "../sheets/columnMap.js";
 import { formatIssue } from "./formatIssue.js";
 import type { InputSheetOptions } from "./runOptions.js";
 import { applySchedule, settingFlags } from "./settingFlags.js";
@@ -57,6 +58,15 @@ export async function prepareRun(
     return { errors: [describeUnreadableWorkbook(bytes, workbook)] };
   }
   const errors: string[] = [];
+  const typedMap: ColumnMapEntry[] = [];
+  for (const text of sheets.map ?? []) {
+    const parsed = parseColumnMap(text, `--map "${text}"`);
+    if ("entry" in parsed) typedMap.push(parsed.entry);
+    else errors.push(parsed.message);
+  }
+  if (errors.length > 0) return { errors };
+  // The pane's remembered mapping applies here too, so the file plans the same in both; --map wins.
+  const columnMap = mergeColumnMaps(storedColumnMap((await book.readSettings())[COLUMN_MAP_KEY]), typedMap);
   const found = await findInputSheets(book);
   const stops = sheets.stops ?? found.stops;
   const fleet = sheets.fleet ?? found.fleet;
@@ -70,7 +80,7 @@ export async function prepareRun(
     fleetSheet: fleet,
     ...(settingsSheet ? { settingsSheet } : {}),
     ...(matrix ? { matrixSheet: matrix } : {}),
-    overrides: flags.overrides,
+    overrides: columnMap.length > 0 ? { ...flags.overrides, columnMap } : flags.overrides,
   });
   if (!read.ok) return { errors: read.issues.map(formatIssue) };
   const cooling = applySchedule(read.settings.cooling, flags.schedule);

@@ -14,12 +14,20 @@ export interface InputSheetOptions {
   readonly fleet?: string;
   readonly settings?: string;
   readonly matrix?: string;
+  /** `--map "Drop time=service"`, repeatable: column mappings in the order given. */
+  readonly map?: readonly string[];
 }
 
 /** The sheet options of a workbook command. */
 const SHEET_OPTIONS: readonly [flag: keyof InputSheetOptions, help: string][] = [
-  ["stops", 'sheet with the stops (default: the sheet named "Stops", or the first whose header, anywhere in its first 30 rows, has the stops\' location columns)'],
-  ["fleet", 'sheet with the vehicles (default: the sheet named "Fleet", or the first whose header has fleet columns such as Capacity or Shift start)'],
+  [
+    "stops",
+    'sheet with the stops (default: the sheet named "Stops", or the first whose header, anywhere in its first 30 rows, has the stops\' location columns)',
+  ],
+  [
+    "fleet",
+    'sheet with the vehicles (default: the sheet named "Fleet", or the first whose header has fleet columns such as Capacity or Shift start)',
+  ],
   ["settings", 'sheet of Setting | Value rows (default: the sheet named "Settings", if any); options below win over it'],
   ["matrix", "sheet with a road-distance matrix in km (first row and column name the locations) used instead of great-circle distances"],
 ];
@@ -61,6 +69,12 @@ export function addRunOptions(cmd: Command): Command {
     cmd.addOption(new Option(`--${f.flag} <${f.valueName}>`, `${f.label}: ${f.help}; ${rangeText(f)}${d ? ` (default ${d})` : ""}`));
   }
   cmd.addOption(new Option("--soft-windows", "same as --windows soft"));
+  cmd.addOption(
+    new Option(
+      "--map <MAPPING>",
+      'a column mapping HEADER=FIELD: use the column headed HEADER as FIELD (a field such as "Service min" or "service"), or carry or ignore it; repeatable; wins over the Settings sheet',
+    ).argParser((value: string, previous: string[] | undefined) => [...(previous ?? []), value]),
+  );
   return cmd;
 }
 

@@ -1,4 +1,5 @@
 import type { AcceptanceRule, CoolingSpec } from "../core/index.js";
+import type { ColumnMapEntry } from "./columnMap.js";
 
 /**
  * Everything a user can set for one scenario run: from CLI flags, the optional
@@ -24,6 +25,11 @@ export interface PlanSettings {
   readonly seconds: number;
   readonly moves?: number;
   readonly objective: "weighted" | "hierarchical";
+  /**
+   * The user's column mappings (header -> field, carry or ignore): given to `readProblem`, the
+   * Settings sheet's merged with the options'; in a read result, those that applied, with the table.
+   */
+  readonly columnMap?: readonly (ColumnMapEntry & { readonly kind?: "stops" | "fleet" })[];
 }
 
 /** Defaults of `PlanSettings` (common practice unless noted). */

@@ -5,10 +5,12 @@ import type { PlanSettings } from "./PlanSettings.js";
 /** A header the reader recognised: the user's text, the field it maps to, the column letter. */
 export interface ColumnMatch {
   readonly header: string;
-  /** Canonical field, e.g. "latitude", "earliest", or "extra" for a carried-through column. */
+  /** Canonical field, e.g. "latitude", "earliest", "extra" for a carried-through column, "ignored" for one left out. */
   readonly field: string;
   /** Column letter in the sheet, e.g. "E". */
   readonly column: string;
+  /** Set when the user's column mapping decided the field ("ignored" is only ever set by one). */
+  readonly mapped?: true;
 }
 
 /** Where a stop came from and the user's own columns carried through to the plan. */

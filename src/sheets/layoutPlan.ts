@@ -1,3 +1,4 @@
+import { formatColumnMap } from "./columnMap.js";
 import type { Plan, Problem } from "../core/index.js";
 import { CAUTION_TEXT } from "./caution.js";
 import { columnWidths } from "./columnWidths.js";
@@ -42,6 +43,7 @@ export const SETTINGS_LABELS = [
   "Speed km/h",
   "Windows",
   "Distances",
+  "Columns mapped",
 ] as const;
 
 /** Labels of the totals block. */
@@ -153,6 +155,7 @@ function settingsValues(run: RunRecord): FormattedRow {
     [s.speedKmh, null],
     [s.hardWindows ? "hard" : `soft, ${s.lateCostPerMin} per min late`, F.text],
     [distancesText(run), F.text],
+    [formatColumnMap(s.columnMap ?? []) || "none", F.text],
   ]);
 }
 

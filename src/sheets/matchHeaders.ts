@@ -2,6 +2,8 @@ import type { Issue } from "../core/index.js";
 import type { ColumnMatch } from "./ReadResult.js";
 import { columnLetter, cellAddress } from "./cellAddress.js";
 import { plainCell } from "./cellValue.js";
+import { headerKey, mappedTarget, type ColumnMapEntry } from "./columnMap.js";
+import { FIELD_LABELS } from "./fieldLabels.js";
 
 /** Which input table a header row belongs to. */
 export type TableKind = "stops" | "fleet";
@@ -21,8 +23,10 @@ export interface TableColumns {
   /** Field key ("latitude", "demand:kg", "earliest:2") -> column index. */
   readonly fields: ReadonlyMap<string, number>;
   readonly matches: readonly ColumnMatch[];
-  /** Unrecognised columns, carried through, in sheet order. */
-  readonly extras: readonly { readonly header: string; readonly col: number }[];
+  /** Unrecognised columns, carried through, in sheet order; `chosen` when the user mapped them to carry. */
+  readonly extras: readonly { readonly header: string; readonly col: number; readonly chosen?: boolean }[];
+  /** The user's column mappings that matched a header of this table. */
+  readonly mapped: readonly ColumnMapEntry[];
   readonly issues: readonly Issue[];
 }
 
@@ -44,7 +48,20 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
     "customerno",
     "no",
   ],
-  name: ["name", "stopname", "customer", "customername", "client", "clientname", "company", "site", "sitename", "recipient"],
+  name: [
+    "name",
+    "stopname",
+    "customer",
+    "customername",
+    "client",
+    "clientname",
+    "company",
+    "site",
+    "sitename",
+    "recipient",
+    "consignee",
+    "consigneename",
+  ],
   address: ["address", "streetaddress", "street", "fulladdress", "addr", "deliveryaddress", "postaladdress"],
   latitude: ["latitude", "lat", "y", "latdeg", "latitudedeg"],
   longitude: ["longitude", "lon", "lng", "long", "x", "londeg", "longitudedeg"],
@@ -62,7 +79,7 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
     "geo",
     "point",
   ],
-  demand: ["demand", "qty", "quantity", "weight", "load", "amount", "volume", "units", "size", "delivery", "order"],
+  demand: ["demand", "qty", "quantity", "weight", "load", "amount", "volume", "units", "size", "delivery", "order", "cases", "pallets"],
   earliest: [
     "earliest",
     "earliesttime",
@@ -83,6 +100,8 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
     "notbefore",
     "windowopen",
     "windowfrom",
+    "timefrom",
+    "fromtime",
   ],
   latest: [
     "latest",
@@ -106,6 +125,8 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
     "windowclose",
     "windowto",
     "deadline",
+    "timeto",
+    "totime",
   ],
   windows: [
     "window",
@@ -139,6 +160,19 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
     "handlingmin",
     "unloading",
     "unloadingmin",
+    "droptime",
+    "dropmin",
+    "dropmins",
+    "dropminutes",
+    "unloadtime",
+    "unloadmin",
+    "unloadingtime",
+    "onsite",
+    "onsitemin",
+    "onsiteminutes",
+    "onsitetime",
+    "timeonsite",
+    "stopduration",
   ],
   priority: ["priority", "unservedcost", "penalty", "skipcost", "dropcost", "missedcost", "optionalcost"],
   features: ["features", "requiredfeatures", "requires", "required", "skills", "requirements", "needs", "equipment"],
@@ -406,10 +440,12 @@ export function mapColumns(
   header: readonly unknown[],
   kind: TableKind,
   where: { readonly sheet: string; readonly row: number; readonly col: number },
+  columnMap: readonly ColumnMapEntry[] = [],
 ): TableColumns {
   const fields = new Map<string, number>();
   const matches: ColumnMatch[] = [];
-  const extras: { header: string; col: number }[] = [];
+  const extras: { header: string; col: number; chosen?: boolean }[] = [];
+  const mapped: ColumnMapEntry[] = [];
   const issues: Issue[] = [];
   const repeats = new Map<string, number>();
   header.forEach((raw, c) => {
@@ -417,7 +453,31 @@ export function mapColumns(
     const text = v === null ? "" : String(v).trim();
     if (text === "") return;
     const column = columnLetter(where.col + c);
-    const hit = matchHeader(text, kind);
+    let hit = matchHeader(text, kind);
+    const entry = columnMap.find((e) => headerKey(e.header) === headerKey(text));
+    if (entry !== undefined) {
+      const target = mappedTarget(entry.field, kind);
+      const cell = cellAddress(where.row, where.col + c);
+      if (target === undefined) {
+        issues.push({
+          sheet: where.sheet,
+          cell,
+          message: `${where.sheet}!${cell}: the column mapping "${entry.header}=${entry.field}"${entry.where ? ` (${entry.where})` : ""} names no field of the ${kind} table; map the column to one of ${Object.values(FIELD_LABELS[kind]).join(", ")}, or to carry or ignore.`,
+        });
+        return;
+      }
+      mapped.push(entry);
+      if (target.kind === "ignore") {
+        matches.push({ header: text, field: "ignored", column, mapped: true });
+        return;
+      }
+      if (target.kind === "carry") {
+        extras.push({ header: text, col: c, chosen: true });
+        matches.push({ header: text, field: "extra", column, mapped: true });
+        return;
+      }
+      hit = target;
+    }
     if (hit === undefined) {
       extras.push({ header: text, col: c });
       matches.push({ header: text, field: "extra", column });
@@ -445,9 +505,9 @@ export function mapColumns(
       return;
     }
     fields.set(key, c);
-    matches.push({ header: text, field: key, column });
+    matches.push({ header: text, field: key, column, ...(entry !== undefined ? { mapped: true } : {}) });
   });
-  return { fields, matches, extras, issues };
+  return { fields, matches, extras, mapped, issues };
 }
 
 /**

@@ -1,3 +1,4 @@
+import type { ColumnMapEntry } from "./columnMap.js";
 import { DAY_MIN, type Issue, type LatLon } from "../core/index.js";
 import type { SheetRead } from "./grid.js";
 import { plainCell } from "./cellValue.js";
@@ -64,12 +65,13 @@ export interface ParsedFleet {
  * with the row's name. Without a Vehicle column vehicles are named "Vehicle 1", "Vehicle 2"...
  *
  * @param read - the fleet range
+ * @param columnMap - the user's column mappings
  * @returns the vehicles and every issue found
  * @example parseFleet({ sheet: "Fleet", row: 0, col: 0, values: [["Van", "Count", "Lat", "Lon"], ["A", 2, 45, 4]] }).vehicles.map((v) => v.id)
  * // => ["A 1", "A 2"]
  */
-export function parseFleet(read: SheetRead): ParsedFleet {
-  const { table, issues } = readTable(read, "fleet");
+export function parseFleet(read: SheetRead, columnMap: readonly ColumnMapEntry[] = []): ParsedFleet {
+  const { table, issues } = readTable(read, "fleet", columnMap);
   const base = { vehicles: [], columns: table?.columns, headerRow0: table?.headerRow0 ?? read.row, col0: read.col, dimensions: [] };
   if (!table) return { ...base, issues };
   const f = table.columns.fields;

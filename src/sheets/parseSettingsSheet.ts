@@ -3,12 +3,16 @@ import type { SheetRead } from "./grid.js";
 import { excelError, isBlank, plainCell } from "./cellValue.js";
 import { headerWords } from "./matchHeaders.js";
 import type { PlanSettings } from "./PlanSettings.js";
+import { checkColumnMap, parseColumnMap, type ColumnMapEntry } from "./columnMap.js";
+import { cellAddress } from "./cellAddress.js";
 import { cellIssue } from "./readTable.js";
 import { SCHEDULE_PARAMETERS, SETTING_FIELDS, rangeText, type SettingKey } from "./settingFields.js";
 import { buildCooling, parseSettingValue, type ScheduleParams } from "./settingsSchema.js";
 
 const HEADER_KEYS = new Set(["setting", "settings", "key", "name", "parameter", "option"]);
 const KEYS = Object.keys(SETTING_FIELDS) as SettingKey[];
+/** Keys of a column-mapping row: "Map column | Drop time=service" or "Map column | Drop time | service". */
+const MAP_KEYS = new Set(["mapcolumn", "columnmap", "map", "mapping", "columnmapping", "column"]);
 
 /**
  * Read an optional two-column Settings sheet (key | value; keys matched like headers, with the
@@ -16,7 +20,8 @@ const KEYS = Object.keys(SETTING_FIELDS) as SettingKey[];
  * per minute, Acceptance, Schedule (geometric, linear, lundy-mees, time-based), Alpha, Moves per
  * level, Steps, Beta, T0, T end, P0, P end, Seed, Time limit (seconds), Move budget, Objective.
  * A first row "Setting | Value" is skipped. A schedule named without its parameters gets
- * alpha 0.94 (geometric) or 20 steps (linear); Lundy-Mees needs Beta.
+ * alpha 0.94 (geometric) or 20 steps (linear); Lundy-Mees needs Beta. Rows "Map column | Drop time=service"
+ * (or the header and the field in two cells) map a table column to a field (`columnMap`).
  *
  * @param read - the settings range
  * @returns the settings given (only those) and an issue per unknown key or bad value
@@ -26,12 +31,20 @@ const KEYS = Object.keys(SETTING_FIELDS) as SettingKey[];
 export function parseSettingsSheet(read: SheetRead): { settings: Partial<PlanSettings>; issues: Issue[] } {
   const issues: Issue[] = [];
   const given = new Map<SettingKey, { value: unknown; row0: number }>();
+  const columnMap: ColumnMapEntry[] = [];
   read.values.forEach((cells, r) => {
     const row0 = read.row + r;
     const keyRaw = plainCell(cells[0]);
     if (isBlank(keyRaw)) return;
     const word = headerWords(String(keyRaw)).join("");
     if (r === 0 && HEADER_KEYS.has(word)) return;
+    if (MAP_KEYS.has(word)) {
+      const mapping = mappingRow(read, cells, row0);
+      if (mapping === undefined) return;
+      if ("entry" in mapping) columnMap.push(mapping.entry);
+      else issues.push(cellIssue(read.sheet, row0, read.col + 1, mapping.message));
+      return;
+    }
     const key = KEYS.find((k) => SETTING_FIELDS[k].sheetKeys.includes(word));
     if (key === undefined) {
       const names = KEYS.map((k) => SETTING_FIELDS[k].label).join(", ");
@@ -97,5 +110,19 @@ export function parseSettingsSheet(read: SheetRead): { settings: Partial<PlanSet
     if ("spec" in built) out.cooling = built.spec;
     else for (const p of built.problems) fail(given.has(p.key) ? p.key : "schedule", p.message);
   }
+  if (columnMap.length > 0) out.columnMap = columnMap;
   return { settings: out, issues };
+}
+
+/** A mapping row's entry (B: "Header=field", or B: header and C: field), nothing for a blank one, or what is wrong. */
+function mappingRow(read: SheetRead, cells: readonly unknown[], row0: number): { entry: ColumnMapEntry } | { message: string } | undefined {
+  const b = plainCell(cells[1]);
+  const c = plainCell(cells[2]);
+  if (isBlank(b)) return undefined;
+  const where = `${read.sheet}!${cellAddress(row0, read.col + 1)}`;
+  const parsed = isBlank(c)
+    ? parseColumnMap(String(b), where)
+    : checkColumnMap({ header: String(b).trim(), field: String(c).trim(), where });
+  // The message starts with the cell, which cellIssue adds again.
+  return "message" in parsed ? { message: parsed.message.replace(`${where}: `, "") } : parsed;
 }

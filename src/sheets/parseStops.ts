@@ -1,3 +1,4 @@
+import type { ColumnMapEntry } from "./columnMap.js";
 import type { Issue, LatLon, TimeWindow } from "../core/index.js";
 import type { CellValue } from "./grid.js";
 import { plainCell } from "./cellValue.js";
@@ -66,12 +67,13 @@ export interface ParsedStops {
  * Priority means the stop must be served, blank windows mean open all day.
  *
  * @param read - the stops range
+ * @param columnMap - the user's column mappings
  * @returns the stops and every issue found (all at once)
  * @example parseStops({ sheet: "Stops", row: 0, col: 0, values: [["Stop", "Lat", "Lon"], ["a", 45, 4]] }).stops[0]?.position
  * // => { lat: 45, lon: 4 }
  */
-export function parseStops(read: SheetRead): ParsedStops {
-  const { table, issues } = readTable(read, "stops");
+export function parseStops(read: SheetRead, columnMap: readonly ColumnMapEntry[] = []): ParsedStops {
+  const { table, issues } = readTable(read, "stops", columnMap);
   const empty = {
     stops: [],
     columns: table?.columns,

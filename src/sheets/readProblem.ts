@@ -13,6 +13,8 @@ import { SETTING_FIELDS } from "./settingFields.js";
 import { crossProblems } from "./settingsSchema.js";
 import { sizeWarning } from "./sizeWarning.js";
 import { foldWarnings, stopWarnings, type KindedIssue } from "./stopWarnings.js";
+import { unusedColumnWarnings } from "./unusedColumnWarnings.js";
+import { mergeColumnMaps, type ColumnMapEntry } from "./columnMap.js";
 
 /** Name of the one load dimension when neither Demand nor Capacity carries a unit word (defined in core). */
 import { PLAIN_DIMENSION } from "../core/index.js";
@@ -51,11 +53,19 @@ export function readProblem(
   const warned = new Set<number>();
   const fromSheet = input.settings ? parseSettingsSheet(input.settings) : { settings: {}, issues: [] };
   issues.push(...fromSheet.issues);
-  const settings: PlanSettings = { ...PLAN_SETTINGS_DEFAULTS, ...defined(fromSheet.settings), ...defined(overrides) };
-  issues.push(...checkSettings(settings, overrides));
-  const stops = parseStops(input.stops);
-  const fleet = parseFleet(input.fleet);
+  const merged: PlanSettings = { ...PLAN_SETTINGS_DEFAULTS, ...defined(fromSheet.settings), ...defined(overrides) };
+  const { columnMap: _given, ...settingsWithoutMap } = merged;
+  issues.push(...checkSettings(settingsWithoutMap, overrides));
+  const columnMap = mergeColumnMaps(fromSheet.settings.columnMap, overrides.columnMap);
+  const stops = parseStops(input.stops, columnMap);
+  const fleet = parseFleet(input.fleet, columnMap);
   issues.push(...stops.issues, ...fleet.issues);
+  const usedMap = [
+    ...(stops.columns?.mapped ?? []).map((e) => ({ ...e, kind: "stops" as const })),
+    ...(fleet.columns?.mapped ?? []).map((e) => ({ ...e, kind: "fleet" as const })),
+  ];
+  issues.push(...unmatchedMappings(columnMap, usedMap, input, stops.columns !== undefined && fleet.columns !== undefined));
+  const settings: PlanSettings = usedMap.length > 0 ? { ...settingsWithoutMap, columnMap: usedMap } : settingsWithoutMap;
   const stopColumns = stops.columns?.matches ?? [];
   const fleetColumns = fleet.columns?.matches ?? [];
   const dims = pairDimensions(input, stops, fleet, issues);
@@ -162,6 +172,16 @@ export function readProblem(
     ...(s.address !== undefined ? { address: s.address } : {}),
   }));
   warnings.push(...stopWarnings(problem, stops, input.stops.sheet, warned));
+  // Columns that look like a field but are not used: each its own warning, never folded.
+  for (const [read, parsed, kind] of [
+    [input.stops, stops, "stops"],
+    [input.fleet, fleet, "fleet"],
+  ] as const) {
+    const unused = (parsed.columns?.extras ?? []).filter((e) => !e.chosen);
+    for (const issue of unusedColumnWarnings(read, parsed.headerRow0, unused, kind)) {
+      warnings.push({ kind: `unused-column ${issue.sheet}!${issue.cell}`, issue });
+    }
+  }
   return {
     ok: true,
     problem,
@@ -309,6 +329,28 @@ function checkServable(
       });
     }
   }
+}
+
+/**
+ * Mappings the user typed (an option or a Settings row, so with a `where`) whose header is in
+ * neither table: an issue each, since a misspelt header would otherwise change nothing silently.
+ * Mappings remembered by the pane are for whatever tables come next and are not checked.
+ */
+function unmatchedMappings(
+  columnMap: readonly ColumnMapEntry[],
+  used: readonly ColumnMapEntry[],
+  input: { stops: SheetRead; fleet: SheetRead },
+  tablesRead: boolean,
+): Issue[] {
+  if (!tablesRead) return [];
+  const applied = new Set(used.map((e) => e.header));
+  return columnMap
+    .filter((e) => e.where !== undefined && !applied.has(e.header))
+    .map((e) => ({
+      sheet: e.where!.includes("!") ? e.where!.slice(0, e.where!.lastIndexOf("!")) : "options",
+      cell: e.where!.includes("!") ? e.where!.slice(e.where!.lastIndexOf("!") + 1) : "",
+      message: `${e.where}: no column headed "${e.header}" in the stops table (${input.stops.sheet}) or the fleet table (${input.fleet.sheet}); check the header as it is typed in the table (case, spaces and punctuation do not matter) or remove the mapping.`,
+    }));
 }
 
 /** The checks across settings (P end below P0, ...) on the merged settings, placed where the value came from. */

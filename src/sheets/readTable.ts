@@ -3,6 +3,7 @@ import type { SheetRead } from "./grid.js";
 import { cellAddress } from "./cellAddress.js";
 import { isBlank } from "./cellValue.js";
 import { findHeaderRow } from "./findHeaderRow.js";
+import type { ColumnMapEntry } from "./columnMap.js";
 import { mapColumns, type TableColumns, type TableKind } from "./matchHeaders.js";
 
 /** A data row of a table: its raw cells and where it sits. */
@@ -29,10 +30,11 @@ export interface Table {
  *
  * @param read - the sheet range as read
  * @param kind - which table is expected
+ * @param columnMap - the user's column mappings (header -> field, carry or ignore)
  * @returns the table, or issues when the range is empty, has no header row or no data rows
  * @example readTable({ sheet: "Stops", row: 0, col: 0, values: [["Stop", "Lat", "Lon"], ["a", 1, 2]] }, "stops").table?.rows.length // => 1
  */
-export function readTable(read: SheetRead, kind: TableKind): { table?: Table; issues: Issue[] } {
+export function readTable(read: SheetRead, kind: TableKind, columnMap: readonly ColumnMapEntry[] = []): { table?: Table; issues: Issue[] } {
   const what = kind === "stops" ? "stops" : "vehicles";
   if (read.values.every((row) => row.every(isBlank))) {
     return {
@@ -64,7 +66,7 @@ export function readTable(read: SheetRead, kind: TableKind): { table?: Table; is
     };
   }
   const headerRow0 = read.row + h;
-  const columns = mapColumns(headerCells(read, h), kind, { sheet: read.sheet, row: headerRow0, col: read.col });
+  const columns = mapColumns(headerCells(read, h), kind, { sheet: read.sheet, row: headerRow0, col: read.col }, columnMap);
   const rows: TableRow[] = [];
   for (let r = h + 1; r < read.values.length; r++) {
     const cells = read.values[r] ?? [];

@@ -64,6 +64,9 @@ export const planSettingsSchema = z
     seconds: n("seconds"),
     moves: n("moves").optional(),
     objective: z.enum(["weighted", "hierarchical"]),
+    columnMap: z
+      .array(z.object({ header: z.string(), field: z.string(), where: z.string().optional(), kind: z.enum(["stops", "fleet"]).optional() }))
+      .optional(),
   })
   .superRefine((s, ctx) => {
     for (const p of crossProblems(s)) ctx.addIssue({ code: "custom", path: [p.key], message: p.message });

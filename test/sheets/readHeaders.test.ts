@@ -1,6 +1,8 @@
 // Header matching rules; the synonyms are common words of the delivery trade (common practice).
 import { describe, expect, it } from "vitest";
 import { findHeaderRow } from "../../src/sheets/findHeaderRow.js";
+import { FIELD_LABELS } from "../../src/sheets/fieldLabels.js";
+import { unusedColumnWarnings } from "../../src/sheets/unusedColumnWarnings.js";
 import { mapColumns, matchHeader } from "../../src/sheets/matchHeaders.js";
 import { parseSettingsSheet } from "../../src/sheets/parseSettingsSheet.js";
 import { plainCell } from "../../src/sheets/cellValue.js";
@@ -175,5 +177,49 @@ describe("plainCell", () => {
     expect(plainCell({ formula: "A1*2", result: 4 })).toBe(4);
     expect(plainCell({ richText: [{ text: "Ba" }, { text: "kery" }] })).toBe("Bakery");
     expect(plainCell({ text: "site", hyperlink: "https://example.org" })).toBe("site");
+  });
+});
+
+describe("dispatchers' own column words", () => {
+  it("reads drop, unload and on-site times as service minutes; qty, units, cases, pallets as demand; customer, client, consignee as the name; time from/to as the window", () => {
+    for (const h of ["Drop time", "Unload time", "On-site minutes", "On site (min)", "Stop duration"])
+      expect(matchHeader(h, "stops")?.base, h).toBe("serviceMin");
+    for (const h of ["Qty", "Units", "Cases", "Pallets"]) expect(matchHeader(h, "stops")?.base, h).toBe("demand");
+    for (const h of ["Customer", "Client", "Consignee"]) expect(matchHeader(h, "stops")?.base, h).toBe("name");
+    expect(matchHeader("Time from", "stops")?.base).toBe("earliest");
+    expect(matchHeader("Time to", "stops")?.base).toBe("latest");
+  });
+
+  it("names every field's label back as that field, so a mapping may use the label", () => {
+    for (const kind of ["stops", "fleet"] as const)
+      for (const [base, label] of Object.entries(FIELD_LABELS[kind])) expect(matchHeader(label, kind)?.base, label).toBe(base);
+  });
+});
+
+describe("unusedColumnWarnings", () => {
+  const read = (header: unknown[], ...rows: unknown[][]) => ({ sheet: "Stops", row: 0, col: 0, values: [header, ...rows] });
+  const warn = (header: string, ...values: unknown[]) =>
+    unusedColumnWarnings(read(["Stop", header], ...values.map((v) => ["S", v])), 0, [{ header, col: 1 }], "stops").map((i) => i.message);
+
+  it("names the column, its cell and the likely field (the wording a dispatcher can act on)", () => {
+    expect(warn("Drop (mins)", 10, 15)).toEqual([
+      'Stops!B1: column "Drop (mins)" is not used; if it holds service minutes, map it to Service min.',
+    ]);
+    expect(warn("Deliver after", "08:00", "9:30")).toEqual([
+      'Stops!B1: column "Deliver after" is not used; if it holds the time a window opens, map it to Earliest.',
+    ]);
+    expect(warn("Kilos", 12, 3)).toEqual(['Stops!B1: column "Kilos" is not used; if it holds the demand, map it to Demand.']);
+    expect(warn("Boxes", 12, 3)).toEqual(['Stops!B1: column "Boxes" is not used; if it holds the demand, map it to Demand.']);
+    expect(warn("Town", "Delft")).toEqual(['Stops!B1: column "Town" is not used; if it holds part of the address, map it to Address.']);
+    expect(warn("Pos N", 52.0113, 52.0161)).toEqual([
+      'Stops!B1: column "Pos N" is not used; if it holds coordinates, map it to Latitude or Longitude.',
+    ]);
+    expect(warn("Slot", 0.3125)).toEqual(['Stops!B1: column "Slot" is not used; if it holds a time window, map it to Earliest or Latest.']);
+  });
+
+  it("leaves text columns and reference numbers alone", () => {
+    expect(warn("Phone", "01632 960151")).toEqual([]);
+    expect(warn("Notes", "ring twice")).toEqual([]);
+    expect(warn("Account no", 1042, 1043)).toEqual([]);
   });
 });

@@ -83,7 +83,10 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
       "Speed km/h",
       "Windows",
       "Distances",
+      "Columns mapped",
     ]);
+    // No column mapping was given, and the block says so.
+    expect(values[3]![13]).toBe("none");
     // Without a matrix sheet the kilometres are the great-circle estimate times the detour factor.
     expect(values[3]![12]).toBe("great-circle x 1.3 (estimate)");
     expect(values[3]!.slice(0, 12)).toEqual([
