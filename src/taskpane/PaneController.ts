@@ -11,6 +11,7 @@ import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
 import { ConvergencePlot } from "./ConvergencePlot.js";
 import { CoolingPreview } from "./CoolingPreview.js";
 import { createGuard } from "./guardHandler.js";
+import { MapBackgroundControl } from "./MapBackgroundControl.js";
 import type { PaneSource, PickedTable } from "./PaneSource.js";
 import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
 import { renderResult } from "./renderResult.js";
@@ -37,6 +38,7 @@ export class PaneController {
     legend: this.dom.legend,
     text: this.dom.mapText,
   });
+  private readonly mapBackground = new MapBackgroundControl(this.dom, this.map, () => this.source.port);
   protected stops: PickedTable | undefined;
   protected fleet: PickedTable | undefined;
   private read: ReadResult | undefined;
@@ -93,6 +95,8 @@ export class PaneController {
         }),
       );
     }
+    this.mapBackground.wire(this.guard);
+    this.guard("Reading the background map setting", () => this.mapBackground.load())();
     this.updateFormVisibility();
     this.preview.draw();
   }
@@ -105,6 +109,7 @@ export class PaneController {
     this.read = undefined;
     this.last = undefined;
     this.dom.result.hidden = true;
+    await this.mapBackground.load();
     await this.suggestScenarioName();
   }
 

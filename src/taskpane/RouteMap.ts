@@ -171,7 +171,10 @@ export class RouteMap {
     h: number,
   ): void {
     ctx.font = LABEL_FONT;
-    const size = (text: string) => ({ w: Math.ceil(ctx.measureText(text).width) + 2 * LABEL_PAD_PX + 2, h: LABEL_H_PX });
+    // A long name (a depot shared by many vehicles) is cut with an ellipsis so it still finds a place;
+    // its hover text and the map in words carry it in full.
+    const maxW = Math.round(Math.max(90, Math.min(220, w * 0.5)));
+    const size = (text: string) => ({ w: Math.min(maxW, Math.ceil(ctx.measureText(text).width) + 2 * LABEL_PAD_PX + 2), h: LABEL_H_PX });
     const depotBoxes = depots.map((d) => ({
       x: d.x - DEPOT_HALF_PX - 1,
       y: d.y - DEPOT_HALF_PX - 1,

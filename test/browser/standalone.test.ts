@@ -18,6 +18,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
 import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
 import { installFakeExcel } from "./fakeExcelHost.js";
+import { startTileServer } from "./tileServer.js";
 import { OFFICE_JS_CDN } from "../../scripts/addinBuild.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
@@ -455,11 +456,14 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
     }
   }, 300_000);
 
-  it("route map: depots and vehicle labels never overlap each other or a depot, hover text stays inside a 350 px pane, a legend entry highlights its route by click and keyboard, the map in words, screenshots at 350 px and desktop width, and no request leaves the page", async () => {
+  it("route map: depots and vehicle labels never overlap each other or a depot, hover text stays inside a 350 px pane, a legend entry highlights its route by click and keyboard, the map in words, screenshots at 350 px and desktop width, no request leaves the page without a background; with a loopback tile server, tiles and the attribution show and the choice is kept in the workbook", async () => {
     const input = await inputWorkbook();
     const mapPage = await context!.newPage();
+    let tiles: Awaited<ReturnType<typeof startTileServer>> | undefined;
     const requested: string[] = [];
     mapPage.on("request", (req) => void requested.push(req.url()));
+    mapPage.on("pageerror", (err) => console.error("map page error:", err.message));
+    mapPage.on("console", (m) => m.type() === "error" && console.error("map page console:", m.text()));
     try {
       await mapPage.setViewportSize({ width: 350, height: 900 });
       await mapPage.goto(`${baseUrl}/taskpane.html`);
@@ -470,7 +474,18 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await mapPage.locator("#seconds").dispatchEvent("change");
       await mapPage.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
       await mapPage.click("#optimize");
-      await mapPage.waitForSelector("#result-section:not([hidden])", { timeout: 120_000 });
+      try {
+        await mapPage.waitForSelector("#result-section:not([hidden])", { timeout: 300_000 });
+      } catch (err) {
+        // Say what the pane showed, so a failure here can be told apart from a slow machine.
+        console.error(
+          "pane state:",
+          await mapPage.locator("#optimize-section").getAttribute("data-state"),
+          "| error:",
+          await mapPage.locator("#pane-error-text").textContent(),
+        );
+        throw err;
+      }
       await expect.poll(() => mapPage.locator("#route-map").getAttribute("data-routes"), { timeout: 30_000 }).toMatch(/vehicle/);
       mkdirSync(ARTIFACTS, { recursive: true });
 
@@ -525,7 +540,9 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
         const vehicleLabels = labels.filter((l) => l.kind === "vehicle").map((l) => l.text);
         expect(vehicleLabels.length + geometry.omitted).toBeGreaterThanOrEqual(geometry.routes.length);
         for (const r of geometry.routes) if (!vehicleLabels.includes(r.vehicle)) expect(geometry.omitted).toBeGreaterThan(0);
-        expect(labels.filter((l) => l.kind === "depot").length).toBeGreaterThan(0);
+        // Every depot is labelled (a long name cut with an ellipsis, so it starts with the name's first characters).
+        const depotLabels = labels.filter((l) => l.kind === "depot").map((l) => l.text);
+        for (const d of geometry.depots) expect(depotLabels, `label of ${d.name} at ${width}px`).toContain(d.name);
 
         // Hover every point of the canvas: each tooltip shown lies inside the map and the page width.
         const tips = await mapPage.evaluate(() => {
@@ -581,9 +598,80 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       // Without a background template nothing is requested from anywhere but the page's own server.
       expect(requested.filter((u) => !u.startsWith(baseUrl) && !/^(blob|data):/.test(u))).toEqual([]);
       await expect(mapPage.locator("#map-tiles").isHidden()).resolves.toBe(true);
+      // The map library is not even loaded (its chunk is named "leaflet").
+      expect(requested.some((u) => /leaflet/i.test(u))).toBe(false);
+
+      // A background from a loopback tile server: tiles are asked for by {z}/{x}/{y}, load, and the attribution shows.
+      tiles = await startTileServer();
+      await mapPage.setViewportSize({ width: 350, height: 900 });
+      await mapPage.click("#map-background summary");
+      await mapPage.fill("#map-tile-template", `${tiles.url}/{z}/{x}/{y}`);
+      await mapPage.fill("#map-tile-attribution", "");
+      await mapPage.click("#map-background-apply");
+      await expect(mapPage.locator("#map-background-status").textContent()).resolves.toMatch(/Attribution: empty/);
+      expect(tiles.requests).toEqual([]);
+      await mapPage.fill("#map-tile-attribution", "Test tiles <b>made here</b>");
+      await mapPage.click("#map-background-apply");
+      await expect.poll(() => tiles!.requests.length, { timeout: 30_000 }).toBeGreaterThan(0);
+      expect(requested.some((u) => u.startsWith(baseUrl) && /\/leaflet\.[0-9a-f]{8}\.js$/.test(u))).toBe(true);
+      await expect
+        .poll(async () => Number(await mapPage.locator("#map-tiles").getAttribute("data-loaded")), { timeout: 30_000 })
+        .toBeGreaterThan(0);
+      await expect(mapPage.locator("#map-tiles").getAttribute("data-failed")).resolves.toBe("0");
+      // Slippy-map tile paths (common practice): /z/x/y with 0 <= x, y < 2^z.
+      for (const path of tiles.requests) {
+        const m = /^\/(\d+)\/(\d+)\/(\d+)$/.exec(path);
+        expect(m, path).not.toBeNull();
+        const [z, x, y] = m!.slice(1).map(Number) as [number, number, number];
+        expect(x).toBeLessThan(2 ** z);
+        expect(y).toBeLessThan(2 ** z);
+      }
+      // The attribution is shown as text, never read as markup.
+      await expect(mapPage.locator("#map-attribution").textContent()).resolves.toBe("Background: Test tiles <b>made here</b>");
+      await expect(mapPage.locator("#map-attribution").isVisible()).resolves.toBe(true);
+      const tiled = await mapPage.evaluate(() =>
+        [...document.querySelectorAll<HTMLElement>("#map-labels .map-label")].map((el) => {
+          const r = el.getBoundingClientRect();
+          return { x: r.left, y: r.top, w: r.width, h: r.height };
+        }),
+      );
+      expect(tiled.length).toBeGreaterThan(0);
+      for (let i = 0; i < tiled.length; i++)
+        for (let j = i + 1; j < tiled.length; j++) {
+          const a = tiled[i]!;
+          const b = tiled[j]!;
+          expect(
+            Math.max(0, Math.min(a.x + a.w, b.x + b.w) - Math.max(a.x, b.x)) *
+              Math.max(0, Math.min(a.y + a.h, b.y + b.h) - Math.max(a.y, b.y)),
+          ).toBe(0);
+        }
+      await mapPage.locator("#result-section").screenshot({ path: join(ARTIFACTS, "route-map-tiles-350px.png") });
+      const tilesOrigin = tiles.url;
+      expect(requested.filter((u) => !u.startsWith(baseUrl) && !u.startsWith(tilesOrigin) && !/^(blob|data):/.test(u))).toEqual([]);
+
+      // The choice is kept in the workbook's settings store: written into the downloaded file.
+      await mapPage.click("#write");
+      await mapPage.waitForSelector("#download:not([hidden])", { timeout: 60_000 });
+      const [download] = await Promise.all([mapPage.waitForEvent("download"), mapPage.click("#download")]);
+      const saved = join(userDataDir, "map-background.xlsx");
+      await download.saveAs(saved);
+      const book = new ExcelJS.Workbook();
+      await book.xlsx.readFile(saved);
+      const stored = (await sheetValues(book, "kiln-settings")).find((row) => row[0] === "kiln.pane.mapBackground");
+      expect(JSON.parse(String(stored?.[1]))).toEqual({ template: `${tiles.url}/{z}/{x}/{y}`, attribution: "Test tiles <b>made here</b>" });
+
+      // No background again: the tiles go, and no further tile is asked for.
+      await mapPage.click("#map-background-clear");
+      await expect(mapPage.locator("#map-tiles").isHidden()).resolves.toBe(true);
+      await expect(mapPage.locator("#map-attribution").isHidden()).resolves.toBe(true);
+      const asked = tiles.requests.length;
+      await mapPage.setViewportSize({ width: 1000, height: 900 });
+      await mapPage.setViewportSize({ width: 350, height: 900 });
+      expect(tiles.requests.length).toBe(asked);
     } finally {
       await mapPage.close();
+      await tiles?.close();
       input.cleanup();
     }
-  }, 300_000);
+  }, 600_000);
 });
