@@ -1,35 +1,53 @@
 /**
  * `npm run bench`: runs the public benchmark suites of the benchmark folder (TSPLIB95 and
  * Solomon 1987) through the same path as `kiln bench`, prints a markdown table against the
- * published optima / best-known results, and writes the records to `bench/out/suites.json`.
+ * published optima / best-known results, and writes the rows (instance, reference, ours, gap,
+ * vehicles, seconds, moves, evaluations/s, peak RSS, workers) with the Node version and CPU
+ * model to `bench/results/<name>-<date>.json` (`--name`, default "suites").
  *
- *   npm run bench -- [--seconds S] [--only NAME,NAME] [--suite tsplib|solomon] [--seed N]
+ *   npm run bench -- [--seconds S] [--only NAME,NAME] [--suite tsplib|solomon] [--seed N] [--workers N] [--fixtures]
  *
  * Small GEO instances (burma14, ulysses16, ulysses22) always get 1 s; the others `--seconds`
  * (default 30). EUC_2D instances run only when named with `--only`. The benchmark folder is
- * `KILN_BENCHMARKS_DIR` when set, otherwise `../shared/benchmarks` beside the checkout.
+ * `KILN_BENCHMARKS_DIR` when set, otherwise `../shared/benchmarks` beside the checkout;
+ * `--fixtures` runs the six committed reference instances of test/fixtures/reference instead.
  */
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { existsSync, readFileSync } from "node:fs";
 import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { benchInstance, loadBenchFile, type SolomonBenchRecord, type TsplibBenchRecord } from "../src/cli/benchCommand.js";
 import { Command } from "commander";
 import { settingFlags } from "../src/cli/settingFlags.js";
+import { parseWorkers } from "../src/cli/chains.js";
+import { benchEnvironment, rssSampler, writeResults } from "./results.js";
 
 const BENCHMARKS_DIR = process.env["KILN_BENCHMARKS_DIR"]
   ? resolve(process.env["KILN_BENCHMARKS_DIR"]) + "/"
   : fileURLToPath(new URL("../../shared/benchmarks/", import.meta.url));
-const OUT_DIR = fileURLToPath(new URL("./out/", import.meta.url));
+/** The committed reference instances: one flat folder standing for both suite folders. */
+const FIXTURES_DIR = fileURLToPath(new URL("../test/fixtures/reference/", import.meta.url));
+let suiteDir = (suite: "tsplib" | "solomon"): string => BENCHMARKS_DIR + suite + "/";
 const SMALL_GEO = ["burma14", "ulysses16", "ulysses22"];
 const LARGE_GEO = ["gr96", "gr202", "gr431"];
 
 interface Row {
-  record: SolomonBenchRecord | TsplibBenchRecord;
+  instance: string;
+  /** Optimal length (TSPLIB) or best-known distance (Solomon). */
   reference: number;
+  /** Our length or distance. */
+  ours: number;
   referenceVehicles?: number;
+  vehicles?: number;
   gapPct: number;
-  evaluationsPerSecond: number;
+  seconds: number;
+  /** Moves of every chain together. */
+  moves: number;
   evaluations: number;
+  evaluationsPerSecond: number;
+  peakRssMb: number;
+  workers: number;
+  feasible: boolean;
+  record: SolomonBenchRecord | TsplibBenchRecord;
 }
 
 async function runSuites(argv: string[]): Promise<number> {
@@ -41,21 +59,37 @@ async function runSuites(argv: string[]): Promise<number> {
     .option("--seed <N>", "seed of every run", "1")
     .option("--suite <NAME>", "tsplib or solomon (default both)")
     .option("--only <NAMES>", "comma-separated instance names")
+    .option("--workers <N>", "independent chains per instance on worker threads (default 1)")
+    .option("--fixtures", "run the committed reference instances (test/fixtures/reference) instead of the benchmark folder")
+    .option("--name <NAME>", "results file name: bench/results/<NAME>-<date>.json", "suites")
     .exitOverride();
   try {
     program.parse(argv, { from: "user" });
   } catch {
     return 2;
   }
-  const opts = program.opts<{ seconds: string; seed: string; suite?: string; only?: string }>();
+  const opts = program.opts<{
+    seconds: string;
+    seed: string;
+    suite?: string;
+    only?: string;
+    workers?: string;
+    fixtures?: boolean;
+    name: string;
+  }>();
   const errors: string[] = [];
+  const parsedWorkers = parseWorkers(opts.workers);
+  if ("error" in parsedWorkers) errors.push(parsedWorkers.error);
+  const workers = "workers" in parsedWorkers ? parsedWorkers.workers : 1;
+  if (!/^[\w.-]+$/.test(opts.name)) errors.push(`--name: "${opts.name}" may hold only letters, digits, ".", "_" and "-"`);
+  if (opts.fixtures) suiteDir = () => FIXTURES_DIR;
   const flags = settingFlags({ seconds: opts.seconds, seed: opts.seed });
   errors.push(...flags.errors);
   const seconds = flags.overrides.seconds ?? 30;
   const seed = flags.overrides.seed ?? 1;
   const suite = opts.suite;
   if (suite !== undefined && suite !== "tsplib" && suite !== "solomon") errors.push(`--suite must be tsplib or solomon, got "${suite}"`);
-  if (!existsSync(BENCHMARKS_DIR))
+  if (!opts.fixtures && !existsSync(BENCHMARKS_DIR))
     errors.push(
       `benchmark folder ${BENCHMARKS_DIR} not found: put the suites in ../shared/benchmarks beside the checkout or set KILN_BENCHMARKS_DIR`,
     );
@@ -75,13 +109,13 @@ async function runSuites(argv: string[]): Promise<number> {
     for (const [name] of optimal) {
       const isGeo = SMALL_GEO.includes(name) || LARGE_GEO.includes(name);
       if (only ? !only.includes(name.toLowerCase()) : !isGeo) continue;
-      jobs.push({ file: `tsplib/${name}.tsp`, seconds: SMALL_GEO.includes(name) ? 1 : seconds, name });
+      jobs.push({ file: `${suiteDir("tsplib")}${name}.tsp`, seconds: SMALL_GEO.includes(name) ? 1 : seconds, name });
     }
   }
   if (suite !== "tsplib") {
     for (const [name] of bestKnown) {
       if (only && !only.includes(name.toLowerCase())) continue;
-      jobs.push({ file: `solomon/${name}.txt`, seconds, name });
+      jobs.push({ file: `${suiteDir("solomon")}${name}.txt`, seconds, name });
     }
   }
   if (jobs.length === 0) {
@@ -91,43 +125,65 @@ async function runSuites(argv: string[]): Promise<number> {
 
   const rows: Row[] = [];
   for (const job of jobs) {
-    const loaded = await loadBenchFile(BENCHMARKS_DIR + job.file);
+    const loaded = await loadBenchFile(job.file);
     if ("errors" in loaded) {
       for (const e of loaded.errors) process.stderr.write(e + "\n");
       return 2;
     }
-    process.stderr.write(`${job.name}: ${job.seconds} s ...\n`);
-    const { record, stats } = benchInstance(loaded, { seed, budget: { seconds: job.seconds }, now: () => performance.now() });
-    const elapsedS = stats.elapsedMs / 1000;
-    const evaluationsPerSecond = elapsedS > 0 ? stats.evaluations / elapsedS : 0;
+    process.stderr.write(`${job.name}: ${job.seconds} s, ${workers} worker(s) ...\n`);
+    const rss = rssSampler();
+    const started = performance.now();
+    const { record, evaluations, moves } = await benchInstance(loaded, {
+      seed,
+      budget: { seconds: job.seconds },
+      now: () => performance.now(),
+      workers,
+    });
+    const wallS = (performance.now() - started) / 1000;
+    const peakRssMb = rss.stop();
+    const common = {
+      instance: job.name,
+      seconds: Math.round(wallS * 100) / 100,
+      moves,
+      evaluations,
+      evaluationsPerSecond: wallS > 0 ? Math.round(evaluations / wallS) : 0,
+      peakRssMb,
+      workers,
+    };
     if (record.format === "tsplib") {
       const reference = Number(optimal.find(([n]) => n === job.name)?.[1]);
-      rows.push({ record, reference, gapPct: gap(record.length, reference), evaluationsPerSecond, evaluations: stats.evaluations });
+      rows.push({ ...common, reference, ours: record.length, gapPct: gap(record.length, reference), feasible: true, record });
     } else {
       const ref = bestKnown.find(([n]) => n === job.name);
       const reference = Number(ref?.[2]);
+      const ours = Math.round(record.distance * 100) / 100;
       rows.push({
-        record,
+        ...common,
         reference,
+        ours,
         referenceVehicles: Number(ref?.[1]),
+        vehicles: record.vehicles,
         gapPct: gap(record.distance, reference),
-        evaluationsPerSecond,
-        evaluations: stats.evaluations,
+        feasible: record.feasible,
+        record,
       });
     }
   }
 
   process.stdout.write(table(rows) + "\n");
-  mkdirSync(OUT_DIR, { recursive: true });
-  writeFileSync(OUT_DIR + "suites.json", JSON.stringify({ seed, seconds, rows }, null, 2) + "\n");
-  process.stderr.write("wrote bench/out/suites.json\n");
+  const environment = benchEnvironment();
+  process.stdout.write(
+    `\nNode ${environment.node}, ${environment.cpuModel} (${environment.cpuCount} cores), seed ${seed}, ${workers} worker(s)\n`,
+  );
+  const written = writeResults(opts.name, { bench: "suites", environment, seed, seconds, workers, rows });
+  process.stderr.write(`wrote ${written}\n`);
   return 0;
 }
 
 function table(rows: readonly Row[]): string {
   const lines = [
-    "| instance | reference | ours | gap % | vehicles (ours / best-known) | seconds | evaluations/s |",
-    "|---|---:|---:|---:|---:|---:|---:|",
+    "| instance | reference | ours | gap % | vehicles (ours / best-known) | seconds | moves | evaluations/s | peak RSS MB | workers |",
+    "|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|",
   ];
   for (const r of rows) {
     const rec = r.record;
@@ -135,26 +191,28 @@ function table(rows: readonly Row[]): string {
     const vehicles = rec.format === "solomon" ? `${rec.vehicles} / ${r.referenceVehicles}` : "";
     const ref = rec.format === "tsplib" ? String(r.reference) : r.reference.toFixed(2);
     lines.push(
-      `| ${rec.instance} | ${ref} | ${ours} | ${pct(r.gapPct)} | ${vehicles} | ${rec.seconds.toFixed(1)} | ${Math.round(r.evaluationsPerSecond).toLocaleString("en-US")} |`,
+      `| ${rec.instance} | ${ref} | ${ours} | ${pct(r.gapPct)} | ${vehicles} | ${r.seconds.toFixed(1)} | ${r.moves.toLocaleString("en-US")} | ` +
+        `${Math.round(r.evaluationsPerSecond).toLocaleString("en-US")} | ${r.peakRssMb.toFixed(0)} | ${r.workers} |`,
     );
   }
   const tsp = rows.filter((r) => r.record.format === "tsplib");
   const sol = rows.filter((r) => r.record.format === "solomon");
-  if (tsp.length > 0) lines.push(`| **mean TSPLIB gap** | | | ${pct(mean(tsp.map((r) => r.gapPct)))} | | | |`);
+  if (tsp.length > 0) lines.push(`| **mean TSPLIB gap** | | | ${pct(mean(tsp.map((r) => r.gapPct)))} | | | | | | |`);
   if (sol.length > 0) {
     const ours = sol.reduce((s, r) => s + (r.record as SolomonBenchRecord).vehicles, 0);
     const best = sol.reduce((s, r) => s + (r.referenceVehicles ?? 0), 0);
     const infeasible = sol.filter((r) => !(r.record as SolomonBenchRecord).feasible).length;
-    lines.push(`| **mean Solomon gap** (distance) | | | ${pct(mean(sol.map((r) => r.gapPct)))} | | | |`);
-    lines.push(`| **total vehicles** | | | | ${ours} / ${best} | | |`);
-    if (infeasible > 0) lines.push(`| **infeasible plans** | | ${infeasible} of ${sol.length} | | | | |`);
+    lines.push(`| **mean Solomon gap** (distance) | | | ${pct(mean(sol.map((r) => r.gapPct)))} | | | | | | |`);
+    lines.push(`| **total vehicles** | | | | ${ours} / ${best} | | | | | |`);
+    if (infeasible > 0) lines.push(`| **infeasible plans** | | ${infeasible} of ${sol.length} | | | | | | | |`);
   }
   return lines.join("\n");
 }
 
 /** Rows of a small CSV without quoting, header dropped, as [name, ...values]. */
 function readCsv(relative: string): [string, ...string[]][] {
-  return readFileSync(BENCHMARKS_DIR + relative, "utf8")
+  const [suite, file] = relative.split("/") as ["tsplib" | "solomon", string];
+  return readFileSync(suiteDir(suite) + file, "utf8")
     .split(/\r?\n/)
     .slice(1)
     .filter((l) => l.trim() !== "")

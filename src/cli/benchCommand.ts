@@ -14,9 +14,9 @@ import {
   type Plan,
   type Problem,
   type Budget,
-  solve,
   type RunStats,
 } from "../core/index.js";
+import { parseWorkers, runChains, MAX_WORKERS } from "./chains.js";
 import type { CliIO } from "./CliIO.js";
 import { Option, type Command } from "commander";
 import { SETTING_FIELDS, rangeText } from "../sheets/settingFields.js";
@@ -71,13 +71,14 @@ export function declareBench(program: Command, io: CliIO, exit: (code: number) =
     .addOption(opt("seconds", ` (default ${DEFAULT_SECONDS})`))
     .addOption(opt("moves", ""))
     .addOption(opt("seed", " (default 1)"))
-    .action(async (files: string[], opts: { seconds?: string; moves?: string; seed?: string }) => {
+    .option("--workers <N>", `independent chains per instance on worker threads, 1 to ${MAX_WORKERS} (default 1); the best is kept`)
+    .action(async (files: string[], opts: { seconds?: string; moves?: string; seed?: string; workers?: string }) => {
       exit(await runBenchOf(files, opts, io));
     });
 }
 
 /**
- * `kiln bench FILE... [--seconds S | --moves K] [--seed N]`: solves each file and prints
+ * `kiln bench FILE... [--seconds S | --moves K] [--seed N] [--workers N]`: solves each file and prints
  * one JSON object per line on stdout (DESIGN.md §6). Every file is read and checked before
  * any is solved, so all input errors are reported at once. Option values follow the settings
  * schema (the same ranges and messages as `plan`).
@@ -90,15 +91,16 @@ export function declareBench(program: Command, io: CliIO, exit: (code: number) =
  */
 export async function runBenchOf(
   files: readonly string[],
-  opts: { seconds?: string; moves?: string; seed?: string },
+  opts: { seconds?: string; moves?: string; seed?: string; workers?: string },
   io: CliIO,
 ): Promise<number> {
+  const workers = parseWorkers(opts.workers);
   const flags = settingFlags(opts);
   const seconds = flags.overrides.seconds;
   const moves = flags.overrides.moves;
   const seed = flags.overrides.seed ?? 1;
   const parsed = { positional: files, errors: flags.errors };
-  const errors = [...parsed.errors];
+  const errors = [...parsed.errors, ...("error" in workers ? [workers.error] : [])];
   const loaded: BenchInstance[] = [];
   for (const path of parsed.positional) {
     const result = await loadBenchFile(path);
@@ -111,7 +113,13 @@ export async function runBenchOf(
   }
   const budget: Budget = moves !== undefined ? { moves } : { seconds: seconds ?? DEFAULT_SECONDS };
   for (const instance of loaded) {
-    const { record } = benchInstance(instance, { seed, budget, now: io.now, progress: io.isTTY ? io.stderr : undefined });
+    const { record } = await benchInstance(instance, {
+      seed,
+      budget,
+      now: io.now,
+      progress: io.isTTY ? io.stderr : undefined,
+      workers: "workers" in workers ? workers.workers : 1,
+    });
     io.stdout(JSON.stringify(record) + "\n");
   }
   return 0;
@@ -151,25 +159,22 @@ export async function loadBenchFile(path: string): Promise<BenchInstance | { err
 }
 
 /**
- * Solves one benchmark instance with the engine and builds its JSON record: routes and
- * tours in the file's numbering, lengths recomputed from the file (TSPLIB: by its
- * EDGE_WEIGHT_TYPE; Solomon: Euclidean in double precision), not taken from the solver.
+ * Solves one benchmark instance with the engine and builds its JSON record (`benchRecord`).
+ * With several workers the chains run on worker threads and the best plan is kept (`runChains`).
  *
  * @param instance - a loaded instance
- * @param options - seed, budget, clock, and an optional sink for progress lines
- * @returns the record and the engine's run statistics
+ * @param options - seed, budget, clock, an optional sink for progress lines, chains (default 1)
+ * @returns the record, the kept chain's run statistics, the plan, and the evaluations of all chains
  * @throws RangeError when the solver leaves a TSP node out (a solver defect, not user data)
- * @example benchInstance(burma14, { seed: 1, budget: { moves: 20000 }, now: () => performance.now() }).record.length // => 3323
+ * @example (await benchInstance(burma14, { seed: 1, budget: { moves: 20000 }, now: () => performance.now() })).record.length // => 3323
  */
-export function benchInstance(
+export async function benchInstance(
   instance: BenchInstance,
-  options: { seed: number; budget: Budget; now: () => number; progress?: ((s: string) => void) | undefined },
-): { record: SolomonBenchRecord | TsplibBenchRecord; stats: RunStats; plan: Plan } {
+  options: { seed: number; budget: Budget; now: () => number; progress?: ((s: string) => void) | undefined; workers?: number },
+): Promise<{ record: SolomonBenchRecord | TsplibBenchRecord; stats: RunStats; plan: Plan; evaluations: number; moves: number }> {
   const problem: Problem = instance.format === "tsplib" ? tsplibToProblem(instance.inst) : solomonToProblem(instance.inst);
   const sink = options.progress;
-  const result = solve(problem, {
-    seed: options.seed,
-    budget: options.budget,
+  const result = await runChains(problem, { seed: options.seed, budget: options.budget }, options.workers ?? 1, {
     now: options.now,
     ...(sink
       ? {
@@ -180,36 +185,59 @@ export function benchInstance(
   });
   if (sink) sink("\n");
   const { plan, stats } = result;
-  const seconds = Math.round(stats.elapsedMs) / 1000;
+  const evaluations = result.chains.reduce((s, c) => s + c.stats.evaluations, 0);
+  const moves = result.chains.reduce((s, c) => s + c.stats.moves, 0);
+  const record = benchRecord(instance, problem, plan, { seed: options.seed, elapsedMs: stats.elapsedMs, moves: stats.moves });
+  return { record, stats, plan, evaluations, moves };
+}
+
+/**
+ * The JSON record of a plan of a benchmark instance: routes and tours in the file's numbering,
+ * lengths recomputed from the file (TSPLIB: by its EDGE_WEIGHT_TYPE; Solomon: Euclidean in
+ * double precision), not taken from the solver.
+ *
+ * @param instance - the loaded instance
+ * @param problem - the problem made of it (`tsplibToProblem` / `solomonToProblem`)
+ * @param plan - a plan of that problem, by any solver
+ * @param run - seed, milliseconds and moves of the run that made it
+ * @returns the record
+ * @throws RangeError when a TSP plan leaves a node out (a solver defect, not user data)
+ * @example benchRecord(burma14, problem, plan, { seed: 1, elapsedMs: 1000, moves: 20000 }).length // => 3323
+ */
+export function benchRecord(
+  instance: BenchInstance,
+  problem: Problem,
+  plan: Plan,
+  run: { seed: number; elapsedMs: number; moves: number },
+): SolomonBenchRecord | TsplibBenchRecord {
+  const seconds = Math.round(run.elapsedMs) / 1000;
   const routes = plan.routes.filter((r) => r.visits.length > 0).map((r) => r.visits.map((v) => Number(problem.stops[v.stop]!.id)));
   if (instance.format === "tsplib") {
     const tour = [1, ...(routes[0] ?? [])];
     if (tour.length !== instance.inst.dimension) {
       throw new RangeError(`solver returned a tour of ${tour.length} of ${instance.inst.dimension} nodes for ${instance.name}`);
     }
-    const record: TsplibBenchRecord = {
+    return {
       instance: instance.name,
       format: "tsplib",
-      seed: options.seed,
+      seed: run.seed,
       seconds,
-      moves: stats.moves,
+      moves: run.moves,
       length: tsplibTourLength(instance.inst, tour),
       tour,
     };
-    return { record, stats, plan };
   }
-  const record: SolomonBenchRecord = {
+  return {
     instance: instance.name,
     format: "solomon",
-    seed: options.seed,
+    seed: run.seed,
     seconds,
-    moves: stats.moves,
+    moves: run.moves,
     vehicles: routes.length,
     distance: solomonRoutesDistance(instance.inst, routes),
     feasible: plan.feasible && plan.unassigned.length === 0,
     routes,
   };
-  return { record, stats, plan };
 }
 
 function readError(e: unknown): string {

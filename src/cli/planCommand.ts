@@ -1,15 +1,19 @@
 import { writeFile } from "node:fs/promises";
 import type { Command } from "commander";
-import { type Plan, type Problem, type SolveOptions, solve } from "../core/index.js";
+import type { Plan, Problem } from "../core/index.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
 import { formatCooling } from "../sheets/formatCooling.js";
 import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
+import { type ChainOptions, MAX_WORKERS, parseWorkers, runChains } from "./chains.js";
 import type { CliIO } from "./CliIO.js";
 import { formatIssue } from "./formatIssue.js";
 import { outputPath } from "./outputPath.js";
 import { prepareRun } from "./prepareRun.js";
 import { progressBar } from "./progressBar.js";
 import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptions.js";
+
+/** The options of `kiln plan` besides the plan settings. */
+export type PlanOptions = InputSheetOptions & { scenario: string; out?: string; softWindows?: boolean; workers?: string };
 
 /** Declare `kiln plan` (alias `solve`, its name before 0.2) on the program. */
 export function declarePlan(program: Command, io: CliIO, exit: (code: number) => void): Command {
@@ -24,9 +28,14 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
     )
     .argument("<WORKBOOK.xlsx>", "the workbook with the Stops and Fleet sheets")
     .option("--scenario <NAME>", "name of the plan sheet to write", "Plan")
-    .option("--out <OUT.xlsx>", "where to write the new workbook (never the input itself)");
+    .option("--out <OUT.xlsx>", "where to write the new workbook (never the input itself)")
+    .option(
+      "--workers <N>",
+      `independent annealing chains run at once on worker threads, 1 to ${MAX_WORKERS} (default 1); each gets the whole budget ` +
+        "and the best plan is kept; the same seed, --moves and N give the same plan",
+    );
   addRunOptions(cmd);
-  cmd.action(async (workbook: string, opts: InputSheetOptions & { scenario: string; out?: string; softWindows?: boolean }) => {
+  cmd.action(async (workbook: string, opts: PlanOptions) => {
     exit(await runPlan(workbook, opts, givenSettings(cmd), io));
   });
   return cmd;
@@ -38,20 +47,18 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
  * Compare row into a new file.
  *
  * @param workbook - the WORKBOOK.xlsx argument
- * @param opts - sheet options, `--scenario`, `--out`, `--soft-windows`
+ * @param opts - sheet options, `--scenario`, `--out`, `--soft-windows`, `--workers`
  * @param settings - the setting options given, by flag
  * @param io - output streams and clock
  * @returns exit code: 0 ok, 2 input errors (one line each on stderr)
  * @example await runPlan("demo/kiln-demo.xlsx", { scenario: "Plan" }, { moves: "20000" }, io) // => 0
  */
-export async function runPlan(
-  workbook: string,
-  opts: InputSheetOptions & { scenario: string; out?: string; softWindows?: boolean },
-  settings: Readonly<Record<string, string>>,
-  io: CliIO,
-): Promise<number> {
+export async function runPlan(workbook: string, opts: PlanOptions, settings: Readonly<Record<string, string>>, io: CliIO): Promise<number> {
+  const workers = parseWorkers(opts.workers);
   const prepared = await prepareRun(workbook, opts, settings, opts.softWindows);
-  if ("errors" in prepared) return reportErrors(io, prepared.errors);
+  if ("errors" in prepared || "error" in workers) {
+    return reportErrors(io, [...("error" in workers ? [workers.error] : []), ...("errors" in prepared ? prepared.errors : [])]);
+  }
   const { book, read, inputPath } = prepared;
   const out = await outputPath(inputPath, opts.out);
   if ("error" in out) return reportErrors(io, [out.error]);
@@ -65,17 +72,33 @@ export async function runPlan(
   const s = read.settings;
   const bar = progressBar(io);
   const started = io.now();
-  const options: Partial<SolveOptions> = {
+  const options: ChainOptions = {
     seed: s.seed,
     budget: s.moves !== undefined ? { moves: s.moves } : { seconds: s.seconds },
     rule: s.rule,
     cooling: s.cooling,
     p0: s.p0,
     pEnd: s.pEnd,
-    now: io.now,
-    onProgress: (p) => bar.update(p),
   };
-  const result = solve(read.problem, options);
+  // Ctrl-C stops every chain and the best plan found so far is written; a second Ctrl-C quits at once.
+  const stop = new AbortController();
+  const onInterrupt = (): void => {
+    if (stop.signal.aborted) process.exit(130);
+    stop.abort();
+    bar.done();
+    io.stderr("Stopping: the best plan found so far will be written (Ctrl-C again quits without writing).\n");
+  };
+  process.on("SIGINT", onInterrupt);
+  let result: Awaited<ReturnType<typeof runChains>>;
+  try {
+    result = await runChains(read.problem, options, workers.workers, {
+      now: io.now,
+      onProgress: (p) => bar.update(p),
+      signal: stop.signal,
+    });
+  } finally {
+    process.off("SIGINT", onInterrupt);
+  }
   bar.done();
   const runSeconds = (io.now() - started) / 1000;
 
@@ -106,8 +129,12 @@ export async function runPlan(
     ...mustServeLines(read.problem, plan),
     `Feasible: ${plan.feasible ? "yes" : plan.violations.length === 0 ? `no: ${t.mustServeUnassigned} must-serve stop(s) left out, every route keeps the rules` : "no"}`,
     ...plan.violations.map((v) => `  ${v}`),
-    `Run: ${result.stats.moves} moves in ${runSeconds.toFixed(1)} s, seed ${s.seed}, ${formatCooling(s.cooling, s.rule)}`,
+    `Run: ${result.stats.moves} moves in ${runSeconds.toFixed(1)} s, seed ${s.seed}, ${formatCooling(s.cooling, s.rule)}${stop.signal.aborted ? ", stopped by Ctrl-C" : ""}`,
   ];
+  if (workers.workers > 1) {
+    const total = result.chains.reduce((sum, c) => sum + c.stats.moves, 0);
+    lines.push(`Chains: ${workers.workers} on worker threads, ${total} moves in all; the plan is chain ${result.chain + 1}'s`);
+  }
   if (book.skippedCharts.length > 0) {
     lines.push("Route chart: not drawn in the file (exceljs cannot write charts); the Excel add-in draws it.");
   }

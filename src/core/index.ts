@@ -5,6 +5,7 @@ export * from "./constants.js";
 export { greatCircleKm } from "./geo/greatCircleKm.js";
 export { buildMatrix, userMatrix, type BuildMatrixOptions } from "./geo/buildMatrix.js";
 export { solve, createSolver, type Solver, type SolveResult, type RunStats } from "./solve.js";
+export { comparePlans } from "./comparePlans.js";
 export { evaluatePlan } from "./schedule/evaluatePlan.js";
 export { unservableStops } from "./schedule/unservableStops.js";
 export { validateProblem } from "./validateProblem.js";

@@ -1,0 +1,200 @@
+/**
+ * Several independent annealing chains on worker threads (`--workers N`). Chain k solves with
+ * the seed `chainSeed(seed, k)` and the full budget; the plan kept is the best by the solver's
+ * own order (`comparePlans`), ties to the lowest chain index, so the same seed, move budget and
+ * N always give the same plan, and chain 0 is the run one chain would make.
+ */
+import { existsSync, readFileSync } from "node:fs";
+import { createRequire } from "node:module";
+import { fileURLToPath, pathToFileURL } from "node:url";
+import { Worker } from "node:worker_threads";
+import { comparePlans, createSolver, type Problem, type Progress, type SolveOptions, type SolveResult } from "../core/index.js";
+
+/** What a chain may be told: everything of `SolveOptions` a thread can receive. */
+export type ChainOptions = Omit<Partial<SolveOptions>, "now" | "onProgress" | "signal">;
+
+/** The most chains `--workers` accepts (more than any machine this runs on has cores to give). */
+export const MAX_WORKERS = 64;
+
+/** Moves per slice of the one-chain run between looks at the event loop (Ctrl-C). */
+const SLICE = 4096;
+
+/** What the main thread sends a chain worker (as `workerData`). */
+export interface ChainRequest {
+  readonly problem: Problem;
+  readonly options: ChainOptions;
+  readonly chain: number;
+  /** SharedArrayBuffer of one Int32: non-zero asks the chain to stop. */
+  readonly stop: SharedArrayBuffer;
+}
+
+/** What a chain worker posts back. */
+export type ChainMessage =
+  | { readonly type: "progress"; readonly chain: number; readonly progress: Progress }
+  | { readonly type: "done"; readonly chain: number; readonly result: SolveResult }
+  | { readonly type: "error"; readonly chain: number; readonly message: string };
+
+/** The outcome of every chain, and which one was kept. */
+export interface ChainsResult extends SolveResult {
+  /** Index of the chain whose plan is `plan`. */
+  readonly chain: number;
+  /** Each chain's own result, by index. */
+  readonly chains: readonly SolveResult[];
+}
+
+/** How a multi-chain run reports and stops. */
+export interface ChainsHooks {
+  /** Clock of the one-chain run (worker chains use their own). */
+  readonly now?: () => number;
+  /** Combined progress of all chains: moves summed, best cost the lowest any chain has. */
+  readonly onProgress?: (progress: Progress) => void;
+  /** Aborting it stops every chain; each keeps its best plan and the best of those is returned. */
+  readonly signal?: AbortSignal;
+}
+
+/**
+ * The seed of chain k: the run's seed itself for chain 0, a seed derived from it otherwise.
+ *
+ * @param seed - the run's seed
+ * @param chain - chain index from 0
+ * @returns the chain's seed
+ * @example chainSeed(7, 0) // => 7; chainSeed(7, 2) // => "7/chain 2"
+ */
+export function chainSeed(seed: number | string, chain: number): number | string {
+  return chain === 0 ? seed : `${seed}/chain ${chain}`;
+}
+
+/**
+ * Check a `--workers` value.
+ *
+ * @param text - the option text, or undefined when not given
+ * @returns the number of chains (1 when not given), or the error line
+ * @example parseWorkers("2") // => { workers: 2 }
+ */
+export function parseWorkers(text: string | undefined): { workers: number } | { error: string } {
+  if (text === undefined) return { workers: 1 };
+  const n = Number(text.trim());
+  if (!Number.isInteger(n) || n < 1 || n > MAX_WORKERS) {
+    return {
+      error: `--workers: "${text}" is not a whole number from 1 to ${MAX_WORKERS}; give the number of chains to run at once, e.g. --workers 2`,
+    };
+  }
+  return { workers: n };
+}
+
+/**
+ * Run `workers` independent chains and keep the best plan. One chain runs in this thread (the
+ * same moves as `solve`), yielding to the event loop between slices so an abort can arrive;
+ * more run on worker threads.
+ *
+ * @param problem - a problem without `validateProblem` issues
+ * @param options - the solve options every chain shares (the seed is derived per chain)
+ * @param workers - number of chains, >= 1
+ * @param hooks - clock, combined progress, abort
+ * @returns the best chain's result, its index and every chain's result
+ * @throws Error when a chain fails (the message of the first failure)
+ * @example (await runChains(problem, { seed: 1, budget: { moves: 100_000 } }, 2)).plan
+ */
+export async function runChains(problem: Problem, options: ChainOptions, workers: number, hooks: ChainsHooks = {}): Promise<ChainsResult> {
+  const results = workers <= 1 ? [await runHere(problem, options, hooks)] : await runOnThreads(problem, options, workers, hooks);
+  let best = 0;
+  for (let k = 1; k < results.length; k++) if (comparePlans(problem, results[k]!.plan, results[best]!.plan) < 0) best = k;
+  return { ...results[best]!, chain: best, chains: results };
+}
+
+async function runHere(problem: Problem, options: ChainOptions, hooks: ChainsHooks): Promise<SolveResult> {
+  const solver = createSolver(problem, {
+    ...options,
+    ...(hooks.now ? { now: hooks.now } : {}),
+    ...(hooks.onProgress ? { onProgress: hooks.onProgress } : {}),
+    ...(hooks.signal ? { signal: hooks.signal } : {}),
+  });
+  while (!solver.step(SLICE)) await new Promise<void>((resolve) => setImmediate(resolve));
+  return solver.result();
+}
+
+/**
+ * The worker's module: beside this file once compiled (dist/cli/cli/chainWorker.js); when this
+ * file runs from source (tsx, the tests), a small script that registers tsx's loader in the
+ * worker and then imports chainWorker.ts.
+ */
+function workerModule(): { url: URL | string; eval: boolean } {
+  const js = new URL("./chainWorker.js", import.meta.url);
+  if (existsSync(fileURLToPath(js))) return { url: js, eval: false };
+  // The ESM entry of tsx's "./esm/api" export (require.resolve would give its CommonJS one).
+  const pkgPath = createRequire(import.meta.url).resolve("tsx/package.json");
+  const pkg = JSON.parse(readFileSync(pkgPath, "utf8")) as { exports: Record<string, { import: { default: string } }> };
+  const api = new URL(pkg.exports["./esm/api"]!.import.default, pathToFileURL(pkgPath)).href;
+  const ts = new URL("./chainWorker.ts", import.meta.url).href;
+  return { url: `import(${JSON.stringify(api)}).then((m) => m.register()).then(() => import(${JSON.stringify(ts)}));`, eval: true };
+}
+
+function runOnThreads(problem: Problem, options: ChainOptions, workers: number, hooks: ChainsHooks): Promise<SolveResult[]> {
+  const stop = new SharedArrayBuffer(4);
+  const flag = new Int32Array(stop);
+  const seed = options.seed ?? 1;
+  const module = workerModule();
+  const latest: (Progress | undefined)[] = new Array<Progress | undefined>(workers).fill(undefined);
+  const results: (SolveResult | undefined)[] = new Array<SolveResult | undefined>(workers).fill(undefined);
+  const threads: Worker[] = [];
+  const onAbort = (): void => void Atomics.store(flag, 0, 1);
+  if (hooks.signal?.aborted) onAbort();
+  hooks.signal?.addEventListener("abort", onAbort);
+  return new Promise<SolveResult[]>((resolve, reject) => {
+    let left = workers;
+    let failed = false;
+    const fail = (message: string): void => {
+      if (failed) return;
+      failed = true;
+      hooks.signal?.removeEventListener("abort", onAbort);
+      for (const t of threads) void t.terminate();
+      reject(new Error(message));
+    };
+    for (let chain = 0; chain < workers; chain++) {
+      const request: ChainRequest = { problem, options: { ...options, seed: chainSeed(seed, chain) }, chain, stop };
+      const t = new Worker(module.url, { workerData: request, eval: module.eval });
+      threads.push(t);
+      t.on("message", (m: ChainMessage) => {
+        if (m.type === "progress") {
+          latest[m.chain] = m.progress;
+          if (hooks.onProgress) hooks.onProgress(combineProgress(latest));
+        } else if (m.type === "error") {
+          fail(`chain ${m.chain}: ${m.message}`);
+        } else {
+          results[m.chain] = m.result;
+          void t.terminate();
+          if (--left === 0 && !failed) {
+            hooks.signal?.removeEventListener("abort", onAbort);
+            resolve(results as SolveResult[]);
+          }
+        }
+      });
+      t.on("error", (e) => fail(`chain ${chain}: ${e.message}`));
+      t.on("exit", () => {
+        if (results[chain] === undefined) fail(`chain ${chain} ended without a plan`);
+      });
+    }
+  });
+}
+
+/**
+ * One progress of several chains: the budget fraction of the slowest chain, the moves of all,
+ * the best cost any chain has found, and the temperature of chain 0.
+ *
+ * @param latest - each chain's latest progress (undefined before its first report)
+ * @returns the combined progress
+ * @example combineProgress([p0, p1]).bestCost // => Math.min(p0.bestCost, p1.bestCost)
+ */
+export function combineProgress(latest: readonly (Progress | undefined)[]): Progress {
+  const ps = latest.filter((p): p is Progress => p !== undefined);
+  const n = latest.length;
+  return {
+    moves: ps.reduce((s, p) => s + p.moves, 0),
+    fraction: ps.length < n ? 0 : Math.min(...ps.map((p) => p.fraction)),
+    temperature: (latest[0] ?? ps[0])?.temperature ?? 0,
+    currentCost: Math.min(...ps.map((p) => p.currentCost)),
+    bestCost: Math.min(...ps.map((p) => p.bestCost)),
+    acceptanceRate: ps.length > 0 ? ps.reduce((s, p) => s + p.acceptanceRate, 0) / ps.length : 0,
+    elapsedMs: Math.max(0, ...ps.map((p) => p.elapsedMs)),
+  };
+}
