@@ -16,8 +16,8 @@ import { entries, host, install, neverNotLoaded, uninstall } from "./officeMockH
 
 afterEach(uninstall);
 
-describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFICE-NOTES.md)", () => {
-  it("readSelection returns the selected values, address and position after one sync", async () => {
+describe("reading (office-addin-mock; one Excel.run per read: its size, then its values, OFFICE-NOTES.md)", () => {
+  it("readSelection returns the selected values, address and position after two syncs (where and how big, then the values)", async () => {
     const book = install({
       excelApi: "1.7",
       selection: {
@@ -44,7 +44,7 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
       },
       address: "Stops!B3:C4",
     });
-    expect(host().syncs()).toBe(1);
+    expect(host().syncs()).toBe(2);
     expect(entries("getTables")).toEqual([]); // ExcelApi 1.9 missing: plain selection, no table lookup
     neverNotLoaded(got);
   });
@@ -70,7 +70,7 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
     expect(got.read.values).toHaveLength(3);
     expect(entries("getIntersectionOrNullObject")).toEqual([["getIntersectionOrNullObject", "used range"]]);
     expect(entries("getUsedRange")).toEqual([["getUsedRange", true]]);
-    expect(host().syncs()).toBe(1);
+    expect(host().syncs()).toBe(2);
   });
 
   it("readSelection of empty cells returns no values and the selected address", async () => {
@@ -102,7 +102,7 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
     expect(got.address).toBe("Stops!A1:C4");
     expect(got.read.values).toHaveLength(4);
     expect(entries("tables.load")).toEqual([["tables.load", "items/name"]]);
-    expect(host().syncs()).toBe(2);
+    expect(host().syncs()).toBe(3);
     neverNotLoaded(got);
   });
 
@@ -130,8 +130,22 @@ describe("reading (office-addin-mock; one Excel.run and one sync per read, OFFIC
       ],
     });
     expect(entries("getUsedRangeOrNullObject")).toEqual([["getUsedRangeOrNullObject", "Fleet", true]]);
-    expect(host().syncs()).toBe(1);
+    expect(host().syncs()).toBe(2);
     neverNotLoaded(got);
+  });
+
+  it("reads a large used range in row blocks of at most readBlockCells cells, one sync each (the 5 MB response cap on the web)", async () => {
+    const values = Array.from({ length: 10 }, (_, r) => [`S${r + 1}`, r, r * 2]);
+    // The blocks the adapter must ask for: 4 rows of 3 columns (12 cells <= 13) from B3, then the rest.
+    const ranges: Record<string, Record<string, unknown>> = {
+      "Stops!B3:D6": { values: values.slice(0, 4) },
+      "Stops!B7:D10": { values: values.slice(4, 8) },
+      "Stops!B11:D12": { values: values.slice(8) },
+    };
+    const book = install({ sheets: { Stops: { values, rowIndex: 2, columnIndex: 1 } }, ranges }, { readBlockCells: 13 });
+    const read = await book.readSheet("Stops");
+    expect(read).toEqual({ sheet: "Stops", row: 2, col: 1, values });
+    expect(host().syncs()).toBe(4); // where and how big, then three blocks
   });
 
   it("readSheet gives undefined for a missing sheet (Office error code ItemNotFound) and [] for an empty one", async () => {

@@ -197,8 +197,15 @@ export function install(setup: Setup, options: ExcelWorkbookOptions = {}): Excel
   for (const [name, s] of Object.entries(setup.sheets ?? {})) {
     used[name] =
       s === "empty"
-        ? { isNullObject: true, values: [], rowIndex: 0, columnIndex: 0, rowCount: 0 }
-        : { isNullObject: false, values: s.values, rowIndex: s.rowIndex ?? 0, columnIndex: s.columnIndex ?? 0, rowCount: s.values.length };
+        ? { isNullObject: true, values: [], rowIndex: 0, columnIndex: 0, rowCount: 0, columnCount: 0 }
+        : {
+            isNullObject: false,
+            values: s.values,
+            rowIndex: s.rowIndex ?? 0,
+            columnIndex: s.columnIndex ?? 0,
+            rowCount: s.values.length,
+            columnCount: s.values[0]?.length ?? 0,
+          };
   }
   const sel = setup.selection ?? {
     sheet: "Stops",
@@ -226,7 +233,7 @@ export function install(setup: Setup, options: ExcelWorkbookOptions = {}): Excel
           },
           active: { name: "Fleet" },
           ranges: setup.ranges ?? {},
-          missingRange: { isNullObject: false, values: [], valuesAsJson: [], rowIndex: 0, columnIndex: 0, rowCount: 0 },
+          missingRange: { isNullObject: false, values: [], valuesAsJson: [], rowIndex: 0, columnIndex: 0, rowCount: 0, columnCount: 0 },
           items: [...present].map((name) => ({ name })),
           load: function (this: OfficeMockObject, arg: unknown) {
             log.push(["worksheets.load", arg]);
@@ -280,6 +287,8 @@ export function install(setup: Setup, options: ExcelWorkbookOptions = {}): Excel
           values: setup.table?.values ?? [],
           rowIndex: setup.table?.rowIndex ?? 0,
           columnIndex: setup.table?.columnIndex ?? 0,
+          rowCount: setup.table?.values.length ?? 0,
+          columnCount: setup.table?.values[0]?.length ?? 0,
         },
         tables: {
           // Collection items are plain data in the mock; their getRange hands back the pre-seeded range.
@@ -307,6 +316,8 @@ export function install(setup: Setup, options: ExcelWorkbookOptions = {}): Excel
             values: sel.values,
             rowIndex: sel.rowIndex,
             columnIndex: sel.columnIndex,
+            rowCount: sel.values.length,
+            columnCount: sel.values[0]?.length ?? 0,
           },
           getIntersectionOrNullObject: function (this: Record<string, unknown>, other: unknown) {
             log.push(["getIntersectionOrNullObject", other]);

@@ -42,6 +42,8 @@ export function installFakeExcel(input: { sheets: FakeSheets; settings: Record<s
       values,
       rowIndex: 0,
       columnIndex: 0,
+      rowCount: values.length,
+      columnCount: cols,
       isNullObject: values.length === 0,
       load() {},
       select() {},

@@ -1,7 +1,7 @@
 import type { PrintSetup, RouteChart, SheetGrid } from "../../sheets/grid.js";
 import type { RunWrite, SheetRead, WorkbookPort } from "../WorkbookPort.js";
 import { excelCapabilities, type ExcelCapabilities } from "./excelCapabilities.js";
-import { readMerges, readSelectionIn, readUsedRange, toRead, type SelectionRead } from "./excelReads.js";
+import { readMerges, readSelectionIn, readUsedRange, readValues, toRead, type SelectionRead } from "./excelReads.js";
 import { checkSheetName, deleteSheets, writeNewSheet } from "./excelSheetWrite.js";
 import { OfficeActionError } from "./OfficeActionError.js";
 import { planGridWrite, type GridWritePlan } from "./planGridWrite.js";
@@ -19,6 +19,8 @@ export type { ExcelCapabilities, GeographyRead, SelectionRead };
 export interface ExcelWorkbookOptions {
   /** Estimated request bytes above which writes are split into row chunks (default `PAYLOAD_BUDGET_BYTES`, 2 MB). */
   readonly budgetBytes?: number;
+  /** Cells read per sync above which reads go in row blocks (default `READ_BLOCK_CELLS`, 50 000). */
+  readonly readBlockCells?: number;
   /** Told, in a sentence for the pane, when a feature is skipped because this Excel lacks it. */
   readonly onNotice?: (message: string) => void;
 }
@@ -35,11 +37,13 @@ export interface ExcelWorkbookOptions {
  */
 export class ExcelWorkbook implements WorkbookPort {
   readonly #budgetBytes: number | undefined;
+  readonly #readBlockCells: number | undefined;
   readonly #notice: (message: string) => void;
 
   /** @param options - chunk threshold and the notice callback */
   constructor(options: ExcelWorkbookOptions = {}) {
     this.#budgetBytes = options.budgetBytes;
+    this.#readBlockCells = options.readBlockCells;
     this.#notice = options.onNotice ?? (() => undefined);
   }
 
@@ -61,10 +65,10 @@ export class ExcelWorkbook implements WorkbookPort {
   /** The used range of `name` (values only), or `undefined` when no such sheet exists. */
   async readSheet(name: string): Promise<SheetRead | undefined> {
     return this.#run(`read the sheet "${name}"`, async (context) => {
-      const used = await readUsedRange(context, name, "isNullObject, values, rowIndex, columnIndex");
+      const used = await readUsedRange(context, name, "isNullObject, rowIndex, columnIndex, rowCount, columnCount");
       if (used === undefined) return undefined;
       if (used.isNullObject) return { sheet: name, row: 0, col: 0, values: [] };
-      const read: SheetRead = { sheet: name, row: used.rowIndex, col: used.columnIndex, values: used.values };
+      const read = await readValues(context, name, used, this.#readBlockCells);
       const merges = this.capabilities().merges ? await readMerges(context, used) : [];
       return merges.length > 0 ? { ...read, merges } : read;
     });
@@ -302,7 +306,9 @@ export class ExcelWorkbook implements WorkbookPort {
    */
   async readSelection(): Promise<SelectionRead> {
     const caps = this.capabilities();
-    return this.#run("read the selection (select one block of cells)", (context) => readSelectionIn(context, caps.tables));
+    return this.#run("read the selection (select one block of cells)", (context) =>
+      readSelectionIn(context, caps.tables, this.#readBlockCells),
+    );
   }
 
   /**

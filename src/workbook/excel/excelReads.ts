@@ -1,3 +1,4 @@
+import { cellAddress } from "../../sheets/cellAddress.js";
 import type { CellBlock, SheetRead } from "../../sheets/grid.js";
 import { isItemNotFound } from "./OfficeActionError.js";
 import { blockContains } from "./rangeAddress.js";
@@ -25,42 +26,85 @@ export async function readUsedRange(context: Excel.RequestContext, name: string,
 }
 
 /**
+ * Cells read per request. Excel on the web caps a response at 5 MB (OFFICE-NOTES.md, "Resource
+ * limits"); at 50 000 cells a block stays under it while cells average under 100 bytes of JSON
+ * (a stops table's numbers, times and names do).
+ */
+export const READ_BLOCK_CELLS = 50_000;
+
+/** What a values read needs to know first: where the block is and how big. */
+const BLOCK_PROPS = "rowIndex, columnIndex, rowCount, columnCount";
+
+/**
+ * The values of a loaded range (`BLOCK_PROPS` loaded): in one more sync when it has at most
+ * `READ_BLOCK_CELLS` cells, otherwise in row blocks of that many cells, one sync each, through
+ * `worksheets.getItem(sheet).getRange(A1 block)` (ExcelApi 1.1).
+ */
+export async function readValues(
+  context: Excel.RequestContext,
+  sheet: string,
+  range: Excel.Range,
+  blockCells: number = READ_BLOCK_CELLS,
+): Promise<SheetRead> {
+  const { rowIndex: row, columnIndex: col, rowCount: rows, columnCount: cols } = range;
+  if (!(rows * cols > blockCells)) {
+    range.load("values");
+    await context.sync();
+    return { sheet, row, col, values: range.values };
+  }
+  const perBlock = Math.max(1, Math.floor(blockCells / Math.max(1, cols)));
+  const values: unknown[][] = [];
+  for (let r = 0; r < rows; r += perBlock) {
+    const n = Math.min(perBlock, rows - r);
+    const block = context.workbook.worksheets
+      .getItem(sheet)
+      .getRange(`${cellAddress(row + r, col)}:${cellAddress(row + r + n - 1, col + cols - 1)}`);
+    block.load("values");
+    await context.sync();
+    values.push(...(block.values as unknown[][]));
+  }
+  return { sheet, row, col, values };
+}
+
+/**
  * Reads the selected block clipped to the used range, or the whole Excel table it lies
  * inside when `tables` (ExcelApi 1.9) is true. Two syncs only when a table is involved.
  */
-export async function readSelectionIn(context: Excel.RequestContext, tables: boolean): Promise<SelectionRead> {
+export async function readSelectionIn(
+  context: Excel.RequestContext,
+  tables: boolean,
+  blockCells: number = READ_BLOCK_CELLS,
+): Promise<SelectionRead> {
   const range = context.workbook.getSelectedRange();
   range.load("address, rowIndex, columnIndex");
   const sheet = range.worksheet;
   sheet.load("name");
   const filled = range.getIntersectionOrNullObject(sheet.getUsedRange(true));
-  filled.load("isNullObject, address, values, rowIndex, columnIndex");
+  filled.load(`isNullObject, address, ${BLOCK_PROPS}`);
   const found = tables ? range.getTables(false) : undefined;
   found?.load("items/name");
   await context.sync();
-  const selection: SelectionRead = filled.isNullObject
-    ? { read: { sheet: sheet.name, row: range.rowIndex, col: range.columnIndex, values: [] }, address: range.address }
-    : { read: toRead(sheet.name, filled), address: filled.address };
   const table = found?.items[0];
-  if (table) {
-    const whole = table.getRange();
-    whole.load("address, values, rowIndex, columnIndex");
-    await context.sync();
-    const tableRead = toRead(sheet.name, whole);
-    if (selection.read.values.length > 0 && blockContains(blockOf(tableRead), blockOf(selection.read))) {
-      return { read: tableRead, address: whole.address, tableName: table.name };
-    }
+  const whole = table?.getRange();
+  whole?.load(`address, ${BLOCK_PROPS}`);
+  if (whole) await context.sync();
+  if (filled.isNullObject) {
+    return { read: { sheet: sheet.name, row: range.rowIndex, col: range.columnIndex, values: [] }, address: range.address };
   }
-  return selection;
+  const selected = { row: filled.rowIndex, col: filled.columnIndex, rows: filled.rowCount, cols: filled.columnCount };
+  if (
+    table &&
+    whole &&
+    blockContains({ row: whole.rowIndex, col: whole.columnIndex, rows: whole.rowCount, cols: whole.columnCount }, selected)
+  ) {
+    return { read: await readValues(context, sheet.name, whole, blockCells), address: whole.address, tableName: table.name };
+  }
+  return { read: await readValues(context, sheet.name, filled, blockCells), address: filled.address };
 }
 
 /** A loaded range (values, rowIndex, columnIndex) as a `SheetRead`. */
 export function toRead(sheet: string, range: Excel.Range): SheetRead {
   return { sheet, row: range.rowIndex, col: range.columnIndex, values: range.values };
-}
-
-function blockOf(read: SheetRead): { row: number; col: number; rows: number; cols: number } {
-  return { row: read.row, col: read.col, rows: read.values.length, cols: read.values[0]?.length ?? 0 };
 }
 
 /**
