@@ -37,7 +37,15 @@ async function exists(path: string): Promise<boolean> {
   }
 }
 
-async function canonical(path: string): Promise<string> {
+/**
+ * A path with symbolic links resolved when it exists, else made absolute: two names compare
+ * equal when they reach the same file.
+ *
+ * @param path - any path
+ * @returns the canonical absolute path
+ * @example await canonical("./week.xlsx") // => "/data/week.xlsx"
+ */
+export async function canonical(path: string): Promise<string> {
   try {
     return await realpath(path);
   } catch {

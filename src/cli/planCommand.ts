@@ -7,13 +7,15 @@ import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
 import { type ChainOptions, MAX_WORKERS, parseWorkers, runChains } from "./chains.js";
 import type { CliIO } from "./CliIO.js";
 import { formatIssue } from "./formatIssue.js";
+import { type NavigationFileOptions, checkNavigationTargets, writeNavigationFiles } from "./navigationFiles.js";
 import { outputPath } from "./outputPath.js";
 import { prepareRun } from "./prepareRun.js";
 import { progressBar } from "./progressBar.js";
 import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptions.js";
 
 /** The options of `kiln plan` besides the plan settings. */
-export type PlanOptions = InputSheetOptions & { scenario: string; out?: string; softWindows?: boolean; workers?: string };
+export type PlanOptions = InputSheetOptions &
+  NavigationFileOptions & { scenario: string; out?: string; softWindows?: boolean; workers?: string };
 
 /** Declare `kiln plan` (alias `solve`, its name before 0.2) on the program. */
 export function declarePlan(program: Command, io: CliIO, exit: (code: number) => void): Command {
@@ -24,6 +26,7 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
     .description(
       "Plan routes and write a new workbook: every original sheet, a new plan sheet and the Compare sheet.\n" +
         "OUT defaults to WORKBOOK.plan.xlsx beside the input (then .plan-2, ...); the input is never overwritten.\n" +
+        "--gpx, --geojson and --csv also write navigation files (none of them when the input has errors).\n" +
         "Exit 0 ok, 2 input errors, 1 anything else.",
     )
     .argument("<WORKBOOK.xlsx>", "the workbook with the Stops and Fleet sheets")
@@ -33,6 +36,15 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
       "--workers <N>",
       `independent annealing chains run at once on worker threads, 1 to ${MAX_WORKERS} (default 1); each gets the whole budget ` +
         "and the best plan is kept; the same seed, --moves and N give the same plan",
+    )
+    .option(
+      "--gpx <FILE.gpx>",
+      "also write the routes as GPX 1.1 for navigation devices and apps: one route per vehicle, depot first and last",
+    )
+    .option("--geojson <FILE.geojson>", "also write the routes and stops as GeoJSON (RFC 7946) for map tools")
+    .option(
+      "--csv <DIR>",
+      "also write one CSV file (RFC 4180) per vehicle into DIR (created when missing), for a driver app or a mail merge",
     );
   addRunOptions(cmd);
   cmd.action(async (workbook: string, opts: PlanOptions) => {
@@ -47,7 +59,8 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
  * Compare row into a new file.
  *
  * @param workbook - the WORKBOOK.xlsx argument
- * @param opts - sheet options, `--scenario`, `--out`, `--soft-windows`, `--workers`
+ * @param opts - sheet options, `--scenario`, `--out`, `--soft-windows`, `--workers`,
+ *   `--gpx`, `--geojson`, `--csv` (written after the workbook; none of them on an input error)
  * @param settings - the setting options given, by flag
  * @param io - output streams and clock
  * @returns exit code: 0 ok, 2 input errors (one line each on stderr)
@@ -62,6 +75,8 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
   const { book, read, inputPath } = prepared;
   const out = await outputPath(inputPath, opts.out);
   if ("error" in out) return reportErrors(io, [out.error]);
+  const targetErrors = await checkNavigationTargets(opts, inputPath, out.path);
+  if (targetErrors.length > 0) return reportErrors(io, targetErrors);
   for (const w of read.warnings) io.stderr(`warning: ${formatIssue(w)}\n`);
   if (prepared.notKept.length > 0) {
     io.stderr(
@@ -118,10 +133,16 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
   await writeFile(out.path, await book.toBuffer(), { flag: out.explicit ? "w" : "wx" });
 
   const plan = result.plan;
+  const files = await writeNavigationFiles(
+    opts,
+    { problem: read.problem, plan, stopRows: read.stopRows, extraHeaders: read.extraHeaders, scenario: sheetName },
+    inputPath,
+  );
   const t = plan.totals;
   const lines = [
     prepared.usedText,
     `Wrote sheet "${sheetName}" and a Compare row to ${out.path}`,
+    ...files,
     `Vehicles used: ${t.vehiclesUsed} of ${read.problem.vehicles.length}`,
     `Distance: ${t.distanceKm.toFixed(1)} km${matrixSource !== undefined ? ` (road distances from ${matrixSource})` : ""}`,
     `Cost: ${t.cost.toFixed(2)}`,
