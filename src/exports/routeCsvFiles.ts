@@ -5,6 +5,7 @@ import type { CellValue } from "../sheets/grid.js";
 import { roundTo } from "../sheets/numberFormats.js";
 import type { StopRow } from "../sheets/ReadResult.js";
 import { UTF8_BOM, csvText } from "./csvText.js";
+import { safeFileStem } from "./safeFileStem.js";
 
 /** What the per-vehicle CSV files are written from. */
 export interface RouteCsvInput {
@@ -32,9 +33,8 @@ export interface CsvFile {
  * texts ("09:12", "+1d" past midnight). Files start with a UTF-8 byte order mark so Excel reads
  * accents right (common practice); user text is never changed (see `csvText`).
  *
- * File names are the vehicle id with every character other than letters, digits, space, `.`,
- * `_` and `-` replaced by `_`, trimmed to 60 characters, made unique ignoring case ("Van 1.csv",
- * "Van 1-2.csv"), and never a name Windows reserves (CON, NUL, COM1, ...).
+ * File names are the vehicle id made safe by `safeFileStem` and unique ignoring case ("Van 1.csv",
+ * "Van 1-2.csv").
  *
  * @param input - problem, plan, stop rows and carried headers
  * @returns one file per used vehicle, in plan order
@@ -110,15 +110,8 @@ function rowsOf(route: DriverRoute, dimCount: number, collects: boolean, extraHe
   ];
 }
 
-const WINDOWS_RESERVED = /^(con|prn|aux|nul|com[0-9]|lpt[0-9])$/i;
-
 function uniqueFileName(vehicleId: string, taken: Set<string>): string {
-  let base = vehicleId
-    .replace(/[^\p{L}\p{N} ._-]/gu, "_")
-    .slice(0, 60)
-    .trim()
-    .replace(/^\.+|\.+$/g, "");
-  if (base === "" || WINDOWS_RESERVED.test(base)) base = `vehicle_${base}`;
+  const base = safeFileStem(vehicleId, "vehicle");
   let name = base;
   for (let n = 2; taken.has(name.toLowerCase()); n++) name = `${base}-${n}`;
   taken.add(name.toLowerCase());

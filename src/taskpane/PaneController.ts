@@ -13,6 +13,7 @@ import { CoolingPreview } from "./CoolingPreview.js";
 import { createGuard } from "./guardHandler.js";
 import { MapBackgroundControl } from "./MapBackgroundControl.js";
 import type { PaneSource, PickedTable } from "./PaneSource.js";
+import { NavigationDownloads } from "./navigationDownloads.js";
 import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
 import { renderResult } from "./renderResult.js";
 import { renderPickedTables } from "./renderTableSummary.js";
@@ -39,6 +40,7 @@ export class PaneController {
     text: this.dom.mapText,
   });
   private readonly mapBackground = new MapBackgroundControl(this.dom, this.map, () => this.source.port);
+  private readonly downloads = new NavigationDownloads(this.dom.downloadGpx, this.dom.downloadGeoJson);
   protected stops: PickedTable | undefined;
   protected fleet: PickedTable | undefined;
   private read: ReadResult | undefined;
@@ -109,6 +111,7 @@ export class PaneController {
     this.read = undefined;
     this.last = undefined;
     this.dom.result.hidden = true;
+    this.downloads.clear();
     await this.mapBackground.load();
     await this.suggestScenarioName();
   }
@@ -219,6 +222,10 @@ export class PaneController {
     d.download.hidden = true;
     renderResult(d, last.read.problem, last.result, stopped);
     this.guard("Drawing the map", () => this.map.draw(last.read.problem, last.result.plan))();
+    const { problem, stopRows, extraHeaders } = last.read;
+    this.guard("Preparing the GPX and GeoJSON files", () =>
+      this.downloads.show({ problem, plan: last.result.plan, stopRows, extraHeaders, scenario: last.scenario }),
+    )();
   }
 
   /** Write the last result as a new scenario sheet plus its Compare row; the file page then offers the download. */

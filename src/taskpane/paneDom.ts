@@ -72,6 +72,8 @@ export function paneDom() {
     write: $<HTMLButtonElement>("write"),
     download: $<HTMLAnchorElement>("download"),
     writeStatus: $("write-status"),
+    downloadGpx: $<HTMLAnchorElement>("download-gpx"),
+    downloadGeoJson: $<HTMLAnchorElement>("download-geojson"),
     rerunSheet: $<HTMLSelectElement>("rerun-sheet"),
     rerun: $<HTMLButtonElement>("rerun"),
     rerunStatus: $("rerun-status"),
