@@ -12,7 +12,11 @@ import type { Server } from "node:http";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
+import { check } from "@placemarkio/check-geojson";
+import { gpx } from "@tmcw/togeojson";
+import { DOMParser } from "@xmldom/xmldom";
 import ExcelJS from "exceljs";
+import { XMLValidator } from "fast-xml-parser";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
@@ -281,6 +285,62 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       const plan = await sheetValues(out, "Plan 1");
       expect(plan.flat().some((v) => typeof v === "string" && /estimates/i.test(v))).toBe(true);
       expect(outside).toEqual([]);
+    } finally {
+      input.cleanup();
+    }
+  }, 600_000);
+
+  it("offers the GPX and GeoJSON of a run for download: GPX read back by @tmcw/togeojson, GeoJSON by @placemarkio/check-geojson, the same routes in both, every stop once", async () => {
+    const input = await inputWorkbook();
+    try {
+      await page.goto(`${baseUrl}/taskpane.html`);
+      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+      await page.setInputFiles("#file-input", input.path);
+      await page.fill("#seconds", "1");
+      await page.locator("#seconds").dispatchEvent("change");
+      await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+      await expect(page.locator("#download-gpx").isHidden()).resolves.toBe(true);
+      await page.click("#optimize");
+      await page.waitForSelector("#download-gpx:not([hidden])", { timeout: 120_000 });
+      const save = async (selector: string, name: string): Promise<{ file: string; text: string }> => {
+        const [download] = await Promise.all([page.waitForEvent("download"), page.click(selector)]);
+        const path = join(userDataDir, name);
+        await download.saveAs(path);
+        return { file: download.suggestedFilename(), text: readFileSync(path, "utf8") };
+      };
+      const gpxFile = await save("#download-gpx", "run.gpx");
+      const geoFile = await save("#download-geojson", "run.geojson");
+      expect(gpxFile.file).toMatch(/^Plan \d+\.gpx$/);
+      expect(geoFile.file).toMatch(/^Plan \d+\.geojson$/);
+      expect(XMLValidator.validate(gpxFile.text)).toBe(true); // XML 1.0 well-formed (fast-xml-parser)
+      const fromGpx = gpx(new DOMParser().parseFromString(gpxFile.text, "text/xml") as unknown as Document) as {
+        features: { properties: Record<string, unknown> | null; geometry: unknown }[];
+      }; // GPX 1.1 reader
+      const geo = check(geoFile.text); // RFC 7946 validator
+      type GeoFeature = { geometry: { type: string } | null; properties: Record<string, unknown> | null };
+      const lines = (geo.features as GeoFeature[]).filter((f) => f.geometry?.type === "LineString");
+      expect(fromGpx.features.length).toBeGreaterThan(0);
+      expect(fromGpx.features.map((f) => f.properties?.name)).toEqual(lines.map((f) => f.properties?.vehicle));
+      fromGpx.features.forEach((f, i) => {
+        const a = (f.geometry as unknown as { coordinates: number[][] }).coordinates;
+        const b = (lines[i]!.geometry as unknown as { coordinates: number[][] }).coordinates;
+        expect(a.length).toBe(b.length);
+        a.forEach((p, k) => {
+          expect(Math.abs(p[0]! - b[k]![0]!)).toBeLessThan(1e-6);
+          expect(Math.abs(p[1]! - b[k]![1]!)).toBeLessThan(1e-6);
+        });
+      });
+      // Every stop of the workbook once: served (a "stop" Point) or left out (an "unplanned" Point).
+      const book = new ExcelJS.Workbook();
+      await book.xlsx.readFile(input.path);
+      const stopIds = (await sheetValues(book, "Stops"))
+        .slice(1)
+        .filter((r) => r && r[0] !== undefined && r[0] !== null && r[0] !== "")
+        .map((r) => String(r[0]));
+      const inFile = geo.features
+        .filter((f: { properties: Record<string, unknown> | null }) => f.properties?.kind === "stop" || f.properties?.kind === "unplanned")
+        .map((f: { properties: Record<string, unknown> | null }) => String(f.properties?.stop));
+      expect([...inFile].sort()).toEqual([...stopIds].sort());
     } finally {
       input.cleanup();
     }
