@@ -4,6 +4,7 @@ import { formatClock } from "../sheets/formatClock.js";
 import type { CellValue } from "../sheets/grid.js";
 import { roundTo } from "../sheets/numberFormats.js";
 import type { StopRow } from "../sheets/ReadResult.js";
+import { COLLECT_PREFIX, DROP_PREFIX, loadHeaders } from "../sheets/routeTableRows.js";
 import { UTF8_BOM, csvText } from "./csvText.js";
 import { safeFileStem } from "./safeFileStem.js";
 
@@ -27,7 +28,8 @@ export interface CsvFile {
 /**
  * One RFC 4180 CSV file per used vehicle with the rows a driver app or a mail merge needs:
  * Vehicle, Seq, Arrival, Departure, Window, Stop, Name, Address, `Drop <dimension>` per load
- * dimension, `Collect <dimension>` when any stop collects, Service min, Latitude, Longitude,
+ * dimension and `Collect <dimension>` when any stop collects (headers as the plan sheet's,
+ * `loadHeaders`), Service min, Latitude, Longitude,
  * then the stops' own columns. The first row is the start depot (Seq 0, the departure, the
  * shift as its window), the last the end depot (the return time as its arrival). Times are clock
  * texts ("09:12", "+1d" past midnight). Files start with a UTF-8 byte order mark so Excel reads
@@ -55,8 +57,8 @@ export function routeCsvFiles(input: RouteCsvInput): CsvFile[] {
     "Stop",
     "Name",
     "Address",
-    ...dims.map((d) => (d ? `Drop ${d}` : "Drop")),
-    ...(collects ? dims.map((d) => (d ? `Collect ${d}` : "Collect")) : []),
+    ...loadHeaders(DROP_PREFIX, dims),
+    ...(collects ? loadHeaders(COLLECT_PREFIX, dims) : []),
     "Service min",
     "Latitude",
     "Longitude",

@@ -5,6 +5,7 @@ import { formatClock } from "../sheets/formatClock.js";
 import type { CellValue } from "../sheets/grid.js";
 import { roundTo } from "../sheets/numberFormats.js";
 import type { StopRow } from "../sheets/ReadResult.js";
+import { COLLECT_PREFIX, DROP_PREFIX, LOAD_PREFIX, loadHeaders } from "../sheets/routeTableRows.js";
 
 /** A GeoJSON position, longitude first (RFC 7946 §3.1.1). */
 export type Position = readonly [lon: number, lat: number];
@@ -40,10 +41,11 @@ export interface GeoJsonInput {
  * A plan as a GeoJSON FeatureCollection (RFC 7946), positions as [longitude, latitude] in WGS 84:
  * - per used vehicle one LineString from its start depot through its stops to its end depot,
  *   with `kind` "route", `vehicle`, `stops`, `km`, `drivingMin`, `dutyMin`, `departure`,
- *   `return` and the load leaving the depot per dimension (`load kg`, ...);
+ *   `return`, `driver` when the fleet names one, and the load leaving the depot per dimension
+ *   (`Load kg`, ...; headers as the plan sheet's, `loadHeaders`);
  * - per served stop one Point with `kind` "stop", `seq`, `vehicle`, `stop` (its id), `name`,
- *   `address`, `arrival`, `window`, `serviceMin`, the quantity to drop per dimension (`drop kg`,
- *   ...), to collect when any stop collects (`collect kg`, ...), then the stop's own columns
+ *   `address`, `arrival`, `window`, `serviceMin`, the quantity to drop per dimension (`Drop kg`,
+ *   ...), to collect when any stop collects (`Collect kg`, ...), then the stop's own columns
  *   under their headers (a header equal to one of Kiln's keys gets " (stop column)" added);
  * - per depot used one Point with `kind` "depot", `name` and the `vehicles` leaving from it;
  * - per stop left out of the plan one Point with `kind` "unplanned", `stop`, `name`,
@@ -80,7 +82,8 @@ export function writeGeoJson(input: GeoJsonInput): FeatureCollection & { readonl
         dutyMin: Math.round(r.dutyMin),
         departure: formatClock(r.start.timeMin),
         return: formatClock(r.end.timeMin),
-        ...perDimension("load", dims, r.load),
+        ...(r.driver !== undefined ? { driver: r.driver } : {}),
+        ...perDimension(LOAD_PREFIX, dims, r.load),
       },
     });
   }
@@ -130,15 +133,16 @@ function stopFeature(s: DriverStop, vehicle: string, dims: readonly string[], co
     arrival: formatClock(s.arrivalMin),
     window: windowText(s.window),
     serviceMin: roundTo(s.serviceMin, 1),
-    ...perDimension("drop", dims, s.drop),
-    ...(collects ? perDimension("collect", dims, s.collect) : {}),
+    ...perDimension(DROP_PREFIX, dims, s.drop),
+    ...(collects ? perDimension(COLLECT_PREFIX, dims, s.collect) : {}),
   };
   return { type: "Feature", geometry: { type: "Point", coordinates: [s.lon, s.lat] }, properties: withColumns(own, s.extra, extraHeaders) };
 }
 
-function perDimension(word: string, dims: readonly string[], values: readonly number[]): Record<string, number> {
+/** One number per load dimension under the plan sheet's headers ("Drop kg"), rounded to 0.01. */
+function perDimension(prefix: string, dims: readonly string[], values: readonly number[]): Record<string, number> {
   const out: Record<string, number> = {};
-  dims.forEach((d, i) => (out[d ? `${word} ${d}` : word] = roundTo(values[i] ?? 0, 2)));
+  loadHeaders(prefix, dims).forEach((h, i) => (out[h] = roundTo(values[i] ?? 0, 2)));
   return out;
 }
 

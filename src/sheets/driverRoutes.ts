@@ -49,6 +49,8 @@ export interface DriverRoute {
   readonly vehicle: number;
   /** The vehicle's id (the user's text). */
   readonly vehicleId: string;
+  /** The fleet table's Driver cell, when it has one. */
+  readonly driver?: string;
   readonly start: DriverDepot;
   readonly end: DriverDepot;
   readonly shiftStartMin: number;
@@ -110,6 +112,7 @@ export function driverRoutes(problem: Problem, plan: Plan, stopRows: readonly St
       return {
         vehicle: route.vehicle,
         vehicleId: v.id,
+        ...(v.driver !== undefined ? { driver: v.driver } : {}),
         start: depot(problem, v.startLocation, route.departureMin),
         end: depot(problem, v.endLocation, route.returnMin),
         shiftStartMin: v.shiftStartMin,
@@ -141,7 +144,7 @@ export function windowText(window: TimeWindow | undefined): string {
 }
 
 /**
- * The route's totals in one line ("12 stops, 84.3 km, driving 2:05, duty 6:40").
+ * The route's driver and totals in one line ("Driver Ana: 12 stops, 84.3 km, driving 2:05, duty 6:40").
  *
  * @param route - a driver route
  * @returns the text
@@ -149,7 +152,7 @@ export function windowText(window: TimeWindow | undefined): string {
  */
 export function routeSummary(route: DriverRoute): string {
   const n = route.stops.length;
-  return `${n} stop${n === 1 ? "" : "s"}, ${route.distanceKm.toFixed(1)} km, driving ${hoursMinutes(route.drivingMin)}, duty ${hoursMinutes(route.dutyMin)}`;
+  return `${route.driver ? `Driver ${route.driver}: ` : ""}${n} stop${n === 1 ? "" : "s"}, ${route.distanceKm.toFixed(1)} km, driving ${hoursMinutes(route.drivingMin)}, duty ${hoursMinutes(route.dutyMin)}`;
 }
 
 function hoursMinutes(min: number): string {

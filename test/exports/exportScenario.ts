@@ -32,10 +32,10 @@ const STOPS = sheet("Stops", [
 ]);
 
 const FLEET = sheet("Fleet", [
-  ["Vehicle", "Capacity kg", "Capacity crates", "Start latitude", "Start longitude", "Shift start", "Shift end"],
-  ["Van 1", 300, 15, 48.8, 2.4, "07:00", "17:00"],
-  ["Van 2", 300, 15, 48.8, 2.4, "07:00", "17:00"],
-  ["Truck <West>", 300, 15, 48.81, 2.1, "07:30", "17:00"],
+  ["Vehicle", "Driver", "Capacity kg", "Capacity crates", "Start latitude", "Start longitude", "Shift start", "Shift end"],
+  ["Van 1", "Ana", 300, 15, 48.8, 2.4, "07:00", "17:00"],
+  ["Van 2", "", 300, 15, 48.8, 2.4, "07:00", "17:00"],
+  ["Truck <West>", "Bo", 300, 15, 48.81, 2.1, "07:30", "17:00"],
 ]);
 
 /** Read the invented tables and plan them (seeded, so every run of the tests sees the same plan). */

@@ -41,7 +41,8 @@ describe("writeGeoJson", () => {
       expect(f.properties.dutyMin).toBe(Math.round(route.dutyMin));
       expect(f.properties.departure).toBe(formatClock(route.departureMin));
       expect(f.properties.return).toBe(formatClock(route.returnMin));
-      expect([f.properties["load kg"], f.properties["load crates"]]).toEqual(route.load);
+      expect([f.properties["Load kg"], f.properties["Load crates"]]).toEqual(route.load);
+      expect(f.properties.driver).toBe(v.driver);
     });
     // The invented stops lie near Paris: longitude about 2.3, latitude about 48.8. Swapped order would show here.
     const first = lines[0]!.geometry.coordinates as readonly (readonly number[])[];
@@ -64,7 +65,7 @@ describe("writeGeoJson", () => {
         expect(p.properties.vehicle).toBe(vehicle);
         expect(p.properties.name).toBe(stop.name);
         expect(p.properties.arrival).toBe(formatClock(v.arrivalMin));
-        expect([p.properties["drop kg"], p.properties["drop crates"]]).toEqual(stop.demand);
+        expect([p.properties["Drop kg"], p.properties["Drop crates"]]).toEqual(stop.demand);
         const row = s.stopRows.find((r) => r.stop === v.stop)!;
         expect(p.properties.address).toBe(row.address ?? "");
         for (const h of s.extraHeaders) expect(p.properties[h]).toEqual(row.extra[h]);

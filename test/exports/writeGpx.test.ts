@@ -93,7 +93,12 @@ describe("writeGpx", () => {
       const route = used[i]!;
       const pts = Array.from(rte.getElementsByTagNameNS(GPX_NAMESPACE, "rtept"));
       const child = (el: XmlElement, tag: string) => el.getElementsByTagNameNS(GPX_NAMESPACE, tag)[0]?.textContent ?? undefined;
-      const depot = s.problem.locations[s.problem.vehicles[route.vehicle]!.startLocation]!;
+      const vehicle = s.problem.vehicles[route.vehicle]!;
+      const depot = s.problem.locations[vehicle.startLocation]!;
+      // The route's description names the driver when the fleet table has one (issue 8).
+      const routeDesc = rte.getElementsByTagNameNS(GPX_NAMESPACE, "desc")[0]!.textContent!;
+      if (vehicle.driver) expect(routeDesc).toMatch(new RegExp(`^Driver ${vehicle.driver}: ${route.visits.length} stops?`));
+      else expect(routeDesc).not.toMatch(/Driver/);
       expect(child(pts[0]!, "name")).toBe(depot.name);
       expect(child(pts[0]!, "desc")).toContain(formatClock(route.departureMin));
       expect(child(pts[pts.length - 1]!, "desc")).toContain(formatClock(route.returnMin));
