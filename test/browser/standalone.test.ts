@@ -316,7 +316,9 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       const fromGpx = gpx(new DOMParser().parseFromString(gpxFile.text, "text/xml") as unknown as Document) as {
         features: { properties: Record<string, unknown> | null; geometry: unknown }[];
       }; // GPX 1.1 reader
-      const geo = check(geoFile.text); // RFC 7946 validator
+      const geo = check(geoFile.text) as unknown as {
+        features: { geometry: { type: string } | null; properties: Record<string, unknown> | null }[];
+      }; // RFC 7946 validator
       type GeoFeature = { geometry: { type: string } | null; properties: Record<string, unknown> | null };
       const lines = (geo.features as GeoFeature[]).filter((f) => f.geometry?.type === "LineString");
       expect(fromGpx.features.length).toBeGreaterThan(0);

@@ -45,7 +45,7 @@ describe("kiln plan --gpx --geojson --csv", () => {
     const routes = gpx(new DOMParser().parseFromString(gpxText, "text/xml") as unknown as Document); // GPX 1.1 reader
     expect(routes.features.length).toBe(used);
 
-    const geo = check(await readFile(geoPath, "utf8")); // RFC 7946 validator
+    const geo = check(await readFile(geoPath, "utf8")) as unknown as { features: { geometry: { type: string } | null }[] }; // RFC 7946 validator
     expect(geo.features.filter((f: { geometry: { type: string } | null }) => f.geometry?.type === "LineString").length).toBe(used);
 
     const csvFiles = (await readdir(csvDir)).sort();
