@@ -51,5 +51,6 @@ export class ExcelPaneController extends PaneController {
   override init(): void {
     super.init();
     void this.suggestScenarioName().catch((err: unknown) => console.error("Could not list the sheets", err));
+    void this.loadWorkbookSettings().catch((err: unknown) => this.showError(`Reading the Settings sheet failed: ${String(err)}`));
   }
 }

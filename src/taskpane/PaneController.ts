@@ -5,6 +5,11 @@
  */
 import type { SolveResult } from "../core/index.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
+import { COLUMN_MAP_KEY, mergeColumnMaps, storedColumnMap, type ColumnMapEntry } from "../sheets/columnMap.js";
+import type { SheetRead } from "../sheets/grid.js";
+import type { TableKind } from "../sheets/matchHeaders.js";
+import { parseSettingsSheet } from "../sheets/parseSettingsSheet.js";
+import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "../sheets/PlanSettings.js";
 import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
@@ -47,6 +52,10 @@ export class PaneController {
   private last:
     { read: ReadResult & { ok: true }; result: SolveResult; scenario: string; runSeconds: number; written?: string } | undefined;
   private readToken = 0;
+  /** The workbook's Settings sheet, read when the workbook was opened; its values started the form. */
+  private settingsSheet: SheetRead | undefined;
+  /** Column mappings the user chose in this pane (remembered in the workbook). */
+  private columnMap: ColumnMapEntry[] = [];
 
   /** @param source - where the tables live (Excel or a file) */
   constructor(protected source: PaneSource) {}
@@ -114,6 +123,39 @@ export class PaneController {
     this.downloads.clear();
     await this.mapBackground.load();
     await this.suggestScenarioName();
+    await this.loadWorkbookSettings();
+  }
+
+  /**
+   * Start from what the workbook holds: the column mappings remembered by the pane and, when there
+   * is a sheet named Settings, its values in the form (and its other settings and column mappings
+   * for the run), saying so. What the user then changes in the form wins for the run.
+   */
+  protected async loadWorkbookSettings(): Promise<void> {
+    const port = this.source.port;
+    const d = this.dom;
+    this.columnMap = storedColumnMap((await port.readSettings())[COLUMN_MAP_KEY]);
+    const name = (await port.listSheets()).find((n) => n.toLowerCase() === "settings");
+    const read = name === undefined ? undefined : await port.readSheet(name);
+    this.settingsSheet = read;
+    if (!read) {
+      d.settingsSource.hidden = true;
+      d.settingsSource.textContent = "";
+      return;
+    }
+    const parsed = parseSettingsSheet(read);
+    const settings: PlanSettings = { ...PLAN_SETTINGS_DEFAULTS, ...parsed.settings };
+    writeForm(d, formFromSettings(settings, d.scenario.value, readForm(d)));
+    this.updateFormVisibility();
+    const extra = [
+      ...(parsed.settings.moves !== undefined ? [`move budget ${parsed.settings.moves}`] : []),
+      ...(parsed.settings.objective !== undefined ? [`objective ${parsed.settings.objective}`] : []),
+      ...(parsed.settings.columnMap?.length ? [`${parsed.settings.columnMap.length} column mapping(s)`] : []),
+    ];
+    d.settingsSource.textContent =
+      `Settings from sheet ${read.sheet}${extra.length ? ` (also ${extra.join(", ")})` : ""}. What you change here wins for the run and is recorded on the plan sheet.` +
+      (parsed.issues.length ? ` ${parsed.issues.length} row(s) of it could not be read; see the errors under Stops.` : "");
+    d.settingsSource.hidden = false;
   }
 
   /** Read both tables with the current settings, show what was recognised, sample for the preview. */
@@ -127,13 +169,48 @@ export class PaneController {
       this.setOptimizeEnabled();
       return;
     }
-    const read = readProblem({ stops: this.stops.read, fleet: this.fleet.read }, form.settings, { maxLocations: PANE_MAX_LOCATIONS });
+    const read = readProblem(
+      { stops: this.stops.read, fleet: this.fleet.read, ...(this.settingsSheet ? { settings: this.settingsSheet } : {}) },
+      this.overrides(form.settings),
+      { maxLocations: PANE_MAX_LOCATIONS },
+    );
     if (token !== this.readToken) return;
     this.read = read;
     const issues = read.ok ? read.warnings.map((w) => ({ ...w, warning: true })) : read.issues;
     this.renderTables({ stops: read.stopColumns, fleet: read.fleetColumns }, issues);
     this.setOptimizeEnabled();
     if (read.ok) await this.preview.sample(read, () => this.read === read);
+  }
+
+  /**
+   * What the pane sets over the Settings sheet: the fields the form shows (the sheet's values
+   * started them, so they differ only where the user changed one) and the pane's column mappings.
+   * Settings the form does not show (move budget, objective) stay as the sheet has them.
+   */
+  private overrides(form: PlanSettings): Partial<PlanSettings> {
+    const shown: Partial<PlanSettings> = this.settingsSheet
+      ? {
+          detourFactor: form.detourFactor,
+          speedKmh: form.speedKmh,
+          serviceMin: form.serviceMin,
+          hardWindows: form.hardWindows,
+          lateCostPerMin: form.lateCostPerMin,
+          rule: form.rule,
+          cooling: form.cooling,
+          p0: form.p0,
+          pEnd: form.pEnd,
+          seed: form.seed,
+          seconds: form.seconds,
+        }
+      : form;
+    return this.columnMap.length > 0 ? { ...shown, columnMap: this.columnMap } : shown;
+  }
+
+  /** The user mapped a column in the pane: remember it in the workbook and read the tables again. */
+  private async mapColumn(header: string, field: string): Promise<void> {
+    this.columnMap = mergeColumnMaps(this.columnMap, [{ header, field }]);
+    await this.source.port.writeSetting(COLUMN_MAP_KEY, JSON.stringify(this.columnMap));
+    await this.refreshRead();
   }
 
   private renderTables(
@@ -143,7 +220,8 @@ export class PaneController {
     const onCell = this.source.selectCell
       ? this.guard("Select cell", (sheet: string, cell: string) => this.source.selectCell?.(sheet, cell))
       : undefined;
-    renderPickedTables(this.dom, this.stops, this.fleet, columns, issues, onCell);
+    const onMap = this.guard("Map a column", (_kind: TableKind, header: string, field: string) => this.mapColumn(header, field));
+    renderPickedTables(this.dom, this.stops, this.fleet, columns, issues, onCell, onMap);
   }
 
   private settingsChanged(): void {

@@ -35,6 +35,7 @@ export function paneDom() {
     stopsIssues: $("stops-issues"),
     fleetIssues: $("fleet-issues"),
     scenario: $<HTMLInputElement>("scenario"),
+    settingsSource: $("settings-source"),
     formInputs,
     scheduleParams: [...document.querySelectorAll<HTMLElement>("#cooling-section [data-for]")],
     temperatureParams: [...document.querySelectorAll<HTMLElement>("#cooling-section [data-temps]")],

@@ -8,6 +8,14 @@ import type { TableKind } from "../sheets/matchHeaders.js";
 import { readTable } from "../sheets/readTable.js";
 import type { PaneDom } from "./paneDom.js";
 import type { PickedTable } from "./PaneSource.js";
+import { FIELD_LABELS, fieldLabel } from "../sheets/fieldLabels.js";
+
+/** What the column controls of one table need: its kind and where a choice goes. */
+export interface ColumnMapping {
+  readonly kind: TableKind;
+  /** The user chose `field` (a field label, "carry" or "ignore") for the column headed `header`. */
+  readonly onMap: (header: string, field: string) => void;
+}
 
 /**
  * Show a table's summary and issues.
@@ -18,6 +26,7 @@ import type { PickedTable } from "./PaneSource.js";
  * @param columns - the columns the reader recognised
  * @param issues - the errors (and, with `warning: true`, notes) about this table
  * @param onCell - called with (sheet, cell) when an address is clicked; absent: addresses are plain text
+ * @param mapping - the table's kind and what to call when the user maps a column; absent: columns shown as text
  * @example renderTableSummary(summaryEl, listEl, { address: "Stops!A1:J81", rows: 80 }, cols, [], undefined)
  */
 export function renderTableSummary(
@@ -27,6 +36,7 @@ export function renderTableSummary(
   columns: readonly ColumnMatch[],
   issues: readonly (Issue & { readonly warning?: boolean })[],
   onCell: ((sheet: string, cell: string) => void) | undefined,
+  mapping?: ColumnMapping,
 ): void {
   summary.replaceChildren();
   list.replaceChildren();
@@ -39,18 +49,7 @@ export function renderTableSummary(
   address.textContent = table.address;
   head.append(address, ` · ${table.rows} data row${table.rows === 1 ? "" : "s"}`);
   summary.append(head);
-  if (columns.length > 0) {
-    const cols = document.createElement("div");
-    cols.className = "cols";
-    for (const c of columns) {
-      const chip = document.createElement("span");
-      chip.className = c.field === "extra" ? "col extra" : "col";
-      chip.title = c.field === "extra" ? `${c.header}: carried through to the plan` : `${c.header} → ${c.field}`;
-      chip.textContent = `${c.column}: ${c.header}`;
-      cols.append(chip);
-    }
-    summary.append(cols);
-  }
+  if (columns.length > 0) summary.append(columnControls(columns, mapping));
   for (const issue of issues) {
     const item = document.createElement("li");
     if (issue.warning) item.className = "warning";
@@ -88,6 +87,7 @@ export function renderTableSummary(
  * @param columns - the columns recognised in each table
  * @param issues - every error and warning of the read
  * @param onCell - called with (sheet, cell) when an address is clicked
+ * @param onMap - called when the user maps a column of a table to a field, carry or ignore
  */
 export function renderPickedTables(
   d: PaneDom,
@@ -96,6 +96,7 @@ export function renderPickedTables(
   columns: { readonly stops: readonly ColumnMatch[]; readonly fleet: readonly ColumnMatch[] },
   issues: readonly (Issue & { readonly warning?: boolean })[],
   onCell: ((sheet: string, cell: string) => void) | undefined,
+  onMap?: (kind: TableKind, header: string, field: string) => void,
 ): void {
   const stopsSheet = stops?.read.sheet;
   const fleetSheet = fleet?.read.sheet;
@@ -104,6 +105,57 @@ export function renderPickedTables(
   // Data rows as the reader counts them: below the header row, blank rows and title rows left out.
   const rows = (t: PickedTable | undefined, kind: TableKind) =>
     t && { address: t.address, rows: readTable(t.read, kind).table?.rows.length ?? 0 };
-  renderTableSummary(d.stopsSummary, d.stopsIssues, rows(stops, "stops"), columns.stops, forStops, onCell);
-  renderTableSummary(d.fleetSummary, d.fleetIssues, rows(fleet, "fleet"), columns.fleet, forFleet, onCell);
+  const mapping = (kind: TableKind): ColumnMapping | undefined => onMap && { kind, onMap: (h, f) => onMap(kind, h, f) };
+  renderTableSummary(d.stopsSummary, d.stopsIssues, rows(stops, "stops"), columns.stops, forStops, onCell, mapping("stops"));
+  renderTableSummary(d.fleetSummary, d.fleetIssues, rows(fleet, "fleet"), columns.fleet, forFleet, onCell, mapping("fleet"));
+}
+
+/**
+ * One line per column: its letter and header, what it is used as, and (with `mapping`) a select
+ * to change that: any field of the table, carried through to the plan (stops), or not used.
+ */
+function columnControls(columns: readonly ColumnMatch[], mapping: ColumnMapping | undefined): HTMLElement {
+  const box = document.createElement("div");
+  box.className = "cols";
+  for (const c of columns) {
+    const line = document.createElement("div");
+    const state = c.field === "ignored" ? "ignored" : c.field === "extra" ? "extra" : "used";
+    line.className = `col ${state}`;
+    line.dataset.column = c.column;
+    line.dataset.field = c.field;
+    const name = document.createElement("span");
+    name.className = "col-name";
+    name.textContent = `${c.column}: ${c.header}`;
+    line.append(name);
+    const kind = mapping?.kind ?? "stops";
+    const carried = kind === "stops" ? "carried through to the plan" : "not used";
+    const now = state === "used" ? `used as ${fieldLabel(kind, c.field)}` : state === "extra" ? carried : "ignored";
+    if (!mapping) {
+      name.title = now;
+      line.append(` · ${now}`);
+      box.append(line);
+      continue;
+    }
+    const select = document.createElement("select");
+    select.setAttribute("aria-label", `Column ${c.column} "${c.header}"`);
+    const options: [string, string][] = Object.values(FIELD_LABELS[kind]).map((label) => [label, `used as ${label}`]);
+    if (state === "used" && !options.some(([v]) => v === fieldLabel(kind, c.field))) {
+      const label = fieldLabel(kind, c.field);
+      options.unshift([label, `used as ${label}`]);
+    }
+    if (kind === "stops") options.push(["carry", "carried through to the plan"]);
+    options.push(["ignore", kind === "stops" ? "ignored (left out)" : "not used"]);
+    select.replaceChildren(...options.map(([value, text]) => new Option(text, value)));
+    select.value = state === "used" ? fieldLabel(kind, c.field) : state === "extra" && kind === "stops" ? "carry" : "ignore";
+    select.addEventListener("change", () => mapping.onMap(c.header, select.value));
+    line.append(select);
+    if (c.mapped) {
+      const mine = document.createElement("span");
+      mine.className = "muted";
+      mine.textContent = " (your choice)";
+      line.append(mine);
+    }
+    box.append(line);
+  }
+  return box;
 }

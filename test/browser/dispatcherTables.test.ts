@@ -1,0 +1,226 @@
+/**
+ * A dispatcher's own workbook in the standalone page (Debian's Chromium through playwright-core,
+ * never a downloaded one): a title row and merged group headers above the header, sheets not named
+ * Stops or Fleet, a "Drop time" column, a column the user maps in the pane, and the workbook's
+ * Settings sheet starting the form. The same file plans the same in the page and in the CLI.
+ * Skips with a printed reason when Chromium is absent, fails under CI.
+ */
+import { execFileSync } from "node:child_process";
+import { existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { readFile } from "node:fs/promises";
+import type { Server } from "node:http";
+import { tmpdir } from "node:os";
+import { join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { serveStatic } from "../../scripts/serveStatic.js";
+import { main } from "../../src/cli/main.js";
+import { COLUMN_MAP_KEY } from "../../src/sheets/columnMap.js";
+import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
+import { DISPATCHER_STOPS, dispatcherWorkbook, type DispatcherWorkbookOptions } from "../fixtures/dispatcherWorkbook.js";
+import { captureIO, loadWithExcelJs, sheetValues } from "../workbook/harness.js";
+
+const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
+const DIST = join(ROOT, "dist");
+const CHROMIUM = existsSync("/usr/bin/chromium") ? "/usr/bin/chromium" : undefined;
+if (!CHROMIUM) {
+  if (process.env.CI) throw new Error("Chromium is required under CI: install Debian's chromium package (/usr/bin/chromium).");
+  console.warn("Skipping the dispatcher-workbook browser test: /usr/bin/chromium is missing.");
+}
+
+function newest(dir: string): number {
+  let t = 0;
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    const p = join(dir, entry.name);
+    t = Math.max(t, entry.isDirectory() ? newest(p) : statSync(p).mtimeMs);
+  }
+  return t;
+}
+
+/** Build the page when the sources are newer than dist/ (the same rule as the standalone test). */
+function ensureBuild(): void {
+  const built = join(DIST, "taskpane.html");
+  const sources = Math.max(newest(join(ROOT, "src")), statSync(join(ROOT, "webpack.config.js")).mtimeMs);
+  if (existsSync(built) && statSync(built).mtimeMs >= sources) return;
+  execFileSync(process.execPath, [join(ROOT, "node_modules", "webpack", "bin", "webpack.js"), "--mode", "production"], {
+    cwd: ROOT,
+    stdio: "inherit",
+    timeout: 600_000,
+  });
+}
+
+/** The route table of a plan sheet, one record per row, keyed by header. */
+function routeRows(plan: unknown[][]): Record<string, unknown>[] {
+  const h = plan.findIndex((r) => r?.[0] === "Vehicle" && r[1] === "Seq");
+  const header = plan[h]!.map(String);
+  const rows: Record<string, unknown>[] = [];
+  for (const r of plan.slice(h + 1)) {
+    if (!r || r[0] === undefined || r[0] === null || r[0] === "") break;
+    rows.push(Object.fromEntries(header.map((k, i) => [k, r[i]])));
+  }
+  return rows;
+}
+
+/** Service minutes per stop of a plan: Departure - Start (time cells, read by exceljs as dates, in ms). */
+function serviceMinutes(plan: unknown[][]): [string, number][] {
+  return routeRows(plan)
+    .filter((r) => /^K\d+$/.test(String(r.Stop)))
+    .map((r) => [String(r.Stop), Math.round(((r.Departure as number) - (r.Start as number)) / 60000)] as [string, number])
+    .sort();
+}
+const DROP_TIMES = DISPATCHER_STOPS.map((s) => [s.ref, s.dropMin] as [string, number]).sort();
+
+describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () => {
+  let server: Server | undefined;
+  let baseUrl = "";
+  let context: BrowserContext | undefined;
+  let page: Page;
+  let dir = "";
+
+  beforeAll(async () => {
+    ensureBuild();
+    ({ server, url: baseUrl } = await serveStatic(DIST));
+    dir = mkdtempSync(join(tmpdir(), "kiln-dispatcher-"));
+    context = await chromium.launchPersistentContext(join(dir, "profile"), {
+      executablePath: CHROMIUM!,
+      headless: true,
+      args: [
+        "--no-sandbox",
+        "--disable-gpu",
+        "--no-first-run",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+      ],
+      viewport: { width: 360, height: 900 },
+      acceptDownloads: true,
+    });
+    page = context.pages()[0] ?? (await context.newPage());
+    page.on("pageerror", (err) => console.error("page error:", err.message));
+    // Nothing may leave the machine: only our own server, blobs and data URLs.
+    await page.route("**/*", (route) => {
+      const url = route.request().url();
+      if (url.startsWith(baseUrl) || url.startsWith("blob:") || url.startsWith("data:")) return route.continue();
+      return route.abort();
+    });
+  }, 600_000);
+
+  afterAll(async () => {
+    await context?.close();
+    await new Promise<void>((ok) => (server ? server.close(() => ok()) : ok()));
+    if (dir) rmSync(dir, { recursive: true, force: true });
+  });
+
+  /** Open a built workbook in a fresh page and wait until both tables are read. */
+  async function open(name: string, options: DispatcherWorkbookOptions): Promise<string> {
+    const path = join(dir, name);
+    writeFileSync(path, await dispatcherWorkbook(options));
+    await page.goto(`${baseUrl}/taskpane.html`);
+    await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+    await page.setInputFiles("#file-input", path);
+    await expect.poll(() => page.locator("#stops-summary").textContent(), { timeout: 30_000 }).toMatch(/10 data rows/);
+    return path;
+  }
+
+  /** Optimize, write, download; the downloaded file's path. */
+  async function planAndDownload(name: string): Promise<string> {
+    await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+    await page.click("#optimize");
+    await page.waitForSelector("#result-section:not([hidden])", { timeout: 300_000 });
+    await page.click("#write");
+    await page.waitForSelector("#download:not([hidden])", { timeout: 60_000 });
+    const [download] = await Promise.all([page.waitForEvent("download"), page.click("#download")]);
+    const saved = join(dir, name);
+    await download.saveAs(saved);
+    return saved;
+  }
+
+  it("finds the stops under a title row and merged group headers, starts the form from the Settings sheet, and plans as the CLI does", async () => {
+    // Seed and move budget from the sheet: a move budget makes the run reproducible (DESIGN.md §4).
+    const settings = [
+      ["Seed", 7],
+      ["Move budget", 4000],
+      ["Service time", 12],
+    ] as const;
+    const input = await open("round.xlsx", { settings });
+    await expect(page.locator("#stops-sheet").inputValue()).resolves.toBe("Thursday round");
+    await expect(page.locator("#fleet-sheet").inputValue()).resolves.toBe("Vans");
+    await expect(page.locator("#settings-source").textContent()).resolves.toMatch(
+      /^Settings from sheet Settings \(also move budget 4000\)/,
+    );
+    await expect(page.locator("#seed").inputValue()).resolves.toBe("7");
+    await expect(page.locator("#service").inputValue()).resolves.toBe("12");
+    await expect(page.locator("#stops-issues li").count()).resolves.toBe(0);
+    // The Drop time column is used as Service min, and says so beside the column.
+    await expect(page.locator('#stops-summary .col[data-column="F"] select').inputValue()).resolves.toBe("Service min");
+    const saved = await planAndDownload("round.page.xlsx");
+    const pagePlan = sheetValues(await loadWithExcelJs(await readFile(saved)), "Plan 1");
+    expect(serviceMinutes(pagePlan)).toEqual(DROP_TIMES);
+
+    const cliOut = join(dir, "round.cli.xlsx");
+    const cap = captureIO();
+    expect(await main(["plan", input, "--scenario", "Plan 1", "--out", cliOut], cap.io), cap.err()).toBe(0);
+    const cliPlan = sheetValues(await loadWithExcelJs(await readFile(cliOut)), "Plan 1");
+    // Same file, same settings, same seed and move budget: the same routes, stop by stop.
+    const routes = (plan: unknown[][]) => routeRows(plan).map((r) => [r.Vehicle, r.Seq, r.Stop, r.Start]);
+    expect(routes(pagePlan)).toEqual(routes(cliPlan));
+    expect(routes(pagePlan).length).toBeGreaterThan(DISPATCHER_STOPS.length);
+  }, 600_000);
+
+  it("warns about an unknown drop-time column, maps it with the column's select, remembers it in the workbook for the CLI too", async () => {
+    await open("handover.xlsx", { dropHeader: "Handover (mins)", settings: [["Move budget", 3000]] });
+    const warning = page.locator("#stops-issues li.warning", { hasText: "Handover (mins)" });
+    await expect(warning.textContent()).resolves.toContain(
+      'column "Handover (mins)" is not used; if it holds service minutes, map it to Service min.',
+    );
+    const select = page.locator('#stops-summary .col[data-column="F"] select');
+    await expect(select.inputValue()).resolves.toBe("carry");
+    await select.selectOption("Service min");
+    await expect.poll(() => page.locator('#stops-summary .col[data-column="F"]').getAttribute("data-field")).toBe("serviceMin");
+    await expect(page.locator("#stops-issues li", { hasText: "Handover (mins)" }).count()).resolves.toBe(0);
+    const saved = await planAndDownload("handover.page.xlsx");
+    const book = await loadWithExcelJs(await readFile(saved));
+    const plan = sheetValues(book, "Plan 1");
+    expect(serviceMinutes(plan)).toEqual(DROP_TIMES);
+    const labels = plan[2]!.map(String);
+    expect(plan[3]![labels.indexOf("Columns mapped")]).toBe("Handover (mins)=Service min");
+    const stored = await (await ExcelJsWorkbook.fromBuffer(await readFile(saved))).readSettings();
+    expect(JSON.parse(stored[COLUMN_MAP_KEY]!)).toEqual([{ header: "Handover (mins)", field: "Service min" }]);
+
+    // The CLI on the downloaded workbook uses the remembered mapping.
+    const cap = captureIO();
+    const out = join(dir, "handover.cli.xlsx");
+    expect(await main(["plan", saved, "--out", out], cap.io), cap.err()).toBe(0);
+    expect(serviceMinutes(sheetValues(await loadWithExcelJs(await readFile(out)), "Plan"))).toEqual(DROP_TIMES);
+  }, 600_000);
+
+  it("says why no stops sheet was taken and how to choose one", async () => {
+    const path = join(dir, "nostops.xlsx");
+    const book = ExcelJsWorkbook.fromGrids([
+      {
+        name: "Clients",
+        values: [
+          ["Ref", "Client", "Qty"],
+          ["K1", "Mill", 3],
+        ],
+      },
+      {
+        name: "Vans",
+        values: [
+          ["Vehicle", "Capacity"],
+          ["V1", 10],
+        ],
+      },
+    ]);
+    writeFileSync(path, await book.toBuffer());
+    await page.goto(`${baseUrl}/taskpane.html`);
+    await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+    await page.setInputFiles("#file-input", path);
+    await expect
+      .poll(() => page.locator("#stops-summary").textContent(), { timeout: 30_000 })
+      .toBe(
+        'no sheet named "Stops" and no sheet that looks like a stops table; sheets looked at: "Clients" (its header on row 1 (A1) has no Latitude and Longitude, Coordinates or Address column), "Vans" (taken as the fleet); choose the stops sheet in the list above.',
+      );
+  }, 120_000);
+});
