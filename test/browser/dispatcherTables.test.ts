@@ -5,13 +5,11 @@
  * Settings sheet starting the form. The same file plans the same in the page and in the CLI.
  * Skips with a printed reason when Chromium is absent, fails under CI.
  */
-import { execFileSync } from "node:child_process";
-import { existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { readFile } from "node:fs/promises";
 import type { Server } from "node:http";
 import { tmpdir } from "node:os";
-import { join, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
+import { join } from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
@@ -20,34 +18,12 @@ import { COLUMN_MAP_KEY } from "../../src/sheets/columnMap.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { DISPATCHER_STOPS, dispatcherWorkbook, type DispatcherWorkbookOptions } from "../fixtures/dispatcherWorkbook.js";
 import { captureIO, loadWithExcelJs, sheetValues } from "../workbook/harness.js";
+import { DIST, ensureBuild } from "./ensureBuild.js";
 
-const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
-const DIST = join(ROOT, "dist");
 const CHROMIUM = existsSync("/usr/bin/chromium") ? "/usr/bin/chromium" : undefined;
 if (!CHROMIUM) {
   if (process.env.CI) throw new Error("Chromium is required under CI: install Debian's chromium package (/usr/bin/chromium).");
   console.warn("Skipping the dispatcher-workbook browser test: /usr/bin/chromium is missing.");
-}
-
-function newest(dir: string): number {
-  let t = 0;
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
-    const p = join(dir, entry.name);
-    t = Math.max(t, entry.isDirectory() ? newest(p) : statSync(p).mtimeMs);
-  }
-  return t;
-}
-
-/** Build the page when the sources are newer than dist/ (the same rule as the standalone test). */
-function ensureBuild(): void {
-  const built = join(DIST, "taskpane.html");
-  const sources = Math.max(newest(join(ROOT, "src")), statSync(join(ROOT, "webpack.config.js")).mtimeMs);
-  if (existsSync(built) && statSync(built).mtimeMs >= sources) return;
-  execFileSync(process.execPath, [join(ROOT, "node_modules", "webpack", "bin", "webpack.js"), "--mode", "production"], {
-    cwd: ROOT,
-    stdio: "inherit",
-    timeout: 600_000,
-  });
 }
 
 /** The route table of a plan sheet, one record per row, keyed by header. */
@@ -79,7 +55,7 @@ describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () 
   let dir = "";
 
   beforeAll(async () => {
-    ensureBuild();
+    await ensureBuild();
     ({ server, url: baseUrl } = await serveStatic(DIST));
     dir = mkdtempSync(join(tmpdir(), "kiln-dispatcher-"));
     context = await chromium.launchPersistentContext(join(dir, "profile"), {

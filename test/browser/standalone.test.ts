@@ -7,7 +7,7 @@
  * fails under CI.
  */
 import { execFileSync } from "node:child_process";
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import type { Server } from "node:http";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
@@ -23,6 +23,7 @@ import { serveStatic } from "../../scripts/serveStatic.js";
 import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
 import { installFakeExcel } from "./fakeExcelHost.js";
 import { startTileServer } from "./tileServer.js";
+import { ensureBuild } from "./ensureBuild.js";
 import { OFFICE_JS_CDN } from "../../scripts/addinBuild.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
@@ -44,27 +45,6 @@ const CHROMIUM = findChromium();
 if (!CHROMIUM) {
   if (process.env.CI) throw new Error("Chromium is required under CI: install Debian's chromium package (/usr/bin/chromium).");
   console.warn("Skipping the browser test: no Chromium found (which chromium, /usr/bin/chromium).");
-}
-
-/** Newest modification time under `dir` (ms). */
-function newest(dir: string): number {
-  let t = 0;
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
-    const p = join(dir, entry.name);
-    t = Math.max(t, entry.isDirectory() ? newest(p) : statSync(p).mtimeMs);
-  }
-  return t;
-}
-
-function ensureBuild(): void {
-  const built = join(DIST, "taskpane.html");
-  const sources = Math.max(newest(join(ROOT, "src")), statSync(join(ROOT, "webpack.config.js")).mtimeMs);
-  if (existsSync(built) && statSync(built).mtimeMs >= sources) return;
-  execFileSync(process.execPath, [join(ROOT, "node_modules", "webpack", "bin", "webpack.js"), "--mode", "production"], {
-    cwd: ROOT,
-    stdio: "inherit",
-    timeout: 600_000,
-  });
 }
 
 /** The demo workbook, or (until the demo exists) a small one built here with invented rows. */
@@ -127,7 +107,7 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
   let userDataDir = "";
 
   beforeAll(async () => {
-    ensureBuild();
+    await ensureBuild();
     ({ server, url: baseUrl } = await serveStatic(DIST));
     userDataDir = mkdtempSync(join(tmpdir(), "kiln-chromium-"));
     context = await chromium.launchPersistentContext(userDataDir, {
