@@ -15,7 +15,7 @@ import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptio
 
 /** The options of `kiln plan` besides the plan settings. */
 export type PlanOptions = InputSheetOptions &
-  NavigationFileOptions & { scenario: string; out?: string; softWindows?: boolean; workers?: string };
+  NavigationFileOptions & { scenario: string; out?: string; softWindows?: boolean; workers?: string; sheetPerVehicle?: boolean };
 
 /** Declare `kiln plan` (alias `solve`, its name before 0.2) on the program. */
 export function declarePlan(program: Command, io: CliIO, exit: (code: number) => void): Command {
@@ -45,7 +45,8 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
     .option(
       "--csv <DIR>",
       "also write one CSV file (RFC 4180) per vehicle into DIR (created when missing), for a driver app or a mail merge",
-    );
+    )
+    .option("--sheet-per-vehicle", "write one route sheet per vehicle instead of one route sheet per scenario with a block per vehicle");
   addRunOptions(cmd);
   cmd.action(async (workbook: string, opts: PlanOptions) => {
     exit(await runPlan(workbook, opts, givenSettings(cmd), io));
@@ -55,11 +56,12 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
 
 /**
  * `kiln plan`: read the stops and fleet of a workbook (and a road-distance matrix when
- * `--matrix` names one), plan, and write the input sheets unchanged plus a plan sheet and the
- * Compare row into a new file.
+ * `--matrix` names one), plan, and write the input sheets unchanged plus a plan sheet, the
+ * driver route sheets (paper from the locale: LC_ALL, LC_PAPER, LANG) and the Compare row into
+ * a new file.
  *
  * @param workbook - the WORKBOOK.xlsx argument
- * @param opts - sheet options, `--scenario`, `--out`, `--soft-windows`, `--workers`,
+ * @param opts - sheet options, `--scenario`, `--out`, `--soft-windows`, `--workers`, `--sheet-per-vehicle`,
  *   `--gpx`, `--geojson`, `--csv` (written after the workbook; none of them on an input error)
  * @param settings - the setting options given, by flag
  * @param io - output streams and clock
@@ -119,7 +121,8 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
 
   const source = async (sheet: string): Promise<string> => sourceOf((await book.readSheet(sheet))!);
   const matrixSource = prepared.sheets.matrix !== undefined ? await source(prepared.sheets.matrix) : undefined;
-  const { sheetName } = await writeScenarioResult(book, {
+  const locale = process.env["LC_ALL"] || process.env["LC_PAPER"] || process.env["LANG"] || undefined;
+  const { sheetName, routeSheets } = await writeScenarioResult(book, {
     read,
     result,
     runSeconds,
@@ -128,6 +131,8 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
     stopsSource: await source(prepared.sheets.stops),
     fleetSource: await source(prepared.sheets.fleet),
     ...(matrixSource !== undefined ? { matrixSource } : {}),
+    sheetPerVehicle: opts.sheetPerVehicle === true,
+    ...(locale !== undefined ? { locale } : {}),
   });
   // An explicit --out may replace an existing file; the default path never does ("wx").
   await writeFile(out.path, await book.toBuffer(), { flag: out.explicit ? "w" : "wx" });
@@ -143,6 +148,7 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
     prepared.usedText,
     `Wrote sheet "${sheetName}" and a Compare row to ${out.path}`,
     ...files,
+    ...(routeSheets.length > 0 ? [`Route sheets for drivers: ${routeSheets.map((n) => `"${n}"`).join(", ")}`] : []),
     `Vehicles used: ${t.vehiclesUsed} of ${read.problem.vehicles.length}`,
     `Distance: ${t.distanceKm.toFixed(1)} km${matrixSource !== undefined ? ` (road distances from ${matrixSource})` : ""}`,
     `Cost: ${t.cost.toFixed(2)}`,

@@ -9,6 +9,7 @@ export const NUMBER_FORMATS = {
   timeOfDay: "hh:mm",
   duration: "[h]:mm",
   dateTime: "yyyy-mm-dd hh:mm",
+  date: "yyyy-mm-dd",
   km: "0.0",
   minutes: "0.0",
   money: "0.00",

@@ -76,3 +76,29 @@ export function checkPrintSetup(print: PrintSetup, rows: number): void {
     if (!inGrid(r) || r === 0) throw new RangeError(`print.rowBreaks must be rows 1..${rows - 1} of the grid, got ${r}`);
   }
 }
+
+/**
+ * Regions whose customary paper is US Letter; everywhere else prints on A4. From the Unicode
+ * CLDR supplemental data, `paperSize` (type "US-Letter": BZ CA CL CO CR GT MX NI PA PH PR SV
+ * US VE; from memory).
+ */
+const LETTER_REGIONS = new Set(["BZ", "CA", "CL", "CO", "CR", "GT", "MX", "NI", "PA", "PH", "PR", "SV", "US", "VE"]);
+
+/**
+ * The paper a locale prints on: Letter in the regions that use it, A4 elsewhere. Reads the
+ * region subtag of a BCP 47 tag ("en-US") or a POSIX locale ("en_US.UTF-8"); a tag without a
+ * region (or an unreadable one) gets A4, the ISO 216 size most of the world uses.
+ *
+ * @param locale - e.g. "en-US", "fr-CA", "de_DE.UTF-8", "en"
+ * @returns "Letter" or "A4"
+ * @example paperSizeForLocale("es-MX") // => "Letter"
+ * @example paperSizeForLocale("en-GB") // => "A4"
+ */
+export function paperSizeForLocale(locale: string | undefined): "A4" | "Letter" {
+  const tag = (locale ?? "").split(/[.@]/)[0]!.replace(/_/g, "-");
+  const region = tag
+    .split("-")
+    .slice(1)
+    .find((part) => /^([A-Za-z]{2}|\d{3})$/.test(part));
+  return region !== undefined && LETTER_REGIONS.has(region.toUpperCase()) ? "Letter" : "A4";
+}

@@ -324,9 +324,11 @@ export class PaneController {
         runSeconds: last.runSeconds,
         stopsSource: this.stops.address,
         fleetSource: this.fleet.address,
+        sheetPerVehicle: this.dom.sheetPerVehicle.checked,
       });
       last.written = out.sheetName;
-      this.dom.writeStatus.textContent = `Written to sheet "${out.sheetName}" and a row on the Compare sheet.`;
+      const routes = out.routeSheets.map((n) => `"${n}"`).join(", ");
+      this.dom.writeStatus.textContent = `Written to sheet "${out.sheetName}"${routes ? `, route sheets ${routes}` : ""} and a row on the Compare sheet.`;
       await this.suggestScenarioName();
       return out;
     } finally {

@@ -70,6 +70,7 @@ export function paneDom() {
     mapBackgroundStatus: $("map-background-status"),
     totals: $("totals"),
     violations: $("violations"),
+    sheetPerVehicle: $<HTMLInputElement>("sheet-per-vehicle"),
     write: $<HTMLButtonElement>("write"),
     download: $<HTMLAnchorElement>("download"),
     writeStatus: $("write-status"),

@@ -3,9 +3,11 @@ import { cellAddress, sheetRef } from "../sheets/cellAddress.js";
 import { excelSerialFromDate } from "../sheets/excelSerial.js";
 import { COMPARE_SHEET, layoutCompareHeader, layoutCompareRow } from "../sheets/layoutCompare.js";
 import { layoutPlan } from "../sheets/layoutPlan.js";
+import { layoutRouteSheets } from "../sheets/layoutRouteSheets.js";
 import type { PlanSettings, RunRecord } from "../sheets/PlanSettings.js";
 import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
+import { paperSizeForLocale } from "../sheets/printSetup.js";
 import { scenarioSettingsKey } from "../sheets/scenarioSettingsKey.js";
 import { uniqueSheetName } from "../sheets/uniqueSheetName.js";
 import type { SheetRead, WorkbookPort } from "./WorkbookPort.js";
@@ -33,6 +35,10 @@ export interface ScenarioOutput {
   readonly fleetSource: string;
   /** Where the road-distance matrix came from ("Km!A1:J11"), when one replaced great-circle distances. */
   readonly matrixSource?: string;
+  /** Write one route sheet per vehicle instead of one per scenario (CLI `--sheet-per-vehicle`, the pane's checkbox). */
+  readonly sheetPerVehicle?: boolean;
+  /** Locale whose paper the route sheets print on (BCP 47, "en-US"); the runtime's locale when absent. */
+  readonly locale?: string;
 }
 
 /**
@@ -71,20 +77,27 @@ export async function readScenarioInput(port: WorkbookPort, request: ScenarioReq
 
 /**
  * Second half of a scenario run: write the plan to a new, uniquely named scenario sheet (with
- * its route chart where the adapter can draw one), store the run record as JSON under
- * `scenarioSettingsKey(sheetName)` with the sheet's rename-proof id, and append a row to the
- * Compare sheet, all in one `WorkbookPort.writeRun`. Input sheets are not touched.
+ * its route chart where the adapter can draw one) and the driver route sheets
+ * (`layoutRouteSheets`: one per scenario, or one per vehicle; ready to print on the locale's
+ * paper), store the run record as JSON under `scenarioSettingsKey(sheetName)` with the plan
+ * sheet's rename-proof id, and append a row to the Compare sheet, all in one
+ * `WorkbookPort.writeRun`. Input sheets are not touched.
  *
  * @param port - the workbook
  * @param input - the read result, the solver's result and the run's bookkeeping
- * @returns the name of the sheet written
+ * @returns the names of the plan sheet and of the route sheets written
  * @throws TypeError when an argument is missing (a programming mistake)
- * @example const { sheetName } = await writeScenarioResult(book, { read, result, scenario: "Monday", ... }); // "Monday"
+ * @example const { sheetName, routeSheets } = await writeScenarioResult(book, { read, result, scenario: "Monday", ... });
+ * // sheetName "Monday", routeSheets ["Monday routes"]
  */
-export async function writeScenarioResult(port: WorkbookPort, input: ScenarioOutput): Promise<{ sheetName: string }> {
+export async function writeScenarioResult(
+  port: WorkbookPort,
+  input: ScenarioOutput,
+): Promise<{ sheetName: string; routeSheets: string[] }> {
   if (!port || !input?.read?.ok || !input.result)
     throw new TypeError("writeScenarioResult: port, input.read (ok) and input.result are required");
-  const sheetName = uniqueSheetName(input.scenario, await port.listSheets());
+  const existing = await port.listSheets();
+  const sheetName = uniqueSheetName(input.scenario, existing);
   const run: RunRecord = {
     scenario: sheetName,
     createdSerial: excelSerialFromDate(input.createdAt),
@@ -97,16 +110,29 @@ export async function writeScenarioResult(port: WorkbookPort, input: ScenarioOut
   };
   const { problem, stopRows, extraHeaders } = input.read;
   const layout = layoutPlan({ problem, plan: input.result.plan, run, stopRows, extraHeaders });
+  const routeSheets = layoutRouteSheets({
+    problem,
+    plan: input.result.plan,
+    run,
+    stopRows,
+    extraHeaders,
+    sheetPerVehicle: input.sheetPerVehicle === true,
+    paperSize: paperSizeForLocale(input.locale ?? Intl.DateTimeFormat().resolvedOptions().locale),
+    existingSheets: [...existing, sheetName],
+  });
   await keepRecordOfRenamedSheet(port, sheetName);
   await port.writeRun({
-    sheets: [{ name: sheetName, grid: layout.grid, ...(layout.chart ? { chart: layout.chart } : {}) }],
+    sheets: [
+      { name: sheetName, grid: layout.grid, ...(layout.chart ? { chart: layout.chart } : {}) },
+      ...routeSheets.map((r) => ({ name: r.name, grid: r.grid })),
+    ],
     record: (sheetId) => ({
       key: scenarioSettingsKey(sheetName),
       value: JSON.stringify(sheetId !== undefined ? { ...run, sheetId } : run),
     }),
     append: { name: COMPARE_SHEET, header: layoutCompareHeader(), rows: layoutCompareRow(run, input.result.plan) },
   });
-  return { sheetName };
+  return { sheetName, routeSheets: routeSheets.map((r) => r.name) };
 }
 
 /**

@@ -437,7 +437,7 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
     if (!read.ok) throw new Error(read.issues.map((i) => i.message).join("; "));
     const readSyncs = host().syncs();
     const result = solve(read.problem, { seed: 7, budget: { moves: 3000 } });
-    const { sheetName } = await writeScenarioResult(book, {
+    const { sheetName, routeSheets } = await writeScenarioResult(book, {
       read,
       result,
       scenario: "=Monday",
@@ -445,11 +445,13 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
       runSeconds: 1,
       stopsSource: "Stops!A1:N85",
       fleetSource: "Fleet!A1:O6",
+      locale: "en-GB",
     });
     // readSettings 1 (a record left under this name?), listSheets 1, then writeRun in one Excel.run: names 1,
-    // write 1, the sheet's id 1, Compare missing 1, create it with the record 1, closing sync 1, read-backs of the
-    // scenario text "=Monday" on the plan sheet and in the Compare row 2
-    expect(host().syncs() - readSyncs).toBe(10);
+    // write of both sheets 1, the plan sheet's id 1, Compare missing 1, create it with the record 1, closing
+    // sync 1, read-backs of the scenario text "=Monday" on the plan sheet, the route sheet and in the Compare
+    // row 3, the route sheet's print setup in its own sync 1
+    expect(host().syncs() - readSyncs).toBe(12);
     const planWrites = entries("values").filter((e) => e[1] === sheetName);
     expect(planWrites).toHaveLength(1); // one assignment of the whole grid
     const written = planWrites[0]![3] as unknown[][];
@@ -462,7 +464,8 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
     for (const cell of scenarioCells) expect(cell).toEqual({ v: "=Monday", f: "@" }); // raw text, kept by the '@' format
     const used = result.plan.routes.filter((r) => r.visits.length > 0).length;
     expect(entries("series.name").length + entries("series.add").length).toBe(used);
-    expect(entries("add").map((e) => e[1])).toEqual([sheetName, "Compare"]);
+    expect(entries("add").map((e) => e[1])).toEqual([sheetName, ...routeSheets, "Compare"]);
+    expect(host().notices).toEqual([]);
     expect(
       entries("values")
         .filter((e) => e[1] === "Compare")
@@ -473,5 +476,63 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
     expect(JSON.parse(value as string).scenario).toBe(sheetName);
     expect(JSON.parse(value as string).sheetId).toBe(`{id-${sheetName}}`);
     neverNotLoaded(read);
+  });
+});
+
+describe("route sheets through the adapter (office-addin-mock; PageLayout and horizontalPageBreaks of ExcelApi 1.9)", () => {
+  async function planned(excelApi: string) {
+    const demo = await ExcelJsWorkbook.fromBuffer(readFileSync(new URL("../../demo/kiln-demo.xlsx", import.meta.url)));
+    const sheets: Record<string, { values: unknown[][] }> = {};
+    for (const name of ["Stops", "Fleet"]) sheets[name] = { values: (await demo.readSheet(name))!.values.map((r) => [...r]) };
+    const book = install({ sheets, excelApi });
+    const read = await readScenarioInput(book, { stopsSheet: "Stops", fleetSheet: "Fleet" });
+    if (!read.ok) throw new Error(read.issues.map((i) => i.message).join("; "));
+    const result = solve(read.problem, { seed: 5, budget: { moves: 3000 } });
+    const out = await writeScenarioResult(book, {
+      read,
+      result,
+      scenario: "Tue",
+      createdAt: new Date(Date.UTC(2026, 0, 6, 4)),
+      runSeconds: 1,
+      stopsSource: "Stops!A1:N85",
+      fleetSource: "Fleet!A1:O6",
+      locale: "en-US",
+    });
+    return { read, result, out };
+  }
+
+  it("writes the route sheet in one assignment, every served stop once in plan order, then Letter, title rows, breaks, footer and fit to width", async () => {
+    const { read, result, out } = await planned("1.9");
+    const name = out.routeSheets[0]!;
+    expect(name).toBe("Tue routes");
+    const writes = entries("values").filter((e) => e[1] === name);
+    expect(writes).toHaveLength(1);
+    const grid = writes[0]![3] as unknown[][];
+    const header = grid[1] as string[];
+    const seq = header.indexOf("Seq");
+    const stopCol = header.indexOf("Stop");
+    const blockRows = grid.flatMap((r, i) => (r[0] === "Vehicle" ? [i] : []));
+    const served = grid
+      .filter((r) => typeof r[seq] === "number" && typeof r[stopCol] === "string" && r[stopCol] !== "Return")
+      .map((r) => r[stopCol]);
+    const used = result.plan.routes.filter((r) => r.visits.length > 0);
+    expect(served).toEqual(used.flatMap((r) => r.visits.map((v) => read.problem.stops[v.stop]!.id)));
+    expect(blockRows).toHaveLength(used.length);
+    expect(entries("paperSize")).toEqual([["paperSize", name, "Letter"]]);
+    expect(entries("printTitleRows")).toEqual([["printTitleRows", name, "$1:$2"]]);
+    // A break above each block but the first: horizontalPageBreaks.add on the block's first cell.
+    expect(entries("pageBreak")).toEqual(blockRows.slice(1).map((r) => ["pageBreak", name, `A${r + 1}`]));
+    expect(entries("zoom")).toEqual([["zoom", name, { horizontalFitToPages: 1, verticalFitToPages: 0 }]]);
+    expect(entries("leftFooter")).toEqual([["leftFooter", name, "Tue"]]);
+    expect(entries("rightFooter")).toEqual([["rightFooter", name, "Page &P of &N"]]);
+    expect(host().notices).toEqual([]);
+    neverNotLoaded(read);
+  });
+
+  it("below ExcelApi 1.9 still writes the route sheet and tells the pane its print settings need setting by hand", async () => {
+    const { out } = await planned("1.7");
+    expect(entries("values").filter((e) => e[1] === out.routeSheets[0])).toHaveLength(1);
+    expect(entries("pageBreak")).toEqual([]);
+    expect(host().notices.join(" ")).toMatch(/Print settings of "Tue routes".*ExcelApi 1\.9 or later.*Page Layout/);
   });
 });

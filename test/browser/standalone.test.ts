@@ -256,6 +256,9 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       const names = out.worksheets.map((w) => w.name);
       expect(names).toContain("Plan 1");
       expect(names).toContain("Plan 1 (2)");
+      // Every run also writes the driver route sheets, on the page as in the add-in and the CLI.
+      expect(names).toContain("Plan 1 routes");
+      expect(names).toContain("Plan 1 (2) routes");
       expect(names).toContain("Compare");
       for (const sheet of original.worksheets.map((w) => w.name)) {
         expect(await sheetValues(out, sheet)).toEqual(await sheetValues(original, sheet));

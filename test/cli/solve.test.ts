@@ -42,7 +42,32 @@ describe("kiln solve (in process)", () => {
     const input = await loadWithExcelJs(await readFile(path));
     const output = await loadWithExcelJs(await readFile(outPath));
     for (const ws of input.worksheets) expect(sheetValues(output, ws.name)).toEqual(sheetValues(input, ws.name));
-    expect(output.worksheets.map((w) => w.name)).toEqual([...input.worksheets.map((w) => w.name), "Dawn", COMPARE_SHEET, "kiln-settings"]);
+    expect(output.worksheets.map((w) => w.name)).toEqual([
+      ...input.worksheets.map((w) => w.name),
+      "Dawn",
+      "Dawn routes",
+      COMPARE_SHEET,
+      "kiln-settings",
+    ]);
+    expect(cap.out()).toContain('Route sheets for drivers: "Dawn routes"');
+  });
+
+  it("--sheet-per-vehicle writes one route sheet per van used, each holding that van's block alone", async () => {
+    const { dir, path } = await demoCopy();
+    const cap = captureIO();
+    const outPath = join(dir, "vans.xlsx");
+    expect(await runSolve([path, ...MOVES, "--scenario", "Dawn", "--sheet-per-vehicle", "--out", outPath], cap.io)).toBe(0);
+    const names = [...(/Route sheets for drivers: (.*)/.exec(cap.out())?.[1] ?? "").matchAll(/"([^"]+)"/g)].map((m) => m[1]!);
+    const book = await loadWithExcelJs(await readFile(outPath));
+    // The plan sheet's route table names each used van on its rows (column A below the header).
+    const plan = sheetValues(book, "Dawn");
+    const headerAt = plan.findIndex((r) => r?.[0] === "Vehicle" && r?.[1] === "Seq");
+    const vans = [...new Set(plan.slice(headerAt + 1).flatMap((r) => (r?.[1] === 0 ? [String(r[0])] : [])))];
+    expect(names).toEqual(vans.map((v) => `Dawn ${v}`));
+    for (const [i, name] of names.entries()) {
+      const blocks = sheetValues(book, name).filter((r) => r?.[0] === "Vehicle");
+      expect(blocks.map((r) => r[1])).toEqual([vans[i]]);
+    }
   });
 
   it("a second solve on the output appends a second Compare row and a uniquely named second scenario sheet", async () => {
