@@ -2,7 +2,7 @@ import type { BreakVisit, Plan, Problem, Route, TimeWindow } from "../core/index
 import { CAUTION_TEXT } from "./caution.js";
 import { columnWidths } from "./columnWidths.js";
 import { formatClock } from "./formatClock.js";
-import type { SheetGrid } from "./grid.js";
+import type { CellValue, SheetGrid } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
 import type { RunRecord } from "./PlanSettings.js";
 import type { PrintSetup } from "./printSetup.js";
@@ -65,8 +65,8 @@ export const ROUTE_TOTALS_LABELS = ["Stops", "Km", "Driving hours", "Duty hours"
  * planned on) and the column header `Seq | Arrival | Window | Stop | Name | [Address] | Drop
  * <unit>... | [Collect <unit>...] | Service min | <carried columns> | Done` (a box to tick on each
  * stop row). Each block, top to
- * bottom: Vehicle (and Driver when the fleet has one), Scenario and date, Depot, Leave time and
- * Shift end; one row per stop with the planned arrival, the window used (text "08:00-10:00"),
+ * bottom: Vehicle (and Driver when the fleet has one), Scenario and Date, Leave time, Shift end
+ * and Depot; one row per stop with the planned arrival, the window used (text "08:00-10:00"),
  * the quantity to drop per load dimension as numbers; a row per break (start in Arrival, the
  * break in Name); the return to the depot; the totals (stops, km, driving and duty time, load
  * leaving the depot per dimension); and the caution line. Text cells carry the user's text
@@ -131,6 +131,7 @@ function sheetOf(name: string, routes: readonly Route[], input: LayoutRouteSheet
   const rows: Cell[][] = [];
   const bold: number[] = [];
   const longRows: number[] = [];
+  const spill: [number, number][] = [];
   const blocks: { vehicle: string; row: number; rows: number }[] = [];
   const add = (row: Cell[], isBold = false): void => {
     if (isBold) bold.push(rows.length);
@@ -149,6 +150,7 @@ function sheetOf(name: string, routes: readonly Route[], input: LayoutRouteSheet
     const block = blockRows(route, input, columns);
     block.rows.forEach((row, i) => add(row, block.bold.includes(i)));
     for (const i of block.long) longRows.push(first + i);
+    for (const [r, c] of block.spill) spill.push([first + r, c]);
     blocks.push({ vehicle: vehicleOf(problem, route).id, row: first, rows: block.rows.length });
   }
   const width = Math.max(...rows.map((r) => r.length));
@@ -176,13 +178,24 @@ function sheetOf(name: string, routes: readonly Route[], input: LayoutRouteSheet
   };
   return {
     name,
-    grid: { values, numberFormats, columnWidths: columnWidths(values, numberFormats, longRows), freezeRows: 2, boldRows: bold, print },
+    grid: {
+      values,
+      numberFormats,
+      columnWidths: columnWidths(withoutSpill(values, spill), numberFormats, longRows),
+      freezeRows: 2,
+      boldRows: bold,
+      print,
+    },
     blocks,
   };
 }
 
 /** One vehicle's block: header rows, stop and break rows, the return, totals and the caution line. */
-function blockRows(route: Route, input: LayoutRouteSheetsInput, columns: Columns): { rows: Cell[][]; bold: number[]; long: number[] } {
+function blockRows(
+  route: Route,
+  input: LayoutRouteSheetsInput,
+  columns: Columns,
+): { rows: Cell[][]; bold: number[]; long: number[]; spill: [number, number][] } {
   const { problem, run } = input;
   const v = vehicleOf(problem, route);
   const rows: Cell[][] = [];
@@ -190,17 +203,25 @@ function blockRows(route: Route, input: LayoutRouteSheetsInput, columns: Columns
   const long: number[] = [];
   const text = (t: string): Cell => [t, F.text];
   const depot = locationOf(problem, v.startLocation).name || "Depot";
+  // Labels sit in columns 0, 2 and 4 and values beside them; names may spill over the empty cells
+  // to their right, so they do not widen the narrow Arrival column (see `spill`).
   bold.push(rows.length);
-  rows.push([text("Vehicle"), text(v.id), ...(v.driver !== undefined ? [text("Driver"), text(v.driver)] : [])]);
-  rows.push([text("Scenario"), text(run.scenario), text("Date"), [dateOnly(run.createdSerial), F.date]]);
+  rows.push([text("Vehicle"), text(v.id), BLANK, BLANK, ...(v.driver !== undefined ? [text("Driver"), text(v.driver)] : [])]);
+  rows.push([text("Scenario"), text(run.scenario), BLANK, BLANK, text("Date"), [dateOnly(run.createdSerial), F.date]]);
   rows.push([
-    text("Depot"),
-    text(depot),
     text("Leave"),
     [dayFraction(route.departureMin), F.timeOfDay],
     text("Shift end"),
     [dayFraction(v.shiftEndMin), F.timeOfDay],
+    text("Depot"),
+    text(depot),
   ]);
+  const spill: [number, number][] = [
+    [0, 1],
+    [0, 5],
+    [1, 1],
+    [2, 5],
+  ];
   const at = (h: string): number => columns.header.indexOf(h);
   const line = (cells: Record<string, Cell>, extras: readonly Cell[] = []): Cell[] => {
     const row: Cell[] = columns.header.map((h) => cells[h] ?? BLANK);
@@ -262,7 +283,7 @@ function blockRows(route: Route, input: LayoutRouteSheetsInput, columns: Columns
   long.push(rows.length);
   rows.push([text(CAUTION_TEXT)]);
   rows.push([]);
-  return { rows, bold, long };
+  return { rows, bold, long, spill };
 }
 
 const BLANK: Cell = [null, null];
@@ -282,6 +303,13 @@ function amounts(prefix: string, dims: readonly string[], load: readonly number[
 function vehicleList(vehicles: readonly string[]): string {
   if (vehicles.length <= 3) return vehicles.join(", ");
   return `${vehicles.slice(0, 3).join(", ")} + ${vehicles.length - 3} more`;
+}
+
+/** Names in the block headers spill over empty neighbours: they must not widen their column. */
+function withoutSpill(values: readonly (readonly CellValue[])[], spill: readonly [number, number][]): CellValue[][] {
+  const out = values.map((r) => [...r]);
+  for (const [r, c] of spill) if (out[r] && c < out[r].length) out[r][c] = null;
+  return out;
 }
 
 function dateOnly(serial: number): number {

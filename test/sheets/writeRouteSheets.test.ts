@@ -60,12 +60,16 @@ describe("route sheets: one sheet per scenario, one block per used vehicle", () 
     expect(totals.slice(0, 6)).toEqual([3, 10, 38.5 / 1440, 110 / 1440, 120, 8]);
   });
 
-  it("block header: vehicle, scenario and date, depot with leave time and shift end", () => {
+  it("block header: vehicle, scenario and date, leave time, shift end and depot", () => {
     const b = blockRows(0);
     expect(b[0]!.slice(0, 2)).toEqual(["Vehicle", "Van 1"]);
-    expect(b[1]!.slice(0, 4)).toEqual(["Scenario", "-Tuesday late", "Date", Math.floor(run.createdSerial)]);
+    expect(b[1]!.slice(0, 6)).toEqual(["Scenario", "-Tuesday late", null, null, "Date", Math.floor(run.createdSerial)]);
     // Van 1 leaves at 07:50 (470 min) and its shift ends 17:00 (1020 min).
-    expect(b[2]!.slice(0, 6)).toEqual(["Depot", "Kiln Yard", "Leave", 470 / 1440, "Shift end", 1020 / 1440]);
+    expect(b[2]!.slice(0, 6)).toEqual(["Leave", 470 / 1440, "Shift end", 1020 / 1440, "Depot", "Kiln Yard"]);
+  });
+
+  it("long names in the block header do not widen the Arrival column (they spill over empty cells)", () => {
+    expect(sheet!.grid.columnWidths![col("Arrival")]).toBeLessThanOrEqual(10);
   });
 
   it("stop rows: planned arrival, the window used as text, the user's text exactly, numbers as numbers", () => {
@@ -86,7 +90,7 @@ describe("route sheets: one sheet per scenario, one block per used vehicle", () 
     const back = night.find((r) => r[col("Stop")] === RETURN_STOP)!;
     // =Night starts at North Gate and ends at Kiln Yard; back at 01:45 next day (1545 min).
     expect(back.slice(0, 5)).toEqual([2, 1545 / 1440, "by 06:00+1d", RETURN_STOP, "Kiln Yard"]);
-    expect(night[2]!.slice(0, 2)).toEqual(["Depot", "North Gate"]);
+    expect(night[2]!.slice(4, 6)).toEqual(["Depot", "North Gate"]);
     expect(night.map((r) => r[0])).toContain(CAUTION_TEXT);
   });
 
