@@ -63,7 +63,7 @@ export async function buildDemoWorkbook(seed = "ovenbird-1"): Promise<Uint8Array
 
 const day = (min: number): number => min / 1440;
 
-function stopsGrid(stops: readonly DemoStop[]): SheetGrid {
+export function stopsGrid(stops: readonly DemoStop[]): SheetGrid {
   const values: CellValue[][] = [[...STOP_HEADERS]];
   const formats: (string | null)[][] = [STOP_HEADERS.map(() => null)];
   for (const s of stops) {
@@ -95,7 +95,7 @@ function stopsGrid(stops: readonly DemoStop[]): SheetGrid {
   };
 }
 
-function fleetGrid(fleet: readonly DemoVehicle[]): SheetGrid {
+export function fleetGrid(fleet: readonly DemoVehicle[]): SheetGrid {
   const values: CellValue[][] = [[...FLEET_HEADERS]];
   const formats: (string | null)[][] = [FLEET_HEADERS.map(() => null)];
   for (const v of fleet) {
@@ -127,7 +127,7 @@ function fleetGrid(fleet: readonly DemoVehicle[]): SheetGrid {
   };
 }
 
-function settingsGrid(): SheetGrid {
+export function settingsGrid(): SheetGrid {
   return {
     values: [
       ["Setting", "Value", "Note"],

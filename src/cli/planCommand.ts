@@ -152,7 +152,7 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
     `Vehicles used: ${t.vehiclesUsed} of ${read.problem.vehicles.length}`,
     `Distance: ${t.distanceKm.toFixed(1)} km${matrixSource !== undefined ? ` (road distances from ${matrixSource})` : ""}`,
     `Cost: ${t.cost.toFixed(2)}`,
-    `Unassigned: ${t.unassigned}${plan.unassigned.length ? ` (${plan.unassigned.map((u) => read.problem.stops[u.stop]?.id ?? u.stop).join(", ")})` : ""}`,
+    `Unassigned: ${t.unassigned}${plan.unassigned.length ? ` (${listIds(plan.unassigned.map((u) => String(read.problem.stops[u.stop]?.id ?? u.stop)))})` : ""}`,
     ...mustServeLines(read.problem, plan),
     `Feasible: ${plan.feasible ? "yes" : plan.violations.length === 0 ? `no: ${t.mustServeUnassigned} must-serve stop(s) left out, every route keeps the rules` : "no"}`,
     ...plan.violations.map((v) => `  ${v}`),
@@ -184,6 +184,12 @@ function mustServeLines(problem: Problem, plan: Plan): string[] {
     `MUST-SERVE STOPS LEFT OUT: ${n} (they have no Priority, so every one of them should be served):`,
     ...[...reasons].map(([reason, ids]) => `  ${ids.join(", ")}: ${reason}`),
   ];
+}
+
+/** At most 20 ids, then how many more (the plan sheet lists every one). */
+function listIds(ids: readonly string[]): string {
+  const shown = ids.slice(0, 20).join(", ");
+  return ids.length > 20 ? `${shown}, … and ${ids.length - 20} more: see the plan sheet` : shown;
 }
 
 /**
