@@ -49,6 +49,11 @@ export interface Stop {
   readonly allowedVehicles?: readonly string[];
   /** Ids of vehicles that must not serve this stop. */
   readonly excludedVehicles?: readonly string[];
+  /**
+   * Why the stop cannot be planned at all (its address was not found, so its location is only a
+   * placeholder). Absent for a normal stop. The plan lists such a stop unassigned with this reason.
+   */
+  readonly unplannedReason?: string;
 }
 
 /**

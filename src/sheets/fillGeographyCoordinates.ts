@@ -2,33 +2,38 @@ import type { LatLon } from "../core/index.js";
 import type { SheetRead } from "./grid.js";
 import { isBlank } from "./cellValue.js";
 import { findHeaderRow } from "./findHeaderRow.js";
-import { mapColumns } from "./matchHeaders.js";
+import { mapColumns, type TableKind } from "./matchHeaders.js";
+import { COORDINATE_FIELDS } from "./addressRows.js";
 
 /**
  * Coordinates for stops whose place is a linked entity (Excel's Geography data type) rather
  * than typed numbers: wherever a row of the stops table holds a place with known latitude and
  * longitude and its own coordinate cells are empty, they are filled in. With Latitude/Longitude
  * columns the blank cells get the numbers; with one coordinates column ("Location") a place in
- * that column becomes "lat, lon" text; with neither, two columns "Latitude" and "Longitude" are
+ * that column (or a place elsewhere in the row, when that column is blank) becomes "lat, lon" text; with neither, two columns "Latitude" and "Longitude" are
  * appended to the copy. Typed coordinates always win, and the user's sheet is never changed:
- * this works on a copy of the values read.
+ * this works on a copy of the values read. The fleet table works the same way with its start
+ * depot columns (Start latitude, Start longitude, Depot), so geocoded depots use it too.
  *
- * @param read - the stops table as read (values with their top-left position)
+ * @param read - the stops (or fleet) table as read (values with their top-left position)
  * @param places - per cell of `read.values` (same shape), the place it holds, if any
+ * @param kind - which table (default stops)
  * @returns a copy of `read` with coordinates filled in, and how many rows were filled
  * @example fillGeographyCoordinates(read, places).filled // => 12
  */
 export function fillGeographyCoordinates(
   read: SheetRead,
   places: readonly (readonly (LatLon | undefined)[])[],
+  kind: TableKind = "stops",
 ): { read: SheetRead; filled: number } {
-  const headerAt = findHeaderRow(read.values, "stops", read);
+  const headerAt = findHeaderRow(read.values, kind, read);
   if (headerAt === undefined) return { read, filled: 0 };
   const header = read.values[headerAt] ?? [];
-  const { fields } = mapColumns(header, "stops", { sheet: read.sheet, row: read.row + headerAt, col: read.col });
-  const lat = fields.get("latitude");
-  const lon = fields.get("longitude");
-  const both = fields.get("coordinates");
+  const { fields } = mapColumns(header, kind, { sheet: read.sheet, row: read.row + headerAt, col: read.col });
+  const names = COORDINATE_FIELDS[kind];
+  const lat = fields.get(names.lat);
+  const lon = fields.get(names.lon);
+  const both = fields.get(names.both);
   const rows = read.values.map((r) => [...r]);
   const width = Math.max(0, ...rows.map((r) => r.length));
   let appendAt: number | undefined;
@@ -41,13 +46,13 @@ export function fillGeographyCoordinates(
       if (!isBlank(row[lat]) || !isBlank(row[lon])) continue;
       row[lat] = place.lat;
       row[lon] = place.lon;
-    } else if (both !== undefined && places[r]?.[both] !== undefined) {
+    } else if (both !== undefined && (places[r]?.[both] !== undefined || isBlank(row[both]))) {
       row[both] = `${place.lat}, ${place.lon}`;
     } else if (lat === undefined && lon === undefined && both === undefined) {
       if (appendAt === undefined) {
         appendAt = width;
-        rows[headerAt]![appendAt] = "Latitude";
-        rows[headerAt]![appendAt + 1] = "Longitude";
+        rows[headerAt]![appendAt] = kind === "stops" ? "Latitude" : "Start latitude";
+        rows[headerAt]![appendAt + 1] = kind === "stops" ? "Longitude" : "Start longitude";
       }
       row[appendAt] = place.lat;
       row[appendAt + 1] = place.lon;

@@ -32,6 +32,14 @@ export interface TableColumns {
 
 // Synonyms as normalised keys (lower-case letters and digits only). Common trade words;
 // none is taken from a particular product.
+
+/** Address parts in their own columns (stops, and depots in the fleet), joined for geocoding. */
+const ADDRESS_PART_SYNONYMS: Record<string, readonly string[]> = {
+  street: ["street", "streetname", "streetandnumber", "addressline1", "address1", "line1", "housenumberandstreet"],
+  postcode: ["postcode", "postalcode", "zip", "zipcode", "postcodezip", "zippostcode", "pc"],
+  town: ["town", "city", "towncity", "citytown", "locality", "village", "municipality"],
+  country: ["country", "countryname", "countrycode", "nation"],
+};
 const STOP_SYNONYMS: Record<string, readonly string[]> = {
   id: [
     "stop",
@@ -62,7 +70,8 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
     "consignee",
     "consigneename",
   ],
-  address: ["address", "streetaddress", "street", "fulladdress", "addr", "deliveryaddress", "postaladdress"],
+  address: ["address", "streetaddress", "fulladdress", "addr", "deliveryaddress", "postaladdress"],
+  ...ADDRESS_PART_SYNONYMS,
   latitude: ["latitude", "lat", "y", "latdeg", "latitudedeg"],
   longitude: ["longitude", "lon", "lng", "long", "x", "londeg", "longitudedeg"],
   coordinates: [
@@ -192,6 +201,8 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
 };
 
 const FLEET_SYNONYMS: Record<string, readonly string[]> = {
+  address: ["address", "depotaddress", "startaddress", "homeaddress", "baseaddress", "startdepotaddress"],
+  ...ADDRESS_PART_SYNONYMS,
   id: ["vehicle", "vehicleid", "vehiclename", "van", "truck", "lorry", "car", "name", "id", "unit", "rig"],
   driver: ["driver", "drivername", "drivenby", "chauffeur", "crew"],
   count: ["count", "number", "howmany", "vehicles", "copies", "fleetsize", "numberofvehicles", "n", "qty", "quantity"],
@@ -371,7 +382,7 @@ const FLEET_SYNONYMS: Record<string, readonly string[]> = {
 /** Fields whose header may carry a unit word (a load dimension). */
 const DIMENSIONED: Record<TableKind, readonly string[]> = { stops: ["demand", "pickup"], fleet: ["capacity"] };
 /** Fields where a second matching column is carried through instead of being an issue. */
-const DESCRIPTIVE = new Set(["id", "name", "address"]);
+const DESCRIPTIVE = new Set(["id", "name", "address", "street"]);
 /** Fields that may repeat as numbered pairs. */
 const NUMBERED = new Set(["earliest", "latest", "windows"]);
 

@@ -15,7 +15,10 @@ import type { TableColumns } from "./matchHeaders.js";
 export interface ParsedStop {
   readonly id: string;
   readonly name: string;
-  readonly position: LatLon;
+  /** Where the stop is; absent for a stop left out with `unplannedReason` (its address was not found). */
+  readonly position?: LatLon;
+  /** Why the stop cannot be planned (its address was not found); it is listed unassigned with this reason. */
+  readonly unplannedReason?: string;
   /** Demand per load column: "" for a plain Demand column, else the unit word. */
   readonly demand: ReadonlyMap<string, number>;
   /** Amount to collect per pickup column: "" for a plain Pickup (or Collect, Returns), else the unit word. */
@@ -66,13 +69,21 @@ export interface ParsedStops {
  * column with an empty cell is an issue. Name defaults to the id. Blank demand is 0, a blank
  * Priority means the stop must be served, blank windows mean open all day.
  *
+ * A row listed in `unlocated` (an address the geocoder did not find) and without coordinates is
+ * read as a stop without a position that carries the reason, so the plan lists it unassigned.
+ *
  * @param read - the stops range
  * @param columnMap - the user's column mappings
+ * @param unlocated - reasons by 0-based sheet row for rows whose address was not found
  * @returns the stops and every issue found (all at once)
  * @example parseStops({ sheet: "Stops", row: 0, col: 0, values: [["Stop", "Lat", "Lon"], ["a", 45, 4]] }).stops[0]?.position
  * // => { lat: 45, lon: 4 }
  */
-export function parseStops(read: SheetRead, columnMap: readonly ColumnMapEntry[] = []): ParsedStops {
+export function parseStops(
+  read: SheetRead,
+  columnMap: readonly ColumnMapEntry[] = [],
+  unlocated: ReadonlyMap<number, string> = new Map(),
+): ParsedStops {
   const { table, issues } = readTable(read, "stops", columnMap);
   const empty = {
     stops: [],
@@ -88,7 +99,9 @@ export function parseStops(read: SheetRead, columnMap: readonly ColumnMapEntry[]
   const f = table.columns.fields;
   const hasPair = f.has("latitude") && f.has("longitude");
   if (!hasPair && !f.has("coordinates")) {
-    const address = f.has("address") ? " To get coordinates from the Address column, use the pane's geography option in Excel." : "";
+    const address = ["address", "street", "postcode", "town"].some((k) => f.has(k))
+      ? " To get coordinates from the addresses, use the pane's geography option in Excel, or set up a geocoding service (--geocoder, or Geocoding in the pane)."
+      : "";
     issues.push(
       cellIssue(
         read.sheet,
@@ -126,7 +139,8 @@ export function parseStops(read: SheetRead, columnMap: readonly ColumnMapEntry[]
       if (text !== undefined && first === undefined) seen.set(id, r.sheetRow);
     }
     const name = r.text("name") ?? id;
-    const position = readPosition(r, id);
+    const unplannedReason = unlocated.get(row.sheetRow0);
+    const position = unplannedReason !== undefined && coordinatesBlank(r) ? undefined : readPosition(r, id);
     const demand = new Map<string, number>();
     for (const dim of dimensions) {
       const key = dim === "" ? "demand" : `demand:${dim}`;
@@ -147,11 +161,11 @@ export function parseStops(read: SheetRead, columnMap: readonly ColumnMapEntry[]
     const extra: Record<string, CellValue> = {};
     for (const x of table.columns.extras) extra[x.header] = plainCell(row.cells[x.col]);
     const address = r.has("address") ? (r.text("address") ?? "") : undefined;
-    if (issues.length > before || position === undefined) continue;
+    if (issues.length > before || (position === undefined && unplannedReason === undefined)) continue;
     stops.push({
       id,
       name,
-      position,
+      ...(position !== undefined ? { position } : { unplannedReason: unplannedReason! }),
       demand,
       pickup,
       ...(vehicleText !== undefined ? { vehicleNames: splitNames(vehicleText) } : {}),
@@ -187,6 +201,10 @@ function splitNames(text: string): string[] {
     .filter((x) => x !== "");
 }
 
+function coordinatesBlank(r: RowReader): boolean {
+  return ["latitude", "longitude", "coordinates"].every((k) => !r.has(k) || r.blank(k));
+}
+
 /** Latitude/longitude of a row from the two columns or the one Coordinates column. */
 function readPosition(r: RowReader, id: string): LatLon | undefined {
   const pairBlank = (!r.has("latitude") || r.blank("latitude")) && (!r.has("longitude") || r.blank("longitude"));
@@ -204,11 +222,11 @@ function readPosition(r: RowReader, id: string): LatLon | undefined {
   }
   if (pairBlank) {
     const key = r.has("latitude") ? "latitude" : "coordinates";
-    const hasAddress = r.has("address") && !r.blank("address");
+    const hasAddress = ["address", "street", "postcode", "town"].some((k) => r.has(k) && !r.blank(k));
     r.fail(
       key,
       hasAddress
-        ? `stop "${id}" has an address but no coordinates; fill its Latitude and Longitude in decimal degrees (such as 45.76 and 4.83), or in Excel use the pane's geography option to turn addresses into coordinates.`
+        ? `stop "${id}" has an address but no coordinates; fill its Latitude and Longitude in decimal degrees (such as 45.76 and 4.83), or in Excel use the pane's geography option to turn addresses into coordinates, or set up a geocoding service (--geocoder, or Geocoding in the pane) to look the address up.`
         : `stop "${id}" has no coordinates; fill its Latitude and Longitude in decimal degrees (such as 45.76 and 4.83).`,
     );
     return undefined;

@@ -44,7 +44,14 @@ export { PLAIN_DIMENSION };
  * @example readProblem({ stops, fleet }).ok // => true when the tables are clean
  */
 export function readProblem(
-  input: { stops: SheetRead; fleet: SheetRead; settings?: SheetRead; matrix?: SheetRead },
+  input: {
+    stops: SheetRead;
+    fleet: SheetRead;
+    settings?: SheetRead;
+    matrix?: SheetRead;
+    /** Reasons by 0-based stops-sheet row for stops whose address was not found (see `parseStops`). */
+    unlocated?: ReadonlyMap<number, string>;
+  },
   overrides: Partial<PlanSettings> = {},
   limits: { readonly maxLocations?: number } = {},
 ): ReadResult {
@@ -57,7 +64,7 @@ export function readProblem(
   const { columnMap: _given, ...settingsWithoutMap } = merged;
   issues.push(...checkSettings(settingsWithoutMap, overrides));
   const columnMap = mergeColumnMaps(fromSheet.settings.columnMap, overrides.columnMap);
-  const stops = parseStops(input.stops, columnMap);
+  const stops = parseStops(input.stops, columnMap, input.unlocated);
   const fleet = parseFleet(input.fleet, columnMap);
   issues.push(...stops.issues, ...fleet.issues);
   const usedMap = [
@@ -115,7 +122,9 @@ export function readProblem(
   depotNames.forEach((names, i) => names.push(locations[i]!.name!));
   const depots = locations.length;
   const unpinned: Stop[] = stops.stops.map((s, i) => {
-    locations.push({ lat: s.position.lat, lon: s.position.lon, name: s.name });
+    // A stop whose address was not found is never routed: it stands at the first depot.
+    const at = s.position ?? locations[0]!;
+    locations.push({ lat: at.lat, lon: at.lon, name: s.name });
     const pickup = dims.map(() => 0);
     for (const [unit, d] of pickupDims) pickup[d] = pickup[d]! + (s.pickup.get(unit) ?? 0);
     return {
@@ -128,6 +137,7 @@ export function readProblem(
       ...(s.unservedCost !== undefined ? { unservedCost: s.unservedCost } : {}),
       ...(s.requiredFeatures !== undefined ? { requiredFeatures: s.requiredFeatures } : {}),
       ...(pickup.some((q) => q > 0) ? { pickup } : {}),
+      ...(s.unplannedReason !== undefined ? { unplannedReason: s.unplannedReason } : {}),
     };
   });
   const problemStops = resolvePins(
@@ -171,6 +181,7 @@ export function readProblem(
     extra: s.extra,
     ...(s.address !== undefined ? { address: s.address } : {}),
   }));
+  warnings.push(...unplannedWarnings(stops, input.stops.sheet, warned));
   warnings.push(...stopWarnings(problem, stops, input.stops.sheet, warned));
   // Columns that look like a field but are not used: each its own warning, never folded.
   for (const [read, parsed, kind] of [
@@ -195,6 +206,27 @@ export function readProblem(
 }
 
 type Dimension = LoadDimension;
+
+/** One warning per stop that cannot be planned (address not found), at its row's first address cell. */
+function unplannedWarnings(stops: ParsedStops, sheet: string, warned: Set<number>): KindedIssue[] {
+  const f = stops.columns?.fields;
+  const col = ["address", "street", "postcode", "town"].map((k) => f?.get(k)).find((c) => c !== undefined) ?? 0;
+  const out: KindedIssue[] = [];
+  stops.stops.forEach((s, i) => {
+    if (s.unplannedReason === undefined) return;
+    warned.add(i);
+    out.push({
+      kind: "unplanned",
+      issue: cellIssue(
+        sheet,
+        s.sheetRow0,
+        stops.col0 + col,
+        `stop "${s.id}" will be left unassigned: ${s.unplannedReason}; correct the address or type its Latitude and Longitude.`,
+      ),
+    });
+  });
+  return out;
+}
 
 function pairDimensions(
   input: { stops: SheetRead; fleet: SheetRead },

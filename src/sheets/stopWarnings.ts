@@ -1,4 +1,5 @@
-import { DAY_MIN, greatCircleKm, unservableStops, type Issue, type LatLon, type Problem } from "../core/index.js";
+import { DAY_MIN, unservableStops, type Issue, type LatLon, type Problem } from "../core/index.js";
+import { FAR_MIN_POINTS, farFromOthers } from "./farFromOthers.js";
 import { formatClock } from "./formatClock.js";
 import type { ParsedStops } from "./parseStops.js";
 import { cellIssue } from "./readTable.js";
@@ -11,12 +12,6 @@ export interface KindedIssue {
 
 /** Within this many degrees of 0, 0 a point is "at or near 0, 0" (a failed geocode). */
 const NEAR_ZERO_DEG = 1;
-/** A point is far from the rest when it is this many times the typical distance from the median, ... */
-const FAR_FACTOR = 5;
-/** ... and at least this far (km), so a compact town round does not flag its outskirts. */
-const FAR_MIN_KM = 50;
-/** "Far from the rest" needs a rest: at least this many stops. */
-const FAR_MIN_STOPS = 8;
 /** This many stops or more on exactly one point is worth a look (a geocoder's town-centre fallback). */
 const SAME_POINT_MIN = 4;
 /** More warnings of one kind than this fold into one line. */
@@ -48,14 +43,18 @@ export function stopWarnings(problem: Problem, stops: ParsedStops, sheet: string
   if (!f) return out;
   const latCol = stops.col0 + (f.get("latitude") ?? f.get("coordinates") ?? 0);
   const windowCol = stops.col0 + (f.get("earliest") ?? f.get("windows") ?? f.get("latest") ?? 0);
+  // Stops left out for a missing address stand at a placeholder point: they are not judged here.
+  const placed = problem.stops.map((s) => s.unplannedReason === undefined);
   const points = problem.stops.map((s) => problem.locations[s.location]!);
   const depots = problem.vehicles.flatMap((v) => [problem.locations[v.startLocation]!, problem.locations[v.endLocation]!]);
-  const centre = medianPoint([...points, ...depots]);
-  const typicalKm = median([...points, ...depots].map((p) => greatCircleKm(centre, p)));
+  // Stops and depots together set the middle; the stops alone must be numerous enough.
+  const far = farFromOthers([...points.filter((_, i) => placed[i]), ...depots]);
+  const manyStops = placed.filter(Boolean).length >= FAR_MIN_POINTS;
   const at = (i: number, col: number, kind: string, message: string): void => {
     out.push({ kind, issue: cellIssue(sheet, stops.stops[i]!.sheetRow0, col, message) });
   };
   points.forEach((p, i) => {
+    if (!placed[i]) return;
     const id = problem.stops[i]!.id;
     if (Math.abs(p.lat) < NEAR_ZERO_DEG && Math.abs(p.lon) < NEAR_ZERO_DEG) {
       at(
@@ -66,10 +65,10 @@ export function stopWarnings(problem: Problem, stops: ParsedStops, sheet: string
       );
       return;
     }
-    const km = greatCircleKm(centre, p);
-    if (points.length < FAR_MIN_STOPS || km <= Math.max(FAR_FACTOR * typicalKm, FAR_MIN_KM)) return;
+    const km = far.km(p);
+    if (!manyStops || !far.isFar(p)) return;
     const swapped = { lat: p.lon, lon: p.lat };
-    if (Math.abs(swapped.lat) <= 90 && greatCircleKm(centre, swapped) <= Math.max(FAR_FACTOR * typicalKm, FAR_MIN_KM)) {
+    if (Math.abs(swapped.lat) <= 90 && !far.isFar(swapped)) {
       at(
         i,
         latCol,
@@ -81,11 +80,11 @@ export function stopWarnings(problem: Problem, stops: ParsedStops, sheet: string
         i,
         latCol,
         "far",
-        `stop "${id}" is ${Math.round(km)} km from the middle of the stops and depots (typically ${Math.round(typicalKm)} km); check its coordinates.`,
+        `stop "${id}" is ${Math.round(km)} km from the middle of the stops and depots (typically ${Math.round(far.typicalKm)} km); check its coordinates.`,
       );
     }
   });
-  samePointWarnings(problem, stops, sheet, latCol, points, out);
+  samePointWarnings(problem, stops, sheet, latCol, points, out, placed);
   problem.stops.forEach((s, i) => {
     for (const w of s.windows) {
       if (w.earliestMin < DAY_MIN && w.latestMin > DAY_MIN && Number.isFinite(w.latestMin)) {
@@ -139,9 +138,11 @@ function samePointWarnings(
   latCol: number,
   points: readonly LatLon[],
   out: KindedIssue[],
+  placed: readonly boolean[],
 ): void {
   const groups = new Map<string, number[]>();
   points.forEach((p, i) => {
+    if (!placed[i]) return;
     const key = `${p.lat},${p.lon}`;
     groups.set(key, [...(groups.get(key) ?? []), i]);
   });
@@ -159,16 +160,4 @@ function samePointWarnings(
       ),
     });
   }
-}
-
-/** Component-wise median of latitudes and longitudes (robust to a few wrong points). */
-function medianPoint(points: readonly LatLon[]): LatLon {
-  return { lat: median(points.map((p) => p.lat)), lon: median(points.map((p) => p.lon)) };
-}
-
-function median(xs: readonly number[]): number {
-  if (xs.length === 0) return 0;
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
 }

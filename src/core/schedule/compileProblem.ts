@@ -190,11 +190,13 @@ export function compileProblem(problem: Problem): CompiledProblem {
     }
     if (ok < V) anyIncompatible = true;
     unservableReason.push(
-      ok > 0
-        ? ""
-        : pinOk === 0
-          ? "no vehicle is left once its pin and excluded vehicles are applied"
-          : reasonFor(problem, i, featureOk, capOk),
+      s.unplannedReason !== undefined
+        ? s.unplannedReason
+        : ok > 0
+          ? ""
+          : pinOk === 0
+            ? "no vehicle is left once its pin and excluded vehicles are applied"
+            : reasonFor(problem, i, featureOk, capOk),
     );
   }
   return {
