@@ -7,10 +7,15 @@ import { basename, dirname, extname, join, resolve } from "node:path";
  *
  * @param inputPath - absolute path of the input workbook
  * @param out - the `--out` value, if any
+ * @param suffix - the word before .xlsx of the default name ("plan"; `kiln geocode` uses "geocoded")
  * @returns the path and whether the user chose it, or a user error
  * @example await outputPath("/data/week.xlsx") // => { path: "/data/week.plan.xlsx", explicit: false }
  */
-export async function outputPath(inputPath: string, out?: string): Promise<{ path: string; explicit: boolean } | { error: string }> {
+export async function outputPath(
+  inputPath: string,
+  out?: string,
+  suffix = "plan",
+): Promise<{ path: string; explicit: boolean } | { error: string }> {
   if (out !== undefined) {
     const path = resolve(out);
     if ((await canonical(path)) === (await canonical(inputPath))) {
@@ -22,10 +27,10 @@ export async function outputPath(inputPath: string, out?: string): Promise<{ pat
   const ext = extname(inputPath);
   const stem = basename(inputPath, ext);
   for (let n = 1; n < 10_000; n++) {
-    const path = join(dir, `${stem}.plan${n === 1 ? "" : `-${n}`}.xlsx`);
+    const path = join(dir, `${stem}.${suffix}${n === 1 ? "" : `-${n}`}.xlsx`);
     if (!(await exists(path))) return { path, explicit: false };
   }
-  return { error: `${inputPath}: no free NAME.plan-N.xlsx name beside it; name the output with --out` };
+  return { error: `${inputPath}: no free NAME.${suffix}-N.xlsx name beside it; name the output with --out` };
 }
 
 async function exists(path: string): Promise<boolean> {

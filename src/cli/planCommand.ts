@@ -12,10 +12,13 @@ import { outputPath } from "./outputPath.js";
 import { prepareRun } from "./prepareRun.js";
 import { progressBar } from "./progressBar.js";
 import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptions.js";
+import { addGeocodeOptions, geocoderSetup, type GeocodeOptionValues } from "./geocodeOptions.js";
+import { reviewLines } from "./geocodeCommand.js";
 
 /** The options of `kiln plan` besides the plan settings. */
 export type PlanOptions = InputSheetOptions &
-  NavigationFileOptions & { scenario: string; out?: string; softWindows?: boolean; workers?: string; sheetPerVehicle?: boolean };
+  NavigationFileOptions &
+  GeocodeOptionValues & { scenario: string; out?: string; softWindows?: boolean; workers?: string; sheetPerVehicle?: boolean };
 
 /** Declare `kiln plan` (alias `solve`, its name before 0.2) on the program. */
 export function declarePlan(program: Command, io: CliIO, exit: (code: number) => void): Command {
@@ -48,6 +51,7 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
     )
     .option("--sheet-per-vehicle", "write one route sheet per vehicle instead of one route sheet per scenario with a block per vehicle");
   addRunOptions(cmd);
+  addGeocodeOptions(cmd);
   cmd.action(async (workbook: string, opts: PlanOptions) => {
     exit(await runPlan(workbook, opts, givenSettings(cmd), io));
   });
@@ -70,7 +74,9 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
  */
 export async function runPlan(workbook: string, opts: PlanOptions, settings: Readonly<Record<string, string>>, io: CliIO): Promise<number> {
   const workers = parseWorkers(opts.workers);
-  const prepared = await prepareRun(workbook, opts, settings, opts.softWindows);
+  const geo = geocoderSetup(opts, io);
+  if (geo.errors.length > 0) return reportErrors(io, geo.errors);
+  const prepared = await prepareRun(workbook, opts, settings, opts.softWindows, geo.setup);
   if ("errors" in prepared || "error" in workers) {
     return reportErrors(io, [...("error" in workers ? [workers.error] : []), ...("errors" in prepared ? prepared.errors : [])]);
   }
@@ -79,6 +85,7 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
   if ("error" in out) return reportErrors(io, [out.error]);
   const targetErrors = await checkNavigationTargets(opts, inputPath, out.path);
   if (targetErrors.length > 0) return reportErrors(io, targetErrors);
+  if (prepared.located) for (const line of reviewLines(prepared.located, false)) io.stderr(line + "\n");
   for (const w of read.warnings) io.stderr(`warning: ${formatIssue(w)}\n`);
   if (prepared.notKept.length > 0) {
     io.stderr(

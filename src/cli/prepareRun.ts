@@ -8,6 +8,8 @@ import { describeMissingTable, findInputSheets } from "../workbook/findInputShee
 import { readScenarioInput, sourceOf } from "../workbook/scenario.js";
 import { findHeaderRow } from "../sheets/findHeaderRow.js";
 import { COLUMN_MAP_KEY, mergeColumnMaps, parseColumnMap, storedColumnMap, type ColumnMapEntry } from "../sheets/columnMap.js";
+import { parseSettingsSheet } from "../sheets/parseSettingsSheet.js";
+import { locateWorkbook, saveGeocodeCache, type GeocoderSetup, type WorkbookLocation } from "../workbook/geocodeWorkbook.js";
 import { formatIssue } from "./formatIssue.js";
 import type { InputSheetOptions } from "./runOptions.js";
 import { applySchedule, settingFlags } from "./settingFlags.js";
@@ -22,6 +24,8 @@ export interface PreparedRun {
   readonly usedText: string;
   /** What the input holds that a copy saved through exceljs loses ("charts", ...). */
   readonly notKept: readonly string[];
+  /** What geocoding did, when a geocoder was given (its cache is already in `book`). */
+  readonly located?: WorkbookLocation;
 }
 
 /**
@@ -33,6 +37,7 @@ export interface PreparedRun {
  * @param sheets - the sheet options given
  * @param settings - the setting options given, by flag (`givenSettings`)
  * @param softWindows - `--soft-windows` was given
+ * @param geocoder - the geocoding service (`--geocoder`): addresses without coordinates are looked up first
  * @returns the prepared run, or every user error as one line each
  * @example await prepareRun("demo/kiln-demo.xlsx", {}, { seed: "3" }) // => { book, read, ... }
  */
@@ -41,6 +46,7 @@ export async function prepareRun(
   sheets: InputSheetOptions,
   settings: Readonly<Record<string, string>>,
   softWindows = false,
+  geocoder?: GeocoderSetup,
 ): Promise<PreparedRun | { errors: string[] }> {
   const flags = settingFlags(settings, softWindows);
   if (flags.errors.length > 0) return { errors: flags.errors };
@@ -75,7 +81,18 @@ export async function prepareRun(
   if (!stops) errors.push(`${workbook}: ${describeMissingTable(found, "stops", "name the stops sheet with --stops SHEET")}`);
   if (!fleet) errors.push(`${workbook}: ${describeMissingTable(found, "fleet", "name the fleet sheet with --fleet SHEET")}`);
   if (!stops || !fleet) return { errors };
+  let located: WorkbookLocation | undefined;
+  if (geocoder) {
+    const settingsRead = settingsSheet ? await book.readSheet(settingsSheet) : undefined;
+    const country = flags.overrides.country ?? (settingsRead ? parseSettingsSheet(settingsRead).settings.country : undefined);
+    located = await locateWorkbook(book, { stops, fleet }, geocoder, country);
+    if (located?.error !== undefined) return { errors: [`--geocoder: ${located.error} Nothing was written.`] };
+    if (located && located.located.issues.length > 0) return { errors: located.located.issues.map(formatIssue) };
+    // The answers travel in the output workbook, so planning it again asks nothing.
+    if (located) await saveGeocodeCache(book, located.cache);
+  }
   const read = await readScenarioInput(book, {
+    ...(located ? { located: located.located } : {}),
     stopsSheet: stops,
     fleetSheet: fleet,
     ...(settingsSheet ? { settingsSheet } : {}),
@@ -92,6 +109,7 @@ export async function prepareRun(
     notKept: partsNotKept(bytes),
     sheets: { stops, fleet, ...(settingsSheet ? { settings: settingsSheet } : {}), ...(matrix ? { matrix } : {}) },
     read: { ...read, settings: { ...read.settings, cooling: cooling.spec } },
+    ...(located ? { located } : {}),
   };
 }
 

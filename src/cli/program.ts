@@ -8,6 +8,7 @@ import { Command, CommanderError } from "commander";
 import { declareBench } from "./benchCommand.js";
 import type { CliIO } from "./CliIO.js";
 import { declarePlan } from "./planCommand.js";
+import { declareGeocode } from "./geocodeCommand.js";
 import { declareProfile } from "./profileCommand.js";
 
 /** The package version (package.json sits two folders up from both src/cli and dist/cli). */
@@ -41,6 +42,7 @@ export function buildProgram(io: CliIO, exit: (code: number) => void): Command {
     .showSuggestionAfterError(true)
     .exitOverride();
   declarePlan(program, io, exit);
+  declareGeocode(program, io, exit);
   declareProfile(program, io, exit);
   declareBench(program, io, exit);
   return program;

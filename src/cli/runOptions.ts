@@ -48,6 +48,7 @@ function defaultText(key: SettingKey): string {
     case "beta":
     case "t0":
     case "tEnd":
+    case "country":
       return "";
     default:
       return String(d[key as keyof typeof d]);

@@ -29,6 +29,7 @@ export const RUN_SETTING_KEYS: readonly SettingKey[] = [
   "tEnd",
   "p0",
   "pEnd",
+  "country",
 ];
 
 /** Settings read from options: overrides of the Settings sheet and the schedule options. */
@@ -78,6 +79,7 @@ export function settingFlags(given: Readonly<Record<string, string | undefined>>
   put("pEnd", num("pEnd"));
   put("rule", values.get("rule") as PlanSettings["rule"] | undefined);
   put("objective", values.get("objective") as PlanSettings["objective"] | undefined);
+  put("country", values.get("country") as string | undefined);
   if (values.has("windows")) o.hardWindows = values.get("windows") === "hard";
   if (softWindows) {
     if (values.get("windows") === "hard") errors.push("--soft-windows: contradicts --windows hard; give one of them");

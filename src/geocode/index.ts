@@ -27,3 +27,5 @@ export {
   type LocateTables,
   type ReviewItem,
 } from "./locateTables.js";
+export { GEOCODE_CACHE_SHEET, cacheRows, readCacheSheet } from "./cacheSheet.js";
+export { MATCH_HEADER, coordinateColumns } from "./coordinateColumns.js";

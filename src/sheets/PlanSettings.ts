@@ -30,6 +30,8 @@ export interface PlanSettings {
    * Settings sheet's merged with the options'; in a read result, those that applied, with the table.
    */
   readonly columnMap?: readonly (ColumnMapEntry & { readonly kind?: "stops" | "fleet" })[];
+  /** Country added to addresses whose row gives none, when geocoding (none by default). */
+  readonly country?: string;
 }
 
 /** Defaults of `PlanSettings` (common practice unless noted). */

@@ -25,7 +25,8 @@ export type SettingKey =
   | "seed"
   | "seconds"
   | "moves"
-  | "objective";
+  | "objective"
+  | "country";
 
 interface FieldBase {
   /** Name shown in messages, the pane and the Settings sheet ("Detour factor"). */
@@ -63,7 +64,16 @@ export interface ChoiceField extends FieldBase {
   readonly choices: Readonly<Record<string, string>>;
 }
 
-export type SettingField = NumberField | ChoiceField;
+/** A setting of free text (trimmed), at most `maxLength` characters. */
+export interface TextField extends FieldBase {
+  readonly type: "text";
+  readonly maxLength: number;
+  /** What the text is, for messages ("a country name or code"). */
+  readonly what: string;
+  readonly example: string;
+}
+
+export type SettingField = NumberField | ChoiceField | TextField;
 
 /** The schedule tokens (CLI, Settings sheet) and the `CoolingSpec` kind each stands for. */
 export const SCHEDULE_TOKENS = {
@@ -314,6 +324,17 @@ export const SETTING_FIELDS: Readonly<Record<SettingKey, SettingField>> = {
     tokens: ["weighted", "hierarchical"],
     choices: { weighted: "weighted", cost: "weighted", hierarchical: "hierarchical", vehiclesfirst: "hierarchical" },
   },
+  country: {
+    type: "text",
+    label: "Default country",
+    flag: "country",
+    valueName: "NAME",
+    sheetKeys: ["defaultcountry", "country", "geocodingcountry"],
+    help: "country added to the addresses whose row gives none, when geocoding",
+    maxLength: 60,
+    what: "a country name or code",
+    example: "Portugal",
+  },
 };
 
 /** The schedule parameters, in the order they are checked. */
@@ -337,6 +358,7 @@ export const PARAMETERS_OF: Readonly<Record<keyof typeof SCHEDULE_NAMES, readonl
  */
 export function rangeText(field: SettingField): string {
   if (field.type === "choice") return `one of ${field.tokens.join(", ")}`;
+  if (field.type === "text") return `${field.what} of at most ${field.maxLength} characters, such as ${field.example}`;
   const what = field.integer ? "a whole number" : "a number";
   const lo = field.minExclusive ? `above ${field.min}` : `${field.min}`;
   let bounds: string;

@@ -16,6 +16,7 @@ import {
   SETTING_FIELDS,
   rangeText,
   type NumberField,
+  type TextField,
   type ScheduleParameter,
   type SettingKey,
 } from "./settingFields.js";
@@ -67,6 +68,11 @@ export const planSettingsSchema = z
     columnMap: z
       .array(z.object({ header: z.string(), field: z.string(), where: z.string().optional(), kind: z.enum(["stops", "fleet"]).optional() }))
       .optional(),
+    country: z
+      .string()
+      .min(1)
+      .max((SETTING_FIELDS.country as TextField).maxLength)
+      .optional(),
   })
   .superRefine((s, ctx) => {
     for (const p of crossProblems(s)) ctx.addIssue({ code: "custom", path: [p.key], message: p.message });
@@ -115,6 +121,11 @@ export function parseSettingValue(key: SettingKey, raw: unknown): ParsedSetting<
   const v = plainCell(raw);
   if (v === null || (typeof v === "string" && v.trim() === "")) {
     return { ok: false, message: `${field.label} is empty: enter ${rangeText(field)}.` };
+  }
+  if (field.type === "text") {
+    const text = String(v).trim();
+    if (text.length <= field.maxLength) return { ok: true, value: text };
+    return { ok: false, message: `${field.label} ${shownValue(v)} is not valid: enter ${rangeText(field)}.` };
   }
   if (field.type === "choice") {
     const hit = field.choices[headerWords(String(v)).join("")];

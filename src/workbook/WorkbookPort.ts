@@ -28,6 +28,19 @@ export interface WorkbookPort {
    * or `undefined` when no sheet has that name.
    */
   sheetId(name: string): Promise<string | undefined>;
+  /**
+   * Replace the content of the very hidden sheet `name` with `values`, written as text (the
+   * sheet is created very hidden when absent: users cannot unhide it from Excel's UI). For
+   * data the add-in keeps in the workbook, such as the geocoding cache.
+   */
+  writeVeryHiddenSheet(name: string, values: readonly (readonly CellValue[])[]): Promise<void>;
+  /**
+   * Write `values` into the existing sheet `sheet` at 0-based `row`, `col`, but only into cells
+   * that are empty: a cell holding anything is never overwritten, and `null` leaves a cell alone.
+   * The one way the add-in writes into a user's sheet, and only on the user's explicit action.
+   * @returns how many cells were written
+   */
+  fillEmptyCells(sheet: string, row: number, col: number, values: readonly (readonly CellValue[])[]): Promise<number>;
   /** The add-in's small key/value store of this workbook. */
   readSettings(): Promise<Record<string, string>>;
   writeSetting(key: string, value: string): Promise<void>;

@@ -20,6 +20,15 @@ export interface ScenarioRequest {
   /** Optional sheet with a user distance/time matrix (an optional addition to the shared API). */
   readonly matrixSheet?: string;
   readonly overrides?: Partial<PlanSettings>;
+  /**
+   * The stops and fleet tables with geocoded coordinates filled in (in memory, see
+   * `locateWorkbook`), read instead of the sheets, and the stops whose address was not found.
+   */
+  readonly located?: {
+    readonly stops: SheetRead;
+    readonly fleet?: SheetRead;
+    readonly unlocated: ReadonlyMap<number, string>;
+  };
 }
 
 /** What `writeScenarioResult` needs besides the port. */
@@ -67,12 +76,16 @@ export async function readScenarioInput(port: WorkbookPort, request: ScenarioReq
     }
     return read;
   };
-  const stops = await need(request.stopsSheet, "stops");
-  const fleet = await need(request.fleetSheet, "fleet");
+  const stops = request.located?.stops ?? (await need(request.stopsSheet, "stops"));
+  const fleet = request.located?.fleet ?? (await need(request.fleetSheet, "fleet"));
   const settings = await need(request.settingsSheet, "settings");
   const matrix = await need(request.matrixSheet, "distance matrix");
   if (!stops || !fleet || issues.length > 0) return { ok: false, issues, stopColumns: [], fleetColumns: [] };
-  return readProblem({ stops, fleet, ...(settings ? { settings } : {}), ...(matrix ? { matrix } : {}) }, request.overrides);
+  const unlocated = request.located?.unlocated;
+  return readProblem(
+    { stops, fleet, ...(settings ? { settings } : {}), ...(matrix ? { matrix } : {}), ...(unlocated ? { unlocated } : {}) },
+    request.overrides,
+  );
 }
 
 /**

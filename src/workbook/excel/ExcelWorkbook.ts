@@ -1,4 +1,4 @@
-import type { PrintSetup, RouteChart, SheetGrid } from "../../sheets/grid.js";
+import type { CellValue, PrintSetup, RouteChart, SheetGrid } from "../../sheets/grid.js";
 import type { RunWrite, SheetRead, WorkbookPort } from "../WorkbookPort.js";
 import { excelCapabilities, type ExcelCapabilities } from "./excelCapabilities.js";
 import { readMerges, readSelectionIn, readUsedRange, readValues, toRead, type SelectionRead } from "./excelReads.js";
@@ -272,6 +272,64 @@ export class ExcelWorkbook implements WorkbookPort {
       ws.load("isNullObject, id");
       await context.sync();
       return ws.isNullObject ? undefined : ws.id;
+    });
+  }
+
+  /**
+   * Replaces the content of the very hidden sheet `name` (`Excel.SheetVisibility.veryHidden`,
+   * ExcelApi 1.1), adding it when absent; values are written as text ("@"). One sync to find
+   * the sheet, one to write.
+   * @throws OfficeActionError when Excel fails
+   */
+  async writeVeryHiddenSheet(name: string, values: readonly (readonly CellValue[])[]): Promise<void> {
+    checkSheetName(name);
+    const width = Math.max(0, ...values.map((r) => r.length));
+    const grid = values.map((r) => Array.from({ length: width }, (_, c) => r[c] ?? ""));
+    await this.#run(`store the sheet "${name}"`, async (context) => {
+      const found = context.workbook.worksheets.getItemOrNullObject(name);
+      found.load("isNullObject");
+      await context.sync();
+      let sheet = found;
+      if (found.isNullObject) {
+        sheet = context.workbook.worksheets.add(name);
+        sheet.visibility = Excel.SheetVisibility.veryHidden;
+      } else sheet.getRange().clear(Excel.ClearApplyTo.contents);
+      if (grid.length > 0 && width > 0) {
+        const range = sheet.getRangeByIndexes(0, 0, grid.length, width);
+        range.numberFormat = grid.map((r) => r.map(() => "@"));
+        range.values = grid;
+      }
+      await context.sync();
+    });
+  }
+
+  /**
+   * Writes values into the empty cells of a block of an existing sheet: one sync reads the
+   * block, one writes it with `null` for every cell to keep (Office.js leaves a cell given
+   * `null` in a 2-D array unchanged: "Blank and null values in Excel add-ins").
+   * @returns how many cells were written
+   * @throws OfficeActionError when the sheet does not exist or Excel fails
+   */
+  async fillEmptyCells(sheet: string, row: number, col: number, values: readonly (readonly CellValue[])[]): Promise<number> {
+    const width = Math.max(0, ...values.map((r) => r.length));
+    if (values.length === 0 || width === 0) return 0;
+    return this.#run(`add values to the sheet "${sheet}"`, async (context) => {
+      const range = context.workbook.worksheets.getItem(sheet).getRangeByIndexes(row, col, values.length, width);
+      range.load("values");
+      await context.sync();
+      let written = 0;
+      const grid = range.values.map((line, r) =>
+        line.map((now, c) => {
+          const v = values[r]?.[c] ?? null;
+          if (v === null || v === "" || (now !== "" && now !== null)) return null;
+          written++;
+          return v;
+        }),
+      );
+      if (written === 0) return 0;
+      range.values = grid as unknown as (string | number | boolean)[][];
+      await context.sync();
+      return written;
     });
   }
 

@@ -1,5 +1,5 @@
 import ExcelJS from "exceljs";
-import type { RouteChart, SheetGrid } from "../../sheets/grid.js";
+import type { CellValue, RouteChart, SheetGrid } from "../../sheets/grid.js";
 import type { RunWrite, SheetRead, WorkbookPort } from "../WorkbookPort.js";
 import { pinZipDates } from "./pinZipDates.js";
 import { rawCellValue } from "./rawCellValue.js";
@@ -227,6 +227,55 @@ export class ExcelJsWorkbook implements WorkbookPort {
       writeGrid(ws, header, 1, { date1904: this.date1904 });
     }
     writeGrid(ws, rows, lastUsedRow(ws) + 1, { layout: false, date1904: this.date1904 });
+  }
+
+  /**
+   * Replace the content of a very hidden sheet (ECMA-376 Part 1, 18.18.68 ST_SheetState
+   * "veryHidden"), creating it when absent. Values are stored as text cells.
+   *
+   * @param name - the sheet name
+   * @param values - rows of cell values (`null` for empty)
+   * @throws RangeError when the name breaks Excel's sheet-name rules or a text is over 32,767 characters
+   * @example await book.writeVeryHiddenSheet("kiln-geocodes", [["Key", "Answer"], ["k", "[]"]])
+   */
+  async writeVeryHiddenSheet(name: string, values: readonly (readonly CellValue[])[]): Promise<void> {
+    for (const row of values)
+      for (const v of row)
+        if (typeof v === "string" && v.length > MAX_CELL_TEXT)
+          throw new RangeError(`a value of ${v.length} characters is over Excel's ${MAX_CELL_TEXT}`);
+    let ws = this.findSheet(name);
+    if (ws) this.book.removeWorksheet(ws.id);
+    ws = this.newSheet(name);
+    ws.state = "veryHidden";
+    const formats = values.map((r) => r.map((v) => (typeof v === "string" ? "@" : null)));
+    writeGrid(ws, { values, numberFormats: formats }, 1, { layout: false });
+  }
+
+  /**
+   * Write values into empty cells of an existing sheet only; a cell holding a value is kept.
+   *
+   * @param sheet - sheet name, matched ignoring case
+   * @param row - 0-based row of `values[0][0]`
+   * @param col - 0-based column of `values[0][0]`
+   * @param values - the values; `null` leaves a cell alone
+   * @returns how many cells were written
+   * @throws RangeError when the sheet does not exist
+   * @example await book.fillEmptyCells("Stops", 0, 7, [["Latitude"], [52.09]]) // => 2
+   */
+  async fillEmptyCells(sheet: string, row: number, col: number, values: readonly (readonly CellValue[])[]): Promise<number> {
+    const ws = this.findSheet(sheet);
+    if (!ws) throw new RangeError(`sheet "${sheet}" does not exist in this workbook`);
+    let written = 0;
+    values.forEach((line, r) =>
+      line.forEach((v, c) => {
+        if (v === null || v === "") return;
+        const cell = ws.getCell(row + r + 1, col + c + 1);
+        if (rawCellValue(cell.value) !== "") return;
+        cell.value = v;
+        written++;
+      }),
+    );
+    return written;
   }
 
   /**
