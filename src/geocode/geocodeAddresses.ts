@@ -42,7 +42,7 @@ export interface GeocodeAddressesOptions {
   readonly onProgress?: (p: GeocodeProgress) => void;
   /** The fetch to use (default the global `fetch` of Node 20 and browsers). */
   readonly fetch?: typeof fetch;
-  /** Milliseconds clock (default `Date.now`). */
+  /** Milliseconds clock (default `performance.now`, monotonic). */
   readonly now?: () => number;
 }
 
@@ -61,7 +61,8 @@ export interface GeocodeRun {
 const RETRY_STATUS = new Set([429, 500, 502, 503, 504]);
 
 /**
- * Look up addresses one request at a time, politely: at most `ratePerSecond` requests per second,
+ * Look up addresses one request at a time, politely: at most `ratePerSecond` requests per second
+ * (each request waits 1/rate s after the previous answer),
  * a timeout per request, `Retry-After` honoured on 429 and 503 (RFC 9110 §10.2.3, seconds or an
  * HTTP date), bounded retries with doubling backoff on network errors and temporary statuses.
  * Cached answers are used first (unless `again`); every new answer is added to the cache. Cancel
@@ -82,7 +83,7 @@ export async function geocodeAddresses(addresses: readonly string[], options: Ge
   const retryBaseMs = options.retryBaseMs ?? 1000;
   const maxWaitMs = options.maxWaitMs ?? 120_000;
   const doFetch = options.fetch ?? globalThis.fetch.bind(globalThis);
-  const now = options.now ?? Date.now;
+  const now = options.now ?? (() => performance.now());
   const service = geocodeServiceId(options.template);
   const signal = options.signal;
 
@@ -98,7 +99,8 @@ export async function geocodeAddresses(addresses: readonly string[], options: Ge
   // Two spellings of one address share a key: asked once per run.
   const thisRun = new Map<string, readonly GeocodeCandidate[]>();
   let requests = 0;
-  let lastStart = -Infinity;
+  // Spacing counts from the previous answer, so the service never sees two requests closer than the interval.
+  let lastAnswer = -Infinity;
   let spentMs = 0;
   let asked = 0;
   const report = (): void => {
@@ -127,11 +129,11 @@ export async function geocodeAddresses(addresses: readonly string[], options: Ge
     let failure = "";
     let candidates: GeocodeCandidate[] | undefined;
     for (let attempt = 0; attempt <= maxRetries; attempt++) {
-      await sleep(lastStart + intervalMs - now(), signal);
+      await sleep(lastAnswer + intervalMs - now(), signal);
       if (signal?.aborted) return stop();
-      lastStart = now();
       requests++;
       const tried = await tryOnce(doFetch, buildGeocodeRequest(options.template, address, options.headers ?? {}), timeoutMs, signal);
+      lastAnswer = now();
       if (signal?.aborted) return stop();
       if ("candidates" in tried) {
         candidates = tried.candidates;
@@ -147,7 +149,7 @@ export async function geocodeAddresses(addresses: readonly string[], options: Ge
         }
         waitMs = Math.max(tried.retryAfterMs, intervalMs);
       }
-      await sleep(lastStart + waitMs - now(), signal);
+      await sleep(lastAnswer + waitMs - now(), signal);
     }
     if (candidates === undefined) {
       const tries = maxRetries + 1;
