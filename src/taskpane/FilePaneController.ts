@@ -6,6 +6,7 @@
 import { runRecordText } from "./storedRunRecord.js";
 import { ExcelJsWorkbook, SETTINGS_SHEET } from "../workbook/exceljs/ExcelJsWorkbook.js";
 import { describeMissingTable, findInputSheets, type InputSheets } from "../workbook/findInputSheets.js";
+import { GEOCODE_CACHE_SHEET } from "../geocode/index.js";
 import { openWorkbookFiles } from "./openWorkbookFiles.js";
 import { PaneController } from "./PaneController.js";
 
@@ -61,7 +62,7 @@ export class FilePaneController extends PaneController {
   /** Fill the drop-downs with the workbook's sheets, keeping or setting the chosen ones. */
   private async fillSheetLists(stops?: string, fleet?: string): Promise<void> {
     const d = this.dom;
-    const names = (await this.book.listSheets()).filter((n) => n !== SETTINGS_SHEET);
+    const names = (await this.book.listSheets()).filter((n) => n !== SETTINGS_SHEET && n !== GEOCODE_CACHE_SHEET);
     const settings = await this.book.readSettings();
     const planSheets: string[] = [];
     for (const n of names) if (runRecordText(settings, n, await this.book.sheetId(n)) !== undefined) planSheets.push(n);

@@ -14,6 +14,7 @@ import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
 import { ConvergencePlot } from "./ConvergencePlot.js";
+import { GeocodePanel } from "./GeocodePanel.js";
 import { CoolingPreview } from "./CoolingPreview.js";
 import { createGuard } from "./guardHandler.js";
 import { MapBackgroundControl } from "./MapBackgroundControl.js";
@@ -46,6 +47,12 @@ export class PaneController {
   });
   private readonly mapBackground = new MapBackgroundControl(this.dom, this.map, () => this.source.port);
   private readonly downloads = new NavigationDownloads(this.dom.downloadGpx, this.dom.downloadGeoJson);
+  private readonly geocode = new GeocodePanel({
+    source: () => this.source,
+    tables: () => ({ ...(this.stops ? { stops: this.stops } : {}), ...(this.fleet ? { fleet: this.fleet } : {}) }),
+    changed: () => this.refreshRead(),
+    guard: (name, fn) => this.guard(name, fn),
+  });
   protected stops: PickedTable | undefined;
   protected fleet: PickedTable | undefined;
   private read: ReadResult | undefined;
@@ -108,6 +115,7 @@ export class PaneController {
     }
     this.mapBackground.wire(this.guard);
     this.guard("Reading the background map setting", () => this.mapBackground.load())();
+    this.geocode.init();
     this.updateFormVisibility();
     this.preview.draw();
   }
@@ -119,6 +127,7 @@ export class PaneController {
     this.fleet = undefined;
     this.read = undefined;
     this.last = undefined;
+    this.geocode.reset();
     this.dom.result.hidden = true;
     this.downloads.clear();
     await this.mapBackground.load();
@@ -169,8 +178,9 @@ export class PaneController {
       this.setOptimizeEnabled();
       return;
     }
+    // With a geocoding lookup made on these tables, their coordinates are filled in (in memory).
     const read = readProblem(
-      { stops: this.stops.read, fleet: this.fleet.read, ...(this.settingsSheet ? { settings: this.settingsSheet } : {}) },
+      { ...this.geocode.input(this.stops.read, this.fleet.read), ...(this.settingsSheet ? { settings: this.settingsSheet } : {}) },
       this.overrides(form.settings),
       { maxLocations: PANE_MAX_LOCATIONS },
     );

@@ -25,6 +25,7 @@ import { installFakeExcel } from "./fakeExcelHost.js";
 import { startTileServer } from "./tileServer.js";
 import { ensureBuild } from "./ensureBuild.js";
 import { OFFICE_JS_CDN } from "../../scripts/addinBuild.js";
+import { startGeocodeServer } from "../geocode/geocodeServer.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
 const DIST = join(ROOT, "dist");
@@ -721,4 +722,94 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       input.cleanup();
     }
   }, 600_000);
+
+  it("geocodes an address-only workbook against a loopback service (CORS), shows progress and the review, plans, and the download keeps the answers", async () => {
+    const geo = await startGeocodeServer();
+    const dir = mkdtempSync(join(tmpdir(), "kiln-geo-"));
+    try {
+      await page.unrouteAll();
+      const outside: string[] = [];
+      await page.route("**/*", (route) => {
+        const url = route.request().url();
+        if (url.startsWith(baseUrl) || url.startsWith(geo.origin) || url.startsWith("blob:") || url.startsWith("data:"))
+          return route.continue();
+        outside.push(url);
+        return route.abort();
+      });
+      // Invented addresses of the loopback service's address book (test/geocode/geocodeServer.ts).
+      const wb = new ExcelJS.Workbook();
+      const stops = wb.addWorksheet("Stops");
+      stops.addRow(["Stop", "Street", "Town", "Demand"]);
+      const streets = [
+        ["1 Kiln Lane", "Brickfield"],
+        ["Clay Street", "Brickfield"],
+        ["12 Glaze Street", "Potterton"],
+        ["4 Throw Court", "Potterton"],
+        ["Nowhere Road 9", "Brickfield"],
+      ];
+      streets.forEach(([street, town], i) => stops.addRow([`S${i + 1}`, street, town, 1]));
+      const fleet = wb.addWorksheet("Fleet");
+      fleet.addRow(["Vehicle", "Capacity", "Depot address", "Shift start", "Shift end"]);
+      fleet.addRow(["Van A", 40, "1 Depot Yard, Brickfield", "07:00", "17:00"]);
+      const input = join(dir, "addresses.xlsx");
+      await wb.xlsx.writeFile(input);
+
+      await page.setViewportSize({ width: 360, height: 900 });
+      await page.goto(`${baseUrl}/taskpane.html`);
+      await page.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+      await page.setInputFiles("#file-input", input);
+      // Without a geocoder: the clear error, and nothing has been sent anywhere.
+      await expect.poll(() => page.locator("#stops-issues").textContent(), { timeout: 30_000 }).toMatch(/set up a geocoding service/);
+      await expect(page.locator("#optimize").isDisabled()).resolves.toBe(true);
+      expect(geo.seen).toHaveLength(0);
+
+      await page.fill("#geocoder-url", geo.template);
+      await page.fill("#geocoder-rate", "2");
+      await page.click("#geocode");
+      await expect
+        .poll(() => page.locator("#geocode-progress").textContent(), { timeout: 30_000 })
+        .toMatch(/Looked up [1-5] of 6 addresses · about \d+ s left/);
+      await expect
+        .poll(() => page.locator("#geocode-progress").textContent(), { timeout: 60_000 })
+        .toMatch(/6 of 6 addresses looked up \(6 requests/);
+      // The review lists the doubtful first: not found, then approximate (a street), then the found ones.
+      const qualities = await page.locator("#geocode-review li").evaluateAll((lis) => lis.map((li) => (li as HTMLElement).dataset.quality));
+      expect(qualities).toEqual(["not-found", "approximate", "found", "found", "found", "found"]);
+      await expect(page.locator("#geocode-review li").first().textContent()).resolves.toMatch(
+        /Stops!B6.*Nowhere Road 9, Brickfield → not found/,
+      );
+
+      await page.click("#geocode-write");
+      await expect.poll(() => page.locator("#geocode-progress").textContent()).toMatch(/Added \d+ cells/);
+      await page.fill("#seconds", "1");
+      await page.locator("#seconds").dispatchEvent("change");
+      await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+      await page.click("#optimize");
+      await page.waitForSelector("#result-section:not([hidden])", { timeout: 60_000 });
+      await page.click("#write");
+      await page.waitForSelector("#download:not([hidden])", { timeout: 60_000 });
+      const [download] = await Promise.all([page.waitForEvent("download"), page.click("#download")]);
+      const saved = join(dir, "downloaded.xlsx");
+      await download.saveAs(saved);
+
+      const out = new ExcelJS.Workbook();
+      await out.xlsx.readFile(saved);
+      // The answers are kept on a very hidden sheet (ECMA-376 Part 1, 18.18.68 ST_SheetState).
+      const cache = out.getWorksheet("kiln-geocodes");
+      expect(cache?.state).toBe("veryHidden");
+      expect(cache?.rowCount).toBe(7);
+      // "Add coordinates to the sheet" wrote into empty cells to the right of the table.
+      const written = await sheetValues(out, "Stops");
+      expect(written[0]?.slice(4, 7)).toEqual(["Latitude", "Longitude", "Geocode match"]);
+      expect(written[1]?.slice(4, 7)).toEqual([52.0903, 5.1201, "found: 1 Kiln Lane, Brickfield"]);
+      // The plan lists the stop not found as unassigned with that reason.
+      const plan = await sheetValues(out, "Plan 1");
+      expect(plan.flat().some((v) => typeof v === "string" && /was not found by the geocoding service/.test(v))).toBe(true);
+      expect(outside).toEqual([]);
+    } finally {
+      await page.unrouteAll();
+      await geo.close();
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 300_000);
 });
