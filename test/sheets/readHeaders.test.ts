@@ -92,11 +92,11 @@ describe("findHeaderRow", () => {
     ];
     const excel = [
       ["Customer", "", "Location", "", ""],
-      ["Client", "Street", "Town", "Lat", "Lon"],
+      ["Client", "Street", "Phone", "Lat", "Lon"],
     ];
     const exceljs = [
       ["Customer", "Customer", "Location", "Location", "Location"],
-      ["Client", "Street", "Town", "Lat", "Lon"],
+      ["Client", "Street", "Phone", "Lat", "Lon"],
     ];
     for (const values of [excel, exceljs]) expect(findHeaderRow(values, "stops", { row: 4, col: 2, merges })).toBe(1);
     // Without the merges the naive reading takes the group row.
