@@ -79,3 +79,20 @@ function truncate(name: string, max: number): string {
   }
   return trimEnds(out) || FALLBACK_SHEET_NAME;
 }
+
+/**
+ * Excel's sheet-name rules (not in the Office.js docs, OFFICE-NOTES.md), enforced by both adapters
+ * before they add a sheet: 1 to 31 characters, none of : \ / ? * [ ], not starting or ending with '.
+ *
+ * @param name - the name to check
+ * @throws RangeError naming the rule the name breaks
+ * @example checkSheetName("Plan [2]") // throws RangeError
+ */
+export function checkSheetName(name: string): void {
+  if (typeof name !== "string" || name.length === 0 || name.length > MAX_SHEET_NAME_LENGTH) {
+    throw new RangeError(`name must be 1 to ${MAX_SHEET_NAME_LENGTH} characters, got "${String(name)}"`);
+  }
+  if (/[:\\/?*[\]]/.test(name) || name.startsWith("'") || name.endsWith("'")) {
+    throw new RangeError(`name "${name}" contains a character Excel forbids in sheet names (: \\ / ? * [ ] or a leading/trailing ')`);
+  }
+}

@@ -4,7 +4,7 @@
  * the stops left unserved. The same words feed the map's hover text, so both say the same.
  */
 import type { Plan, Problem, Visit } from "../core/index.js";
-import { formatClock } from "./formatClock.js";
+import { formatClock } from "../sheets/formatClock.js";
 
 /** One route in words. */
 export interface RouteDescription {

@@ -43,12 +43,4 @@ export async function deleteSheets(context: Excel.RequestContext, names: readonl
   }
 }
 
-/** Excel's sheet-name rules (not in the Office.js docs, OFFICE-NOTES.md): enforced here. */
-export function checkSheetName(name: string): void {
-  if (typeof name !== "string" || name.length === 0 || name.length > 31) {
-    throw new RangeError(`name must be 1 to 31 characters, got "${String(name)}"`);
-  }
-  if (/[:\\/?*[\]]/.test(name) || name.startsWith("'") || name.endsWith("'")) {
-    throw new RangeError(`name "${name}" contains a character Excel forbids in sheet names (: \\ / ? * [ ] or a leading/trailing ')`);
-  }
-}
+export { checkSheetName } from "../../sheets/uniqueSheetName.js";

@@ -6,6 +6,7 @@ import { rawCellValue } from "./rawCellValue.js";
 import { writeGrid } from "./writeGrid.js";
 import { writePrintSetup } from "./writePrintSetup.js";
 import { checkPrintSetup } from "../../sheets/printSetup.js";
+import { checkSheetName } from "../../sheets/uniqueSheetName.js";
 
 /**
  * Name of the very hidden sheet that holds the add-in's key/value settings in a file.
@@ -336,16 +337,6 @@ export class ExcelJsWorkbook implements WorkbookPort {
     checkSheetName(name);
     if (this.findSheet(name)) throw new RangeError(`name "${name}" is already a sheet of this workbook (see uniqueSheetName)`);
     return this.book.addWorksheet(name);
-  }
-}
-
-/** Excel's sheet-name rules: 1..31 characters, none of : \ / ? * [ ], not starting or ending with '. */
-function checkSheetName(name: string): void {
-  if (typeof name !== "string" || name.length < 1 || name.length > 31) {
-    throw new RangeError(`name must be 1..31 characters, got "${String(name)}"`);
-  }
-  if (/[:\\/?*[\]]/.test(name) || name.startsWith("'") || name.endsWith("'")) {
-    throw new RangeError(`name "${name}" contains a character Excel forbids in sheet names`);
   }
 }
 
