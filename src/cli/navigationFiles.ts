@@ -1,10 +1,9 @@
+import type { RouteFilesInput } from "../exports/RouteFilesInput.js";
 import { mkdir, stat, writeFile } from "node:fs/promises";
 import { dirname, join, resolve } from "node:path";
-import type { Plan, Problem } from "../core/index.js";
 import { routeCsvFiles } from "../exports/routeCsvFiles.js";
 import { writeGeoJson } from "../exports/writeGeoJson.js";
 import { writeGpx } from "../exports/writeGpx.js";
-import type { StopRow } from "../sheets/ReadResult.js";
 import { canonical } from "./outputPath.js";
 
 /** The navigation-file options of `kiln plan`, as given. */
@@ -12,16 +11,6 @@ export interface NavigationFileOptions {
   readonly gpx?: string;
   readonly geojson?: string;
   readonly csv?: string;
-}
-
-/** What the files are written from. */
-export interface NavigationFileInput {
-  readonly problem: Problem;
-  readonly plan: Plan;
-  readonly stopRows: readonly StopRow[];
-  readonly extraHeaders: readonly string[];
-  /** The scenario sheet's name (the GPX metadata name). */
-  readonly scenario: string;
 }
 
 /**
@@ -75,7 +64,7 @@ export async function checkNavigationTargets(opts: NavigationFileOptions, inputP
  * @throws Error when the file system refuses a write (reported by the CLI as exit 1)
  * @example await writeNavigationFiles({ gpx: "day.gpx" }, input, "/d/week.xlsx") // => ["Wrote GPX routes for 3 vehicles to /d/day.gpx"]
  */
-export async function writeNavigationFiles(opts: NavigationFileOptions, input: NavigationFileInput, inputPath: string): Promise<string[]> {
+export async function writeNavigationFiles(opts: NavigationFileOptions, input: RouteFilesInput, inputPath: string): Promise<string[]> {
   const lines: string[] = [];
   const used = input.plan.routes.filter((r) => r.visits.length > 0).length;
   const vehicles = `${used} vehicle${used === 1 ? "" : "s"}`;

@@ -1,22 +1,11 @@
-import type { Plan, Problem } from "../core/index.js";
+import type { RouteFilesInput } from "./RouteFilesInput.js";
 import { type DriverRoute, driverRoutes, windowText } from "../sheets/driverRoutes.js";
 import { formatClock } from "../sheets/formatClock.js";
 import type { CellValue } from "../sheets/grid.js";
 import { roundTo } from "../sheets/numberFormats.js";
-import type { StopRow } from "../sheets/ReadResult.js";
 import { COLLECT_PREFIX, DROP_PREFIX, loadHeaders } from "../sheets/routeTableRows.js";
 import { UTF8_BOM, csvText } from "./csvText.js";
 import { safeFileStem } from "./safeFileStem.js";
-
-/** What the per-vehicle CSV files are written from. */
-export interface RouteCsvInput {
-  readonly problem: Problem;
-  readonly plan: Plan;
-  /** The stops' addresses and carried columns (from `readProblem`); may be empty. */
-  readonly stopRows?: readonly StopRow[];
-  /** Headers of the carried columns in sheet order; may be empty. */
-  readonly extraHeaders?: readonly string[];
-}
 
 /** One CSV file: a file name (no folder) and its text. */
 export interface CsvFile {
@@ -43,7 +32,7 @@ export interface CsvFile {
  * @throws RangeError when the plan refers to a vehicle, stop or location the problem does not have
  * @example routeCsvFiles({ problem, plan })[0].fileName // => "Van 1.csv"
  */
-export function routeCsvFiles(input: RouteCsvInput): CsvFile[] {
+export function routeCsvFiles(input: RouteFilesInput): CsvFile[] {
   const { problem, plan } = input;
   const extraHeaders = input.extraHeaders ?? [];
   const dims = problem.loadDimensions;

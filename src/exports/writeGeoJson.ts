@@ -1,10 +1,9 @@
-import type { Plan, Problem } from "../core/index.js";
+import type { RouteFilesInput } from "./RouteFilesInput.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
 import { type DriverStop, driverRoutes, windowText } from "../sheets/driverRoutes.js";
 import { formatClock } from "../sheets/formatClock.js";
 import type { CellValue } from "../sheets/grid.js";
 import { roundTo } from "../sheets/numberFormats.js";
-import type { StopRow } from "../sheets/ReadResult.js";
 import { COLLECT_PREFIX, DROP_PREFIX, LOAD_PREFIX, loadHeaders } from "../sheets/routeTableRows.js";
 
 /** A GeoJSON position, longitude first (RFC 7946 §3.1.1). */
@@ -25,16 +24,6 @@ export interface Feature {
 export interface FeatureCollection {
   readonly type: "FeatureCollection";
   readonly features: readonly Feature[];
-}
-
-/** What a GeoJSON file is written from. */
-export interface GeoJsonInput {
-  readonly problem: Problem;
-  readonly plan: Plan;
-  /** The stops' addresses and carried columns (from `readProblem`); may be empty. */
-  readonly stopRows?: readonly StopRow[];
-  /** Headers of the carried columns in sheet order (from `readProblem`); may be empty. */
-  readonly extraHeaders?: readonly string[];
 }
 
 /**
@@ -58,7 +47,7 @@ export interface GeoJsonInput {
  * @throws RangeError when the plan refers to a vehicle, stop or location the problem does not have
  * @example writeGeoJson({ problem, plan }).features[0].geometry.type // => "LineString"
  */
-export function writeGeoJson(input: GeoJsonInput): FeatureCollection & { readonly caution: string } {
+export function writeGeoJson(input: RouteFilesInput): FeatureCollection & { readonly caution: string } {
   const { problem, plan } = input;
   const stopRows = input.stopRows ?? [];
   const extraHeaders = input.extraHeaders ?? [];

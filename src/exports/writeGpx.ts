@@ -1,8 +1,8 @@
+import type { RouteFilesInput } from "./RouteFilesInput.js";
 import type { Plan, Problem } from "../core/index.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
 import { type DriverRoute, type DriverStop, driverRoutes, routeSummary, windowText } from "../sheets/driverRoutes.js";
 import { formatClock } from "../sheets/formatClock.js";
-import type { StopRow } from "../sheets/ReadResult.js";
 import { decimalText } from "./decimalText.js";
 import { xmlText } from "./xmlText.js";
 
@@ -11,16 +11,6 @@ export const GPX_NAMESPACE = "http://www.topografix.com/GPX/1/1";
 const GPX_SCHEMA = "http://www.topografix.com/GPX/1/1/gpx.xsd";
 /** The `creator` attribute of every GPX file Kiln writes. */
 export const GPX_CREATOR = "Kiln Route Planner";
-
-/** What a GPX file is written from. */
-export interface GpxInput {
-  readonly problem: Problem;
-  readonly plan: Plan;
-  /** The stops' addresses and carried columns (from `readProblem`); may be empty. */
-  readonly stopRows?: readonly StopRow[];
-  /** The scenario name, the file's `<metadata><name>`. */
-  readonly scenario?: string;
-}
 
 /**
  * A plan as a GPX 1.1 document (the open GPS Exchange Format): one `<rte>` per used vehicle,
@@ -37,7 +27,7 @@ export interface GpxInput {
  * @throws RangeError when the plan refers to a vehicle, stop or location the problem does not have
  * @example writeGpx({ problem, plan, scenario: "Monday" }).startsWith("<?xml") // => true
  */
-export function writeGpx(input: GpxInput): string {
+export function writeGpx(input: RouteFilesInput): string {
   const { problem, plan } = input;
   const routes = driverRoutes(problem, plan, input.stopRows ?? []);
   const out: string[] = [

@@ -2,21 +2,10 @@
  * The result's "Download GPX" and "Download GeoJSON" links: the files are written in the page
  * by the pure writers of `src/exports` and offered as Blob URLs; nothing is sent anywhere.
  */
-import type { Plan, Problem } from "../core/index.js";
+import type { RouteFilesInput } from "../exports/RouteFilesInput.js";
 import { safeFileStem } from "../exports/safeFileStem.js";
 import { writeGeoJson } from "../exports/writeGeoJson.js";
 import { writeGpx } from "../exports/writeGpx.js";
-import type { StopRow } from "../sheets/ReadResult.js";
-
-/** What the two files are written from. */
-export interface NavigationDownloadInput {
-  readonly problem: Problem;
-  readonly plan: Plan;
-  readonly stopRows: readonly StopRow[];
-  readonly extraHeaders: readonly string[];
-  /** The scenario name: the files' name and the GPX metadata name. */
-  readonly scenario: string;
-}
 
 /** Media types: GPX as registered by its authors, GeoJSON by RFC 7946 §12. */
 const GPX_TYPE = "application/gpx+xml";
@@ -41,7 +30,7 @@ export class NavigationDownloads {
    * @param input - problem, plan, stop rows, carried headers and scenario name
    * @example downloads.show({ problem, plan, stopRows, extraHeaders, scenario: "Plan 1" })
    */
-  show(input: NavigationDownloadInput): void {
+  show(input: RouteFilesInput & { readonly scenario: string }): void {
     this.clear();
     const stem = safeFileStem(input.scenario, "routes");
     this.offer(this.gpx, new Blob([writeGpx(input)], { type: GPX_TYPE }), `${stem}.gpx`);
