@@ -1,8 +1,7 @@
 // kiln plan --gpx / --geojson / --csv on the demo workbook. The files are checked by outside readers
 // (fast-xml-parser's XMLValidator for XML 1.0, @tmcw/togeojson for GPX, @placemarkio/check-geojson for
 // RFC 7946, csv-parse for RFC 4180); the writers' own tests go further (test/exports).
-import { createHash } from "node:crypto";
-import { access, readFile, readdir, writeFile } from "node:fs/promises";
+import { readFile, readdir, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { check } from "@placemarkio/check-geojson";
 import { gpx } from "@tmcw/togeojson";
@@ -11,18 +10,9 @@ import { parse } from "csv-parse/sync";
 import { XMLValidator } from "fast-xml-parser";
 import { describe, expect, it } from "vitest";
 import { main } from "../../src/cli/main.js";
-import { captureIO, demoCopy } from "../workbook/harness.js";
+import { captureIO, demoCopy, exists, sha256 } from "../workbook/harness.js";
 
 const MOVES = ["--moves", "3000"];
-const sha256 = async (path: string): Promise<string> =>
-  createHash("sha256")
-    .update(await readFile(path))
-    .digest("hex");
-const exists = (path: string): Promise<boolean> =>
-  access(path).then(
-    () => true,
-    () => false,
-  );
 
 describe("kiln plan --gpx --geojson --csv", () => {
   it("writes the three kinds of files beside the workbook, says so, and leaves the input byte for byte unchanged", async () => {

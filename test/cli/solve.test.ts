@@ -1,7 +1,6 @@
-import { createHash } from "node:crypto";
 import { existsSync } from "node:fs";
 import { execFile } from "node:child_process";
-import { access, readFile, writeFile } from "node:fs/promises";
+import { readFile, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { promisify } from "node:util";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -11,18 +10,9 @@ import type { CliIO } from "../../src/cli/CliIO.js";
 
 const runSolve = (args: string[], io: CliIO): Promise<number> => main(["plan", ...args], io);
 import { COMPARE_SHEET } from "../../src/sheets/layoutCompare.js";
-import { captureIO, demoCopy, loadWithExcelJs, sheetValues, withCell } from "../workbook/harness.js";
+import { captureIO, demoCopy, loadWithExcelJs, sheetValues, withCell, exists, sha256 } from "../workbook/harness.js";
 
 const MOVES = ["--moves", "5000"];
-const sha256 = async (path: string): Promise<string> =>
-  createHash("sha256")
-    .update(await readFile(path))
-    .digest("hex");
-const exists = (path: string): Promise<boolean> =>
-  access(path).then(
-    () => true,
-    () => false,
-  );
 
 describe("kiln solve (in process)", () => {
   it("writes NAME.plan.xlsx beside the input, leaves the input byte for byte unchanged, and keeps every original sheet's values", async () => {

@@ -1,9 +1,13 @@
 /** Shared helpers of the workbook and CLI tests (not a test file itself). */
-import { mkdtemp, readFile, writeFile } from "node:fs/promises";
+import { createHash } from "node:crypto";
+import { access, mkdtemp, readFile, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import ExcelJS from "exceljs";
 import type { CliIO } from "../../src/cli/CliIO.js";
+import type { ReadResult } from "../../src/sheets/ReadResult.js";
+import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
+import { readScenarioInput } from "../../src/workbook/scenario.js";
 
 /** The committed demo workbook. */
 export const DEMO_URL = new URL("../../demo/kiln-demo.xlsx", import.meta.url);
@@ -51,4 +55,30 @@ export function sheetValues(book: ExcelJS.Workbook, name: string): unknown[][] {
     rows[r - 1] = (row.values as unknown[]).slice(1).map((v) => (v instanceof Date ? v.getTime() : v));
   });
   return rows;
+}
+
+/** SHA-256 of a file's bytes, to show a file was left byte for byte unchanged. */
+export async function sha256(path: string): Promise<string> {
+  return createHash("sha256")
+    .update(await readFile(path))
+    .digest("hex");
+}
+
+/** Whether a file or folder exists. */
+export function exists(path: string): Promise<boolean> {
+  return access(path).then(
+    () => true,
+    () => false,
+  );
+}
+
+/**
+ * The demo workbook opened with the file adapter and its Stops, Fleet and Settings read with a
+ * move budget; throws (naming the cells) when the demo does not read.
+ */
+export async function readDemo(moves: number): Promise<{ book: ExcelJsWorkbook; read: ReadResult & { ok: true } }> {
+  const book = await ExcelJsWorkbook.fromBuffer(await readFile(DEMO_URL));
+  const read = await readScenarioInput(book, { stopsSheet: "Stops", fleetSheet: "Fleet", settingsSheet: "Settings", overrides: { moves } });
+  if (!read.ok) throw new Error(read.issues.map((i) => `${i.sheet}!${i.cell}: ${i.message}`).join("\n"));
+  return { book, read };
 }

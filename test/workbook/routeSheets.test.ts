@@ -9,21 +9,14 @@ import { solve } from "../../src/core/solve.js";
 import { RETURN_STOP } from "../../src/sheets/layoutRouteSheets.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { zipEntryNames } from "../../src/workbook/exceljs/zipEntryNames.js";
-import { readScenarioInput, writeScenarioResult } from "../../src/workbook/scenario.js";
-import { DEMO_URL, loadWithExcelJs } from "./harness.js";
+import { writeScenarioResult } from "../../src/workbook/scenario.js";
+import { DEMO_URL, loadWithExcelJs, readDemo } from "./harness.js";
 import { zipEntryText } from "./zipEntryText.js";
 
 const MOVES = 20_000;
 
 async function run(options: { sheetPerVehicle?: boolean; locale?: string }) {
-  const book = await ExcelJsWorkbook.fromBuffer(await readFile(DEMO_URL));
-  const read = await readScenarioInput(book, {
-    stopsSheet: "Stops",
-    fleetSheet: "Fleet",
-    settingsSheet: "Settings",
-    overrides: { moves: MOVES },
-  });
-  if (!read.ok) throw new Error(read.issues.map((i) => i.message).join("\n"));
+  const { book, read } = await readDemo(MOVES);
   const result = solve(read.problem, { seed: 3, budget: { moves: MOVES } });
   const out = await writeScenarioResult(book, {
     read,

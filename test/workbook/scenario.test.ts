@@ -6,19 +6,12 @@ import { COMPARE_SHEET } from "../../src/sheets/layoutCompare.js";
 import { scenarioSettingsKey } from "../../src/sheets/scenarioSettingsKey.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { readScenarioInput, sourceOf, writeScenarioResult } from "../../src/workbook/scenario.js";
-import { DEMO_URL, loadWithExcelJs } from "./harness.js";
+import { DEMO_URL, loadWithExcelJs, readDemo } from "./harness.js";
 
 const MOVES = 20_000;
 
 async function solvedDemo() {
-  const book = await ExcelJsWorkbook.fromBuffer(await readFile(DEMO_URL));
-  const read = await readScenarioInput(book, {
-    stopsSheet: "Stops",
-    fleetSheet: "Fleet",
-    settingsSheet: "Settings",
-    overrides: { moves: MOVES },
-  });
-  if (!read.ok) throw new Error(read.issues.map((i) => `${i.sheet}!${i.cell}: ${i.message}`).join("\n"));
+  const { book, read } = await readDemo(MOVES);
   const s = read.settings;
   const result = solve(read.problem, { seed: s.seed, budget: { moves: MOVES }, rule: s.rule, cooling: s.cooling, p0: s.p0, pEnd: s.pEnd });
   return { book, read, result };
