@@ -6,7 +6,7 @@
  */
 import { parentPort, workerData } from "node:worker_threads";
 import { createSolver } from "../core/index.js";
-import type { ChainRequest, ChainMessage } from "./chains.js";
+import { epochMs, type ChainRequest, type ChainMessage } from "./chains.js";
 
 const port = parentPort;
 if (port) {
@@ -16,7 +16,7 @@ if (port) {
   try {
     const solver = createSolver(req.problem, {
       ...req.options,
-      now: () => performance.now(),
+      now: epochMs,
       onProgress: (progress) => post({ type: "progress", chain: req.chain, progress }),
       signal: {
         get aborted() {

@@ -134,6 +134,9 @@ function runOnThreads(problem: Problem, options: ChainOptions, workers: number, 
   const flag = new Int32Array(stop);
   const seed = options.seed ?? 1;
   const module = workerModule();
+  // One wall-clock start for every chain (milliseconds since the epoch, comparable across
+  // threads): a chain whose thread took longer to start does not run on past the others.
+  const startedAt = epochMs();
   const latest: (Progress | undefined)[] = new Array<Progress | undefined>(workers).fill(undefined);
   const results: (SolveResult | undefined)[] = new Array<SolveResult | undefined>(workers).fill(undefined);
   const threads: Worker[] = [];
@@ -151,7 +154,7 @@ function runOnThreads(problem: Problem, options: ChainOptions, workers: number, 
       reject(new Error(message));
     };
     for (let chain = 0; chain < workers; chain++) {
-      const request: ChainRequest = { problem, options: { ...options, seed: chainSeed(seed, chain) }, chain, stop };
+      const request: ChainRequest = { problem, options: { ...options, seed: chainSeed(seed, chain), startedAt }, chain, stop };
       const t = new Worker(module.url, { workerData: request, eval: module.eval });
       threads.push(t);
       t.on("message", (m: ChainMessage) => {
@@ -175,6 +178,17 @@ function runOnThreads(problem: Problem, options: ChainOptions, workers: number, 
       });
     }
   });
+}
+
+/**
+ * The wall clock in milliseconds since the epoch at sub-millisecond resolution; the same scale
+ * in every thread (each thread's `performance.now()` counts from its own origin).
+ *
+ * @returns milliseconds since 1970-01-01
+ * @example epochMs() // => 1796240000123.456
+ */
+export function epochMs(): number {
+  return performance.timeOrigin + performance.now();
 }
 
 /**

@@ -78,6 +78,12 @@ export interface SolveOptions {
   readonly neighbours: number;
   /** Milliseconds clock; required for a `seconds` budget and for progress pacing. */
   readonly now?: () => number;
+  /**
+   * Reading of `now` at which the run's clock starts (default: `now()` when the solver is
+   * created). Chains started on threads at different moments share one start, so a seconds
+   * budget ends at the same moment for all of them.
+   */
+  readonly startedAt?: number;
   /** Called at most every `progressEveryMs` (default 100 ms; needs `now`). */
   readonly onProgress?: (progress: Progress) => void;
   readonly progressEveryMs: number;
@@ -88,7 +94,7 @@ export interface SolveOptions {
 export const GEOMETRIC_ALPHA = 0.94;
 
 /** Defaults of `SolveOptions`. Values are common practice unless a source is named. */
-export const SOLVE_DEFAULTS: Omit<SolveOptions, "now" | "onProgress" | "signal"> = {
+export const SOLVE_DEFAULTS: Omit<SolveOptions, "now" | "onProgress" | "signal" | "startedAt"> = {
   seed: 1,
   budget: { moves: 2_000_000 },
   rule: "metropolis",

@@ -60,7 +60,7 @@ export function solve(problem: Problem, options: Partial<SolveOptions> = {}): So
 export function createSolver(problem: Problem, options: Partial<SolveOptions> = {}): Solver {
   const o: SolveOptions = { ...SOLVE_DEFAULTS, ...options };
   const now = o.now;
-  const startedAt = now ? now() : 0;
+  const startedAt = now ? (o.startedAt ?? now()) : 0;
   const run = prepareRun(problem, o, startedAt);
   const { cp, rng, nb, state, active, cooling, t0, tEnd, budgetMoves, seconds } = run;
 

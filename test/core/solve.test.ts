@@ -85,6 +85,22 @@ describe("solve", () => {
     for (let i = 1; i < seen.length; i++) expect(seen[i]!).toBeGreaterThan(seen[i - 1]!);
   });
 
+  it("a seconds budget counts from the start it is given, so chains started late end together", () => {
+    const problem = randomInstance(35, { stops: 30, vehicles: 4 });
+    // A clock that advances 1 ms per reading: the run's own start gives it the full two seconds.
+    let a = 10_000;
+    const own = solve(problem, { seed: 4, budget: { seconds: 2 }, now: () => (a += 1) });
+    // The same clock with a shared start 1.5 s earlier leaves a quarter of the budget.
+    let b = 10_000;
+    const late = solve(problem, { seed: 4, budget: { seconds: 2 }, now: () => (b += 1), startedAt: 8_500 });
+    expect(late.stats.moves).toBeGreaterThan(0);
+    expect(late.stats.moves).toBeLessThan(own.stats.moves / 2);
+    // Both stop once the shared clock has passed the end: 12 000 ms for own, 10 500 ms for late.
+    expect(a).toBeGreaterThanOrEqual(12_000);
+    expect(b).toBeGreaterThanOrEqual(10_500);
+    expect(b).toBeLessThan(12_000);
+  });
+
   it("step(n) advances in slices and says when the budget is used", () => {
     const problem = randomInstance(33, { stops: 20, vehicles: 3 });
     const solver = createSolver(problem, { budget: { moves: 10_000 } });
