@@ -10,6 +10,7 @@ import type { CliIO } from "./CliIO.js";
 import { declarePlan } from "./planCommand.js";
 import { declareGeocode } from "./geocodeCommand.js";
 import { declareProfile } from "./profileCommand.js";
+import { declareCompareSchedules } from "./compareSchedulesCommand.js";
 
 /** The package version (package.json sits two folders up from both src/cli and dist/cli). */
 export function packageVersion(): string {
@@ -44,6 +45,7 @@ export function buildProgram(io: CliIO, exit: (code: number) => void): Command {
   declarePlan(program, io, exit);
   declareGeocode(program, io, exit);
   declareProfile(program, io, exit);
+  declareCompareSchedules(program, io, exit);
   declareBench(program, io, exit);
   return program;
 }

@@ -59,12 +59,13 @@ function defaultText(key: SettingKey): string {
  * Declare the sheet options and the plan-setting options on a command.
  *
  * @param cmd - a commander command
+ * @param keys - the settings to offer (default: every run setting)
  * @returns the command, for chaining
  * @example addRunOptions(program.command("plan"))
  */
-export function addRunOptions(cmd: Command): Command {
+export function addRunOptions(cmd: Command, keys: readonly SettingKey[] = RUN_SETTING_KEYS): Command {
   for (const [flag, help] of SHEET_OPTIONS) cmd.addOption(new Option(`--${flag} <SHEET>`, help));
-  for (const key of RUN_SETTING_KEYS) {
+  for (const key of keys) {
     const f = SETTING_FIELDS[key];
     const d = defaultText(key);
     cmd.addOption(new Option(`--${f.flag} <${f.valueName}>`, `${f.label}: ${f.help}; ${rangeText(f)}${d ? ` (default ${d})` : ""}`));
@@ -83,13 +84,14 @@ export function addRunOptions(cmd: Command): Command {
  * The setting options the user gave, by flag name (as `settingFlags` takes them).
  *
  * @param cmd - the command after parsing
+ * @param keys - the settings the command offers (default: every run setting)
  * @returns option texts by flag, only those given
  * @example givenSettings(cmd) // => { detour: "1.5", seed: "7" }
  */
-export function givenSettings(cmd: Command): Record<string, string> {
+export function givenSettings(cmd: Command, keys: readonly SettingKey[] = RUN_SETTING_KEYS): Record<string, string> {
   const opts = cmd.opts<Record<string, unknown>>();
   const out: Record<string, string> = {};
-  for (const key of RUN_SETTING_KEYS) {
+  for (const key of keys) {
     const flag = SETTING_FIELDS[key].flag;
     const value = opts[attributeName(flag)];
     if (typeof value === "string") out[flag] = value;
