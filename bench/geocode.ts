@@ -1,5 +1,5 @@
 /**
- * Geocoding throughput at the default rate (1 request per second, counted from each answer):
+ * Geocoding throughput at the default rate (1 request per second, counted from request start to request start):
  * 100 invented addresses against a loopback GeoJSON service on 127.0.0.1 (a free port), then the
  * same 100 again from the cache. Target: the first run within 105 s with progress shown; the
  * second run makes no request. Prints a table and writes bench/out/geocode.json.

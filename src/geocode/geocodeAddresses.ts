@@ -62,7 +62,8 @@ const RETRY_STATUS = new Set([429, 500, 502, 503, 504]);
 
 /**
  * Look up addresses one request at a time, politely: at most `ratePerSecond` requests per second
- * (each request waits 1/rate s after the previous answer),
+ * (each request starts at least 1/rate s after the previous request started, and only once that
+ * one has been answered),
  * a timeout per request, `Retry-After` honoured on 429 and 503 (RFC 9110 §10.2.3, seconds or an
  * HTTP date), bounded retries with doubling backoff on network errors and temporary statuses.
  * Cached answers are used first (unless `again`); every new answer is added to the cache. Cancel
@@ -99,8 +100,10 @@ export async function geocodeAddresses(addresses: readonly string[], options: Ge
   // Two spellings of one address share a key: asked once per run.
   const thisRun = new Map<string, readonly GeocodeCandidate[]>();
   let requests = 0;
-  // Spacing counts from the previous answer, so the service never sees two requests closer than the interval.
-  let lastAnswer = -Infinity;
+  // Spacing counts from request start to request start: the polite rate is the number of requests
+  // begun per second. One request at a time still holds, since the next waits for the answer too.
+  let lastStart = -Infinity;
+  let lastAnswer: number;
   let spentMs = 0;
   let asked = 0;
   const report = (): void => {
@@ -129,9 +132,10 @@ export async function geocodeAddresses(addresses: readonly string[], options: Ge
     let failure = "";
     let candidates: GeocodeCandidate[] | undefined;
     for (let attempt = 0; attempt <= maxRetries; attempt++) {
-      await sleep(lastAnswer + intervalMs - now(), signal);
+      await sleepUntil(lastStart + intervalMs, now, signal);
       if (signal?.aborted) return stop();
       requests++;
+      lastStart = now();
       const tried = await tryOnce(doFetch, buildGeocodeRequest(options.template, address, options.headers ?? {}), timeoutMs, signal);
       lastAnswer = now();
       if (signal?.aborted) return stop();
@@ -149,7 +153,7 @@ export async function geocodeAddresses(addresses: readonly string[], options: Ge
         }
         waitMs = Math.max(tried.retryAfterMs, intervalMs);
       }
-      await sleep(lastAnswer + waitMs - now(), signal);
+      await sleepUntil(lastAnswer + waitMs, now, signal);
     }
     if (candidates === undefined) {
       const tries = maxRetries + 1;
@@ -226,6 +230,11 @@ function serviceMessage(service: string, address: string, answered: string): str
 function quote(text: string): string {
   const t = text.replace(/\s+/g, " ").trim();
   return JSON.stringify(t.length > 120 ? `${t.slice(0, 120)}…` : t);
+}
+
+/** Sleep until `now()` reaches `atMs`: timers may fire a little early against a monotonic clock, so check again. */
+async function sleepUntil(atMs: number, now: () => number, signal: AbortSignal | undefined): Promise<void> {
+  for (let left = atMs - now(); left > 0 && !signal?.aborted; left = atMs - now()) await sleep(Math.ceil(left), signal);
 }
 
 function sleep(ms: number, signal: AbortSignal | undefined): Promise<void> {
