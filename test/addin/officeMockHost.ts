@@ -179,7 +179,16 @@ export interface Setup {
   /** How Excel stores written text (default: exactly as sent). */
   textStored?: (text: string) => unknown;
   /** `address` and `values` are the filled part; `selected` what the user selected (default: the same). */
-  selection?: { sheet: string; address: string; selected?: string; values: unknown[][]; rowIndex: number; columnIndex: number };
+  selection?: {
+    sheet: string;
+    address: string;
+    selected?: string;
+    values: unknown[][];
+    rowIndex: number;
+    columnIndex: number;
+    /** Merged areas Excel reports for the filled part (sheet coordinates); absent: the range has no getMergedAreasOrNullObject. */
+    merges?: { rowIndex: number; columnIndex: number; rowCount: number; columnCount: number }[];
+  };
   table?: { name: string; address: string; values: unknown[][]; rowIndex: number; columnIndex: number };
   settings?: { key: string; value: unknown }[];
   /** Ranges readable through getItem(sheet).getRange(address), keyed "Sheet!A1:B2". */
@@ -318,6 +327,25 @@ export function install(setup: Setup, options: ExcelWorkbookOptions = {}): Excel
             columnIndex: sel.columnIndex,
             rowCount: sel.values.length,
             columnCount: sel.values[0]?.length ?? 0,
+            ...(sel.merges
+              ? {
+                  // Range.getMergedAreasOrNullObject (ExcelApi 1.13): a RangeAreas whose `areas` are ranges.
+                  mergedAreas: {
+                    isNullObject: sel.merges.length === 0,
+                    areas: {
+                      items: sel.merges,
+                      load: function (this: OfficeMockObject, arg: unknown) {
+                        log.push(["areas.load", arg]);
+                        return OfficeMockObject.prototype.load.call(this, "items");
+                      },
+                    },
+                  },
+                  getMergedAreasOrNullObject: function (this: Record<string, unknown>) {
+                    log.push(["getMergedAreasOrNullObject"]);
+                    return this.mergedAreas;
+                  },
+                }
+              : {}),
           },
           getIntersectionOrNullObject: function (this: Record<string, unknown>, other: unknown) {
             log.push(["getIntersectionOrNullObject", other]);

@@ -359,13 +359,14 @@ export class ExcelWorkbook implements WorkbookPort {
    * Reads the selected block, or the whole Excel table it lies inside (ExcelApi 1.9;
    * without it, the plain selection). The selection is clipped to the sheet's used range
    * first, so selecting whole columns (A:N) reads only the filled rows instead of a million.
-   * Two syncs only when a table is involved.
+   * Two syncs only when a table is involved; with ExcelApi 1.13 one more for the merged areas of
+   * what was read (a row of merged group headers above the header), as `readSheet` does.
    * @throws OfficeActionError when several blocks are selected or Excel fails
    */
   async readSelection(): Promise<SelectionRead> {
     const caps = this.capabilities();
     return this.#run("read the selection (select one block of cells)", (context) =>
-      readSelectionIn(context, caps.tables, this.#readBlockCells),
+      readSelectionIn(context, caps.tables, this.#readBlockCells, caps.merges),
     );
   }
 

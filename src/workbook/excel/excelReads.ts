@@ -68,12 +68,15 @@ export async function readValues(
 
 /**
  * Reads the selected block clipped to the used range, or the whole Excel table it lies
- * inside when `tables` (ExcelApi 1.9) is true. Two syncs only when a table is involved.
+ * inside when `tables` (ExcelApi 1.9) is true. Two syncs only when a table is involved, one
+ * more for the merged areas of what was read when `merges` (ExcelApi 1.13) is true, so a row of
+ * merged group headers in the selection is told from the header as it is for a whole sheet.
  */
 export async function readSelectionIn(
   context: Excel.RequestContext,
   tables: boolean,
   blockCells: number = READ_BLOCK_CELLS,
+  merges = false,
 ): Promise<SelectionRead> {
   const range = context.workbook.getSelectedRange();
   range.load("address, rowIndex, columnIndex");
@@ -97,9 +100,18 @@ export async function readSelectionIn(
     whole &&
     blockContains({ row: whole.rowIndex, col: whole.columnIndex, rows: whole.rowCount, cols: whole.columnCount }, selected)
   ) {
-    return { read: await readValues(context, sheet.name, whole, blockCells), address: whole.address, tableName: table.name };
+    const read = await withMerges(context, await readValues(context, sheet.name, whole, blockCells), whole, merges);
+    return { read, address: whole.address, tableName: table.name };
   }
-  return { read: await readValues(context, sheet.name, filled, blockCells), address: filled.address };
+  return {
+    read: await withMerges(context, await readValues(context, sheet.name, filled, blockCells), filled, merges),
+    address: filled.address,
+  };
+}
+
+async function withMerges(context: Excel.RequestContext, read: SheetRead, range: Excel.Range, merges: boolean): Promise<SheetRead> {
+  const areas = merges ? await readMerges(context, range) : [];
+  return areas.length > 0 ? { ...read, merges: areas } : read;
 }
 
 /** A loaded range (values, rowIndex, columnIndex) as a `SheetRead`. */
