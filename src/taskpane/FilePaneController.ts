@@ -108,6 +108,10 @@ export class FilePaneController extends PaneController {
     return out;
   }
 
+  protected override emptyTableHint(kind: "stops" | "fleet"): string {
+    return this.dom.fileName.textContent ? `Choose the ${kind} sheet in the list above.` : "Open a workbook file first.";
+  }
+
   protected override async rerunSheet(): Promise<string | undefined> {
     return this.dom.rerunSheet.value || undefined;
   }

@@ -10,6 +10,7 @@ import type { SheetRead } from "../sheets/grid.js";
 import type { TableKind } from "../sheets/matchHeaders.js";
 import { parseSettingsSheet } from "../sheets/parseSettingsSheet.js";
 import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "../sheets/PlanSettings.js";
+import { proposeScenarioName } from "../sheets/proposeScenarioName.js";
 import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
@@ -22,7 +23,7 @@ import type { PaneSource, PickedTable } from "./PaneSource.js";
 import { NavigationDownloads } from "./navigationDownloads.js";
 import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
 import { renderResult } from "./renderResult.js";
-import { renderPickedTables } from "./renderTableSummary.js";
+import { excelEmptyTableHint, renderPickedTables } from "./renderTableSummary.js";
 import { RouteMap } from "./RouteMap.js";
 import { PANE_MAX_LOCATIONS } from "../sheets/sizeWarning.js";
 import { PointerHold } from "./pointerHold.js";
@@ -231,7 +232,12 @@ export class PaneController {
       ? this.guard("Select cell", (sheet: string, cell: string) => this.source.selectCell?.(sheet, cell))
       : undefined;
     const onMap = this.guard("Map a column", (_kind: TableKind, header: string, field: string) => this.mapColumn(header, field));
-    renderPickedTables(this.dom, this.stops, this.fleet, columns, issues, onCell, onMap);
+    renderPickedTables(this.dom, this.stops, this.fleet, columns, issues, onCell, onMap, (kind) => this.emptyTableHint(kind));
+  }
+
+  /** What a table's summary says while none is picked: which range to select (Excel) or sheet to choose. */
+  protected emptyTableHint(kind: TableKind): string {
+    return excelEmptyTableHint(kind);
   }
 
   private settingsChanged(): void {
@@ -259,6 +265,8 @@ export class PaneController {
   private async optimize(): Promise<void> {
     const d = this.dom;
     d.error.hidden = true;
+    // Each run is offered a free name of its own (the sheets may have changed since the last one).
+    await this.suggestScenarioName();
     const form = settingsFromForm(readForm(d));
     if (form.issues.length > 0) return this.showError(form.issues.map((i) => i.message).join(" "));
     await this.refreshRead();
@@ -354,23 +362,24 @@ export class PaneController {
   private async rerun(): Promise<void> {
     const d = this.dom;
     const sheet = await this.rerunSheet();
-    if (!sheet) return void (d.rerunStatus.textContent = "Choose a plan sheet first.");
+    if (!sheet) return void (d.rerunStatus.textContent = "Choose a plan sheet in the list first (plan sheets are the ones Kiln wrote).");
     const stored = await storedRunRecord(this.source.port, sheet);
     if ("message" in stored) return void (d.rerunStatus.textContent = stored.message);
     const record = stored.record;
     writeForm(d, formFromSettings(record.settings, record.scenario, readForm(d)));
-    d.rerunStatus.textContent = `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}). Optimize writes a new sheet.`;
+    // The rerun lands in a sheet of its own: offer the next free name, not the plan's own.
+    await this.suggestScenarioName();
+    d.rerunStatus.textContent = `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}). Optimize writes a new sheet, "${d.scenario.value}".`;
     this.settingsChanged();
   }
 
-  /** Put "Plan N" (the first free N) in the scenario field unless the user typed their own name. */
+  /**
+   * Offer a free scenario name: "Plan N" (the first free N) for a numbered default, a typed name
+   * as typed while no sheet has it (see `proposeScenarioName`).
+   */
   protected async suggestScenarioName(): Promise<void> {
     const input = this.dom.scenario;
-    if (!/^Plan \d+$/.test(input.value.trim()) && input.value.trim() !== "") return;
-    const names = new Set((await this.source.port.listSheets()).map((n) => n.toLowerCase()));
-    let n = 1;
-    while (names.has(`plan ${n}`)) n++;
-    input.value = `Plan ${n}`;
+    input.value = proposeScenarioName(input.value, await this.source.port.listSheets());
   }
 
   protected showError(message: string): void {

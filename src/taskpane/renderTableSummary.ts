@@ -27,6 +27,7 @@ export interface ColumnMapping {
  * @param issues - the errors (and, with `warning: true`, notes) about this table
  * @param onCell - called with (sheet, cell) when an address is clicked; absent: addresses are plain text
  * @param mapping - the table's kind and what to call when the user maps a column; absent: columns shown as text
+ * @param empty - what to show when no table is picked: what to select or choose (`emptyTableHint`)
  * @example renderTableSummary(summaryEl, listEl, { address: "Stops!A1:J81", rows: 80 }, cols, [], undefined)
  */
 export function renderTableSummary(
@@ -37,11 +38,12 @@ export function renderTableSummary(
   issues: readonly (Issue & { readonly warning?: boolean })[],
   onCell: ((sheet: string, cell: string) => void) | undefined,
   mapping?: ColumnMapping,
+  empty = "No table chosen yet.",
 ): void {
   summary.replaceChildren();
   list.replaceChildren();
   if (!table) {
-    summary.textContent = "No range chosen yet.";
+    summary.textContent = empty;
     return;
   }
   const head = document.createElement("div");
@@ -88,6 +90,7 @@ export function renderTableSummary(
  * @param issues - every error and warning of the read
  * @param onCell - called with (sheet, cell) when an address is clicked
  * @param onMap - called when the user maps a column of a table to a field, carry or ignore
+ * @param empty - what each summary says while its table is not picked (what to select or choose)
  */
 export function renderPickedTables(
   d: PaneDom,
@@ -97,6 +100,7 @@ export function renderPickedTables(
   issues: readonly (Issue & { readonly warning?: boolean })[],
   onCell: ((sheet: string, cell: string) => void) | undefined,
   onMap?: (kind: TableKind, header: string, field: string) => void,
+  empty?: (kind: TableKind) => string,
 ): void {
   const stopsSheet = stops?.read.sheet;
   const fleetSheet = fleet?.read.sheet;
@@ -106,8 +110,26 @@ export function renderPickedTables(
   const rows = (t: PickedTable | undefined, kind: TableKind) =>
     t && { address: t.address, rows: readTable(t.read, kind).table?.rows.length ?? 0 };
   const mapping = (kind: TableKind): ColumnMapping | undefined => onMap && { kind, onMap: (h, f) => onMap(kind, h, f) };
-  renderTableSummary(d.stopsSummary, d.stopsIssues, rows(stops, "stops"), columns.stops, forStops, onCell, mapping("stops"));
-  renderTableSummary(d.fleetSummary, d.fleetIssues, rows(fleet, "fleet"), columns.fleet, forFleet, onCell, mapping("fleet"));
+  renderTableSummary(
+    d.stopsSummary,
+    d.stopsIssues,
+    rows(stops, "stops"),
+    columns.stops,
+    forStops,
+    onCell,
+    mapping("stops"),
+    empty?.("stops"),
+  );
+  renderTableSummary(
+    d.fleetSummary,
+    d.fleetIssues,
+    rows(fleet, "fleet"),
+    columns.fleet,
+    forFleet,
+    onCell,
+    mapping("fleet"),
+    empty?.("fleet"),
+  );
 }
 
 /**
@@ -158,4 +180,16 @@ function columnControls(columns: readonly ColumnMatch[], mapping: ColumnMapping 
     box.append(line);
   }
   return box;
+}
+
+/**
+ * What an empty table summary says in Excel: which range to select and which button to press.
+ *
+ * @param kind - the table
+ * @returns the sentence for the summary
+ * @example excelEmptyTableHint("fleet") // => "No range chosen yet: select the fleet table in its sheet (the header row and one row per vehicle), then press Use selection."
+ */
+export function excelEmptyTableHint(kind: TableKind): string {
+  const rows = kind === "stops" ? "one row per stop" : "one row per vehicle";
+  return `No range chosen yet: select the ${kind} table in its sheet (the header row and ${rows}), then press Use selection.`;
 }

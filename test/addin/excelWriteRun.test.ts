@@ -64,6 +64,20 @@ describe("writeRun: sheets, run record and Compare row in one Excel.run", () => 
     expect(host().syncs()).toBe(6);
   });
 
+  it("places the new sheets just before an existing Compare sheet (worksheet.position, ExcelApi 1.1)", async () => {
+    // Tabs: Stops 0, Fleet 1, Compare 2. Setting position p moves a sheet there and shifts the rest right.
+    const book = install({ sheets: { Stops: "empty", Fleet: "empty", Compare: "empty" } });
+    await book.writeRun(run);
+    expect(entries("position")).toEqual([
+      ["position", "Plan", 2],
+      ["position", "Plan routes", 3],
+    ]);
+    // Without a Compare sheet yet, the sheets stay where add puts them (the end) and Compare follows.
+    const fresh = install({ sheets: { Stops: "empty" } });
+    await fresh.writeRun(run);
+    expect(entries("position")).toEqual([]);
+  });
+
   it("removes every sheet it added when a later step fails, and names them in the error", async () => {
     const book = install({ sheets: { Stops: "empty" } });
     // syncs: 1 names, 2 the sheets' cells, 3 the plan sheet's id, 4 Compare's end (missing), 5 the new Compare sheet: fail there

@@ -139,6 +139,9 @@ function recordingSheet(log: Entry[], name: string): unknown {
     getRange: (address: string) => recordingRange(log, name, address),
     freezePanes: { freezeRows: (n: number) => log.push(["freezeRows", name, n]) },
     activate: () => log.push(["activate", name]),
+    set position(v: number) {
+      log.push(["position", name, v]);
+    },
     pageLayout: recordingPageLayout(log, name),
     horizontalPageBreaks: { add: (at: string) => log.push(["pageBreak", name, at]) },
     charts: {
@@ -243,7 +246,7 @@ export function install(setup: Setup, options: ExcelWorkbookOptions = {}): Excel
           active: { name: "Fleet" },
           ranges: setup.ranges ?? {},
           missingRange: { isNullObject: false, values: [], valuesAsJson: [], rowIndex: 0, columnIndex: 0, rowCount: 0, columnCount: 0 },
-          items: [...present].map((name) => ({ name })),
+          items: [...present].map((name, position) => ({ name, position })),
           load: function (this: OfficeMockObject, arg: unknown) {
             log.push(["worksheets.load", arg]);
             return OfficeMockObject.prototype.load.call(this, "items");

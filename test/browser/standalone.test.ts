@@ -234,6 +234,8 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await expect(page.locator("#seed").inputValue()).resolves.toBe(seedOfRun);
       await expect(page.locator("#schedule").inputValue()).resolves.toBe("timeFraction");
       await expect(page.locator("#seconds").inputValue()).resolves.toBe("60");
+      // The rerun is offered the next free name, not the plan's own (which would land as "Plan 1 (2)").
+      await expect(page.locator("#scenario").inputValue()).resolves.toBe("Plan 2");
       await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
       await page.click("#optimize");
       await expect
@@ -242,7 +244,7 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await page.click("#stop");
       await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
       await page.click("#write");
-      await expect.poll(() => page.locator("#write-status").textContent(), { timeout: 60_000 }).toMatch(/"Plan 1 \(2\)"/);
+      await expect.poll(() => page.locator("#write-status").textContent(), { timeout: 60_000 }).toMatch(/"Plan 2"/);
       const [download] = await Promise.all([page.waitForEvent("download"), page.click("#download")]);
       expect(download.suggestedFilename()).toBe("kiln-demo.plan.xlsx");
       const saved = join(userDataDir, "downloaded.xlsx");
@@ -256,18 +258,20 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await out.xlsx.readFile(saved);
       const names = out.worksheets.map((w) => w.name);
       expect(names).toContain("Plan 1");
-      expect(names).toContain("Plan 1 (2)");
+      expect(names).toContain("Plan 2");
       // Every run also writes the driver route sheets, on the page as in the add-in and the CLI.
       expect(names).toContain("Plan 1 routes");
-      expect(names).toContain("Plan 1 (2) routes");
-      expect(names).toContain("Compare");
+      expect(names).toContain("Plan 2 routes");
+      // The rerun's sheets land before Compare, which stays after the plans it lists (exceljs reads the tab order).
+      const tabs = out.worksheets.filter((w) => w.state === "visible").map((w) => w.name);
+      expect(tabs.slice(-5)).toEqual(["Plan 1", "Plan 1 routes", "Plan 2", "Plan 2 routes", "Compare"]);
       for (const sheet of original.worksheets.map((w) => w.name)) {
         expect(await sheetValues(out, sheet)).toEqual(await sheetValues(original, sheet));
       }
       const compare = await sheetValues(out, "Compare");
       expect(compare[0]?.[0]).toBe("Scenario");
       expect(compare[1]?.[0]).toBe("Plan 1");
-      expect(compare[2]?.[0]).toBe("Plan 1 (2)");
+      expect(compare[2]?.[0]).toBe("Plan 2");
       const plan = await sheetValues(out, "Plan 1");
       expect(plan.flat().some((v) => typeof v === "string" && /estimates/i.test(v))).toBe(true);
       expect(outside).toEqual([]);
@@ -466,6 +470,13 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await excelPage.waitForSelector("body[data-ready='true'][data-mode='excel']", { timeout: 30_000 });
       await expect(excelPage.locator("#file-section").isHidden()).resolves.toBe(true);
       await expect(excelPage.locator("#scenario").inputValue()).resolves.toBe("Plan 1");
+      // The empty states say which range to select and what to press.
+      await expect(excelPage.locator("#stops-summary").textContent()).resolves.toMatch(
+        /select the stops table .* then press Use selection/,
+      );
+      await expect(excelPage.locator("#fleet-summary").textContent()).resolves.toMatch(
+        /select the fleet table .* then press Use selection/,
+      );
 
       const select = (sheet: string) =>
         excelPage.evaluate((s) => ((window as unknown as { __kilnExcel: { selectSheet: string } }).__kilnExcel.selectSheet = s), sheet);
@@ -497,6 +508,8 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await expect.poll(() => excelPage.locator("#rerun-status").textContent()).toMatch(/Loaded the settings of "Plan 4"/);
       await expect(excelPage.locator("#seed").inputValue()).resolves.toBe("77");
       await expect(excelPage.locator("#seconds").inputValue()).resolves.toBe("25");
+      // "Plan 4" is taken by the plan sheet itself: the rerun is offered the first free "Plan N".
+      await expect(excelPage.locator("#scenario").inputValue()).resolves.toBe("Plan 1");
       await expect(excelPage.locator("#pane-error").isHidden()).resolves.toBe(true);
     } finally {
       await excelPage.close();

@@ -7,6 +7,7 @@ import { scenarioSettingsKey } from "../../src/sheets/scenarioSettingsKey.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { readScenarioInput, sourceOf, writeScenarioResult } from "../../src/workbook/scenario.js";
 import { DEMO_URL, loadWithExcelJs, readDemo } from "./harness.js";
+import { zipEntryText } from "./zipEntryText.js";
 
 const MOVES = 20_000;
 
@@ -116,6 +117,27 @@ describe("scenario round trip through an .xlsx file", () => {
     expect(record).toMatchObject({ scenario: second.sheetName, moves: result.stats.moves, settings: { seed: read.settings.seed } });
     // 2026-01-06 04:00 UTC as an ECMA-376 serial: 46028 + 4/24 (46023 = 2026-01-01, from memory).
     expect(record.createdSerial).toBeCloseTo(46028 + 4 / 24, 9);
+  });
+
+  it("puts each new plan sheet and its route sheet before the Compare sheet in the file's tab order", async () => {
+    const { book, read, result } = await solvedDemo();
+    const common = {
+      read,
+      result,
+      createdAt: new Date(Date.UTC(2026, 0, 6, 4)),
+      runSeconds: 1,
+      stopsSource: "Stops",
+      fleetSource: "Fleet",
+    };
+    const inputs = await book.listSheets();
+    await writeScenarioResult(book, { ...common, scenario: "Plan 1" });
+    await writeScenarioResult(book, { ...common, scenario: "Plan 2" });
+    // ECMA-376 Part 1, 18.2.20 (sheets): the order of the <sheet> elements in xl/workbook.xml is the tab order.
+    const workbookXml = zipEntryText(new Uint8Array(await book.toBuffer()), "xl/workbook.xml") ?? "";
+    const tabs = [...workbookXml.matchAll(/<sheet\b[^>]*\bname="([^"]*)"[^>]*\/>/g)]
+      .filter((m) => !/state="veryHidden"/.test(m[0]))
+      .map((m) => m[1]);
+    expect(tabs).toEqual([...inputs, "Plan 1", "Plan 1 routes", "Plan 2", "Plan 2 routes", COMPARE_SHEET]);
   });
 
   it("reports a missing sheet as an issue naming the sheets there are, without throwing", async () => {

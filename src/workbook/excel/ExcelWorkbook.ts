@@ -214,16 +214,20 @@ export class ExcelWorkbook implements WorkbookPort {
     caps: ExcelCapabilities,
   ): Promise<GridWritePlan> {
     const sheets = context.workbook.worksheets;
-    sheets.load("items/name");
+    sheets.load("items/name, items/position");
     await context.sync();
     const taken = new Set(sheets.items.map((s) => s.name.toLowerCase()));
     for (const sheet of run.sheets) {
       if (taken.has(sheet.name.toLowerCase())) throw new Error(`a sheet named "${sheet.name}" already exists; choose a free name`);
     }
+    // New sheets go before the Compare sheet (worksheet.position, ExcelApi 1.1), so Compare stays
+    // after the plans it compares; without a Compare sheet yet they go at the end, as `add` puts them.
+    const compare = sheets.items.find((s) => s.name.toLowerCase() === run.append.name.toLowerCase());
     const added: string[] = [];
     try {
       for (const [i, sheet] of run.sheets.entries()) {
         const ws = sheets.add(sheet.name);
+        if (compare) ws.position = compare.position + i;
         added.push(sheet.name);
         await queueGridWrite(context, ws, plans[i]!, { freeze: caps.freezePanes });
         if (sheet.chart && sheet.chart.series.length > 0) {

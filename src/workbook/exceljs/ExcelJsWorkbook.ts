@@ -185,15 +185,22 @@ export class ExcelJsWorkbook implements WorkbookPort {
   }
 
   /**
-   * Write one run's output: the sheets, the rows appended to the Compare sheet, then the record
-   * (keeping the plan sheet's id), so the tabs keep their order. Everything is in memory until `toBuffer`, so nothing is ever
-   * half written to a file.
+   * Write one run's output: the sheets (placed before an existing Compare sheet, as the Excel
+   * adapter places them, so Compare stays after the plans it lists), the rows appended to the
+   * Compare sheet, then the record (keeping the plan sheet's id). Everything is in memory until
+   * `toBuffer`, so nothing is ever half written to a file.
    *
    * @param run - the sheets, the record and the rows to append
    * @example await book.writeRun({ sheets: [{ name: "Plan", grid }], record: (id) => ({ key, value }), append })
    */
   async writeRun(run: RunWrite): Promise<void> {
+    const compare = this.findSheet(run.append.name);
     for (const sheet of run.sheets) await this.addSheet(sheet.name, sheet.grid, sheet.chart);
+    if (compare)
+      this.moveBefore(
+        run.sheets.map((s) => s.name),
+        compare,
+      );
     await this.appendRows(run.append.name, run.append.header, run.append.rows);
     const first = run.sheets[0];
     const { key, value } = run.record(first ? await this.sheetId(first.name) : undefined);
@@ -331,6 +338,17 @@ export class ExcelJsWorkbook implements WorkbookPort {
   private findSheet(name: string): ExcelJS.Worksheet | undefined {
     const wanted = name.toLowerCase();
     return this.book.worksheets.find((ws) => ws.name.toLowerCase() === wanted);
+  }
+
+  /**
+   * Put the sheets `names` (in that order) just before `anchor` in the tab order. exceljs writes
+   * the sheets in the order of their `orderNo`, which its typings do not declare.
+   */
+  private moveBefore(names: readonly string[], anchor: ExcelJS.Worksheet): void {
+    const moving = names.map((n) => this.findSheet(n)).filter((ws): ws is ExcelJS.Worksheet => ws !== undefined);
+    const rest = this.book.worksheets.filter((ws) => !moving.includes(ws));
+    const order = rest.flatMap((ws) => (ws === anchor ? [...moving, ws] : [ws]));
+    order.forEach((ws, i) => ((ws as ExcelJS.Worksheet & { orderNo: number }).orderNo = i + 1));
   }
 
   private newSheet(name: string): ExcelJS.Worksheet {
