@@ -12,6 +12,7 @@ import { outputPath } from "./outputPath.js";
 import { prepareRun } from "./prepareRun.js";
 import { progressBar } from "./progressBar.js";
 import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptions.js";
+import { TERMS } from "../sheets/terms.js";
 import { addGeocodeOptions, geocoderSetup, type GeocodeOptionValues } from "./geocodeOptions.js";
 import { reviewLines } from "./geocodeCommand.js";
 
@@ -159,7 +160,7 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
     `Vehicles used: ${t.vehiclesUsed} of ${read.problem.vehicles.length}`,
     `Distance: ${t.distanceKm.toFixed(1)} km${matrixSource !== undefined ? ` (road distances from ${matrixSource})` : ""}`,
     `Cost: ${t.cost.toFixed(2)}`,
-    `Unassigned: ${t.unassigned}${plan.unassigned.length ? ` (${listIds(plan.unassigned.map((u) => String(read.problem.stops[u.stop]?.id ?? u.stop)))})` : ""}`,
+    `${TERMS.unassigned}: ${t.unassigned}${plan.unassigned.length ? ` (${listIds(plan.unassigned.map((u) => String(read.problem.stops[u.stop]?.id ?? u.stop)))})` : ""}`,
     ...mustServeLines(read.problem, plan),
     `Feasible: ${plan.feasible ? "yes" : plan.violations.length === 0 ? `no: ${t.mustServeUnassigned} must-serve stop(s) left out, every route keeps the rules` : "no"}`,
     ...plan.violations.map((v) => `  ${v}`),

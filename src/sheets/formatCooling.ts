@@ -1,5 +1,5 @@
 import type { AcceptanceRule, CoolingSpec } from "../core/index.js";
-import { SCHEDULE_NAMES } from "./settingFields.js";
+import { RULE_NAMES, SCHEDULE_NAMES } from "./settingFields.js";
 
 /**
  * A readable text of a cooling schedule (and optionally its acceptance rule and the targets its
@@ -35,14 +35,14 @@ export function formatCooling(spec: CoolingSpec, rule?: AcceptanceRule, acceptan
  * The display name of an acceptance rule.
  *
  * @param rule - "metropolis" or "logistic"
- * @returns "Metropolis" or "logistic (Barker)"
+ * @returns its name in `RULE_NAMES`: "Metropolis" or "Logistic (Barker)"
  * @throws TypeError on an unknown rule
- * @example formatRule("logistic") // => "logistic (Barker)"
+ * @example formatRule("logistic") // => "Logistic (Barker)"
  */
 export function formatRule(rule: AcceptanceRule): string {
-  if (rule === "metropolis") return "Metropolis";
-  if (rule === "logistic") return "logistic (Barker)";
-  throw new TypeError(`formatRule: unknown rule ${String(rule)}`);
+  const name = Object.hasOwn(RULE_NAMES, rule) ? RULE_NAMES[rule] : undefined;
+  if (name === undefined) throw new TypeError(`formatRule: unknown rule ${String(rule)}`);
+  return name;
 }
 
 /** True when the schedule ends at T end (typed or calibrated), false when its own parameter sets the end. */

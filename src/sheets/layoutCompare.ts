@@ -3,6 +3,7 @@ import { formatCooling } from "./formatCooling.js";
 import type { SheetGrid } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
 import type { RunRecord } from "./PlanSettings.js";
+import { TERMS } from "./terms.js";
 
 /** Name of the sheet that collects one row per scenario. */
 export const COMPARE_SHEET = "Compare";
@@ -15,8 +16,8 @@ export const COMPARE_HEADER = [
   "Hours",
   "Cost",
   "Late min",
-  "Unassigned",
-  "Must-serve left out",
+  TERMS.unassigned,
+  TERMS.mustServeLeftOut,
   "Schedule",
   "Seed",
   "Created",

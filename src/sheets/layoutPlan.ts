@@ -3,6 +3,7 @@ import type { Plan, Problem } from "../core/index.js";
 import { CAUTION_TEXT } from "./caution.js";
 import { columnWidths } from "./columnWidths.js";
 import { formatCooling, formatRule } from "./formatCooling.js";
+import { TERMS } from "./terms.js";
 import type { CellBlock, CellValue, RouteChart, SheetGrid } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
 import type { RunRecord } from "./PlanSettings.js";
@@ -55,8 +56,8 @@ export const TOTALS_LABELS = [
   "Waiting hours",
   "Late min",
   "Cost",
-  "Unassigned",
-  "Must-serve left out",
+  TERMS.unassigned,
+  TERMS.mustServeLeftOut,
 ] as const;
 
 /** Header of the unassigned table. */

@@ -156,7 +156,7 @@ export function parseStops(
     const windows: TimeWindow[] = [];
     for (let i = 1; i <= maxWindow; i++) windows.push(...readWindowPair(r, i));
     const serviceMin = r.duration("serviceMin", "service time");
-    const unservedCost = r.num("priority", "priority (cost of leaving the stop unserved)", { min: 0, example: "500" });
+    const unservedCost = r.num("priority", "priority (cost of leaving the stop unassigned)", { min: 0, example: "500" });
     const featureText = r.text("features");
     const extra: Record<string, CellValue> = {};
     for (const x of table.columns.extras) extra[x.header] = plainCell(row.cells[x.col]);

@@ -83,13 +83,29 @@ export const SCHEDULE_TOKENS = {
   "time-based": "timeFraction",
 } as const;
 
-/** Display names of the cooling schedules (pane, plan sheet, messages). */
+/**
+ * Display names of the cooling schedules: the one name each has in the pane, on the plan and
+ * Compare sheets, in messages and in the CLI help (test/sheets/displayNames.test.ts checks it).
+ */
 export const SCHEDULE_NAMES = {
   geometric: "Geometric",
   linear: "Linear",
-  lundyMees: "Lundy-Mees",
+  lundyMees: "Lundy–Mees",
   timeFraction: "Time-based",
 } as const;
+
+/** Display names of the acceptance rules (pane, plan and Compare sheets, CLI). */
+export const RULE_NAMES = {
+  metropolis: "Metropolis",
+  logistic: "Logistic (Barker)",
+} as const;
+
+/** The schedule tokens and the display name each stands for, for help texts: "time-based = Time-based, …". */
+function scheduleTokenList(): string {
+  return Object.entries(SCHEDULE_TOKENS)
+    .map(([token, kind]) => `${token} = ${SCHEDULE_NAMES[kind]}`)
+    .join(", ");
+}
 
 /** The fields, by key. Ranges are the product's rules; defaults live in `PLAN_SETTINGS_DEFAULTS`. */
 export const SETTING_FIELDS: Readonly<Record<SettingKey, SettingField>> = {
@@ -162,11 +178,11 @@ export const SETTING_FIELDS: Readonly<Record<SettingKey, SettingField>> = {
   },
   schedule: {
     type: "choice",
-    label: "Schedule",
+    label: "Cooling schedule",
     flag: "schedule",
     valueName: "NAME",
     sheetKeys: ["schedule", "cooling", "coolingschedule"],
-    help: "cooling schedule",
+    help: `how the temperature falls over the run (${scheduleTokenList()} schedule)`,
     tokens: Object.keys(SCHEDULE_TOKENS),
     // Older names stay accepted on input: "time" (CLI), "time-fraction" (Settings sheet).
     choices: {

@@ -135,7 +135,7 @@ export class RouteMap {
     const depotLocs = [...new Set(problem.vehicles.flatMap((v) => [v.startLocation, v.endLocation]))];
     const depots = depotLocs.map((loc) => ({ ...at(loc), name: depotName(problem, loc) }));
     for (const d of depots) this.hoverPoints.push({ x: d.x, y: d.y, text: `${d.name}\ndepot` });
-    const unserved = plan.unassigned.flatMap((u) => {
+    const unassigned = plan.unassigned.flatMap((u) => {
       const stop = problem.stops[u.stop];
       if (!stop) return [];
       const p = at(stop.location);
@@ -143,7 +143,7 @@ export class RouteMap {
       return [p];
     });
     const served = routes.flatMap((r) => r.path.slice(1, -1));
-    const scaleBox = drawRouteLayer(ctx, { routes, depots, unserved, pxPerKm: projection.pxPerKm, numbers: isSparse(served) }, h);
+    const scaleBox = drawRouteLayer(ctx, { routes, depots, unassigned, pxPerKm: projection.pxPerKm, numbers: isSparse(served) }, h);
 
     this.placeLabelElements(ctx, depots, routes, scaleBox, w, h);
     this.renderLegend(routes);
@@ -309,10 +309,10 @@ function renderText(target: HTMLElement, words: ReturnType<typeof describeRoutes
     list.append(li);
   }
   const nodes: HTMLElement[] = [heading, list];
-  if (words.unserved.length > 0) {
+  if (words.unassigned.length > 0) {
     const un = document.createElement("ul");
     un.append(
-      ...words.unserved.map((s) => {
+      ...words.unassigned.map((s) => {
         const item = document.createElement("li");
         item.textContent = s;
         return item;

@@ -1,7 +1,7 @@
 /**
  * The route map in words, for screen readers and anyone who cannot see the colours: one entry
  * per used vehicle with its depot, its stops in order with arrival times, and the return; then
- * the stops left unserved. The same words feed the map's hover text, so both say the same.
+ * the stops left unassigned. The same words feed the map's hover text, so both say the same.
  */
 import type { Plan, Problem, Visit } from "../core/index.js";
 import { formatClock } from "../sheets/formatClock.js";
@@ -21,14 +21,14 @@ export interface RouteDescription {
  * @param problem - the solved problem
  * @param plan - its plan
  * @param colourNames - the line's colour name and pattern per route index (as on the map)
- * @returns the routes in plan order, and the unserved stops as lines
+ * @returns the routes in plan order, and the unassigned stops as lines
  * @example describeRoutes(problem, plan, ["blue"]).routes[0].stops[0] // => "Shop 3, arrives 08:12"
  */
 export function describeRoutes(
   problem: Problem,
   plan: Plan,
   colourNames: readonly string[],
-): { routes: RouteDescription[]; unserved: string[] } {
+): { routes: RouteDescription[]; unassigned: string[] } {
   const routes: RouteDescription[] = [];
   plan.routes.forEach((route, r) => {
     const vehicle = problem.vehicles[route.vehicle];
@@ -43,8 +43,8 @@ export function describeRoutes(
       stops: route.visits.map((v) => `${stopName(problem, v.stop)}, arrives ${formatClock(v.arrivalMin)}`),
     });
   });
-  const unserved = plan.unassigned.map((u) => `${stopName(problem, u.stop)}: not served, ${u.reason}`);
-  return { routes, unserved };
+  const unassigned = plan.unassigned.map((u) => `${stopName(problem, u.stop)}: not served, ${u.reason}`);
+  return { routes, unassigned };
 }
 
 /**

@@ -1,6 +1,6 @@
 /**
  * The canvas part of the route map: route lines with direction arrows, stop markers (numbered
- * when there is room or the route is highlighted), depot squares, unserved stops and a scale bar.
+ * when there is room or the route is highlighted), depot squares, unassigned stops and a scale bar.
  * Labels are not drawn here: they are DOM elements placed by `placeLabels`, so they stay
  * selectable, readable by tests and never overlap.
  */
@@ -25,7 +25,7 @@ export interface DrawnRoute {
 export interface RouteLayer {
   readonly routes: readonly DrawnRoute[];
   readonly depots: readonly MapPoint[];
-  readonly unserved: readonly MapPoint[];
+  readonly unassigned: readonly MapPoint[];
   readonly pxPerKm: number;
   /** Draw sequence numbers in every stop marker (the caller decides whether there is room). */
   readonly numbers: boolean;
@@ -59,7 +59,7 @@ export function drawRouteLayer(ctx: CanvasRenderingContext2D, layer: RouteLayer,
     ctx.fillRect(p.x - DEPOT_HALF_PX, p.y - DEPOT_HALF_PX, 2 * DEPOT_HALF_PX, 2 * DEPOT_HALF_PX);
     ctx.strokeRect(p.x - DEPOT_HALF_PX, p.y - DEPOT_HALF_PX, 2 * DEPOT_HALF_PX, 2 * DEPOT_HALF_PX);
   }
-  for (const p of layer.unserved) {
+  for (const p of layer.unassigned) {
     ctx.strokeStyle = "#6b6b6b";
     ctx.lineWidth = 2;
     ctx.beginPath();

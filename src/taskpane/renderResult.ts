@@ -1,7 +1,8 @@
 /**
  * The result's status line, totals and broken rules (the map is drawn by `RouteMap`).
  */
-import type { Problem, SolveResult } from "../core/index.js";
+import type { Plan, Problem, SolveResult } from "../core/index.js";
+import { TERMS } from "../sheets/terms.js";
 import type { PaneDom } from "./paneDom.js";
 
 /**
@@ -26,19 +27,8 @@ export function renderResult(dom: PaneDom, problem: Problem, result: SolveResult
       : `${how}: this plan breaks ${plan.violations.length} rule(s); see below.`;
   status.className = plan.feasible ? "status ok" : "status bad";
   status.dataset.feasible = String(plan.feasible);
-  const rows: [string, string][] = [
-    ["Vehicles", `${t.vehiclesUsed} of ${problem.vehicles.length}`],
-    ["Distance", `${t.distanceKm.toFixed(1)} km`],
-    ["Driving", hours(t.drivingMin)],
-    ["Duty", hours(t.dutyMin)],
-    ["Waiting", hours(t.waitMin)],
-    ["Late", `${Math.round(t.lateMin)} min`],
-    ["Cost", t.cost.toLocaleString("en", { maximumFractionDigits: 2 })],
-    ["Unserved", String(t.unassigned)],
-    ["Must-serve left out", String(left)],
-  ];
   dom.totals.replaceChildren(
-    ...rows.flatMap(([k, v]) => {
+    ...totalsRows(problem, plan).flatMap(([k, v]) => {
       const dt = document.createElement("dt");
       dt.textContent = k;
       const dd = document.createElement("dd");
@@ -60,6 +50,30 @@ export function renderResult(dom: PaneDom, problem: Problem, result: SolveResult
       return li;
     }),
   );
+}
+
+/**
+ * The pane's totals as label and text pairs; the unassigned counts carry the words of the plan
+ * sheet and the CLI (`TERMS`).
+ *
+ * @param problem - the solved problem
+ * @param plan - the plan shown
+ * @returns rows in display order
+ * @example totalsRows(problem, plan)[7] // => ["Unassigned", "2"]
+ */
+export function totalsRows(problem: Problem, plan: Plan): [string, string][] {
+  const t = plan.totals;
+  return [
+    ["Vehicles", `${t.vehiclesUsed} of ${problem.vehicles.length}`],
+    ["Distance", `${t.distanceKm.toFixed(1)} km`],
+    ["Driving", hours(t.drivingMin)],
+    ["Duty", hours(t.dutyMin)],
+    ["Waiting", hours(t.waitMin)],
+    ["Late", `${Math.round(t.lateMin)} min`],
+    ["Cost", t.cost.toLocaleString("en", { maximumFractionDigits: 2 })],
+    [TERMS.unassigned, String(t.unassigned)],
+    [TERMS.mustServeLeftOut, String(t.mustServeUnassigned)],
+  ];
 }
 
 function hours(minutes: number): string {

@@ -64,8 +64,8 @@ export interface FormReading {
   readonly issues: Issue[];
 }
 
-/** The pane field of each setting the form shows. */
-const FIELD_OF: Partial<Record<SettingKey, keyof PaneForm>> = {
+/** The pane field (input id) of each setting the form shows; its label reads as the setting's label. */
+export const FIELD_OF: Partial<Record<SettingKey, keyof PaneForm>> = {
   detourFactor: "detour",
   speedKmh: "speed",
   serviceMin: "service",

@@ -77,7 +77,7 @@ describe("kiln compare-schedules", () => {
     [
       "an unknown schedule",
       ["--try", "geometrc"],
-      /--try "geometrc": Schedule "geometrc" is not valid: enter one of geometric, linear, lundy-mees, time-based/,
+      /--try "geometrc": Cooling schedule "geometrc" is not valid: enter one of geometric, linear, lundy-mees, time-based/,
     ],
     [
       "an unknown setting",

@@ -204,7 +204,7 @@ describe("readProblem reports defects by sheet and cell", () => {
     );
     const list = issues(read([OK_STOP], [OK_VAN], { settings }));
     expectIssue(list, "Settings", "D4", `unknown setting "Colour"`);
-    expectIssue(list, "Settings", "E5", `Schedule "quadratic" is not valid: enter one of geometric, linear, lundy-mees, time-based.`);
+    expectIssue(list, "Settings", "E5", `Cooling schedule "quadratic" is not valid: enter one of geometric, linear, lundy-mees, time-based.`);
     expectIssue(list, "Settings", "E6", `Acceptance rule "greedy" is not valid: enter one of metropolis, logistic.`);
     expectIssue(list, "Settings", "E7", "Detour factor 0.8 is not valid: enter a number from 1 to 3, such as 1.3.");
     expectIssue(list, "Settings", "E8", "hard, soft");
@@ -216,7 +216,7 @@ describe("readProblem reports defects by sheet and cell", () => {
       ["Alpha", 0.9],
     ]);
     const list = issues(read([OK_STOP], [OK_VAN], { settings }));
-    expectIssue(list, "Settings", "B2", "Alpha does not apply to the Lundy-Mees schedule; clear it or choose the Geometric schedule.");
+    expectIssue(list, "Settings", "B2", "Alpha does not apply to the Lundy–Mees schedule; clear it or choose the Geometric schedule.");
     // Lundy-Mees without Beta is no longer an issue: beta is fitted to the run's budget.
     expect(list.filter((i) => /Beta/.test(i.message))).toEqual([]);
   });

@@ -47,7 +47,7 @@ describe("temperature plan notation", () => {
     };
     expect(error("")).toMatch(/schedule name is missing/);
     expect(error("geometric:")).toMatch(/nothing follows the colon/);
-    expect(error("cubic")).toMatch(/Schedule "cubic" is not valid: enter one of geometric, linear, lundy-mees, time-based/);
+    expect(error("cubic")).toMatch(/Cooling schedule "cubic" is not valid: enter one of geometric, linear, lundy-mees, time-based/);
     expect(error("lundy-mees:beta=-1")).toMatch(/Beta -1 is not valid/);
     expect(error("time-based:t0=1,tend=5")).toMatch(/T end 5 must be below T0 1/);
     expect(error("time-based:steps=5")).toMatch(/Steps does not apply to the Time-based schedule/);

@@ -43,7 +43,7 @@ describe("formatCooling", () => {
       "geometric ×0.94 every 1000 moves, Metropolis",
     );
     expect(formatCooling({ kind: "linear", steps: 50, t0: 12.3456, tEnd: 0.01 })).toBe("linear in 50 steps, T0 12.35 → 0.01");
-    expect(formatCooling({ kind: "lundyMees", beta: 0.0001 }, "logistic")).toBe("Lundy-Mees β=0.0001, logistic (Barker)");
+    expect(formatCooling({ kind: "lundyMees", beta: 0.0001 }, "logistic")).toBe("Lundy–Mees β=0.0001, Logistic (Barker)");
     expect(formatCooling({ kind: "timeFraction" })).toBe("time-based");
     expect(formatCooling({ kind: "geometric", alpha: 0.9, movesPerLevel: 123457 })).toBe("geometric ×0.9 every 123457 moves");
   });
@@ -51,10 +51,10 @@ describe("formatCooling", () => {
     const acc = { p0: 0.5, pEnd: 0.001 };
     expect(formatCooling({ kind: "timeFraction" }, undefined, acc)).toBe("time-based, acceptance 0.50 → 0.001");
     expect(formatCooling({ kind: "lundyMees" }, "metropolis", acc)).toBe(
-      "Lundy-Mees β fitted to the run, acceptance 0.50 → 0.001, Metropolis",
+      "Lundy–Mees β fitted to the run, acceptance 0.50 → 0.001, Metropolis",
     );
     // A typed beta sets the end itself: only the start is calibrated.
-    expect(formatCooling({ kind: "lundyMees", beta: 1e-4 }, undefined, acc)).toBe("Lundy-Mees β=0.0001, acceptance from 0.50");
+    expect(formatCooling({ kind: "lundyMees", beta: 1e-4 }, undefined, acc)).toBe("Lundy–Mees β=0.0001, acceptance from 0.50");
     expect(formatCooling({ kind: "geometric", movesPerLevel: 500 }, undefined, acc)).toBe(
       "geometric factor fitted to the run every 500 moves, acceptance 0.50 → 0.001",
     );
