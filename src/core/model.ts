@@ -130,6 +130,24 @@ export type Objective =
   /** Fewest vehicles first, then the weighted cost (Solomon's benchmark convention). */
   | "hierarchical";
 
+/**
+ * A plan published earlier for the same day, to re-plan from (re-planning a published day).
+ * Its stops keep their vehicle unless moving one to another vehicle saves more than
+ * `stabilityCost`, and the stops each vehicle keeps stay in their earlier order; stops added
+ * since are inserted; stops no longer in the problem are simply absent from `routes`.
+ */
+export interface EarlierPlan {
+  /** One entry per vehicle (index into `Problem.vehicles`): the stops it served, in order (indices into `Problem.stops`). */
+  readonly routes: readonly (readonly number[])[];
+  /**
+   * Cost counted once per stop of `routes` served by another vehicle or left unserved (same units
+   * as the plan cost). It steers the search only: a plan's reported cost never includes it.
+   */
+  readonly stabilityCost: number;
+  /** Vehicles whose earlier route is kept exactly as it is (no stop leaves, none joins, same order). */
+  readonly locked: readonly number[];
+}
+
 /** A complete routing problem, ready for the solver. */
 export interface Problem {
   /** Every location: depots and stops share one index space. Names are for messages. */
@@ -148,6 +166,8 @@ export interface Problem {
   readonly hardWindows: boolean;
   readonly lateCostPerMin: number;
   readonly objective: Objective;
+  /** When re-planning a published day: the earlier plan to start from. */
+  readonly earlier?: EarlierPlan;
 }
 
 /** A defect of a problem or of user data, as data (never thrown). */
@@ -239,6 +259,11 @@ export interface PlanTotals {
   readonly unassigned: number;
   /** Of those, the stops that must be served (no priority cost): a dispatcher must act on them. */
   readonly mustServeUnassigned: number;
+  /**
+   * Re-planning only (`Problem.earlier` given): stops of the earlier plan now served by another
+   * vehicle. Stops the earlier plan served that are now unassigned are counted in `unassigned`.
+   */
+  readonly vehicleChanges?: number;
 }
 
 /** The solved routes. */

@@ -119,5 +119,27 @@ export function validateProblem(problem: Problem): Issue[] {
     if (v.maxStops !== undefined && !(Number.isInteger(v.maxStops) && v.maxStops >= 0))
       add(at, "maxStops", `vehicle ${v.id}: max stops ${v.maxStops} must be a whole number, 0 or more`);
   });
+  if (problem.earlier) checkEarlier(problem, add);
   return issues;
+}
+
+/** The earlier plan of a re-plan: one route per vehicle, stops in range and at most once, a cost of 0 or more. */
+function checkEarlier(problem: Problem, add: (sheet: string, cell: string, message: string) => void): void {
+  const e = problem.earlier!;
+  const n = problem.stops.length;
+  const V = problem.vehicles.length;
+  if (e.routes.length !== V)
+    add("earlier", "routes", `the earlier plan has ${e.routes.length} routes for ${V} vehicles; give one per vehicle`);
+  if (!(e.stabilityCost >= 0) || !Number.isFinite(e.stabilityCost))
+    add("earlier", "stabilityCost", `stability cost ${e.stabilityCost} must be a number, 0 or more`);
+  const seen = new Uint8Array(n);
+  e.routes.forEach((r, v) =>
+    r.forEach((s, k) => {
+      if (!(Number.isInteger(s) && s >= 0 && s < n)) add("earlier", `routes[${v}][${k}]`, `stop index ${s} is outside 0..${n - 1}`);
+      else if (seen[s]) add("earlier", `routes[${v}][${k}]`, `stop ${problem.stops[s]!.id} is in the earlier plan twice`);
+      else seen[s] = 1;
+    }),
+  );
+  for (const v of e.locked)
+    if (!(Number.isInteger(v) && v >= 0 && v < V)) add("earlier", "locked", `locked vehicle index ${v} is outside 0..${V - 1}`);
 }

@@ -30,6 +30,7 @@ export function eliminateRoute(state: SearchState, nb: Neighbours, rng: Random):
       for (let v = 0; v < V; v++) {
         if (state.routes[v]!.len === 0) continue;
         if (pick-- === 0) {
+          if (cp.locked[v]) break;
           if (victim < 0 || state.routes[v]!.len < state.routes[victim]!.len) victim = v;
           break;
         }

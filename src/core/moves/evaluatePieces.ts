@@ -1,6 +1,6 @@
 import { penalisedCost } from "./penalisedCost.js";
 import { applyRouteRules } from "./routeRules.js";
-import { R_COST, R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_SIZE, R_STOPTW } from "./routeResults.js";
+import { R_COST, R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_SIZE, R_STOPTW } from "./routeResults.js";
 import type { SearchState } from "./SearchState.js";
 
 /**
@@ -144,6 +144,7 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   out[o + R_EXCESS] = excess;
   out[o + R_DIST] = dist;
   out[o + R_DUTY] = duration - aTW - endTW;
+  out[o + R_MOVED] = 0;
   if (state.rulesOn[v]) applyRouteRules(state, v, pieces, m, slot);
   const cost = penalisedCost(state, v, out, o);
   out[o + R_COST] = cost;

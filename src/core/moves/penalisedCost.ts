@@ -1,9 +1,10 @@
 import type { SearchState } from "./SearchState.js";
-import { R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_REAL, R_STOPTW, R_VIOL } from "./routeResults.js";
+import { R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_REAL, R_STOPTW, R_VIOL } from "./routeResults.js";
 
 /**
  * Cost of a route from its evaluated results at `a[o..]`: the unpenalised cost (fixed, per km,
- * per hour of duty, lateness under soft windows) goes to `R_REAL`, the violation (time warp
+ * per hour of duty, lateness under soft windows, and when re-planning the stability cost of the
+ * stops that changed vehicle) goes to `R_REAL`, the violation (time warp
  * under hard windows, overtime, excess load) to `R_VIOL`, and the penalised cost is returned.
  *
  * @param state - gives the compiled problem and the current penalty weights
@@ -26,7 +27,8 @@ export function penalisedCost(state: SearchState, v: number, a: Float64Array, o:
     cp.fixedCost[v]! +
     cp.costPerKm[v]! * a[o + R_DIST]! +
     (cp.costPerHour[v]! * a[o + R_DUTY]!) / 60 +
-    (cp.hardWindows ? 0 : cp.lateCostPerMin * stopTW);
+    (cp.hardWindows ? 0 : cp.lateCostPerMin * stopTW) +
+    cp.stabilityCost * a[o + R_MOVED]!;
   a[o + R_REAL] = real;
   a[o + R_VIOL] = (cp.hardWindows ? stopTW : 0) + endTW + excess;
   return real + (cp.hardWindows ? state.wTime * stopTW : 0) + state.wTime * endTW + state.wLoad * excess;

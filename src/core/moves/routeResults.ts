@@ -11,7 +11,9 @@ export const R_ENDTW = 5;
 export const R_EXCESS = 6;
 export const R_DIST = 7;
 export const R_DUTY = 8;
-export const R_SIZE = 9;
+/** Re-planning: stops on the route whose earlier vehicle was another one. */
+export const R_MOVED = 9;
+export const R_SIZE = 10;
 
 /** Index of the stop count in the route results (for callers that read `out`). */
 export const RESULT_COUNT = R_COUNT;

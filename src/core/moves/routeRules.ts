@@ -1,6 +1,6 @@
 import type { CompiledProblem } from "../schedule/compileProblem.js";
 import { scheduleRoute } from "../schedule/timeRoute.js";
-import { R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_SIZE, R_STOPTW } from "./routeResults.js";
+import { R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_SIZE, R_STOPTW } from "./routeResults.js";
 import type { SearchState } from "./SearchState.js";
 
 /**
@@ -17,6 +17,10 @@ import type { SearchState } from "./SearchState.js";
  *   excess counts as time warp.
  * - Breaks: the route's stops are laid out and timed exactly by `scheduleRoute` (O(route
  *   length)), which then gives the duty, lateness, overtime and any broken break rule.
+ * - Re-planning (O(route length)): the stops whose earlier vehicle was another one are counted
+ *   (each costs the stability cost), and the stops that were on this vehicle before must keep
+ *   their earlier order: each one that comes after a stop it used to precede counts as
+ *   `ORDER_PENALTY_MIN` minutes of time warp, so the best feasible plan keeps the order.
  *
  * @param state - the search state
  * @param v - the vehicle
@@ -31,8 +35,9 @@ export function applyRouteRules(state: SearchState, v: number, pieces: Int32Arra
   if (m === 0) return;
   if (cp.anyPickup) out[o + R_EXCESS] = pickupExcess(state, v, pieces, m);
   let over = 0;
+  const count = cp.hasBreaks[v] || cp.replanning ? layOut(state, pieces, m) : 0;
+  if (cp.replanning) over += keepEarlier(state, v, count, o);
   if (cp.hasBreaks[v]) {
-    const count = layOut(state, pieces, m);
     const t = scheduleRoute(cp.problem, v, state.rulesStops, count, false);
     out[o + R_STOPTW] = t.lateMin;
     out[o + R_DUTY] = t.returnMin - t.departureMin;
@@ -49,8 +54,41 @@ export function applyRouteRules(state: SearchState, v: number, pieces: Int32Arra
 /** True when some rule of this module applies to vehicle `v`. */
 export function hasRouteRules(cp: CompiledProblem, v: number): boolean {
   return (
-    cp.anyPickup || cp.hasBreaks[v] === 1 || cp.maxDrivingMin[v]! < Infinity || cp.maxDutyMin[v]! < Infinity || cp.maxKm[v]! < Infinity
+    cp.replanning ||
+    cp.anyPickup ||
+    cp.hasBreaks[v] === 1 ||
+    cp.maxDrivingMin[v]! < Infinity ||
+    cp.maxDutyMin[v]! < Infinity ||
+    cp.maxKm[v]! < Infinity
   );
+}
+
+/** Minutes of time warp that one stop out of its earlier order counts as (large enough to steer the search back). */
+export const ORDER_PENALTY_MIN = 60;
+
+/**
+ * Count the laid-out route's stops that changed vehicle into `out[o + R_MOVED]`; return the
+ * order penalty of the stops that stayed (home stops appearing below an earlier rank).
+ */
+function keepEarlier(state: SearchState, v: number, count: number, o: number): number {
+  const cp = state.cp;
+  const stops = state.rulesStops;
+  let moved = 0;
+  let outOfOrder = 0;
+  let lastRank = -1;
+  for (let k = 0; k < count; k++) {
+    const s = stops[k]!;
+    const h = cp.homeVehicle[s]!;
+    if (h < 0) continue;
+    if (h !== v) moved++;
+    else {
+      const rank = cp.homeRank[s]!;
+      if (rank < lastRank) outOfOrder++;
+      else lastRank = rank;
+    }
+  }
+  state.out[o + R_MOVED] = moved;
+  return outOfOrder * ORDER_PENALTY_MIN;
 }
 
 /** Copy the candidate route's stops into `state.rulesStops`; returns how many. */

@@ -60,6 +60,15 @@ export interface CompiledProblem {
   readonly hierarchical: boolean;
   /** Why a stop can never be served ("" when it can). */
   readonly unservableReason: readonly string[];
+  /** True when re-planning from `Problem.earlier`: every route is then checked by `applyRouteRules`. */
+  readonly replanning: boolean;
+  /** Per stop: its vehicle in the earlier plan (-1: none) and its position there (0-based). */
+  readonly homeVehicle: Int32Array;
+  readonly homeRank: Int32Array;
+  /** Cost per stop served by another vehicle than its home vehicle (0 when not re-planning). */
+  readonly stabilityCost: number;
+  /** Per vehicle: 1 when its earlier route is locked (kept exactly). */
+  readonly locked: Uint8Array;
 }
 
 /**
@@ -199,7 +208,10 @@ export function compileProblem(problem: Problem): CompiledProblem {
             : reasonFor(problem, i, featureOk, capOk),
     );
   }
+  const replan = compileEarlier(problem, compatible, unservableReason, unservedCost, optional);
+  if (replan.locked.some((x) => x === 1)) anyIncompatible = true;
   return {
+    ...replan,
     problem,
     n,
     vehicleCount: V,
@@ -239,6 +251,49 @@ export function compileProblem(problem: Problem): CompiledProblem {
     hierarchical: problem.objective === "hierarchical",
     unservableReason,
   };
+}
+
+/**
+ * The re-planning arrays. A locked vehicle may serve only the stops of its earlier route, and
+ * those stops only it (whatever else the rules say: the user asked to keep the route as it is).
+ * An optional stop of the earlier plan costs the stability cost more when left unserved, so
+ * dropping it is never a cheap way round the stability cost.
+ */
+function compileEarlier(
+  problem: Problem,
+  compatible: Uint8Array,
+  unservableReason: string[],
+  unservedCost: Float64Array,
+  optional: Uint8Array,
+): Pick<CompiledProblem, "replanning" | "homeVehicle" | "homeRank" | "stabilityCost" | "locked"> {
+  const n = problem.stops.length;
+  const V = problem.vehicles.length;
+  const homeVehicle = new Int32Array(n).fill(-1);
+  const homeRank = new Int32Array(n);
+  const locked = new Uint8Array(V);
+  const e = problem.earlier;
+  if (!e) return { replanning: false, homeVehicle, homeRank, stabilityCost: 0, locked };
+  e.routes.forEach((r, v) =>
+    r.forEach((s, k) => {
+      homeVehicle[s] = v;
+      homeRank[s] = k;
+    }),
+  );
+  for (let s = 0; s < n; s++) if (homeVehicle[s]! >= 0 && optional[s]) unservedCost[s] = unservedCost[s]! + e.stabilityCost;
+  for (const v of e.locked) locked[v] = 1;
+  for (let s = 0; s < n; s++) {
+    const h = homeVehicle[s]!;
+    const mine = h >= 0 && locked[h] === 1;
+    if (mine && problem.stops[s]!.unplannedReason !== undefined) continue;
+    for (let k = 0; k < V; k++) {
+      if (mine) compatible[s * V + k] = k === h ? 1 : 0;
+      else if (locked[k]) compatible[s * V + k] = 0;
+    }
+    if (mine) unservableReason[s] = "";
+    else if (!unservableReason[s] && !compatible.subarray(s * V, s * V + V).some((x) => x === 1))
+      unservableReason[s] = "every vehicle that could serve it has a locked route";
+  }
+  return { replanning: true, homeVehicle, homeRank, stabilityCost: e.stabilityCost, locked };
 }
 
 /** Can vehicle k reach stop i inside one of its windows and be back by the shift end (direct trip)? */

@@ -69,6 +69,7 @@ export function evaluatePlan(problem: Problem, routes: readonly (readonly number
       cost: sum((r) => r.cost) + unservedCost,
       unassigned: left.length,
       mustServeUnassigned,
+      ...(problem.earlier ? { vehicleChanges: countVehicleChanges(problem.earlier.routes, routes) } : {}),
     },
     feasible: violations.length === 0 && mustServeUnassigned === 0,
     violations,
@@ -197,4 +198,18 @@ function limitViolations(veh: Vehicle, drivingMin: number, dutyMin: number, km: 
 
 function round(x: number): number {
   return Math.round(x * 100) / 100;
+}
+
+/** Stops that an earlier route held and another vehicle's route now holds. */
+function countVehicleChanges(earlier: readonly (readonly number[])[], routes: readonly (readonly number[])[]): number {
+  const home = new Map<number, number>();
+  earlier.forEach((r, v) => r.forEach((s) => home.set(s, v)));
+  let changed = 0;
+  routes.forEach((r, v) => {
+    for (const s of r) {
+      const h = home.get(s);
+      if (h !== undefined && h !== v) changed++;
+    }
+  });
+  return changed;
 }

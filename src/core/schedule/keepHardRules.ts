@@ -9,6 +9,8 @@ const TIME_CANDIDATES = 60;
  * Turn a plan that breaks a hard rule into one that keeps every rule, serving as many stops
  * as it can: capacity (at every point), hard windows, shift ends, required features, max
  * stops, pins, working-time limits and breaks are never broken in the plan returned. A plan that already keeps them is returned as it is.
+ * A locked route of a re-plan (`Problem.earlier.locked`) is the exception: it is kept exactly,
+ * and whatever rule it breaks stays in `violations`.
  *
  * Stops are taken off a broken route greedily (a stop without the vehicle's features; for
  * load, an optional stop first, then the smallest stop that clears the excess, else the
@@ -20,7 +22,7 @@ const TIME_CANDIDATES = 60;
  *
  * @param problem - the problem the plan belongs to
  * @param plan - an evaluated plan (from `evaluatePlan`)
- * @returns a plan whose `violations` is empty; stops that could not be kept are in `unassigned`
+ * @returns a plan whose `violations` is empty (but for locked routes); stops that could not be kept are in `unassigned`
  * @throws RangeError when the plan does not fit the problem (as `evaluatePlan`)
  * @example keepHardRules(problem, overloaded).violations // => []
  */
@@ -28,8 +30,10 @@ export function keepHardRules(problem: Problem, plan: Plan): Plan {
   if (plan.violations.length === 0) return plan;
   const routes = plan.routes.map((r) => r.visits.map((v) => v.stop));
   const removed: number[] = [];
+  const locked = new Set(problem.earlier?.locked ?? []);
   routes.forEach((stops, v) => {
-    if (routeBreaksRule(problem, v, stops)) removed.push(...repairRoute(problem, v, stops));
+    // A locked route is the user's own: kept as it is, its broken rules stay listed in the plan.
+    if (!locked.has(v) && routeBreaksRule(problem, v, stops)) removed.push(...repairRoute(problem, v, stops));
   });
   // Must-serve stops first, each in its original order, then optional ones.
   removed.sort((a, b) => Number(isOptional(problem, a)) - Number(isOptional(problem, b)) || a - b);
@@ -196,8 +200,9 @@ function reinsert(problem: Problem, routes: number[][], s: number): Blocked | un
   let bestAt = -1;
   let bestDelta = Infinity;
   let why: Blocked = "features";
+  const locked = new Set(problem.earlier?.locked ?? []);
   routes.forEach((stops, v) => {
-    if (!hasFeatures(problem, v, s)) return;
+    if (locked.has(v) || !hasFeatures(problem, v, s)) return;
     const veh = problem.vehicles[v]!;
     let room = veh.maxStops === undefined || stops.length < veh.maxStops;
     for (let d = 0; d < dims && room; d++) {

@@ -13,6 +13,19 @@ import { compileProblem, type CompiledProblem } from "../schedule/compileProblem
 import { validateProblem } from "../validateProblem.js";
 import { descend } from "./descend.js";
 
+/**
+ * Re-planning: put the earlier routes back (without the stops no vehicle can serve now, or
+ * that their vehicle may no longer serve), so the stops added since are inserted into them.
+ */
+function startFromEarlier(state: SearchState, routes: readonly (readonly number[])[]): void {
+  const cp = state.cp;
+  const V = cp.vehicleCount;
+  routes.forEach((r, v) => {
+    const kept = r.filter((s) => state.routeOf[s] === -1 && cp.compatible[s * V + v] === 1);
+    if (kept.length > 0) state.setRoute(v, kept);
+  });
+}
+
 /** Descent moves per stop that polish the constructed plan before calibration. */
 const DESCENT_MOVES_PER_STOP = 50;
 
@@ -66,7 +79,9 @@ export function prepareRun(problem: Problem, o: SolveOptions, startedAt = o.now 
   const nb = buildNeighbours(cp, o.neighbours);
   const weights = initialWeights(cp);
   const state = new SearchState(cp, weights.wTime, weights.wLoad);
-  const active = Int32Array.from(Array.from({ length: cp.n }, (_, s) => s).filter((s) => !cp.unservableReason[s]));
+  const movable = (s: number): boolean => !cp.unservableReason[s] && !(cp.homeVehicle[s]! >= 0 && cp.locked[cp.homeVehicle[s]!]);
+  const active = Int32Array.from(Array.from({ length: cp.n }, (_, s) => s).filter(movable));
+  if (problem.earlier) startFromEarlier(state, problem.earlier.routes);
   constructPlan(state, nb);
   if (cp.hierarchical) {
     // Worth more than the whole first plan: one vehicle fewer always wins.
