@@ -1,5 +1,5 @@
 import { writeFile } from "node:fs/promises";
-import type { Command } from "commander";
+import { Option, type Command } from "commander";
 import type { Plan, Problem } from "../core/index.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
 import { formatCooling } from "../sheets/formatCooling.js";
@@ -50,7 +50,18 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
       "--csv <DIR>",
       "also write one CSV file (RFC 4180) per vehicle into DIR (created when missing), for a driver app or a mail merge",
     )
-    .option("--sheet-per-vehicle", "write one route sheet per vehicle instead of one route sheet per scenario with a block per vehicle");
+    .option("--sheet-per-vehicle", "write one route sheet per vehicle instead of one route sheet per scenario with a block per vehicle")
+    .option(
+      "--from-plan <SHEET>",
+      "re-plan a published day: start from the routes of this plan sheet (written by Kiln); stops added to Stops since are inserted, " +
+        "stops no longer in Stops are taken out, and the rest keep their vehicle and order unless moving one saves more than --stability-cost",
+    )
+    .addOption(
+      new Option(
+        "--lock <VEHICLE>",
+        "with --from-plan: keep this vehicle's route exactly as in that plan sheet; repeatable, or ids separated by commas",
+      ).argParser((value: string, previous: string[] | undefined) => [...(previous ?? []), value]),
+    );
   addRunOptions(cmd);
   addGeocodeOptions(cmd);
   cmd.action(async (workbook: string, opts: PlanOptions) => {
@@ -138,6 +149,7 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
     createdAt: new Date(),
     stopsSource: await source(prepared.sheets.stops),
     fleetSource: await source(prepared.sheets.fleet),
+    ...(opts.fromPlan !== undefined ? { fromPlan: opts.fromPlan } : {}),
     ...(matrixSource !== undefined ? { matrixSource } : {}),
     sheetPerVehicle: opts.sheetPerVehicle === true,
     ...(locale !== undefined ? { locale } : {}),
@@ -160,6 +172,7 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
     `Vehicles used: ${t.vehiclesUsed} of ${read.problem.vehicles.length}`,
     `Distance: ${t.distanceKm.toFixed(1)} km${matrixSource !== undefined ? ` (road distances from ${matrixSource})` : ""}`,
     `Cost: ${t.cost.toFixed(2)}`,
+    ...(t.vehicleChanges !== undefined ? [`Re-planned from "${opts.fromPlan}": ${t.vehicleChanges} stop(s) changed vehicle`] : []),
     `${TERMS.unassigned}: ${t.unassigned}${plan.unassigned.length ? ` (${listIds(plan.unassigned.map((u) => String(read.problem.stops[u.stop]?.id ?? u.stop)))})` : ""}`,
     ...mustServeLines(read.problem, plan),
     `Feasible: ${plan.feasible ? "yes" : plan.violations.length === 0 ? `no: ${t.mustServeUnassigned} must-serve stop(s) left out, every route keeps the rules` : "no"}`,

@@ -70,6 +70,12 @@ export async function prepareRun(
     if ("entry" in parsed) typedMap.push(parsed.entry);
     else errors.push(parsed.message);
   }
+  const lock = (sheets.lock ?? [])
+    .flatMap((text) => text.split(","))
+    .map((id) => id.trim())
+    .filter((id) => id !== "");
+  if (lock.length > 0 && sheets.fromPlan === undefined)
+    errors.push("--lock: keeps a route of an earlier plan; give that plan sheet with --from-plan SHEET");
   if (errors.length > 0) return { errors };
   // The pane's remembered mapping applies here too, so the file plans the same in both; --map wins.
   const columnMap = mergeColumnMaps(storedColumnMap((await book.readSettings())[COLUMN_MAP_KEY]), typedMap);
@@ -98,6 +104,7 @@ export async function prepareRun(
     ...(settingsSheet ? { settingsSheet } : {}),
     ...(matrix ? { matrixSheet: matrix } : {}),
     overrides: columnMap.length > 0 ? { ...flags.overrides, columnMap } : flags.overrides,
+    ...(sheets.fromPlan !== undefined ? { fromPlan: { sheet: sheets.fromPlan, lock, lockSource: "--lock" } } : {}),
   });
   if (!read.ok) return { errors: read.issues.map(formatIssue) };
   const cooling = applySchedule(read.settings.cooling, flags.schedule);

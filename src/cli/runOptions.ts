@@ -4,7 +4,7 @@
  * default in the help come from the one settings schema).
  */
 import { Option, type Command } from "commander";
-import { PLAN_SETTINGS_DEFAULTS } from "../sheets/PlanSettings.js";
+import { PLAN_SETTINGS_DEFAULTS, STABILITY_COST_DEFAULT } from "../sheets/PlanSettings.js";
 import { SETTING_FIELDS, rangeText, type SettingKey } from "../sheets/settingFields.js";
 import { RUN_SETTING_KEYS } from "./settingFlags.js";
 
@@ -16,6 +16,10 @@ export interface InputSheetOptions {
   readonly matrix?: string;
   /** `--map "Drop time=service"`, repeatable: column mappings in the order given. */
   readonly map?: readonly string[];
+  /** `kiln plan --from-plan SHEET`: re-plan from an earlier plan sheet of the workbook. */
+  readonly fromPlan?: string;
+  /** `--lock VEHICLE`, repeatable (or comma-separated): routes of the earlier plan kept exactly. */
+  readonly lock?: readonly string[];
 }
 
 /** The sheet options of a workbook command. */
@@ -50,6 +54,8 @@ function defaultText(key: SettingKey): string {
     case "tEnd":
     case "country":
       return "";
+    case "stabilityCost":
+      return String(STABILITY_COST_DEFAULT);
     default:
       return String(d[key as keyof typeof d]);
   }

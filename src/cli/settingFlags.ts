@@ -30,6 +30,7 @@ export const RUN_SETTING_KEYS: readonly SettingKey[] = [
   "p0",
   "pEnd",
   "country",
+  "stabilityCost",
 ];
 
 /** Settings read from options: overrides of the Settings sheet and the schedule options. */
@@ -80,6 +81,7 @@ export function settingFlags(given: Readonly<Record<string, string | undefined>>
   put("rule", values.get("rule") as PlanSettings["rule"] | undefined);
   put("objective", values.get("objective") as PlanSettings["objective"] | undefined);
   put("country", values.get("country") as string | undefined);
+  put("stabilityCost", num("stabilityCost"));
   if (values.has("windows")) o.hardWindows = values.get("windows") === "hard";
   if (softWindows) {
     if (values.get("windows") === "hard") errors.push("--soft-windows: contradicts --windows hard; give one of them");

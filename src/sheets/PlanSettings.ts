@@ -32,7 +32,18 @@ export interface PlanSettings {
   readonly columnMap?: readonly (ColumnMapEntry & { readonly kind?: "stops" | "fleet" })[];
   /** Country added to addresses whose row gives none, when geocoding (none by default). */
   readonly country?: string;
+  /**
+   * Re-planning from a plan sheet: cost of each stop moved to another vehicle, in the units of
+   * the plan cost (default `STABILITY_COST_DEFAULT`).
+   */
+  readonly stabilityCost?: number;
 }
+
+/**
+ * Stability cost when none is given: about the cost of a short detour, so a stop changes van
+ * only for a clear saving (our choice; raise it to keep routes as published).
+ */
+export const STABILITY_COST_DEFAULT = 20;
 
 /** Defaults of `PlanSettings` (common practice unless noted). */
 export const PLAN_SETTINGS_DEFAULTS: PlanSettings = {
@@ -63,6 +74,9 @@ export interface RunRecord {
   readonly fleetSource: string;
   /** Sheet and range of the road-distance matrix, when one replaced the great-circle distances. */
   readonly matrixSource?: string;
+  /** The plan sheet a re-plan started from, and the vehicles whose routes it kept exactly. */
+  readonly fromPlan?: string;
+  readonly locked?: readonly string[];
   /**
    * The plan sheet's id in the workbook that holds it (Excel's `worksheet.id`, which survives a
    * rename; the file's sheet id for workbooks written by the CLI or the page), so Rerun still finds

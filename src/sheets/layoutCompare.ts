@@ -21,10 +21,11 @@ export const COMPARE_HEADER = [
   "Schedule",
   "Seed",
   "Created",
+  "Changed vehicle",
 ] as const;
 
 /** Width hints of the Compare columns, in characters. */
-const COMPARE_WIDTHS = [24, 9, 9, 8, 11, 9, 11, 11, 40, 8, 17];
+const COMPARE_WIDTHS = [24, 9, 9, 8, 11, 9, 11, 11, 40, 8, 17, 10];
 
 /**
  * The header of the Compare sheet: written once when the sheet is created, frozen and bold.
@@ -46,7 +47,8 @@ export function layoutCompareHeader(): SheetGrid {
  * One Compare row for a finished scenario, to append below the existing ones (rows are
  * never rewritten, so earlier scenarios stay as they were). Hours are duty hours as a
  * duration (`[h]:mm`, a fleet can pass 24 h); km rounded to 0.1; Created is the run's
- * date-time serial. Pass the final sheet name as `run.scenario` so the row names its sheet.
+ * date-time serial; Changed vehicle, for a re-plan only, counts the stops of the earlier plan now
+ * on another vehicle. Pass the final sheet name as `run.scenario` so the row names its sheet.
  *
  * @param run - the run record of the scenario
  * @param plan - its plan
@@ -57,7 +59,7 @@ export function layoutCompareHeader(): SheetGrid {
 export function layoutCompareRow(run: RunRecord, plan: Plan): SheetGrid {
   if (!run || !plan) throw new TypeError("layoutCompareRow: run and plan are required");
   const t = plan.totals;
-  const cells: [string | number, string | null][] = [
+  const cells: [string | number | null, string | null][] = [
     [run.scenario, F.text],
     [t.vehiclesUsed, F.integer],
     [roundTo(t.distanceKm, 1), F.km],
@@ -69,6 +71,8 @@ export function layoutCompareRow(run: RunRecord, plan: Plan): SheetGrid {
     [formatCooling(run.settings.cooling, run.settings.rule, run.settings), F.text],
     [run.settings.seed, null],
     [run.createdSerial, F.dateTime],
+    // Re-plans only: stops of the earlier plan now on another vehicle (blank for a plan from scratch).
+    [t.vehicleChanges ?? null, t.vehicleChanges === undefined ? null : F.integer],
   ];
   return { values: [cells.map((c) => c[0])], numberFormats: [cells.map((c) => c[1])] };
 }

@@ -6,7 +6,7 @@ import { formatCooling, formatRule } from "./formatCooling.js";
 import { TERMS } from "./terms.js";
 import type { CellBlock, CellValue, RouteChart, SheetGrid } from "./grid.js";
 import { NUMBER_FORMATS as F, dayFraction, roundTo } from "./numberFormats.js";
-import type { RunRecord } from "./PlanSettings.js";
+import { STABILITY_COST_DEFAULT, type RunRecord } from "./PlanSettings.js";
 import type { StopRow } from "./ReadResult.js";
 import { routeTableRows, type FormattedRow } from "./routeTableRows.js";
 
@@ -45,6 +45,7 @@ export const SETTINGS_LABELS = [
   "Windows",
   "Distances",
   "Columns mapped",
+  "Re-planned from",
 ] as const;
 
 /** Labels of the totals block. */
@@ -157,7 +158,16 @@ function settingsValues(run: RunRecord): FormattedRow {
     [s.hardWindows ? "hard" : `soft, ${s.lateCostPerMin} per min late`, F.text],
     [distancesText(run), F.text],
     [formatColumnMap(s.columnMap ?? []) || "none", F.text],
+    [replanText(run), F.text],
   ]);
+}
+
+/** The plan sheet a re-plan started from, its stability cost and the locked routes; "none" for a plan from scratch. */
+function replanText(run: RunRecord): string {
+  if (run.fromPlan === undefined) return "none";
+  const locked = run.locked ?? [];
+  const cost = run.settings.stabilityCost ?? STABILITY_COST_DEFAULT;
+  return `${run.fromPlan}, stability cost ${cost} per stop moved${locked.length > 0 ? `, locked: ${locked.join(", ")}` : ""}`;
 }
 
 /** Where the plan's kilometres come from: the road-distance matrix sheet, or great-circle times the detour factor. */

@@ -97,6 +97,7 @@ export function parseSettingsSheet(read: SheetRead): { settings: Partial<PlanSet
   set("moves", num("moves"));
   set("objective", values.get("objective") as PlanSettings["objective"] | undefined);
   set("country", values.get("country") as string | undefined);
+  set("stabilityCost", num("stabilityCost"));
 
   const params: ScheduleParams = {};
   for (const p of SCHEDULE_PARAMETERS) if (values.has(p)) params[p] = num(p);

@@ -26,7 +26,8 @@ export type SettingKey =
   | "seconds"
   | "moves"
   | "objective"
-  | "country";
+  | "country"
+  | "stabilityCost";
 
 interface FieldBase {
   /** Name shown in messages, the pane and the Settings sheet ("Detour factor"). */
@@ -339,6 +340,17 @@ export const SETTING_FIELDS: Readonly<Record<SettingKey, SettingField>> = {
     help: "weighted: one cost; hierarchical: fewest vehicles first",
     tokens: ["weighted", "hierarchical"],
     choices: { weighted: "weighted", cost: "weighted", hierarchical: "hierarchical", vehiclesfirst: "hierarchical" },
+  },
+  stabilityCost: {
+    type: "number",
+    label: "Stability cost",
+    flag: "stability-cost",
+    valueName: "C",
+    sheetKeys: ["stabilitycost", "stability", "vehiclechangecost", "movecost", "changecost"],
+    help: "when re-planning from a plan sheet: cost (in plan cost units) of each stop moved to another vehicle; higher keeps more stops on their van",
+    min: 0,
+    max: 1e9,
+    example: "20",
   },
   country: {
     type: "text",

@@ -73,6 +73,7 @@ export const planSettingsSchema = z
       .min(1)
       .max((SETTING_FIELDS.country as TextField).maxLength)
       .optional(),
+    stabilityCost: n("stabilityCost").optional(),
   })
   .superRefine((s, ctx) => {
     for (const p of crossProblems(s)) ctx.addIssue({ code: "custom", path: [p.key], message: p.message });
@@ -88,6 +89,8 @@ export const runRecordSchema = z.object({
   stopsSource: z.string(),
   fleetSource: z.string(),
   matrixSource: z.string().optional(),
+  fromPlan: z.string().optional(),
+  locked: z.array(z.string()).optional(),
   sheetId: z.string().optional(),
 });
 

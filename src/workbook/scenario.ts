@@ -4,7 +4,9 @@ import { excelSerialFromDate } from "../sheets/excelSerial.js";
 import { COMPARE_SHEET, layoutCompareHeader, layoutCompareRow } from "../sheets/layoutCompare.js";
 import { layoutPlan } from "../sheets/layoutPlan.js";
 import { layoutRouteSheets } from "../sheets/layoutRouteSheets.js";
-import type { PlanSettings, RunRecord } from "../sheets/PlanSettings.js";
+import { STABILITY_COST_DEFAULT, type PlanSettings, type RunRecord } from "../sheets/PlanSettings.js";
+import { buildEarlierPlan } from "../sheets/buildEarlierPlan.js";
+import { readPlanRoutes } from "../sheets/readPlanRoutes.js";
 import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { paperSizeForLocale } from "../sheets/printSetup.js";
@@ -20,6 +22,11 @@ export interface ScenarioRequest {
   /** Optional sheet with a user distance/time matrix (an optional addition to the shared API). */
   readonly matrixSheet?: string;
   readonly overrides?: Partial<PlanSettings>;
+  /**
+   * Re-plan a published day: the plan sheet to start from, and the vehicles whose routes are
+   * kept exactly (`lockSource` names where the list came from, for messages).
+   */
+  readonly fromPlan?: { readonly sheet: string; readonly lock: readonly string[]; readonly lockSource: string };
   /**
    * The stops and fleet tables with geocoded coordinates filled in (in memory, see
    * `locateWorkbook`), read instead of the sheets, and the stops whose address was not found.
@@ -48,6 +55,8 @@ export interface ScenarioOutput {
   readonly sheetPerVehicle?: boolean;
   /** Locale whose paper the route sheets print on (BCP 47, "en-US"); the runtime's locale when absent. */
   readonly locale?: string;
+  /** The plan sheet a re-plan started from (the problem then carries `earlier`). */
+  readonly fromPlan?: string;
 }
 
 /**
@@ -80,12 +89,29 @@ export async function readScenarioInput(port: WorkbookPort, request: ScenarioReq
   const fleet = request.located?.fleet ?? (await need(request.fleetSheet, "fleet"));
   const settings = await need(request.settingsSheet, "settings");
   const matrix = await need(request.matrixSheet, "distance matrix");
+  const earlierSheet = request.fromPlan ? await need(request.fromPlan.sheet, "earlier plan") : undefined;
   if (!stops || !fleet || issues.length > 0) return { ok: false, issues, stopColumns: [], fleetColumns: [] };
   const unlocated = request.located?.unlocated;
-  return readProblem(
+  const read = readProblem(
     { stops, fleet, ...(settings ? { settings } : {}), ...(matrix ? { matrix } : {}), ...(unlocated ? { unlocated } : {}) },
     request.overrides,
   );
+  if (!read.ok || !request.fromPlan || !earlierSheet) return read;
+  return withEarlierPlan(read, earlierSheet, request.fromPlan);
+}
+
+/**
+ * A read problem with the earlier plan of `sheet` to start from (re-planning a published day);
+ * a sheet that is not a Kiln plan, or names a vehicle the Fleet no longer has, comes back as issues.
+ */
+function withEarlierPlan(read: ReadResult & { ok: true }, sheet: SheetRead, from: NonNullable<ScenarioRequest["fromPlan"]>): ReadResult {
+  const fail = (issues: Issue[]): ReadResult => ({ ok: false, issues, stopColumns: read.stopColumns, fleetColumns: read.fleetColumns });
+  const table = readPlanRoutes(sheet);
+  if ("issues" in table) return fail(table.issues);
+  const stabilityCost = read.settings.stabilityCost ?? STABILITY_COST_DEFAULT;
+  const built = buildEarlierPlan(read.problem, sheet.sheet, table.routes, { stabilityCost, lock: from.lock, lockSource: from.lockSource });
+  if (!built.earlier) return fail(built.issues);
+  return { ...read, problem: { ...read.problem, earlier: built.earlier }, warnings: [...read.warnings, ...built.warnings] };
 }
 
 /**
@@ -120,6 +146,7 @@ export async function writeScenarioResult(
     stopsSource: input.stopsSource,
     fleetSource: input.fleetSource,
     ...(input.matrixSource !== undefined ? { matrixSource: input.matrixSource } : {}),
+    ...replanRecord(input),
   };
   const { problem, stopRows, extraHeaders } = input.read;
   const layout = layoutPlan({ problem, plan: input.result.plan, run, stopRows, extraHeaders });
@@ -146,6 +173,13 @@ export async function writeScenarioResult(
     append: { name: COMPARE_SHEET, header: layoutCompareHeader(), rows: layoutCompareRow(run, input.result.plan) },
   });
   return { sheetName, routeSheets: routeSheets.map((r) => r.name) };
+}
+
+/** The re-plan fields of the run record: the sheet started from and the locked vehicles' ids. */
+function replanRecord(input: ScenarioOutput): Pick<RunRecord, "fromPlan" | "locked"> {
+  const earlier = input.read.problem.earlier;
+  if (input.fromPlan === undefined || !earlier) return {};
+  return { fromPlan: input.fromPlan, locked: earlier.locked.map((v) => input.read.problem.vehicles[v]!.id) };
 }
 
 /**

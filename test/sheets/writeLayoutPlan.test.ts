@@ -13,7 +13,7 @@ const DESIGN_ROUTE_HEADER =
   "Vehicle | Seq | Stop | Name | Address | Arrival | Wait min | Start | Departure | Load kg | Load crates | Drop kg | Drop crates | Leg km | Total km | Earliest | Latest | Late min | Latitude | Longitude";
 /** DESIGN.md §5's Compare header plus "Must-serve left out" after Unassigned (issue 9 asks Compare to say it). */
 const DESIGN_COMPARE_HEADER =
-  "Scenario | Vehicles | Km | Hours | Cost | Late min | Unassigned | Must-serve left out | Schedule | Seed | Created";
+  "Scenario | Vehicles | Km | Hours | Cost | Late min | Unassigned | Must-serve left out | Schedule | Seed | Created | Changed vehicle";
 
 /** The layout as the golden file holds it: indented JSON. `npx vitest run -u` rewrites the files; review the diff by eye. */
 const goldenJson = (actual: unknown): string => JSON.stringify(actual, null, 1) + "\n";
@@ -84,9 +84,11 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
       "Windows",
       "Distances",
       "Columns mapped",
+      "Re-planned from",
     ]);
-    // No column mapping was given, and the block says so.
+    // No column mapping was given, and the block says so; nor was it a re-plan.
     expect(values[3]![13]).toBe("none");
+    expect(values[3]![14]).toBe("none");
     // Without a matrix sheet the kilometres are the great-circle estimate times the detour factor.
     expect(values[3]![12]).toBe("great-circle x 1.3 (estimate)");
     expect(values[3]!.slice(0, 12)).toEqual([
@@ -273,9 +275,10 @@ describe("Compare sheet (DESIGN.md §5)", () => {
         "geometric ×0.94 every 1000 moves, acceptance from 0.50, Metropolis",
         7,
         CREATED_SERIAL,
+        null,
       ],
     ]);
-    expect(row.numberFormats).toEqual([["@", "0", "0.0", "[h]:mm", "0.00", "0.0", "0", "0", "@", null, "yyyy-mm-dd hh:mm"]]);
+    expect(row.numberFormats).toEqual([["@", "0", "0.0", "[h]:mm", "0.00", "0.0", "0", "0", "@", null, "yyyy-mm-dd hh:mm", null]]);
   });
 });
 
