@@ -54,6 +54,12 @@ function defaultText(key: SettingKey): string {
     case "tEnd":
     case "country":
       return "";
+    case "driveBeforeBreakH":
+    case "breakMin":
+    case "windowBreakMin":
+    case "breakFrom":
+    case "breakTo":
+      return "";
     case "stabilityCost":
       return String(STABILITY_COST_DEFAULT);
     default:

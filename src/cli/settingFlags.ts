@@ -31,6 +31,11 @@ export const RUN_SETTING_KEYS: readonly SettingKey[] = [
   "pEnd",
   "country",
   "stabilityCost",
+  "driveBeforeBreakH",
+  "breakMin",
+  "windowBreakMin",
+  "breakFrom",
+  "breakTo",
 ];
 
 /** Settings read from options: overrides of the Settings sheet and the schedule options. */
@@ -82,6 +87,7 @@ export function settingFlags(given: Readonly<Record<string, string | undefined>>
   put("objective", values.get("objective") as PlanSettings["objective"] | undefined);
   put("country", values.get("country") as string | undefined);
   put("stabilityCost", num("stabilityCost"));
+  for (const k of ["driveBeforeBreakH", "breakMin", "windowBreakMin", "breakFrom", "breakTo"] as const) put(k, num(k));
   if (values.has("windows")) o.hardWindows = values.get("windows") === "hard";
   if (softWindows) {
     if (values.get("windows") === "hard") errors.push("--soft-windows: contradicts --windows hard; give one of them");

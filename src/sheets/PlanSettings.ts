@@ -37,6 +37,16 @@ export interface PlanSettings {
    * the plan cost (default `STABILITY_COST_DEFAULT`).
    */
   readonly stabilityCost?: number;
+  /**
+   * Break defaults for every vehicle when the Fleet has no break columns. None has a value unless
+   * the user gives one: they are the user's own rules, never a legal default.
+   * Drive before break in hours, the lengths in minutes, the window in minutes from midnight.
+   */
+  readonly driveBeforeBreakH?: number;
+  readonly breakMin?: number;
+  readonly windowBreakMin?: number;
+  readonly breakFrom?: number;
+  readonly breakTo?: number;
 }
 
 /**

@@ -1,4 +1,15 @@
-import { buildMatrix, userMatrix, validateProblem, type Issue, type LatLon, type Problem, type Stop, type Vehicle } from "../core/index.js";
+import {
+  buildMatrix,
+  userMatrix,
+  validateProblem,
+  type DrivingBreakRule,
+  type Issue,
+  type LatLon,
+  type Problem,
+  type Stop,
+  type Vehicle,
+  type WindowBreakRule,
+} from "../core/index.js";
 import type { SheetRead } from "./grid.js";
 import { formatClock } from "./formatClock.js";
 import { parseFleet, type ParsedFleet, type ParsedVehicle } from "./parseFleet.js";
@@ -102,6 +113,7 @@ export function readProblem(
     depotNames[i]!.push(v.id, v.rowName);
     return i;
   };
+  const fleetHasBreaks = fleetColumns.some((c) => BREAK_FIELDS.includes(c.field));
   const vehicles: Vehicle[] = fleet.vehicles.map((v) => ({
     id: v.id,
     ...(v.driver !== undefined ? { driver: v.driver } : {}),
@@ -116,6 +128,7 @@ export function readProblem(
     speedKmh: v.speedKmh ?? settings.speedKmh,
     ...(v.features !== undefined ? { features: v.features } : {}),
     ...(v.maxStops !== undefined ? { maxStops: v.maxStops } : {}),
+    ...(fleetHasBreaks ? {} : defaultBreaks(settings)),
     ...v.rules,
   }));
   nameDepots(locations, fleet.vehicles, vehicles);
@@ -392,6 +405,20 @@ function checkSettings(s: PlanSettings, overrides: Partial<PlanSettings>): Issue
     const sheet = field in overrides ? "options" : "Settings";
     return { sheet, cell: SETTING_FIELDS[p.key].label, message: `${sheet} ${SETTING_FIELDS[p.key].label}: ${p.message}` };
   });
+}
+
+/** Fleet fields that give a vehicle its own break rule (then the Settings' break defaults do not apply). */
+const BREAK_FIELDS = ["driveBeforeBreak", "breakMin", "windowBreakMin", "breakFrom", "breakTo"];
+
+/** The Settings' break defaults as vehicle rules (checked whole by `crossProblems`); none when none is set. */
+function defaultBreaks(s: PlanSettings): Pick<Vehicle, "drivingBreak" | "windowBreak"> {
+  const out: { drivingBreak?: DrivingBreakRule; windowBreak?: WindowBreakRule } = {};
+  if (s.driveBeforeBreakH !== undefined && s.breakMin !== undefined)
+    out.drivingBreak = { driveMin: s.driveBeforeBreakH * 60, breakMin: s.breakMin };
+  const length = s.windowBreakMin ?? s.breakMin;
+  if (s.breakFrom !== undefined && s.breakTo !== undefined && length !== undefined)
+    out.windowBreak = { earliestMin: s.breakFrom, latestMin: s.breakTo, breakMin: length };
+  return out;
 }
 
 function defined<T extends object>(o: T): Partial<T> {

@@ -27,7 +27,12 @@ export type SettingKey =
   | "moves"
   | "objective"
   | "country"
-  | "stabilityCost";
+  | "stabilityCost"
+  | "driveBeforeBreakH"
+  | "breakMin"
+  | "windowBreakMin"
+  | "breakFrom"
+  | "breakTo";
 
 interface FieldBase {
   /** Name shown in messages, the pane and the Settings sheet ("Detour factor"). */
@@ -55,6 +60,8 @@ export interface NumberField extends FieldBase {
   readonly example: string;
   /** Also accepts durations such as "1:30" or "5 min" (minutes). */
   readonly duration?: boolean;
+  /** A time of day, read as minutes from midnight (Excel day fraction or text such as "12:30"). */
+  readonly time?: boolean;
 }
 
 /** A setting chosen from words: `choices` maps every accepted word (joined header words) to its value. */
@@ -351,6 +358,74 @@ export const SETTING_FIELDS: Readonly<Record<SettingKey, SettingField>> = {
     min: 0,
     max: 1e9,
     example: "20",
+  },
+  // Break defaults: none of them has a value unless the user sets one (no default is legal advice).
+  driveBeforeBreakH: {
+    type: "number",
+    label: "Drive before break",
+    flag: "drive-before-break",
+    valueName: "H",
+    sheetKeys: ["drivebeforebreak", "drivebeforebreakh", "drivingbeforebreak", "breakafter", "breakafterh"],
+    help: "hours of driving after which a break of Break min is due, for every vehicle when the Fleet has no break columns; your own jurisdiction's value, not a default",
+    min: 0,
+    minExclusive: true,
+    max: 24,
+    unit: "hours",
+    example: "4.5",
+  },
+  breakMin: {
+    type: "number",
+    label: "Break min",
+    flag: "break-min",
+    valueName: "MIN",
+    sheetKeys: ["breakmin", "breakminutes", "breaklength", "breakduration"],
+    help: "length of the break after Drive before break (and of the window break when Window break min is not given), when the Fleet has no break columns",
+    min: 0,
+    minExclusive: true,
+    max: 600,
+    unit: "minutes",
+    example: "30",
+    duration: true,
+  },
+  windowBreakMin: {
+    type: "number",
+    label: "Window break min",
+    flag: "window-break-min",
+    valueName: "MIN",
+    sheetKeys: ["windowbreakmin", "lunchmin", "lunchbreakmin", "lunchminutes"],
+    help: "length of the break inside Break from .. Break to, when the Fleet has no break columns",
+    min: 0,
+    minExclusive: true,
+    max: 600,
+    unit: "minutes",
+    example: "30",
+    duration: true,
+  },
+  breakFrom: {
+    type: "number",
+    label: "Break from",
+    flag: "break-from",
+    valueName: "TIME",
+    sheetKeys: ["breakfrom", "breakstart", "breakwindowfrom", "lunchfrom", "lunchstart"],
+    help: "start of the window a break must lie in (such as lunch), when the Fleet has no break columns",
+    min: 0,
+    max: 1440,
+    unit: "minutes from midnight",
+    example: "12:00",
+    time: true,
+  },
+  breakTo: {
+    type: "number",
+    label: "Break to",
+    flag: "break-to",
+    valueName: "TIME",
+    sheetKeys: ["breakto", "breakend", "breakuntil", "breakwindowto", "lunchto", "lunchend"],
+    help: "end of that break window",
+    min: 0,
+    max: 1440,
+    unit: "minutes from midnight",
+    example: "13:30",
+    time: true,
   },
   country: {
     type: "text",

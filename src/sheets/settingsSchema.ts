@@ -8,6 +8,7 @@ import { GEOMETRIC_ALPHA, type CoolingSpec } from "../core/index.js";
 import { plainCell, readNumber, shownValue } from "./cellValue.js";
 import { headerWords } from "./matchHeaders.js";
 import { parseDuration } from "./parseDuration.js";
+import { parseTime } from "./parseTime.js";
 import type { PlanSettings, RunRecord } from "./PlanSettings.js";
 import {
   PARAMETERS_OF,
@@ -74,6 +75,11 @@ export const planSettingsSchema = z
       .max((SETTING_FIELDS.country as TextField).maxLength)
       .optional(),
     stabilityCost: n("stabilityCost").optional(),
+    driveBeforeBreakH: n("driveBeforeBreakH").optional(),
+    breakMin: n("breakMin").optional(),
+    windowBreakMin: n("windowBreakMin").optional(),
+    breakFrom: n("breakFrom").optional(),
+    breakTo: n("breakTo").optional(),
   })
   .superRefine((s, ctx) => {
     for (const p of crossProblems(s)) ctx.addIssue({ code: "custom", path: [p.key], message: p.message });
@@ -135,7 +141,7 @@ export function parseSettingValue(key: SettingKey, raw: unknown): ParsedSetting<
     if (hit !== undefined) return { ok: true, value: hit };
     return { ok: false, message: `${field.label} ${shownValue(v)} is not valid: enter ${rangeText(field)}.` };
   }
-  const number = readNumber(v) ?? (field.duration ? parseDuration(v) : undefined);
+  const number = field.time ? parseTime(v) : (readNumber(v) ?? (field.duration ? parseDuration(v) : undefined));
   const shown = number !== undefined ? String(number) : shownValue(v);
   const checked = numberSchema(field).safeParse(number);
   if (checked.success) return { ok: true, value: checked.data };
@@ -224,10 +230,46 @@ function temperatureProblems(spec: { t0?: number; tEnd?: number }): SettingProbl
  * @returns the problems (empty when consistent)
  * @example crossProblems({ ...PLAN_SETTINGS_DEFAULTS, pEnd: 0.6 })[0].key // => "pEnd"
  */
-export function crossProblems(s: Pick<PlanSettings, "p0" | "pEnd" | "cooling">): SettingProblem[] {
-  const out: SettingProblem[] = [];
+export function crossProblems(s: Pick<PlanSettings, "p0" | "pEnd" | "cooling" | BreakSettingKey>): SettingProblem[] {
+  const out: SettingProblem[] = [...breakProblems(s)];
   if (!(s.pEnd < s.p0)) out.push({ key: "pEnd", message: `Final acceptance ${s.pEnd} must be below the initial acceptance ${s.p0}.` });
   if (s.cooling.kind === "linear" || s.cooling.kind === "timeFraction") out.push(...temperatureProblems(s.cooling));
+  return out;
+}
+
+/** The break-default settings. */
+type BreakSettingKey = "driveBeforeBreakH" | "breakMin" | "windowBreakMin" | "breakFrom" | "breakTo";
+
+/** The break defaults must form whole rules: a drive limit with its break length, a window with both ends and a length that fits. */
+function breakProblems(s: Pick<PlanSettings, BreakSettingKey>): SettingProblem[] {
+  const out: SettingProblem[] = [];
+  if (s.driveBeforeBreakH !== undefined && s.breakMin === undefined)
+    out.push({
+      key: "driveBeforeBreakH",
+      message: "Drive before break needs a Break min: add your own rule's break length (such as 30), or clear Drive before break.",
+    });
+  if ((s.breakFrom === undefined) !== (s.breakTo === undefined))
+    out.push({
+      key: s.breakFrom === undefined ? "breakTo" : "breakFrom",
+      message: "a break window needs both Break from and Break to (such as 12:00 and 13:30); give both or clear both.",
+    });
+  if (s.breakFrom !== undefined && s.breakTo !== undefined) {
+    const length = s.windowBreakMin ?? s.breakMin;
+    if (length === undefined)
+      out.push({ key: "breakTo", message: "a break window needs a length: add Window break min or Break min (such as 30)." });
+    else if (s.breakTo - s.breakFrom < length)
+      out.push({
+        key: "breakTo",
+        message: `the break window ${s.breakFrom}..${s.breakTo} (minutes from midnight) is shorter than the ${length} min break; widen it or shorten the break.`,
+      });
+  }
+  if (s.breakMin !== undefined && s.driveBeforeBreakH === undefined && s.breakFrom === undefined)
+    out.push({
+      key: "breakMin",
+      message: "Break min is given but no rule uses it: add Drive before break or Break from and Break to, or clear Break min.",
+    });
+  if (s.windowBreakMin !== undefined && s.breakFrom === undefined)
+    out.push({ key: "windowBreakMin", message: "Window break min needs Break from and Break to; add them or clear Window break min." });
   return out;
 }
 
