@@ -505,7 +505,7 @@ describe("a whole scenario through the adapter (demo workbook read with exceljs,
       entries("values")
         .filter((e) => e[1] === "Compare")
         .map((e) => e[2]),
-    ).toEqual(["A1:K1", "A2:K2"]);
+    ).toEqual(["A1:L1", "A2:L2"]); // COMPARE_HEADER: 12 columns, the last one Changed vehicle
     const [, key, value] = entries("settings.add")[0]!;
     expect(key).toBe(scenarioSettingsKey(sheetName));
     expect(JSON.parse(value as string).scenario).toBe(sheetName);
