@@ -1,7 +1,8 @@
 import { EARTH_MEAN_RADIUS_KM } from "../constants.js";
 import type { LatLon } from "../model.js";
 
-const RAD = Math.PI / 180;
+/** Radians per degree. */
+export const RAD = Math.PI / 180;
 
 /**
  * Central angle between two points, by the haversine formula (Sinnott, "Virtues of the

@@ -23,6 +23,10 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   const L = cp.locationCount;
   const T = cp.travelMin;
   const Dm = cp.distanceKm;
+  // Minutes from km when the matrix allows it (bitwise the stored minutes; one read per arc).
+  const derived = cp.travelFromKm;
+  const dv = cp.travelDivisor;
+  const mu = cp.travelMultiplier;
   const f = cp.travelFactor[v]!;
   const dims = cp.dims;
   const load = state.scratchLoad;
@@ -52,7 +56,8 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     if (src < 0) {
       // One pool stop.
       const loc = cp.stopLoc[i]!;
-      const t = T[last * L + loc]! * f;
+      const km = Dm[last * L + loc]!;
+      const t = (derived ? (km / dv) * mu : T[last * L + loc]!) * f;
       const e2 = cp.earliestMin[i]!;
       const l2 = cp.latestMin[i]!;
       const delta = aD - aTW + t;
@@ -62,7 +67,7 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
       aL = Math.min(l2 - delta, aL) + tw;
       aD += cp.serviceMin[i]! + t + wt;
       aTW += tw;
-      dist += Dm[last * L + loc]!;
+      dist += km;
       for (let d = 0; d < dims; d++) load[d] = load[d]! + cp.demand[i * dims + d]!;
       last = loc;
       continue;
@@ -73,7 +78,8 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     const sameSpeed = cp.travelFactor[src] === f;
     const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
     const lastLoc = rev ? r.locs[i]! : r.locs[j]!;
-    const tIn = T[last * L + firstLoc]! * f;
+    const kmIn = Dm[last * L + firstLoc]!;
+    const tIn = (derived ? (kmIn / dv) * mu : T[last * L + firstLoc]!) * f;
     let d2: number;
     let tw2 = 0;
     let e2 = -Infinity;
@@ -86,19 +92,18 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     } else if (sameSpeed && r.cumWin[j]! - r.cumWin[i - 1]! === 0) {
       d2 = r.cumSvc[j]! - r.cumSvc[i - 1]! + (rev ? r.cumTravR[j]! - r.cumTravR[i]! : r.cumTrav[j]! - r.cumTrav[i]!);
     } else {
-      // Walk the piece: binding windows or another speed.
+      // Walk the piece: binding windows or another speed. Its legs come from the route's own
+      // copies of the matrix entries (forward into p, or reversed out of p + 1).
       d2 = 0;
-      let pl = -1;
       for (let q = 0; q <= j - i; q++) {
         const p = rev ? j - q : i + q;
         const s = r.nodes[p]!;
-        const loc = r.locs[p]!;
-        if (pl < 0) {
+        if (q === 0) {
           d2 = cp.serviceMin[s]!;
           e2 = cp.earliestMin[s]!;
           l2 = cp.latestMin[s]!;
         } else {
-          const t = T[pl * L + loc]! * f;
+          const t = (rev ? r.legMinR[p + 1]! : r.legMin[p]!) * f;
           const ee = cp.earliestMin[s]!;
           const ll = cp.latestMin[s]!;
           const delta = d2 - tw2 + t;
@@ -109,7 +114,6 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
           d2 += cp.serviceMin[s]! + t + wt;
           tw2 += tw;
         }
-        pl = loc;
       }
     }
     const delta = aD - aTW + tIn;
@@ -119,18 +123,29 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     aL = Math.min(l2 - delta, aL) + tw;
     aD += d2 + tIn + wt;
     aTW += tw2 + tw;
-    dist += Dm[last * L + firstLoc]! + (rev ? r.cumDistR[j]! - r.cumDistR[i]! : r.cumDist[j]! - r.cumDist[i]!);
+    dist += kmIn + (rev ? r.cumDistR[j]! - r.cumDistR[i]! : r.cumDist[j]! - r.cumDist[i]!);
     for (let d = 0; d < dims; d++) load[d] = load[d]! + r.preLoad[j * dims + d]! - r.preLoad[(i - 1) * dims + d]!;
     last = lastLoc;
   }
   // End depot: its lateness is overtime, kept apart from lateness at stops.
   const endLoc = cp.endLoc[v]!;
-  const tEnd = T[last * L + endLoc]! * f;
+  const e = cp.endDepot[v]!;
+  let kmEnd: number;
+  let tEnd: number;
+  if (e >= 0) {
+    // The end depot's own table: one short row instead of a matrix column.
+    const o = (e * L + last) * 2;
+    kmEnd = cp.toEnd[o]!;
+    tEnd = cp.toEnd[o + 1]! * f;
+  } else {
+    kmEnd = Dm[last * L + endLoc]!;
+    tEnd = T[last * L + endLoc]! * f;
+  }
   const delta = aD - aTW + tEnd;
   const wt = Math.max(cp.shiftStartMin[v]! - delta - aL, 0);
   const endTW = Math.max(aE + delta - cp.shiftEndMin[v]!, 0);
   const duration = aD + tEnd + wt;
-  dist += Dm[last * L + endLoc]!;
+  dist += kmEnd;
   let excess = 0;
   for (let d = 0; d < dims; d++) {
     const over = load[d]! - cp.capacity[v * dims + d]!;

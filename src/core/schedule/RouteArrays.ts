@@ -31,6 +31,16 @@ export class RouteArrays {
   cumTravR: Float64Array = new Float64Array(0);
   cumSvc: Float64Array = new Float64Array(0);
   cumWin: Int32Array = new Int32Array(0);
+  /**
+   * The matrix entries of the leg into position i (from i-1), as stored (minutes at the
+   * reference speed, before the vehicle's factor), and of the reversed leg (i -> i-1). Kept so
+   * that rebuilding after a move reads the matrix only for the legs the move created, and a
+   * walk over a piece reads its legs from here.
+   */
+  legKm: Float64Array = new Float64Array(0);
+  legMin: Float64Array = new Float64Array(0);
+  legKmR: Float64Array = new Float64Array(0);
+  legMinR: Float64Array = new Float64Array(0);
   /** `(len + 2) * dims` prefix loads. */
   preLoad: Float64Array = new Float64Array(0);
   /**
@@ -54,17 +64,33 @@ export class RouteArrays {
   }
 
   /**
-   * Replace the stops of the route and rebuild every summary in O(len).
+   * Replace the stops of the route and rebuild every summary in O(len); the matrix is read only
+   * for legs that are new (stops the old and new route share at their ends keep theirs).
    *
    * @param stops - stop indices in visiting order
    * @param count - how many of `stops` to take (default all)
    * @example route.assign(Int32Array.of(3, 1), 2)
    */
   assign(stops: Int32Array | readonly number[], count: number = stops.length): void {
-    this.ensure(count);
+    // Stops shared with the old route at the start keep their summaries (unless the arrays
+    // grew, which keeps only stops, locations and legs); at the end, their legs.
+    const grew = this.ensure(count);
+    const old = this.len;
+    const nodes = this.nodes;
+    let head = 0;
+    const both = Math.min(old, count);
+    while (!grew && head < both && nodes[head + 1] === stops[head]) head++;
+    let tail = 0;
+    while (tail < both - head && nodes[old - tail] === stops[count - 1 - tail]) tail++;
+    if (tail > 0 && count !== old) {
+      const from = old - tail + 2;
+      const to = count - tail + 2;
+      for (const a of [this.legKm, this.legMin, this.legKmR, this.legMinR]) a.copyWithin(to, from, old + 1);
+    }
     this.len = count;
-    for (let i = 0; i < count; i++) this.nodes[i + 1] = stops[i]!;
-    this.rebuild();
+    for (let i = head; i < count; i++) nodes[i + 1] = stops[i]!;
+    for (let i = head + 1; i <= count; i++) this.locs[i] = this.cp.stopLoc[nodes[i]!]!;
+    this.rebuild(head + 1, count, count - tail + 1);
   }
 
   /**
@@ -77,25 +103,43 @@ export class RouteArrays {
    */
   replaceRange(stops: Int32Array, lo: number, hi: number): void {
     for (let p = lo; p <= hi; p++) this.nodes[p] = stops[p - 1]!;
-    this.rebuild(lo, hi);
+    for (let p = lo; p <= hi; p++) this.locs[p] = this.cp.stopLoc[this.nodes[p]!]!;
+    this.rebuild(lo, hi, hi + 1);
   }
 
-  /** Recompute the summaries from `nodes[1..len]`; positions outside lo..hi are known unchanged. */
-  rebuild(lo: number = 1, hi: number = this.len): void {
+  /**
+   * Recompute the summaries from `nodes[1..len]`: prefixes from `lo` on, suffixes from `hi`
+   * down. `locs[1..len]` must be current, and so must the legs into positions after `legHi`
+   * (those up to it are read from the matrix again).
+   */
+  rebuild(lo: number = 1, hi: number = this.len, legHi: number = this.len): void {
     const cp = this.cp;
     const v = this.vehicle;
     const len = this.len;
-    const L = cp.locationCount;
     const f = cp.travelFactor[v]!;
     const dims = cp.dims;
-    const T = cp.travelMin;
-    const Dm = cp.distanceKm;
     const locs = this.locs;
     locs[0] = cp.startLoc[v]!;
     this.nodes[0] = -1;
     this.nodes[len + 1] = -1;
-    for (let i = lo; i <= hi; i++) locs[i] = cp.stopLoc[this.nodes[i]!]!;
     locs[len + 1] = cp.endLoc[v]!;
+    const { legKm, legMin, legKmR, legMinR } = this;
+    const L = cp.locationCount;
+    const T = cp.travelMin;
+    const Dm = cp.distanceKm;
+    const derived = cp.travelFromKm;
+    const dv = cp.travelDivisor;
+    const mu = cp.travelMultiplier;
+    for (let i = lo, end = Math.min(legHi, len); i <= end; i++) {
+      const a = locs[i - 1]!;
+      const b = locs[i]!;
+      const km = Dm[a * L + b]!;
+      const kmR = Dm[b * L + a]!;
+      legKm[i] = km;
+      legKmR[i] = kmR;
+      legMin[i] = derived ? (km / dv) * mu : T[a * L + b]!;
+      legMinR[i] = derived ? (kmR / dv) * mu : T[b * L + a]!;
+    }
     const { preD, preTW, preE, preL, preLoad, cumDist, cumDistR, cumTrav, cumTravR, cumSvc, cumWin } = this;
     preD[0] = 0;
     preTW[0] = 0;
@@ -106,13 +150,11 @@ export class RouteArrays {
     for (let d = 0; d < dims; d++) preLoad[d] = 0;
     for (let i = lo; i <= len; i++) {
       const s = this.nodes[i]!;
-      const a = locs[i - 1]!;
-      const b = locs[i]!;
-      const t = T[a * L + b]! * f;
+      const t = legMin[i]! * f;
       cumTrav[i] = cumTrav[i - 1]! + t;
-      cumTravR[i] = cumTravR[i - 1]! + T[b * L + a]! * f;
-      cumDist[i] = cumDist[i - 1]! + Dm[a * L + b]!;
-      cumDistR[i] = cumDistR[i - 1]! + Dm[b * L + a]!;
+      cumTravR[i] = cumTravR[i - 1]! + legMinR[i]! * f;
+      cumDist[i] = cumDist[i - 1]! + legKm[i]!;
+      cumDistR[i] = cumDistR[i - 1]! + legKmR[i]!;
       cumSvc[i] = cumSvc[i - 1]! + cp.serviceMin[s]!;
       cumWin[i] = cumWin[i - 1]! + cp.windowed[s]!;
       for (let d = 0; d < dims; d++) preLoad[i * dims + d] = preLoad[(i - 1) * dims + d]! + cp.demand[s * dims + d]!;
@@ -190,9 +232,13 @@ export class RouteArrays {
     }
   }
 
-  /** Grow the arrays so that `count` stops fit (allocates only when growing). */
-  ensure(count: number): void {
-    if (count <= this.capacity) return;
+  /**
+   * Grow the arrays so that `count` stops fit (allocates only when growing).
+   *
+   * @returns true when the arrays grew (then only stops, locations and legs were kept)
+   */
+  ensure(count: number): boolean {
+    if (count <= this.capacity) return false;
     const cap = Math.max(count, this.capacity * 2, 8);
     const size = cap + 2;
     const F = (k: number): Float64Array => new Float64Array(k);
@@ -200,7 +246,9 @@ export class RouteArrays {
     const nodes = I(size);
     nodes.set(this.nodes);
     this.nodes = nodes;
-    this.locs = I(size);
+    const locs = I(size);
+    locs.set(this.locs);
+    this.locs = locs;
     this.preD = F(size);
     this.preTW = F(size);
     this.preE = F(size);
@@ -215,6 +263,15 @@ export class RouteArrays {
     this.cumTravR = F(size);
     this.cumSvc = F(size);
     this.cumWin = I(size);
+    const keep = (old: Float64Array): Float64Array => {
+      const a = F(size);
+      a.set(old);
+      return a;
+    };
+    this.legKm = keep(this.legKm);
+    this.legMin = keep(this.legMin);
+    this.legKmR = keep(this.legKmR);
+    this.legMinR = keep(this.legMinR);
     this.preLoad = F(size * this.cp.dims);
     if (this.cp.anyPickup) {
       this.prePick = F(size * this.cp.dims);
@@ -222,5 +279,6 @@ export class RouteArrays {
       this.sufMax = F(size * this.cp.dims);
     }
     this.capacity = cap;
+    return true;
   }
 }

@@ -15,6 +15,23 @@ export interface CompiledProblem {
   readonly dims: number;
   readonly travelMin: Float64Array;
   readonly distanceKm: Float64Array;
+  /**
+   * When every entry of `travelMin` is `(distanceKm / travelDivisor) * travelMultiplier`
+   * bitwise (a matrix built from km at one speed, or minutes equal to km), true: the search then
+   * reads only `distanceKm` and derives minutes with that very expression, one memory read per
+   * arc instead of two, with identical values. False: both tables are read.
+   */
+  readonly travelFromKm: boolean;
+  readonly travelDivisor: number;
+  readonly travelMultiplier: number;
+  /**
+   * Arcs into the vehicles' end depots, laid out by depot: `toEnd[(endDepot[v] * L + loc) * 2]`
+   * is `distanceKm[loc * L + endLoc[v]]` and the next entry the `travelMin` of that arc (copies,
+   * so a column of the row-major matrix is read from one short row). Empty when there would be
+   * more than `TO_END_MAX_ENTRIES` entries (then `endDepot` is all -1 and the matrix is read).
+   */
+  readonly toEnd: Float64Array;
+  readonly endDepot: Int32Array;
   readonly stopLoc: Int32Array;
   readonly serviceMin: Float64Array;
   /** Window hull [first earliest, last latest]; -Infinity/+Infinity for a stop that is never binding. */
@@ -154,10 +171,9 @@ export function compileProblem(problem: Problem): CompiledProblem {
     for (let d = 0; d < baseDims; d++) capacity[k * dims + d] = v.capacity[d] ?? 0;
     capacity[k * dims + baseDims] = v.maxStops ?? Infinity;
   });
-  let maxRow = 0;
-  for (let i = 0; i < L * L; i++) if (m.distanceKm[i]! > maxRow && Number.isFinite(m.distanceKm[i]!)) maxRow = m.distanceKm[i]!;
-  let maxTravel = 0;
-  for (let i = 0; i < L * L; i++) if (m.travelMin[i]! > maxTravel && Number.isFinite(m.travelMin[i]!)) maxTravel = m.travelMin[i]!;
+  const arcs = scanMatrix(m.distanceKm, m.travelMin, problem.referenceSpeedKmh);
+  const maxRow = arcs.maxKm;
+  const maxTravel = arcs.maxMin;
   const maxFactor = Math.max(...travelFactor);
   let routeBound = 0;
   for (let k = 0; k < V; k++) routeBound += fixedCost[k]!;
@@ -219,6 +235,10 @@ export function compileProblem(problem: Problem): CompiledProblem {
     dims,
     travelMin: m.travelMin,
     distanceKm: m.distanceKm,
+    travelFromKm: arcs.divisor > 0,
+    travelDivisor: arcs.divisor > 0 ? arcs.divisor : 1,
+    travelMultiplier: arcs.multiplier,
+    ...endDepotArcs(m.distanceKm, m.travelMin, L, endLoc),
     stopLoc,
     serviceMin,
     earliestMin,
@@ -327,4 +347,54 @@ function reasonFor(problem: Problem, i: number, featureOk: number, capOk: number
     return "no vehicle may take another stop (max stops)";
   }
   return "its time window cannot be reached within any vehicle's shift (even as the only stop)";
+}
+
+/** Largest number of entries (2 per arc) of the end-depot table; beyond it the matrix is read. */
+const TO_END_MAX_ENTRIES = 1 << 23;
+
+/**
+ * One pass over the matrix: the largest finite km and minutes, and whether minutes follow from
+ * km bitwise as `(km / divisor) * multiplier` with (1, 1) or (reference speed, 60).
+ */
+function scanMatrix(
+  km: Float64Array,
+  min: Float64Array,
+  speedKmh: number,
+): { maxKm: number; maxMin: number; divisor: number; multiplier: number } {
+  let maxKm = 0;
+  let maxMin = 0;
+  let same = true;
+  let atSpeed = speedKmh > 0;
+  for (let i = 0; i < km.length; i++) {
+    const d = km[i]!;
+    const t = min[i]!;
+    if (d > maxKm && Number.isFinite(d)) maxKm = d;
+    if (t > maxMin && Number.isFinite(t)) maxMin = t;
+    // A NaN entry never compares equal, so such a matrix keeps both tables.
+    if (same && t !== d) same = false;
+    if (atSpeed && t !== (d / speedKmh) * 60) atSpeed = false;
+  }
+  if (same) return { maxKm, maxMin, divisor: 1, multiplier: 1 };
+  if (atSpeed) return { maxKm, maxMin, divisor: speedKmh, multiplier: 60 };
+  return { maxKm, maxMin, divisor: 0, multiplier: 1 };
+}
+
+/** The end-depot arc table of `CompiledProblem.toEnd` (one block per distinct end location). */
+function endDepotArcs(km: Float64Array, min: Float64Array, L: number, endLoc: Int32Array): { toEnd: Float64Array; endDepot: Int32Array } {
+  const depots: number[] = [];
+  const endDepot = Int32Array.from(endLoc, (loc) => {
+    const k = depots.indexOf(loc);
+    if (k >= 0) return k;
+    depots.push(loc);
+    return depots.length - 1;
+  });
+  if (depots.length * L * 2 > TO_END_MAX_ENTRIES) return { toEnd: new Float64Array(0), endDepot: endDepot.fill(-1) };
+  const toEnd = new Float64Array(depots.length * L * 2);
+  depots.forEach((e, k) => {
+    for (let loc = 0; loc < L; loc++) {
+      toEnd[(k * L + loc) * 2] = km[loc * L + e]!;
+      toEnd[(k * L + loc) * 2 + 1] = min[loc * L + e]!;
+    }
+  });
+  return { toEnd, endDepot };
 }

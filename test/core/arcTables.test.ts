@@ -1,0 +1,164 @@
+import { readFileSync } from "node:fs";
+import { describe, expect, it } from "vitest";
+import { parseSolomon, solomonToProblem } from "../../src/core/formats/index.js";
+import { parseTsplib, tsplibToProblem } from "../../src/core/formats/index.js";
+import { buildMatrix, userMatrix } from "../../src/core/geo/buildMatrix.js";
+import { greatCircleKm } from "../../src/core/geo/greatCircleKm.js";
+import type { Problem } from "../../src/core/model.js";
+import { compileProblem } from "../../src/core/schedule/compileProblem.js";
+import { RouteArrays } from "../../src/core/schedule/RouteArrays.js";
+import { createRandom } from "../../src/core/anneal/createRandom.js";
+import { randomInstance } from "./randomInstance.js";
+
+const fixture = (name: string): string => readFileSync(new URL(`../fixtures/reference/${name}`, import.meta.url), "utf8");
+
+describe("buildMatrix fills every entry with the pairwise great-circle formula", () => {
+  it("is bitwise greatCircleKm * detour and (km / speed) * 60 across tile edges", () => {
+    // 150 points: more than two 64-point tiles, so entries in and across tiles are compared.
+    // greatCircleKm itself is checked against geolib in test/reference/greatCircleGeolib.test.ts.
+    const rng = createRandom("tiles");
+    const points = Array.from({ length: 150 }, () => ({ lat: -60 + rng.next() * 120, lon: -180 + rng.next() * 360 }));
+    points.push({ ...points[3]! }); // a coincident pair: 0 km
+    const m = buildMatrix(points, { detourFactor: 1.37, speedKmh: 33 });
+    const n = points.length;
+    let mismatches = 0;
+    for (let i = 0; i < n; i++) {
+      for (let j = 0; j < n; j++) {
+        const km = i === j ? 0 : greatCircleKm(points[i]!, points[j]!) * 1.37;
+        if (!Object.is(m.distanceKm[i * n + j], km) || !Object.is(m.travelMin[i * n + j], (km / 33) * 60)) mismatches++;
+      }
+    }
+    expect(mismatches).toBe(0);
+    expect(m.distanceKm[3 * n + (n - 1)]).toBe(0);
+  });
+});
+
+describe("compiled arc tables read the matrix's own numbers", () => {
+  function derivedExactly(p: Problem): boolean {
+    const cp = compileProblem(p);
+    const { distanceKm, travelMin } = p.matrix;
+    for (let i = 0; i < distanceKm.length; i++) {
+      if (!Object.is((distanceKm[i]! / cp.travelDivisor) * cp.travelMultiplier, travelMin[i])) return false;
+    }
+    return true;
+  }
+
+  it("derives minutes from km only when that gives every stored minute bitwise", () => {
+    const generated = randomInstance(1, { stops: 20, vehicles: 3 });
+    expect(compileProblem(generated).travelFromKm).toBe(true);
+    expect(derivedExactly(generated)).toBe(true);
+    // Solomon (1987): travel time equals distance.
+    const solomon = solomonToProblem(parseSolomon(fixture("C101.txt")));
+    expect(compileProblem(solomon).travelFromKm).toBe(true);
+    expect(derivedExactly(solomon)).toBe(true);
+    // TSPLIB (Reinelt 1991): the tour length is the sum of the integer distances.
+    const tsp = tsplibToProblem(parseTsplib(fixture("ulysses22.tsp")));
+    expect(compileProblem(tsp).travelFromKm).toBe(true);
+    expect(derivedExactly(tsp)).toBe(true);
+    // A user's own minutes, not proportional to km: both tables are read.
+    const L = generated.matrix.size;
+    const km = Array.from({ length: L }, (_, i) => Array.from({ length: L }, (_, j) => generated.matrix.distanceKm[i * L + j]!));
+    const min = km.map((row, i) => row.map((d, j) => d * 1.7 + ((i + j) % 3)));
+    expect(compileProblem({ ...generated, matrix: userMatrix(km, min) }).travelFromKm).toBe(false);
+    // One entry off by a rounding step is enough to keep both tables.
+    const t = generated.matrix.travelMin.slice();
+    t[5] = t[5]! + t[5]! * Number.EPSILON;
+    expect(compileProblem({ ...generated, matrix: { ...generated.matrix, travelMin: t } }).travelFromKm).toBe(false);
+  });
+
+  it("copies the arcs into each end depot bitwise", () => {
+    const p = randomInstance(2, { stops: 25, vehicles: 5 });
+    const cp = compileProblem(p);
+    const L = cp.locationCount;
+    for (let v = 0; v < cp.vehicleCount; v++) {
+      const e = cp.endDepot[v]!;
+      expect(e).toBeGreaterThanOrEqual(0);
+      for (let loc = 0; loc < L; loc++) {
+        expect(cp.toEnd[(e * L + loc) * 2]).toBe(p.matrix.distanceKm[loc * L + cp.endLoc[v]!]);
+        expect(cp.toEnd[(e * L + loc) * 2 + 1]).toBe(p.matrix.travelMin[loc * L + cp.endLoc[v]!]);
+      }
+    }
+  });
+});
+
+describe("RouteArrays rebuilt after an edit equals one built from scratch", () => {
+  const FIELDS = [
+    "locs",
+    "legKm",
+    "legMin",
+    "legKmR",
+    "legMinR",
+    "preD",
+    "preTW",
+    "preE",
+    "preL",
+    "sufD",
+    "sufTW",
+    "sufE",
+    "sufL",
+    "cumDist",
+    "cumDistR",
+    "cumTrav",
+    "cumTravR",
+    "cumSvc",
+    "cumWin",
+  ] as const;
+
+  it.each([
+    ["generated, shared minutes", randomInstance(3, { stops: 30, vehicles: 3 })],
+    ["Solomon C101", solomonToProblem(parseSolomon(fixture("C101.txt")))],
+  ])("%s: 3 000 random inserts, removals, swaps and reversals", (_, problem) => {
+    const cp = compileProblem(problem);
+    const v = 1;
+    const route = new RouteArrays(cp, v);
+    const rng = createRandom("edits");
+    let stops: number[] = [];
+    for (let it = 0; it < 3000; it++) {
+      const next = stops.slice();
+      const op = rng.int(4);
+      if (op === 0 && next.length < 40) next.splice(rng.int(next.length + 1), 0, rng.int(cp.n));
+      else if (op === 1 && next.length > 0) next.splice(rng.int(next.length), 1);
+      else if (op === 2 && next.length > 1) {
+        const a = rng.int(next.length);
+        const b = rng.int(next.length);
+        [next[a], next[b]] = [next[b]!, next[a]!];
+      } else if (next.length > 2) {
+        const a = rng.int(next.length - 1);
+        const b = a + 1 + rng.int(next.length - a - 1);
+        next.splice(a, b - a + 1, ...next.slice(a, b + 1).reverse());
+      }
+      if (next.length === stops.length && next.length > 0) {
+        // The same-length path of the search: only the changed stretch is replaced.
+        let lo = 1;
+        let hi = next.length;
+        while (lo <= hi && route.nodes[lo] === next[lo - 1]) lo++;
+        while (hi >= lo && route.nodes[hi] === next[hi - 1]) hi--;
+        if (lo <= hi) route.replaceRange(Int32Array.from(next), lo, hi);
+      } else {
+        route.assign(next, next.length);
+      }
+      stops = next;
+      const fresh = new RouteArrays(cp, v);
+      fresh.assign(stops, stops.length);
+      const L = cp.locationCount;
+      for (let i = 1; i <= stops.length; i++) {
+        // The legs are the problem's matrix entries themselves.
+        const a = route.locs[i - 1]!;
+        const b = route.locs[i]!;
+        expect(route.legKm[i]).toBe(problem.matrix.distanceKm[a * L + b]);
+        expect(route.legMinR[i]).toBe(problem.matrix.travelMin[b * L + a]);
+      }
+      for (const f of FIELDS) {
+        const first = f.startsWith("suf") || f.startsWith("leg") ? 1 : 0;
+        for (let i = first; i <= stops.length; i++) {
+          const got = route[f][i]!;
+          const want = fresh[f][i]!;
+          // Suffixes past a replaced stretch are kept, and they take each leg's minutes as a
+          // difference of prefix sums, so they may differ from a fresh build in the last bits.
+          const same = Object.is(got, want) || (f.startsWith("suf") && Math.abs(got - want) <= 1e-9 * Math.max(1, Math.abs(want)));
+          if (!same) expect.fail(`edit ${it}: ${f}[${i}] ${got} != ${want}`);
+        }
+      }
+    }
+  });
+});
