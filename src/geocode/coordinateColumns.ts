@@ -48,7 +48,12 @@ export function coordinateColumns(
   values[header]![labelCol] = MATCH_HEADER;
   for (const item of items) {
     const r = item.sheetRow0 - filled.row;
-    if (values[r]) values[r]![labelCol] = matchText(item);
+    const line = values[r];
+    if (!line) continue;
+    // A vehicle whose start and end depots were both looked up gets both labels, the end one marked.
+    const text = item.end ? `end depot ${matchText(item)}` : matchText(item);
+    const before = line[labelCol];
+    line[labelCol] = typeof before === "string" && before !== "" ? (item.end ? `${before}; ${text}` : `${text}; ${before}`) : text;
   }
   return { row: filled.row, col: filled.col, values };
 }

@@ -24,6 +24,8 @@ export interface ReviewItem extends GeocodeMatch {
   readonly cell: string;
   readonly sheetRow0: number;
   readonly address: string;
+  /** Set for a fleet row's end depot. */
+  readonly end?: true;
 }
 
 /** The tables with geocoded coordinates filled in (in memory), and what the review shows. */
@@ -41,8 +43,8 @@ export interface LocatedTables {
 }
 
 /**
- * The addresses of the stops and of the fleet's start depots that have no typed coordinates
- * (typed coordinates always win), and the typed points.
+ * The addresses of the stops and of the fleet's start and end depots that have no typed
+ * coordinates (typed coordinates always win), and the typed points.
  *
  * @param tables - the tables as read
  * @param defaultCountry - the country added to addresses whose row gives none
@@ -52,9 +54,14 @@ export interface LocatedTables {
 export function addressTargets(tables: LocateTables, defaultCountry?: string): { targets: AddressTarget[]; typed: LatLon[] } {
   const stops = addressRows(tables.stops, "stops", defaultCountry);
   const fleet = tables.fleet ? addressRows(tables.fleet, "fleet", defaultCountry) : { rows: [], typed: [] };
+  const ends = tables.fleet ? addressRows(tables.fleet, "fleet", defaultCountry, true) : { rows: [], typed: [] };
   return {
-    targets: [...stops.rows.map((r) => ({ ...r, table: "stops" as const })), ...fleet.rows.map((r) => ({ ...r, table: "fleet" as const }))],
-    typed: [...stops.typed, ...fleet.typed],
+    targets: [
+      ...stops.rows.map((r) => ({ ...r, table: "stops" as const })),
+      ...fleet.rows.map((r) => ({ ...r, table: "fleet" as const })),
+      ...ends.rows.map((r) => ({ ...r, table: "fleet" as const })),
+    ],
+    typed: [...stops.typed, ...fleet.typed, ...ends.typed],
   };
 }
 
@@ -90,30 +97,36 @@ export function applyGeocodes(
     cell: t.cell,
     sheetRow0: t.sheetRow0,
     address: t.address,
+    ...(t.end ? { end: true as const } : {}),
   }));
   const unlocated = new Map<number, string>();
   const issues: Issue[] = [];
-  const fill = (read: SheetRead | undefined, kind: TableKind): { read?: SheetRead; filled: number } => {
+  const fill = (read: SheetRead | undefined, kind: TableKind, end = false): { read?: SheetRead; filled: number } => {
     if (!read) return { filled: 0 };
     const places: (LatLon | undefined)[][] = read.values.map(() => []);
     review.forEach((item, i) => {
-      if (item.table !== kind) return;
+      if (item.table !== kind || (item.end === true) !== end) return;
       const t = answered[i]!;
       if (item.best) places[t.r]![t.c] = { lat: item.best.lat, lon: item.best.lon };
       else if (kind === "stops") unlocated.set(t.sheetRow0, `its address "${t.address}" was not found by the geocoding service`);
       else {
         const [sheet, cell] = t.cell.split("!") as [string, string];
+        const which = end ? "end depot" : "depot";
+        const typeIt = end ? "End latitude and End longitude" : "Start latitude and Start longitude";
         issues.push({
           sheet,
           cell,
-          message: `${t.cell}: the depot address "${t.address}" was not found by the geocoding service; correct the address or type the Start latitude and Start longitude.`,
+          message: `${t.cell}: the ${which} address "${t.address}" was not found by the geocoding service; correct the address or type the ${typeIt}.`,
         });
       }
     });
-    return fillGeographyCoordinates(read, places, kind);
+    return fillGeographyCoordinates(read, places, kind, end);
   };
   const stops = fill(tables.stops, "stops");
-  const fleet = fill(tables.fleet, "fleet");
+  const starts = fill(tables.fleet, "fleet");
+  // The end depots are filled into the copy that already holds the start depots.
+  const ends = fill(starts.read ?? tables.fleet, "fleet", true);
+  const fleet = { read: ends.read ?? starts.read, filled: starts.filled + ends.filled };
   const order = (q: MatchQuality): number => REVIEW_ORDER.indexOf(q);
   return {
     stops: stops.read ?? tables.stops,

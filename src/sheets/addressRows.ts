@@ -19,6 +19,8 @@ export interface AddressRow {
   readonly cell: string;
   /** The address parts joined (`joinAddress`). */
   readonly address: string;
+  /** Set for a fleet row's end depot (End address, or an address typed in the End depot column). */
+  readonly end?: true;
 }
 
 /** The coordinate fields of each table: the pair and the one-column form. */
@@ -26,30 +28,44 @@ export const COORDINATE_FIELDS: Readonly<Record<TableKind, { lat: string; lon: s
   stops: { lat: "latitude", lon: "longitude", both: "coordinates" },
   fleet: { lat: "startLatitude", lon: "startLongitude", both: "startCoordinates" },
 };
+/** The coordinate fields of the fleet's end depot. */
+export const END_DEPOT_FIELDS = { lat: "endLatitude", lon: "endLongitude", both: "endCoordinates" } as const;
 const PARTS = ["address", "street", "postcode", "town", "country"] as const;
 
 /**
- * The rows of a stops or fleet table (fleet: the start depot) that have an address and no
- * typed coordinates, with the address joined from its columns, and the points typed in the
- * others (for the far-from-others rule). Typed coordinates always win: a row with any
- * coordinate typed is not listed.
+ * The rows of a stops or fleet table (fleet: the start depot, or with `end` the end depot) that
+ * have an address and no typed coordinates, with the address joined from its columns, and the
+ * points typed in the others (for the far-from-others rule). Typed coordinates always win: a row
+ * with any coordinate typed is not listed. Text in the one-column coordinates cell ("Depot",
+ * "End depot", "Location") that is not a "lat, lon" pair is taken as the address. A fleet's end
+ * depot is an address in its End address column (or End depot column); a row without one ends
+ * at its start depot and is not listed.
  *
  * @param read - the table as read
  * @param kind - which table
  * @param defaultCountry - country added to addresses whose row gives none
+ * @param end - fleet only: the end depots instead of the start depots
  * @returns the address rows and the typed points
  * @example addressRows({ sheet: "Stops", row: 0, col: 0, values: [["Stop", "Street", "Town", "Lat", "Lon"], ["a", "1 Kiln Lane", "Brickfield", "", ""]] }, "stops").rows[0].address
  * // => "1 Kiln Lane, Brickfield"
  */
-export function addressRows(read: SheetRead, kind: TableKind, defaultCountry?: string): { rows: AddressRow[]; typed: LatLon[] } {
-  const h = findHeaderRow(read.values, kind);
+export function addressRows(
+  read: SheetRead,
+  kind: TableKind,
+  defaultCountry?: string,
+  end = false,
+): { rows: AddressRow[]; typed: LatLon[] } {
+  const h = findHeaderRow(read.values, kind, read);
   if (h === undefined) return { rows: [], typed: [] };
   const { fields } = mapColumns(read.values[h] ?? [], kind, { sheet: read.sheet, row: read.row + h, col: read.col });
-  const coord = COORDINATE_FIELDS[kind];
+  const coord = end && kind === "fleet" ? END_DEPOT_FIELDS : COORDINATE_FIELDS[kind];
   const at = (row: readonly unknown[], field: string): unknown => {
     const c = fields.get(field);
     return c === undefined ? undefined : row[c];
   };
+  // The end depot has one address column; its street, postcode and town columns are the start's.
+  const partFields: Partial<Record<(typeof PARTS)[number], string>> =
+    end && kind === "fleet" ? { address: "endAddress" } : Object.fromEntries(PARTS.map((p) => [p, p]));
   const rows: AddressRow[] = [];
   const typed: LatLon[] = [];
   for (let r = h + 1; r < read.values.length; r++) {
@@ -58,27 +74,44 @@ export function addressRows(read: SheetRead, kind: TableKind, defaultCountry?: s
     const lat = at(row, coord.lat);
     const lon = at(row, coord.lon);
     const both = at(row, coord.both);
-    if (!isBlank(lat) || !isBlank(lon) || !isBlank(both)) {
+    const bothText = isBlank(lat) && isBlank(lon) ? addressText(both) : undefined;
+    if (bothText === undefined && (!isBlank(lat) || !isBlank(lon) || !isBlank(both))) {
       const pair = !isBlank(both) ? parseLatLon(both) : { lat: parseCoordinate(lat, "lat"), lon: parseCoordinate(lon, "lon") };
       if (pair?.lat !== undefined && pair.lon !== undefined) typed.push({ lat: pair.lat, lon: pair.lon });
       continue;
     }
     const parts: Partial<Record<(typeof PARTS)[number], string>> = {};
     for (const p of PARTS) {
-      const v = plainCell(at(row, p));
+      const field = partFields[p];
+      const v = field === undefined ? null : plainCell(at(row, field));
       if (v !== null && String(v).trim() !== "") parts[p] = String(v).trim();
     }
+    if (bothText !== undefined && parts.address === undefined && parts.street === undefined) parts.address = bothText;
     if (parts.address === undefined && parts.street === undefined && parts.town === undefined && parts.postcode === undefined) continue;
-    const first = PARTS.map((p) => fields.get(p)).find((c, i) => c !== undefined && parts[PARTS[i]!] !== undefined)!;
+    // The coordinates go where the address text was typed when it was typed in the coordinates column.
+    const first =
+      bothText !== undefined
+        ? fields.get(coord.both)!
+        : PARTS.map((p) => (partFields[p] === undefined ? undefined : fields.get(partFields[p]!))).find(
+            (c, i) => c !== undefined && parts[PARTS[i]!] !== undefined,
+          )!;
     rows.push({
       r,
       sheetRow0: read.row + r,
       c: first,
       cell: `${read.sheet}!${cellAddress(read.row + r, read.col + first)}`,
       address: joinAddress(parts, defaultCountry),
+      ...(end && kind === "fleet" ? { end: true as const } : {}),
     });
   }
   return { rows, typed };
+}
+
+/** Text in a coordinates cell that is an address rather than a "lat, lon" pair: it has a letter and does not read as a pair. */
+function addressText(value: unknown): string | undefined {
+  const v = plainCell(value);
+  if (typeof v !== "string" || !/\p{L}/u.test(v) || parseLatLon(v) !== undefined) return undefined;
+  return v.trim();
 }
 
 /**

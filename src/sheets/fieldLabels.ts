@@ -29,6 +29,8 @@ export const FIELD_LABELS: Readonly<Record<TableKind, Readonly<Record<string, st
     id: "Vehicle",
     count: "Count",
     capacity: "Capacity",
+    address: "Depot address",
+    endAddress: "End address",
     startLatitude: "Start latitude",
     startLongitude: "Start longitude",
     endLatitude: "End latitude",

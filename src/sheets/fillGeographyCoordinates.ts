@@ -3,7 +3,7 @@ import type { SheetRead } from "./grid.js";
 import { isBlank } from "./cellValue.js";
 import { findHeaderRow } from "./findHeaderRow.js";
 import { mapColumns, type TableKind } from "./matchHeaders.js";
-import { COORDINATE_FIELDS } from "./addressRows.js";
+import { COORDINATE_FIELDS, END_DEPOT_FIELDS } from "./addressRows.js";
 
 /**
  * Coordinates for stops whose place is a linked entity (Excel's Geography data type) rather
@@ -13,11 +13,13 @@ import { COORDINATE_FIELDS } from "./addressRows.js";
  * that column (or a place elsewhere in the row, when that column is blank) becomes "lat, lon" text; with neither, two columns "Latitude" and "Longitude" are
  * appended to the copy. Typed coordinates always win, and the user's sheet is never changed:
  * this works on a copy of the values read. The fleet table works the same way with its start
- * depot columns (Start latitude, Start longitude, Depot), so geocoded depots use it too.
+ * depot columns (Start latitude, Start longitude, Depot), so geocoded depots use it too, and with
+ * `end` its end depot columns (End latitude, End longitude, End depot).
  *
  * @param read - the stops (or fleet) table as read (values with their top-left position)
  * @param places - per cell of `read.values` (same shape), the place it holds, if any
  * @param kind - which table (default stops)
+ * @param end - fleet only: fill the end depot's columns instead of the start depot's
  * @returns a copy of `read` with coordinates filled in, and how many rows were filled
  * @example fillGeographyCoordinates(read, places).filled // => 12
  */
@@ -25,12 +27,13 @@ export function fillGeographyCoordinates(
   read: SheetRead,
   places: readonly (readonly (LatLon | undefined)[])[],
   kind: TableKind = "stops",
+  end = false,
 ): { read: SheetRead; filled: number } {
   const headerAt = findHeaderRow(read.values, kind, read);
   if (headerAt === undefined) return { read, filled: 0 };
   const header = read.values[headerAt] ?? [];
   const { fields } = mapColumns(header, kind, { sheet: read.sheet, row: read.row + headerAt, col: read.col });
-  const names = COORDINATE_FIELDS[kind];
+  const names = end && kind === "fleet" ? END_DEPOT_FIELDS : COORDINATE_FIELDS[kind];
   const lat = fields.get(names.lat);
   const lon = fields.get(names.lon);
   const both = fields.get(names.both);
@@ -51,8 +54,9 @@ export function fillGeographyCoordinates(
     } else if (lat === undefined && lon === undefined && both === undefined) {
       if (appendAt === undefined) {
         appendAt = width;
-        rows[headerAt]![appendAt] = kind === "stops" ? "Latitude" : "Start latitude";
-        rows[headerAt]![appendAt + 1] = kind === "stops" ? "Longitude" : "Start longitude";
+        const prefix = kind === "stops" ? "" : end ? "End " : "Start ";
+        rows[headerAt]![appendAt] = prefix ? `${prefix}latitude` : "Latitude";
+        rows[headerAt]![appendAt + 1] = prefix ? `${prefix}longitude` : "Longitude";
       }
       row[appendAt] = place.lat;
       row[appendAt + 1] = place.lon;

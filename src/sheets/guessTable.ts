@@ -56,7 +56,9 @@ export function guessTable(read: SheetRead): TableGuess {
       reason: `its header on row ${read.row + hf! + 1} has no column only a fleet has (such as Capacity or Shift start)`,
     };
   }
-  const located = (s.has("latitude") && s.has("longitude")) || s.has("coordinates") || s.has("address");
+  // An address may come in parts (Street, Postcode, Town), joined for geocoding.
+  const located =
+    (s.has("latitude") && s.has("longitude")) || ["coordinates", "address", "street", "postcode", "town"].some((f) => s.has(f));
   if (located) return { kind: "stops", headerRow0: read.row + hs };
   return {
     kind: undefined,

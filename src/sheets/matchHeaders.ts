@@ -149,6 +149,9 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
     "deliverywindows",
     "slot",
     "slots",
+    "deliverbetween",
+    "deliverybetween",
+    "between",
   ],
   serviceMin: [
     "servicemin",
@@ -203,6 +206,8 @@ const STOP_SYNONYMS: Record<string, readonly string[]> = {
 const FLEET_SYNONYMS: Record<string, readonly string[]> = {
   address: ["address", "depotaddress", "startaddress", "homeaddress", "baseaddress", "startdepotaddress"],
   ...ADDRESS_PART_SYNONYMS,
+  // The end depot as an address, geocoded like the start depot (a vehicle that ends elsewhere).
+  endAddress: ["endaddress", "enddepotaddress", "returnaddress", "returndepotaddress", "destinationaddress", "finishaddress"],
   id: ["vehicle", "vehicleid", "vehiclename", "van", "truck", "lorry", "car", "name", "id", "unit", "rig"],
   driver: ["driver", "drivername", "drivenby", "chauffeur", "crew"],
   count: ["count", "number", "howmany", "vehicles", "copies", "fleetsize", "numberofvehicles", "n", "qty", "quantity"],

@@ -109,6 +109,12 @@ export function parseFleet(read: SheetRead, columnMap: readonly ColumnMapEntry[]
     const start = readPoint(r, "startLatitude", "startLongitude", "startCoordinates", "start depot");
     const endGiven = ["endLatitude", "endLongitude", "endCoordinates"].some((k) => r.has(k) && !r.blank(k));
     const end = endGiven ? readPoint(r, "endLatitude", "endLongitude", "endCoordinates", "end depot") : start;
+    // An end depot typed only as an address is never replaced by the start depot in silence.
+    if (!endGiven && r.has("endAddress") && !r.blank("endAddress"))
+      r.fail(
+        "endAddress",
+        `the end depot of vehicle "${name}" is an address without coordinates; type its End latitude and End longitude in decimal degrees (such as 45.76 and 4.83), or set up a geocoding service (--geocoder, or Geocoding in the pane) to look the address up.`,
+      );
     const shiftStartMin = r.time("shiftStart", "shift start") ?? 0;
     let shiftEndMin = r.time("shiftEnd", "shift end") ?? DAY_MIN;
     if (shiftEndMin < shiftStartMin) shiftEndMin += DAY_MIN;

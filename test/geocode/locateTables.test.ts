@@ -101,3 +101,100 @@ describe("address parts, typed coordinates and not-found stops", () => {
     );
   });
 });
+
+describe("depots given as addresses: start and end", () => {
+  // Invented depots: a bakery that loads at one yard and parks the vans at another.
+  const DEPOTS = sheet("Vans", [
+    ["Vehicle", "Capacity", "Depot", "End depot", "Shift start", "Shift end"],
+    ["Van A", 10, "1 Depot Yard, Brickfield", "9 Saggar Row, Glazebury", "08:00", "17:00"],
+    ["Van B", 10, "52.08, 5.11", "", "08:00", "17:00"],
+    ["Van C", 10, "1 Depot Yard, Brickfield", "52.0648, 5.0755", "08:00", "17:00"],
+  ]);
+  const ENDS = sheet("Fleet", [
+    ["Vehicle", "Capacity", "Depot address", "End address", "Shift start", "Shift end"],
+    ["Van A", 10, "1 Depot Yard, Brickfield", "9 Saggar Row, Glazebury", "08:00", "17:00"],
+    ["Van B", 10, "1 Depot Yard, Brickfield", "", "08:00", "17:00"],
+  ]);
+  const answers = new Map<string, GeocodeCandidate[]>([
+    ...ANSWERS,
+    ["1 Depot Yard, Brickfield", [point(52.08, 5.11, "1 Depot Yard, Brickfield", { precision: "house" })]],
+    ["9 Saggar Row, Glazebury", [point(52.0601, 5.0802, "9 Saggar Row, Glazebury", { precision: "house" })]],
+  ]);
+  const typedStops = sheet("Stops", [
+    ["Stop", "Latitude", "Longitude", "Demand"],
+    ["S1", 52.0903, 5.1201, 1],
+    ["S2", 52.087, 5.125, 1],
+  ]);
+
+  it("takes address text in the Depot and End depot columns as addresses, a typed pair as typed", () => {
+    const { targets, typed } = addressTargets({ stops: typedStops, fleet: DEPOTS });
+    expect(targets.map((t) => [t.cell, t.address, t.end ?? false])).toEqual([
+      ["Vans!C2", "1 Depot Yard, Brickfield", false],
+      ["Vans!C4", "1 Depot Yard, Brickfield", false],
+      ["Vans!D2", "9 Saggar Row, Glazebury", true],
+    ]);
+    // The typed pairs (two stops, Van B's start, Van C's end) count for the far-from-others rule.
+    expect(typed).toHaveLength(4);
+
+    const located = applyGeocodes({ stops: typedStops, fleet: DEPOTS }, targets, typed, answers);
+    expect(located.issues).toEqual([]);
+    // The coordinates go into the very cells that held the address text (a copy; the input is unchanged).
+    expect(located.fleet!.values[1]!.slice(2, 4)).toEqual(["52.08, 5.11", "52.0601, 5.0802"]);
+    expect(DEPOTS.values[1]![3]).toBe("9 Saggar Row, Glazebury");
+    const read = readProblem({ stops: located.stops, fleet: located.fleet! });
+    expect(read.ok).toBe(true);
+    if (!read.ok) return;
+    const at = (id: string, which: "startLocation" | "endLocation") => {
+      const v = read.problem.vehicles.find((x) => x.id === id)!;
+      const p = read.problem.locations[v[which]]!;
+      return [p.lat, p.lon];
+    };
+    expect(at("Van A", "startLocation")).toEqual([52.08, 5.11]);
+    expect(at("Van A", "endLocation")).toEqual([52.0601, 5.0802]);
+    // Van B has no end depot: it ends where it starts.
+    expect(at("Van B", "endLocation")).toEqual([52.08, 5.11]);
+    expect(at("Van C", "endLocation")).toEqual([52.0648, 5.0755]);
+  });
+
+  it("geocodes an End address column into appended End latitude and End longitude columns", () => {
+    const { targets, typed } = addressTargets({ stops: typedStops, fleet: ENDS });
+    expect(targets.map((t) => [t.cell, t.end ?? false])).toEqual([
+      ["Fleet!C2", false],
+      ["Fleet!C3", false],
+      ["Fleet!D2", true],
+    ]);
+    const located = applyGeocodes({ stops: typedStops, fleet: ENDS }, targets, typed, answers);
+    expect(located.fleet!.values[0]!.slice(6)).toEqual(["Start latitude", "Start longitude", "End latitude", "End longitude"]);
+    expect(located.fleet!.values[1]!.slice(6)).toEqual([52.08, 5.11, 52.0601, 5.0802]);
+    expect(located.fleet!.values[2]!.slice(6)).toEqual([52.08, 5.11, "", ""]);
+    const read = readProblem({ stops: located.stops, fleet: located.fleet! });
+    expect(read.ok).toBe(true);
+    if (!read.ok) return;
+    const vanA = read.problem.vehicles.find((v) => v.id === "Van A")!;
+    expect(read.problem.locations[vanA.endLocation]).toMatchObject({ lat: 52.0601, lon: 5.0802 });
+  });
+
+  it("an end depot address not found is an issue at its cell; without a geocoder it is an error, never the start depot in silence", () => {
+    const missing = new Map(answers);
+    missing.set("9 Saggar Row, Glazebury", []);
+    const { targets, typed } = addressTargets({ stops: typedStops, fleet: ENDS });
+    const located = applyGeocodes({ stops: typedStops, fleet: ENDS }, targets, typed, missing);
+    expect(located.issues.map((i) => i.message)).toEqual([
+      'Fleet!D2: the end depot address "9 Saggar Row, Glazebury" was not found by the geocoding service; correct the address or type the End latitude and End longitude.',
+    ]);
+
+    const fleet = sheet("Fleet", [
+      ["Vehicle", "Capacity", "Start latitude", "Start longitude", "End address"],
+      ["Van A", 10, 52.08, 5.11, "9 Saggar Row, Glazebury"],
+    ]);
+    const read = readProblem({ stops: typedStops, fleet });
+    expect(read.ok).toBe(false);
+    if (read.ok) return;
+    expect(read.issues.map((i) => [i.cell, i.message])).toEqual([
+      [
+        "E2",
+        'Fleet!E2: the end depot of vehicle "Van A" is an address without coordinates; type its End latitude and End longitude in decimal degrees (such as 45.76 and 4.83), or set up a geocoding service (--geocoder, or Geocoding in the pane) to look the address up.',
+      ],
+    ]);
+  });
+});

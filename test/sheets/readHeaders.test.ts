@@ -38,6 +38,8 @@ describe("matchHeader", () => {
       ["Lat, Lon", "coordinates"],
       ["Required features", "features"],
       ["Unserved cost", "priority"],
+      // A dispatcher's one-column window, "07:00-09:00" (common practice).
+      ["Deliver between", "windows"],
     ];
     for (const [text, base] of cases) expect(matchHeader(text, "stops")?.base, text).toBe(base);
   });
@@ -59,6 +61,9 @@ describe("matchHeader", () => {
       ["Hourly rate", "costPerHour"],
       ["Max stops", "maxStops"],
       ["Payload", "capacity"],
+      ["Depot address", "address"],
+      ["End address", "endAddress"],
+      ["Return address", "endAddress"],
     ];
     for (const [text, base] of cases) expect(matchHeader(text, "fleet")?.base, text).toBe(base);
   });
