@@ -17,6 +17,7 @@ import {
   parseHeaderLine,
   readCacheSheet,
   type LocatedTables,
+  type ReviewItem,
 } from "../geocode/index.js";
 import type { SheetRead } from "../sheets/grid.js";
 import { parseSettingValue } from "../sheets/settingsSchema.js";
@@ -74,6 +75,26 @@ export class GeocodePanel {
     const l = this.located;
     if (!l || l.stops !== stops || (l.fleet !== undefined && l.fleet !== fleet)) return { stops, fleet };
     return { stops: l.result.stops, fleet: l.result.fleet ?? fleet, unlocated: l.result.unlocated };
+  }
+
+  /**
+   * Start the Default country from the workbook's Settings sheet (its "Default country" row, the
+   * one schema field the CLI reads too); a workbook without one leaves the field empty.
+   *
+   * @param country - the Settings sheet's default country, if it has one
+   */
+  startFrom(country: string | undefined): void {
+    this.el.country.value = country ?? "";
+  }
+
+  /**
+   * The review of the lookup made on these very reads (empty when none was), for the map.
+   *
+   * @param stops - the stops table as picked
+   * @returns the review list, the most doubtful first
+   */
+  review(stops: SheetRead): readonly ReviewItem[] {
+    return this.located?.stops === stops ? this.located.result.review : [];
   }
 
   /** Forget the lookup (a new workbook was opened). */

@@ -25,6 +25,7 @@ import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
 import { renderResult } from "./renderResult.js";
 import { excelEmptyTableHint, renderPickedTables } from "./renderTableSummary.js";
 import { RouteMap } from "./RouteMap.js";
+import { doubtfulPlaces, type DoubtfulPlace } from "./doubtfulPlaces.js";
 import { PANE_MAX_LOCATIONS } from "../sheets/sizeWarning.js";
 import { PointerHold } from "./pointerHold.js";
 import { showFinished, showProgress } from "./runProgress.js";
@@ -58,7 +59,16 @@ export class PaneController {
   protected fleet: PickedTable | undefined;
   private read: ReadResult | undefined;
   private last:
-    { read: ReadResult & { ok: true }; result: SolveResult; scenario: string; runSeconds: number; written?: string } | undefined;
+    | {
+        read: ReadResult & { ok: true };
+        result: SolveResult;
+        scenario: string;
+        runSeconds: number;
+        written?: string;
+        /** Places whose geocoded address is doubtful, for the map. */
+        doubtful: readonly DoubtfulPlace[];
+      }
+    | undefined;
   private readToken = 0;
   /** The workbook's Settings sheet, read when the workbook was opened; its values started the form. */
   private settingsSheet: SheetRead | undefined;
@@ -149,6 +159,7 @@ export class PaneController {
     const read = name === undefined ? undefined : await port.readSheet(name);
     this.settingsSheet = read;
     if (!read) {
+      this.geocode.startFrom(undefined);
       d.settingsSource.hidden = true;
       d.settingsSource.textContent = "";
       return;
@@ -157,7 +168,10 @@ export class PaneController {
     const settings: PlanSettings = { ...PLAN_SETTINGS_DEFAULTS, ...parsed.settings };
     writeForm(d, formFromSettings(settings, d.scenario.value, readForm(d)));
     this.updateFormVisibility();
+    // The geocoding section's Default country is the same schema field as the CLI's --country.
+    this.geocode.startFrom(parsed.settings.country);
     const extra = [
+      ...(parsed.settings.country !== undefined ? [`default country ${parsed.settings.country}`] : []),
       ...(parsed.settings.moves !== undefined ? [`move budget ${parsed.settings.moves}`] : []),
       ...(parsed.settings.objective !== undefined ? [`objective ${parsed.settings.objective}`] : []),
       ...(parsed.settings.columnMap?.length ? [`${parsed.settings.columnMap.length} column mapping(s)`] : []),
@@ -274,6 +288,7 @@ export class PaneController {
     if (!read?.ok) return this.showError("Fix the errors listed under Stops and Fleet first.");
     const s = read.settings;
     const scenario = form.scenario;
+    const doubtful = this.stops ? doubtfulPlaces(read.problem, read.stopRows, this.geocode.review(this.stops.read)) : [];
     this.convergence.reset();
     this.preview.clearObserved();
     d.progressBar.style.width = "0%";
@@ -295,7 +310,7 @@ export class PaneController {
           d.optimizeSection.dataset.state = stopped ? "stopped" : "done";
           showFinished(d, result, stopped);
           this.preview.measured(result.stats.moves, result.stats.elapsedMs);
-          this.last = { read, result, scenario, runSeconds: result.stats.elapsedMs / 1000 };
+          this.last = { read, result, scenario, runSeconds: result.stats.elapsedMs / 1000, doubtful };
           this.setOptimizeEnabled();
           this.showResult(stopped);
         },
@@ -317,7 +332,7 @@ export class PaneController {
     d.writeStatus.textContent = "";
     d.download.hidden = true;
     renderResult(d, last.read.problem, last.result, stopped);
-    this.guard("Drawing the map", () => this.map.draw(last.read.problem, last.result.plan))();
+    this.guard("Drawing the map", () => this.map.draw(last.read.problem, last.result.plan, last.doubtful))();
     const { problem, stopRows, extraHeaders } = last.read;
     this.guard("Preparing the GPX and GeoJSON files", () =>
       this.downloads.show({ problem, plan: last.result.plan, stopRows, extraHeaders, scenario: last.scenario }),

@@ -3,13 +3,15 @@
  * direction arrows and sequence numbers, depots as labelled squares, vehicle and depot labels
  * placed so they overlap neither each other nor a depot, a hover text per stop and depot, a
  * legend whose entries highlight their route (click or keyboard), and the whole map in words
- * for screen readers. Offline by default (an equirectangular fit, nothing fetched); an optional
+ * for screen readers. Places whose geocoded address is doubtful get a dashed ring with a "?", a
+ * legend entry, a line in their hover text and a list in the map in words. Offline by default (an equirectangular fit, nothing fetched); an optional
  * background supplies its own projection (see `TileBackground`).
- * The canvas' `data-routes`, `data-depots` and `data-highlight` attributes say what was drawn, for tests.
+ * The canvas' `data-routes`, `data-depots`, `data-doubtful` and `data-highlight` attributes say what was drawn, for tests.
  */
 import type { LatLon, Plan, Problem } from "../core/index.js";
 import { depotName, describeRoutes, stopHoverText } from "./describeRoutes.js";
-import { DEPOT_HALF_PX, drawRouteLayer, type DrawnRoute, type MapPoint } from "./drawRouteLayer.js";
+import type { DoubtfulPlace } from "./doubtfulPlaces.js";
+import { DEPOT_HALF_PX, drawDoubtful, drawRouteLayer, type DrawnRoute, type MapPoint } from "./drawRouteLayer.js";
 import { fitEquirectangular, type FittedProjection } from "./fitEquirectangular.js";
 import { placeLabels, type Box, type LabelRequest } from "./placeLabels.js";
 import { vehicleStyle, type RouteStyle } from "./vehicleColour.js";
@@ -50,7 +52,8 @@ const offline: MapProjector = { fit: (points, w, h, pad) => fitEquirectangular(p
 /** Draws a plan and answers hovers and legend clicks. */
 export class RouteMap {
   private hoverPoints: HoverPoint[] = [];
-  private last: { problem: Problem; plan: Plan; projection: FittedProjection; w: number; h: number } | undefined;
+  private last:
+    { problem: Problem; plan: Plan; doubtful: readonly DoubtfulPlace[]; projection: FittedProjection; w: number; h: number } | undefined;
   private highlighted: string | undefined;
   private projector: MapProjector = offline;
 
@@ -58,7 +61,7 @@ export class RouteMap {
   constructor(private readonly el: RouteMapElements) {
     el.canvas.addEventListener("mousemove", (e) => this.hover(e.offsetX, e.offsetY));
     el.canvas.addEventListener("mouseleave", () => (el.tooltip.hidden = true));
-    window.addEventListener("resize", () => void (this.last && this.draw(this.last.problem, this.last.plan)));
+    window.addEventListener("resize", () => void (this.last && this.draw(this.last.problem, this.last.plan, this.last.doubtful)));
   }
 
   /**
@@ -70,7 +73,7 @@ export class RouteMap {
    */
   async setProjector(projector: MapProjector | undefined): Promise<void> {
     this.projector = projector ?? offline;
-    if (this.last) await this.draw(this.last.problem, this.last.plan);
+    if (this.last) await this.draw(this.last.problem, this.last.plan, this.last.doubtful);
   }
 
   /**
@@ -78,9 +81,10 @@ export class RouteMap {
    *
    * @param problem - the solved problem (locations, stops, vehicles)
    * @param plan - its plan
+   * @param doubtful - places whose geocoded address is doubtful (`doubtfulPlaces`), marked distinctly
    * @example await map.draw(read.problem, result.plan)
    */
-  async draw(problem: Problem, plan: Plan): Promise<void> {
+  async draw(problem: Problem, plan: Plan, doubtful: readonly DoubtfulPlace[] = []): Promise<void> {
     const w = this.el.canvas.clientWidth || 320;
     const h = this.el.canvas.clientHeight || 260;
     const used = new Set<number>([
@@ -91,7 +95,7 @@ export class RouteMap {
     if (this.last?.plan !== plan) this.highlighted = undefined;
     if (shown.length === 0) return;
     const projection = await this.projector.fit(shown, w, h, PADDING_PX);
-    this.last = { problem, plan, projection, w, h };
+    this.last = { problem, plan, doubtful, projection, w, h };
     this.render();
   }
 
@@ -99,7 +103,7 @@ export class RouteMap {
   private render(): void {
     const last = this.last;
     if (!last) return;
-    const { problem, plan, projection, w, h } = last;
+    const { problem, plan, doubtful, projection, w, h } = last;
     const canvas = this.el.canvas;
     const ratio = window.devicePixelRatio || 1;
     canvas.width = Math.round(w * ratio);
@@ -142,11 +146,23 @@ export class RouteMap {
       this.hoverPoints.push({ ...p, text: `${stop.name || stop.id}\nnot served: ${u.reason}` });
       return [p];
     });
+    const doubtfulAt = doubtful.map((d) => ({ ...d, ...at(d.location) }));
+    // Hover on a doubtful place also says what its address was matched to.
+    for (const d of doubtfulAt) {
+      const line = `doubtful address match (${d.cell}): ${d.match}`;
+      const i = this.hoverPoints.findIndex((p) => p.x === d.x && p.y === d.y);
+      if (i >= 0) this.hoverPoints[i] = { ...this.hoverPoints[i]!, text: `${this.hoverPoints[i]!.text}\n${line}` };
+      else this.hoverPoints.push({ x: d.x, y: d.y, text: `${d.name}\n${line}` });
+    }
     const served = routes.flatMap((r) => r.path.slice(1, -1));
-    const scaleBox = drawRouteLayer(ctx, { routes, depots, unassigned, pxPerKm: projection.pxPerKm, numbers: isSparse(served) }, h);
+    const scaleBox = drawRouteLayer(
+      ctx,
+      { routes, depots, unassigned, doubtful: doubtfulAt, pxPerKm: projection.pxPerKm, numbers: isSparse(served) },
+      h,
+    );
 
     this.placeLabelElements(ctx, depots, routes, scaleBox, w, h);
-    this.renderLegend(routes);
+    this.renderLegend(routes, doubtful.length);
     const words = describeRoutes(
       problem,
       plan,
@@ -156,6 +172,10 @@ export class RouteMap {
       this.el.text,
       words,
       depots.map((d) => d.name),
+      doubtful,
+    );
+    canvas.dataset.doubtful = JSON.stringify(
+      doubtfulAt.map((d) => ({ name: d.name, cell: d.cell, x: Math.round(d.x), y: Math.round(d.y) })),
     );
     canvas.dataset.routes = JSON.stringify(routes.map((r) => ({ vehicle: r.vehicle, stops: r.stops })));
     canvas.dataset.highlight = this.highlighted ?? "";
@@ -212,7 +232,26 @@ export class RouteMap {
     this.el.labels.dataset.omitted = String(boxes.filter((b) => !b).length);
   }
 
-  private renderLegend(routes: readonly { vehicle: string; style: RouteStyle; stops: string[]; km: number }[]): void {
+  private renderLegend(routes: readonly { vehicle: string; style: RouteStyle; stops: string[]; km: number }[], doubtful: number): void {
+    const notes: HTMLElement[] = [];
+    if (doubtful > 0) {
+      // The legend's key for the doubtful marker: the same ring and "?" drawn on a small canvas.
+      const item = document.createElement("li");
+      item.className = "legend-note doubtful";
+      const key = document.createElement("canvas");
+      const ratio = window.devicePixelRatio || 1;
+      key.width = Math.round(28 * ratio);
+      key.height = Math.round(28 * ratio);
+      key.className = "legend-key";
+      key.setAttribute("aria-hidden", "true");
+      const kctx = key.getContext("2d");
+      if (kctx) {
+        kctx.setTransform(ratio, 0, 0, ratio, 0, 0);
+        drawDoubtful(kctx, { x: 13, y: 15 });
+      }
+      item.append(key, `doubtful address match (${doubtful}): check the place; see the geocoding review`);
+      notes.push(item);
+    }
     this.el.legend.replaceChildren(
       ...routes.map((r) => {
         const item = document.createElement("li");
@@ -232,6 +271,7 @@ export class RouteMap {
         item.append(button);
         return item;
       }),
+      ...notes,
     );
   }
 
@@ -291,7 +331,12 @@ function isSparse(points: readonly MapPoint[]): boolean {
   return true;
 }
 
-function renderText(target: HTMLElement, words: ReturnType<typeof describeRoutes>, depots: readonly string[]): void {
+function renderText(
+  target: HTMLElement,
+  words: ReturnType<typeof describeRoutes>,
+  depots: readonly string[],
+  doubtful: readonly DoubtfulPlace[],
+): void {
   const heading = document.createElement("p");
   heading.textContent = `Route map in words: ${words.routes.length} route${words.routes.length === 1 ? "" : "s"}; depots: ${[...new Set(depots)].join(", ")}.`;
   const list = document.createElement("ul");
@@ -319,6 +364,20 @@ function renderText(target: HTMLElement, words: ReturnType<typeof describeRoutes
       }),
     );
     nodes.push(un);
+  }
+  if (doubtful.length > 0) {
+    const note = document.createElement("p");
+    note.textContent = `Doubtful address matches, marked with a dashed ring and a question mark: ${doubtful.length}.`;
+    const list = document.createElement("ul");
+    list.className = "doubtful";
+    list.append(
+      ...doubtful.map((d) => {
+        const item = document.createElement("li");
+        item.textContent = `${d.name} (${d.cell}): ${d.match}`;
+        return item;
+      }),
+    );
+    nodes.push(note, list);
   }
   target.replaceChildren(...nodes);
 }

@@ -1,6 +1,7 @@
 /**
  * The canvas part of the route map: route lines with direction arrows, stop markers (numbered
- * when there is room or the route is highlighted), depot squares, unassigned stops and a scale bar.
+ * when there is room or the route is highlighted), depot squares, unassigned stops, a dashed ring
+ * with a "?" around each place whose address matched doubtfully, and a scale bar.
  * Labels are not drawn here: they are DOM elements placed by `placeLabels`, so they stay
  * selectable, readable by tests and never overlap.
  */
@@ -26,6 +27,8 @@ export interface RouteLayer {
   readonly routes: readonly DrawnRoute[];
   readonly depots: readonly MapPoint[];
   readonly unassigned: readonly MapPoint[];
+  /** Places whose geocoded address is doubtful (approximate, ambiguous, far away). */
+  readonly doubtful?: readonly MapPoint[];
   readonly pxPerKm: number;
   /** Draw sequence numbers in every stop marker (the caller decides whether there is room). */
   readonly numbers: boolean;
@@ -69,7 +72,51 @@ export function drawRouteLayer(ctx: CanvasRenderingContext2D, layer: RouteLayer,
     ctx.lineTo(p.x - 4, p.y + 4);
     ctx.stroke();
   }
+  for (const p of layer.doubtful ?? []) drawDoubtful(ctx, p);
   return drawScale(ctx, layer.pxPerKm, height);
+}
+
+/** Radius of the ring around a doubtful place, px (outside a numbered stop marker). */
+export const DOUBTFUL_RING_PX = 11;
+
+/**
+ * A doubtful geocode: a dashed dark ring around the place and a "?" badge at its upper right.
+ * Shape, not colour, tells it apart, so it reads in any palette and over any route colour.
+ *
+ * @param ctx - a 2-D context scaled to CSS px
+ * @param p - the place
+ */
+export function drawDoubtful(ctx: CanvasRenderingContext2D, p: MapPoint): void {
+  ctx.globalAlpha = 1;
+  ctx.lineWidth = 4;
+  ctx.strokeStyle = "rgba(255,255,255,0.9)";
+  ctx.setLineDash([]);
+  ctx.beginPath();
+  ctx.arc(p.x, p.y, DOUBTFUL_RING_PX, 0, 2 * Math.PI);
+  ctx.stroke();
+  ctx.lineWidth = 2;
+  ctx.strokeStyle = "#242424";
+  ctx.setLineDash([3, 3]);
+  ctx.beginPath();
+  ctx.arc(p.x, p.y, DOUBTFUL_RING_PX, 0, 2 * Math.PI);
+  ctx.stroke();
+  ctx.setLineDash([]);
+  const bx = p.x + DOUBTFUL_RING_PX * 0.75;
+  const by = p.y - DOUBTFUL_RING_PX * 0.75;
+  ctx.fillStyle = "#242424";
+  ctx.strokeStyle = "#fff";
+  ctx.lineWidth = 1.5;
+  ctx.beginPath();
+  ctx.arc(bx, by, 5.5, 0, 2 * Math.PI);
+  ctx.fill();
+  ctx.stroke();
+  ctx.fillStyle = "#fff";
+  ctx.font = "700 9px Segoe UI, sans-serif";
+  ctx.textAlign = "center";
+  ctx.textBaseline = "middle";
+  ctx.fillText("?", bx, by + 0.5);
+  ctx.textAlign = "start";
+  ctx.textBaseline = "alphabetic";
 }
 
 function drawRoute(ctx: CanvasRenderingContext2D, route: DrawnRoute, numbers: boolean): void {
