@@ -16,36 +16,24 @@ import { serveStatic } from "../../scripts/serveStatic.js";
 import { main } from "../../src/cli/main.js";
 import { COLUMN_MAP_KEY } from "../../src/sheets/columnMap.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
-import { DISPATCHER_STOPS, dispatcherWorkbook, type DispatcherWorkbookOptions } from "../fixtures/dispatcherWorkbook.js";
+import {
+  DISPATCHER_STOPS,
+  DROP_TIMES,
+  dispatcherAddressWorkbook,
+  dispatcherWorkbook,
+  routeRows,
+  serviceMinutes,
+  type DispatcherWorkbookOptions,
+} from "../fixtures/dispatcherWorkbook.js";
 import { captureIO, loadWithExcelJs, sheetValues } from "../workbook/harness.js";
 import { DIST, ensureBuild } from "./ensureBuild.js";
+import { startGeocodeServer } from "../geocode/geocodeServer.js";
 
 const CHROMIUM = existsSync("/usr/bin/chromium") ? "/usr/bin/chromium" : undefined;
 if (!CHROMIUM) {
   if (process.env.CI) throw new Error("Chromium is required under CI: install Debian's chromium package (/usr/bin/chromium).");
   console.warn("Skipping the dispatcher-workbook browser test: /usr/bin/chromium is missing.");
 }
-
-/** The route table of a plan sheet, one record per row, keyed by header. */
-function routeRows(plan: unknown[][]): Record<string, unknown>[] {
-  const h = plan.findIndex((r) => r?.[0] === "Vehicle" && r[1] === "Seq");
-  const header = plan[h]!.map(String);
-  const rows: Record<string, unknown>[] = [];
-  for (const r of plan.slice(h + 1)) {
-    if (!r || r[0] === undefined || r[0] === null || r[0] === "") break;
-    rows.push(Object.fromEntries(header.map((k, i) => [k, r[i]])));
-  }
-  return rows;
-}
-
-/** Service minutes per stop of a plan: Departure - Start (time cells, read by exceljs as dates, in ms). */
-function serviceMinutes(plan: unknown[][]): [string, number][] {
-  return routeRows(plan)
-    .filter((r) => /^K\d+$/.test(String(r.Stop)))
-    .map((r) => [String(r.Stop), Math.round(((r.Departure as number) - (r.Start as number)) / 60000)] as [string, number])
-    .sort();
-}
-const DROP_TIMES = DISPATCHER_STOPS.map((s) => [s.ref, s.dropMin] as [string, number]).sort();
 
 describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () => {
   let server: Server | undefined;
@@ -169,6 +157,115 @@ describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () 
     const out = join(dir, "handover.cli.xlsx");
     expect(await main(["plan", saved, "--out", out], cap.io), cap.err()).toBe(0);
     expect(serviceMinutes(sheetValues(await loadWithExcelJs(await readFile(out)), "Plan"))).toEqual(DROP_TIMES);
+  }, 600_000);
+
+  it("plans an address-only workbook (depots as addresses too) through a loopback geocoder: Default country from the Settings sheet, the doubtful match drawn distinctly on the map, drop minutes used, the same plan as the CLI", async () => {
+    const geo = await startGeocodeServer();
+    const own = await context!.newPage();
+    try {
+      // Nothing may leave the machine: our own server, the loopback geocoder, blobs and data URLs.
+      const outside: string[] = [];
+      await own.route("**/*", (route) => {
+        const url = route.request().url();
+        if (url.startsWith(baseUrl) || url.startsWith(geo.origin) || url.startsWith("blob:") || url.startsWith("data:"))
+          return route.continue();
+        outside.push(url);
+        return route.abort();
+      });
+      const input = join(dir, "addresses.xlsx");
+      writeFileSync(
+        input,
+        await dispatcherAddressWorkbook([
+          ["Seed", 3],
+          ["Move budget", 6000],
+        ]),
+      );
+      await own.goto(`${baseUrl}/taskpane.html`);
+      await own.waitForSelector("body[data-ready='true'][data-mode='file']", { timeout: 30_000 });
+      await own.setInputFiles("#file-input", input);
+      await expect.poll(() => own.locator("#stops-summary").textContent(), { timeout: 30_000 }).toMatch(/10 data rows/);
+      await expect(own.locator("#stops-sheet").inputValue()).resolves.toBe("Thursday round");
+      await expect(own.locator("#fleet-sheet").inputValue()).resolves.toBe("Vans");
+      // The pane's Default country comes from the Settings sheet, as the CLI's does.
+      await expect(own.locator("#geocoder-country").inputValue()).resolves.toBe("Kilnland");
+      await expect(own.locator("#settings-source").textContent()).resolves.toMatch(/default country Kilnland/);
+      expect(geo.seen).toHaveLength(0);
+
+      await own.fill("#geocoder-url", geo.template);
+      await own.fill("#geocoder-rate", "50");
+      await own.click("#geocode");
+      // 10 stops, two vans starting at one yard, one end depot: 13 rows, 12 distinct addresses.
+      await expect
+        .poll(() => own.locator("#geocode-progress").textContent(), { timeout: 60_000 })
+        .toMatch(/13 of 13 addresses looked up \(12 requests/);
+      expect(geo.seen.every((s) => s.query.endsWith(" kilnland"))).toBe(true);
+      const first = own.locator("#geocode-review li").first();
+      await expect(first.getAttribute("data-quality")).resolves.toBe("approximate");
+      await expect(first.textContent()).resolves.toMatch(/Thursday round!C6.*Mill Street, Crustwick, Kilnland → approximate/);
+      await expect(own.locator("#stops-issues li").count()).resolves.toBe(0);
+      await expect(own.locator("#fleet-issues li").count()).resolves.toBe(0);
+
+      await own.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
+      await own.click("#optimize");
+      await own.waitForSelector("#result-section:not([hidden])", { timeout: 300_000 });
+      // The doubtful stop is drawn distinctly, has a legend entry, and is listed in the map in words.
+      await expect
+        .poll(async () => JSON.parse((await own.locator("#route-map").getAttribute("data-doubtful")) ?? "[]"), { timeout: 30_000 })
+        .toMatchObject([{ name: "Mill Street Deli", cell: "Thursday round!C6" }]);
+      await expect(own.locator("#map-legend li.doubtful").textContent()).resolves.toMatch(/doubtful address match \(1\)/);
+      await expect(own.locator("#map-text ul.doubtful li").allTextContents()).resolves.toEqual([
+        "Mill Street Deli (Thursday round!C6): approximate (matched a street, not a house): Mill Street, Crustwick",
+      ]);
+      // The ring is on the canvas: pixels differ from a draw without the doubtful place.
+      const [x, y] = await own.locator("#route-map").evaluate((c) => {
+        const d = JSON.parse((c as HTMLCanvasElement).dataset.doubtful ?? "[]")[0];
+        return [d.x, d.y];
+      });
+      const ringDark = await own.locator("#route-map").evaluate(
+        (c, [px, py]) => {
+          const canvas = c as HTMLCanvasElement;
+          const ratio = canvas.width / canvas.clientWidth;
+          const ctx = canvas.getContext("2d")!;
+          // Sample the ring (radius 11 px) all round: a dashed dark ring leaves dark pixels on it.
+          let dark = 0;
+          for (let a = 0; a < 360; a += 10) {
+            const sx = Math.round((px! + 11 * Math.cos((a * Math.PI) / 180)) * ratio);
+            const sy = Math.round((py! + 11 * Math.sin((a * Math.PI) / 180)) * ratio);
+            const [r, g, b] = ctx.getImageData(sx, sy, 1, 1).data;
+            if (r! < 80 && g! < 80 && b! < 80) dark++;
+          }
+          return dark;
+        },
+        [x, y],
+      );
+      expect(ringDark).toBeGreaterThan(5);
+
+      await own.click("#write");
+      await own.waitForSelector("#download:not([hidden])", { timeout: 60_000 });
+      const [download] = await Promise.all([own.waitForEvent("download"), own.click("#download")]);
+      const saved = join(dir, "addresses.page.xlsx");
+      await download.saveAs(saved);
+      const pagePlan = sheetValues(await loadWithExcelJs(await readFile(saved)), "Plan 1");
+      expect(serviceMinutes(pagePlan)).toEqual(DROP_TIMES);
+      const served = routeRows(pagePlan).filter((r) => /^K\d+$/.test(String(r.Stop)));
+      expect(served.map((r) => String(r.Stop)).sort()).toEqual(DISPATCHER_STOPS.map((s) => s.ref).sort());
+      expect(served.every((r) => r["Late min"] === 0)).toBe(true);
+
+      // The CLI on the same file and service gives the same routes, stop by stop.
+      const cliOut = join(dir, "addresses.cli.xlsx");
+      const cap = captureIO();
+      expect(
+        await main(["plan", input, "--geocoder", geo.template, "--rate", "50", "--scenario", "Plan 1", "--out", cliOut], cap.io),
+        cap.err(),
+      ).toBe(0);
+      const cliPlan = sheetValues(await loadWithExcelJs(await readFile(cliOut)), "Plan 1");
+      const routes = (plan: unknown[][]) => routeRows(plan).map((r) => [r.Vehicle, r.Seq, r.Stop, r.Start]);
+      expect(routes(pagePlan)).toEqual(routes(cliPlan));
+      expect(outside).toEqual([]);
+    } finally {
+      await own.close();
+      await geo.close();
+    }
   }, 600_000);
 
   it("says why no stops sheet was taken and how to choose one", async () => {

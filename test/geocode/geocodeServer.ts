@@ -6,6 +6,7 @@
  */
 import { createServer, type IncomingMessage, type ServerResponse } from "node:http";
 import type { AddressInfo } from "node:net";
+import { dispatcherAddressBook } from "../fixtures/dispatcherWorkbook.js";
 
 /** One point of the invented address book: [longitude, latitude] as GeoJSON orders them. */
 interface Entry {
@@ -34,6 +35,8 @@ export const ADDRESS_BOOK: Readonly<Record<string, readonly Entry[]>> = {
   "1 harbour road saltmarsh": [{ coordinates: [9.9, 57.4], label: "1 Harbour Road, Saltmarsh", type: "house" }],
   // RFC 7946 Appendix A.1, the Point example: "coordinates": [100.0, 0.0].
   "rfc point": [{ coordinates: [100.0, 0.0], label: "RFC 7946 A.1 Point" }],
+  // The bakery round of test/fixtures/dispatcherWorkbook.ts (towns Crustwick, Loafton).
+  ...dispatcherAddressBook(),
 };
 
 /** A request as the service saw it. */
