@@ -19,7 +19,9 @@ import { fileURLToPath } from "node:url";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
+import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { DIST, ensureBuild } from "./ensureBuild.js";
+import { installFakeExcel } from "./fakeExcelHost.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
 const DEMO = join(ROOT, "demo", "kiln-demo.xlsx");
@@ -231,6 +233,21 @@ describe.skipIf(!CHROMIUM)("the pane at 350 px: axe-core, keyboard, nothing cut 
     expect
       .soft(subsequence(after.order, ["optimize", "write", "rerun-sheet", "rerun"]))
       .toEqual(["optimize", "write", "rerun-sheet", "rerun"]);
+    // The background-map section opens with Enter on its summary, and what it holds is then reachable.
+    await page.focus("#map-background summary");
+    await page.keyboard.press("Enter");
+    await expect(page.locator("#map-background").getAttribute("open")).resolves.toBe("");
+    expect.soft(await axeViolations(), "with the background-map section open").toEqual([]);
+    expect.soft(await cutOffControls(), "with the background-map section open").toEqual([]);
+    const unfolded = await tabWalk();
+    expect.soft(unfolded.missed, "controls Tab never reaches in the open section").toEqual([]);
+    expect
+      .soft(subsequence(unfolded.order, ["map-tile-template", "map-tile-attribution", "map-background-apply", "write"]))
+      .toEqual(["map-tile-template", "map-tile-attribution", "map-background-apply", "write"]);
+    await page.focus("#map-background summary");
+    await page.keyboard.press("Space");
+    await expect(page.locator("#map-background").getAttribute("open")).resolves.toBeNull();
+
     await expect(page.locator("#scenario").inputValue()).resolves.toBe("Plan 1");
     await page.focus("#write");
     await page.keyboard.press("Enter");
@@ -269,6 +286,51 @@ describe.skipIf(!CHROMIUM)("the pane at 350 px: axe-core, keyboard, nothing cut 
     expect.soft(await axeViolations(), "after the rerun").toEqual([]);
     expect.soft(await cutOffControls(), "after the rerun").toEqual([]);
   }, 600_000);
+
+  it("in Excel (a fake host): axe-core finds nothing, Tab goes Use selection, Use selection, then the settings; Enter and Space press Use selection; nothing is cut off", async () => {
+    const book = await ExcelJsWorkbook.fromBuffer(readFileSync(DEMO));
+    const values = async (name: string): Promise<unknown[][]> => ((await book.readSheet(name))?.values ?? []).map((r) => [...r]);
+    const excelPage = await context!.newPage();
+    await excelPage.route("**/*", (route) => (route.request().url().startsWith(baseUrl) ? route.continue() : route.abort()));
+    try {
+      await excelPage.addInitScript(installFakeExcel, {
+        sheets: { Stops: await values("Stops"), Fleet: await values("Fleet") },
+        settings: {},
+      });
+      await excelPage.goto(`${baseUrl}/taskpane.html`);
+      await excelPage.waitForSelector("body[data-ready='true'][data-mode='excel']", { timeout: 30_000 });
+      page = excelPage;
+      await expect(page.locator("#stops-summary").textContent()).resolves.toMatch(/select the stops table .* then press Use selection/);
+      expect.soft(await axeViolations(), "Excel, nothing selected yet").toEqual([]);
+      const empty = await tabWalk();
+      expect.soft(empty.missed, "controls Tab never reaches in Excel").toEqual([]);
+      const excelOrder = ["stops-use-selection", "fleet-use-selection", ...STEP_ORDER.filter((k) => !/-sheet$|^file-input$/.test(k))];
+      // Optimize is disabled (so skipped by Tab) until both tables are chosen.
+      const beforeTables = excelOrder.filter((k) => k !== "optimize");
+      expect.soft(subsequence(empty.order, beforeTables)).toEqual(beforeTables);
+
+      const select = (sheet: string) =>
+        page.evaluate((s) => ((window as unknown as { __kilnExcel: { selectSheet: string } }).__kilnExcel.selectSheet = s), sheet);
+      await select("Stops");
+      await page.focus("#stops-use-selection");
+      await page.keyboard.press("Enter");
+      await expect.poll(() => page.locator("#stops-summary").textContent(), { timeout: 30_000 }).toMatch(/data rows/);
+      await select("Fleet");
+      await page.focus("#fleet-use-selection");
+      await page.keyboard.press("Space");
+      await expect.poll(() => page.locator("#fleet-summary").textContent(), { timeout: 30_000 }).toMatch(/data rows/);
+      await page.waitForSelector("#cooling-reading.ok", { timeout: 60_000 });
+      await expect(page.locator("#optimize").isEnabled()).resolves.toBe(true);
+      expect.soft(await axeViolations(), "Excel, both tables chosen").toEqual([]);
+      expect.soft(await cutOffControls(), "Excel, both tables chosen").toEqual([]);
+      const chosen = await tabWalk();
+      expect.soft(chosen.missed, "controls Tab never reaches in Excel with both tables").toEqual([]);
+      expect.soft(subsequence(chosen.order, excelOrder)).toEqual(excelOrder);
+    } finally {
+      await excelPage.close();
+      page = context!.pages()[0]!;
+    }
+  }, 300_000);
 
   it("the production build's text and number inputs and selects all carry the same computed style", async () => {
     // The HTML minifier drops type="text" (the default type); the stylesheet must style those inputs too.
