@@ -10,7 +10,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import HtmlWebpackPlugin from "html-webpack-plugin";
 import CopyWebpackPlugin from "copy-webpack-plugin";
-import { DEV_BASE, OFFICE_JS_CDN, manifestForBase, parseBase } from "./scripts/addinBuild.js";
+import { DEV_BASE, OFFICE_JS_CDN, contentSecurityPolicy, manifestForBase, parseBase } from "./scripts/addinBuild.js";
 
 const root = path.dirname(fileURLToPath(import.meta.url));
 const certDir = path.join(os.homedir(), ".office-addin-dev-certs");
@@ -55,9 +55,16 @@ export default (env = {}, argv = {}) => {
   const serving = Boolean(env.WEBPACK_SERVE);
   const base = parseBase(typeof env.base === "string" ? env.base : DEV_BASE);
   const css = { taskpane: hashedName("src/taskpane/taskpane.css"), uplot: hashedName("node_modules/uplot/dist/uPlot.min.css") };
+  const scripts = {
+    officeLoader: hashedName("src/taskpane/officeLoader.js"),
+    commandsLoader: hashedName("src/taskpane/commandsLoader.js"),
+  };
+  // Each page carries its Content-Security-Policy in a meta tag fixed at build time (no inline script anywhere).
+  const addinCsp = contentSecurityPolicy({ officeHost: true });
   return {
     mode: production ? "production" : "development",
-    devtool: production ? false : "eval-source-map",
+    // No eval-based source maps in development either: the pages' policy forbids eval.
+    devtool: production ? false : "source-map",
     context: root,
     entry: { taskpane: "./src/taskpane/taskpane.ts" },
     output: {
@@ -93,20 +100,50 @@ export default (env = {}, argv = {}) => {
       splitChunks: { cacheGroups: { exceljs: { test: /[\\/]exceljs[\\/]/, name: "exceljs", chunks: "async", enforce: true } } },
     },
     plugins: [
+      // The add-in's page: loads office.js from Microsoft's CDN when an Office host may be around.
       new HtmlWebpackPlugin({
         template: "./src/taskpane/taskpane.html",
         filename: "taskpane.html",
         chunks: ["taskpane"],
         scriptLoading: "defer",
         officeJs: OFFICE_JS_CDN,
+        officeLoader: scripts.officeLoader,
+        csp: addinCsp,
+        css,
+      }),
+      // The standalone page: the same pane without any Office code, scripts from its own origin only.
+      new HtmlWebpackPlugin({
+        template: "./src/taskpane/taskpane.html",
+        filename: "index.html",
+        chunks: ["taskpane"],
+        scriptLoading: "defer",
+        officeLoader: null,
+        csp: contentSecurityPolicy({ officeHost: false }),
         css,
       }),
       // The manifest's FunctionFile and SupportUrl pages: static, no bundle.
-      new HtmlWebpackPlugin({ template: "./src/taskpane/commands.html", filename: "commands.html", chunks: [], inject: false }),
-      new HtmlWebpackPlugin({ template: "./src/taskpane/help.html", filename: "help.html", chunks: [], inject: false }),
+      new HtmlWebpackPlugin({
+        template: "./src/taskpane/commands.html",
+        filename: "commands.html",
+        chunks: [],
+        inject: false,
+        officeJs: OFFICE_JS_CDN,
+        commandsLoader: scripts.commandsLoader,
+        csp: addinCsp,
+      }),
+      new HtmlWebpackPlugin({
+        template: "./src/taskpane/help.html",
+        filename: "help.html",
+        chunks: [],
+        inject: false,
+        csp: contentSecurityPolicy({ officeHost: false }),
+        css,
+      }),
       new CopyWebpackPlugin({
         patterns: [
           { from: "src/taskpane/taskpane.css", to: css.taskpane },
+          { from: "src/taskpane/officeLoader.js", to: scripts.officeLoader },
+          { from: "src/taskpane/commandsLoader.js", to: scripts.commandsLoader },
           { from: "node_modules/uplot/dist/uPlot.min.css", to: css.uplot, info: { minimized: true } },
           { from: "assets", to: "assets", noErrorOnMissing: true },
           { from: "manifest.xml", to: "manifest.xml", transform: (content) => manifestForBase(content.toString(), base) },

@@ -43,3 +43,40 @@ export function manifestForBase(template, base) {
     .split(`${DEV_BASE}/`)
     .join(`${base}/`);
 }
+
+/**
+ * Loopback origins a user may run a geocoder or tile server on with plain http (any port).
+ * Everything else the user configures must be https (Office requires it inside Excel anyway).
+ * CSP host sources have no IPv6 literal form, so `[::1]` cannot be listed: use 127.0.0.1 or localhost.
+ */
+const LOOPBACK = ["http://localhost:*", "http://127.0.0.1:*"];
+
+/**
+ * The Content-Security-Policy of a page, written into its `<meta http-equiv>` at build time
+ * (docs/content-security-policy.md says why each directive is what it is).
+ *
+ * - Scripts only from the page's own origin, never inline or `eval`; the add-in page also
+ *   allows Microsoft's office.js CDN (`OFFICE_JS_CDN`'s origin), the standalone page does not.
+ * - Styles and workers only from the page's own origin.
+ * - Requests (`connect-src`) and images (`img-src`) also to any https origin and to loopback:
+ *   the geocoder and the map tiles are services the user types in at run time, so no list
+ *   written at build time can name them; the code sends nothing anywhere else (browser test).
+ *
+ * @param {{ officeHost: boolean }} page - true for the add-in page (taskpane.html)
+ * @returns {string} the policy, directives separated by "; "
+ * @example contentSecurityPolicy({ officeHost: false }).includes("script-src 'self';") // => true
+ */
+export function contentSecurityPolicy({ officeHost }) {
+  const office = officeHost ? [new URL(OFFICE_JS_CDN).origin] : [];
+  return [
+    "default-src 'self'",
+    ["script-src 'self'", ...office].join(" "),
+    "worker-src 'self'",
+    "style-src 'self'",
+    ["img-src 'self' data: blob: https:", ...LOOPBACK].join(" "),
+    ["connect-src 'self' https:", ...LOOPBACK].join(" "),
+    "object-src 'none'",
+    "base-uri 'self'",
+    "form-action 'none'",
+  ].join("; ");
+}

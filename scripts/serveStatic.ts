@@ -3,7 +3,7 @@
  * and the server the browser test starts on a random port. Serves files only under `root`.
  *
  * Run: `npx tsx scripts/serveStatic.ts [port]` after `npm run build`, then open
- * http://127.0.0.1:<port>/taskpane.html.
+ * http://127.0.0.1:<port>/ (the standalone page, index.html; taskpane.html is the add-in's page).
  */
 import { createReadStream, statSync } from "node:fs";
 import { createServer, type Server } from "node:http";
@@ -41,7 +41,7 @@ export async function serveStatic(root: string, port = 0): Promise<{ server: Ser
       res.writeHead(400, { "content-type": "text/plain" }).end("bad request: malformed percent-encoding in the URL");
       return;
     }
-    const file = normalize(join(base, path === "/" ? "taskpane.html" : path));
+    const file = normalize(join(base, path === "/" ? "index.html" : path));
     if (file !== base && !file.startsWith(base + sep)) {
       res.writeHead(403).end("forbidden");
       return;
@@ -74,5 +74,5 @@ export async function serveStatic(root: string, port = 0): Promise<{ server: Ser
 if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
   const port = Number(process.argv[2] ?? 8080);
   const root = resolve(fileURLToPath(new URL("..", import.meta.url)), "dist");
-  serveStatic(root, port).then(({ url }) => console.log(`Serving ${root} at ${url}/taskpane.html (Ctrl+C stops)`));
+  serveStatic(root, port).then(({ url }) => console.log(`Serving ${root} at ${url}/ (Ctrl+C stops)`));
 }

@@ -94,3 +94,24 @@ export function parseMatrixSheet(read: SheetRead, names: readonly (readonly stri
 function norm(id: string): string {
   return id.trim().toLowerCase();
 }
+
+/**
+ * Whether a sheet reads as a distance matrix, for offering it in a picker: its first non-blank
+ * row names at least two locations after a label cell, and `parseMatrixSheet`, given those ids
+ * as the locations, finds a row for each and a number in every cell between them.
+ *
+ * @param read - the sheet's used range
+ * @returns true for a square table of km headed by location ids
+ * @example looksLikeMatrixSheet({ sheet: "Km", row: 0, col: 0, values: [["km", "D", "a"], ["D", 0, 5], ["a", 6, 0]] }) // => true
+ */
+export function looksLikeMatrixSheet(read: SheetRead): boolean {
+  const header = read.values.find((row) => !row.every(isBlank)) ?? [];
+  const ids = header.slice(1).filter((c) => !isBlank(c) && excelError(c) === undefined);
+  if (ids.length < 2) return false;
+  return (
+    parseMatrixSheet(
+      read,
+      ids.map((c) => [String(plainCell(c))]),
+    ).distanceKm !== undefined
+  );
+}

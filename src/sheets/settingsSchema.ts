@@ -22,6 +22,10 @@ import {
   type SettingKey,
 } from "./settingFields.js";
 
+// No generated code: zod otherwise probes `new Function` on first use, which the pages'
+// Content-Security-Policy refuses and reports (docs/content-security-policy.md).
+z.config({ jitless: true });
+
 /** Geometric factor 0.94 (common practice); no moves per level: the levels then fit the run. */
 export const GEOMETRIC_DEFAULTS = { alpha: GEOMETRIC_ALPHA, movesPerLevel: undefined } as const;
 /** Number of levels of the linear schedule when none is given. */

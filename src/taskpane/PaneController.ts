@@ -19,6 +19,7 @@ import { GeocodePanel } from "./GeocodePanel.js";
 import { CoolingPreview } from "./CoolingPreview.js";
 import { createGuard } from "./guardHandler.js";
 import { MapBackgroundControl } from "./MapBackgroundControl.js";
+import { MatrixPicker } from "./MatrixPicker.js";
 import type { PaneSource, PickedTable } from "./PaneSource.js";
 import { NavigationDownloads } from "./navigationDownloads.js";
 import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
@@ -49,6 +50,11 @@ export class PaneController {
   });
   private readonly mapBackground = new MapBackgroundControl(this.dom, this.map, () => this.source.port);
   private readonly downloads = new NavigationDownloads(this.dom.downloadGpx, this.dom.downloadGeoJson);
+  private readonly matrix = new MatrixPicker(
+    this.dom,
+    () => this.source.port,
+    () => this.refreshRead(),
+  );
   private readonly geocode = new GeocodePanel({
     source: () => this.source,
     tables: () => ({ ...(this.stops ? { stops: this.stops } : {}), ...(this.fleet ? { fleet: this.fleet } : {}) }),
@@ -64,6 +70,7 @@ export class PaneController {
         result: SolveResult;
         scenario: string;
         runSeconds: number;
+        matrixSource?: string;
         written?: string;
         /** Places whose geocoded address is doubtful, for the map. */
         doubtful: readonly DoubtfulPlace[];
@@ -113,6 +120,7 @@ export class PaneController {
         "click",
         this.guard("Use selection (stops)", async () => {
           this.stops = await pick("stops");
+          await this.refreshMatrixList();
           await this.refreshRead();
         }),
       );
@@ -120,11 +128,13 @@ export class PaneController {
         "click",
         this.guard("Use selection (fleet)", async () => {
           this.fleet = await pick("fleet");
+          await this.refreshMatrixList();
           await this.refreshRead();
         }),
       );
     }
     this.mapBackground.wire(this.guard);
+    this.matrix.wire(this.guard);
     this.guard("Reading the background map setting", () => this.mapBackground.load())();
     this.geocode.init();
     this.updateFormVisibility();
@@ -139,11 +149,30 @@ export class PaneController {
     this.read = undefined;
     this.last = undefined;
     this.geocode.reset();
+    this.matrix.reset();
     this.dom.result.hidden = true;
     this.downloads.clear();
     await this.mapBackground.load();
     await this.suggestScenarioName();
     await this.loadWorkbookSettings();
+    await this.refreshMatrixList();
+  }
+
+  /**
+   * Offer the workbook's distance matrix sheets (the picked tables' sheets left out). A failure
+   * to read a sheet leaves the picker at great-circle distances and says so beside it; it never
+   * stands in the way of the tables.
+   */
+  protected async refreshMatrixList(): Promise<void> {
+    const skip = [this.stops?.read.sheet, this.fleet?.read.sheet, this.settingsSheet?.sheet].filter((n): n is string => !!n);
+    try {
+      await this.matrix.refreshList(skip);
+    } catch (err) {
+      console.error("Listing the distance matrix sheets failed", err);
+      this.matrix.reset(
+        `The workbook's sheets could not be read to find a distance matrix (${String(err)}); try again after picking the tables.`,
+      );
+    }
   }
 
   /**
@@ -195,7 +224,11 @@ export class PaneController {
     }
     // With a geocoding lookup made on these tables, their coordinates are filled in (in memory).
     const read = readProblem(
-      { ...this.geocode.input(this.stops.read, this.fleet.read), ...(this.settingsSheet ? { settings: this.settingsSheet } : {}) },
+      {
+        ...this.geocode.input(this.stops.read, this.fleet.read),
+        ...(this.settingsSheet ? { settings: this.settingsSheet } : {}),
+        ...(this.matrix.read ? { matrix: this.matrix.read } : {}),
+      },
       this.overrides(form.settings),
       { maxLocations: PANE_MAX_LOCATIONS },
     );
@@ -246,7 +279,9 @@ export class PaneController {
       ? this.guard("Select cell", (sheet: string, cell: string) => this.source.selectCell?.(sheet, cell))
       : undefined;
     const onMap = this.guard("Map a column", (_kind: TableKind, header: string, field: string) => this.mapColumn(header, field));
-    renderPickedTables(this.dom, this.stops, this.fleet, columns, issues, onCell, onMap, (kind) => this.emptyTableHint(kind));
+    // The matrix sheet's problems go beside its picker, the rest under the tables.
+    const rest = this.matrix.show(issues, onCell);
+    renderPickedTables(this.dom, this.stops, this.fleet, columns, rest, onCell, onMap, (kind) => this.emptyTableHint(kind));
   }
 
   /** What a table's summary says while none is picked: which range to select (Excel) or sheet to choose. */
@@ -289,6 +324,7 @@ export class PaneController {
     const s = read.settings;
     const scenario = form.scenario;
     const doubtful = this.stops ? doubtfulPlaces(read.problem, read.stopRows, this.geocode.review(this.stops.read)) : [];
+    const matrixSource = this.matrix.source;
     this.convergence.reset();
     this.preview.clearObserved();
     d.progressBar.style.width = "0%";
@@ -310,7 +346,14 @@ export class PaneController {
           d.optimizeSection.dataset.state = stopped ? "stopped" : "done";
           showFinished(d, result, stopped);
           this.preview.measured(result.stats.moves, result.stats.elapsedMs);
-          this.last = { read, result, scenario, runSeconds: result.stats.elapsedMs / 1000, doubtful };
+          this.last = {
+            read,
+            result,
+            scenario,
+            runSeconds: result.stats.elapsedMs / 1000,
+            doubtful,
+            ...(matrixSource !== undefined ? { matrixSource } : {}),
+          };
           this.setOptimizeEnabled();
           this.showResult(stopped);
         },
@@ -357,6 +400,7 @@ export class PaneController {
         runSeconds: last.runSeconds,
         stopsSource: this.stops.address,
         fleetSource: this.fleet.address,
+        ...(last.matrixSource !== undefined ? { matrixSource: last.matrixSource } : {}),
         sheetPerVehicle: this.dom.sheetPerVehicle.checked,
       });
       last.written = out.sheetName;

@@ -105,11 +105,15 @@ export class TileBackground implements MapProjector {
   }
 }
 
-/** Leaflet's stylesheet, once; image references dropped (no marker or layer control is used, so nothing is fetched). */
+/**
+ * Leaflet's stylesheet, once, as a constructed stylesheet adopted by the document (a `<style>`
+ * element would need `'unsafe-inline'` in the page's `style-src`); image references dropped (no
+ * marker or layer control is used, so nothing is fetched).
+ */
+let leafletSheet: CSSStyleSheet | undefined;
 function addStyle(css: string): void {
-  if (document.getElementById("kiln-leaflet-css")) return;
-  const style = document.createElement("style");
-  style.id = "kiln-leaflet-css";
-  style.textContent = css.replace(/url\([^)]*\)/g, "none");
-  document.head.append(style);
+  if (leafletSheet) return;
+  leafletSheet = new CSSStyleSheet();
+  leafletSheet.replaceSync(css.replace(/url\([^)]*\)/g, "none"));
+  document.adoptedStyleSheets = [...document.adoptedStyleSheets, leafletSheet];
 }

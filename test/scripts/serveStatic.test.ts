@@ -20,7 +20,7 @@ function get(url: string, path: string): Promise<number> {
 describe("serveStatic (127.0.0.1 only)", () => {
   it("answers 400 to a malformed percent-escape (RFC 3986 §2.1) and keeps serving", async () => {
     const dir = await mkdtemp(join(tmpdir(), "kiln-static-"));
-    await writeFile(join(dir, "taskpane.html"), "<!doctype html><title>t</title>");
+    await writeFile(join(dir, "index.html"), "<!doctype html><title>t</title>");
     const { server, url } = await serveStatic(dir);
     try {
       expect(await get(url, "/%E0%A4%A")).toBe(400);
