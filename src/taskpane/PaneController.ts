@@ -14,6 +14,7 @@ import { proposeScenarioName } from "../sheets/proposeScenarioName.js";
 import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
+import { ComparePlansPanel } from "./ComparePlansPanel.js";
 import { ConvergencePlot } from "./ConvergencePlot.js";
 import { GeocodePanel } from "./GeocodePanel.js";
 import { CoolingPreview } from "./CoolingPreview.js";
@@ -59,6 +60,13 @@ export class PaneController {
     source: () => this.source,
     tables: () => ({ ...(this.stops ? { stops: this.stops } : {}), ...(this.fleet ? { fleet: this.fleet } : {}) }),
     changed: () => this.refreshRead(),
+    guard: (name, fn) => this.guard(name, fn),
+  });
+  private readonly compare = new ComparePlansPanel({
+    solver: this.solver,
+    formSettings: () => settingsFromForm(readForm(this.dom)).settings,
+    prepare: () => this.prepareRun(),
+    busyChanged: () => this.setOptimizeEnabled(),
     guard: (name, fn) => this.guard(name, fn),
   });
   protected stops: PickedTable | undefined;
@@ -137,6 +145,7 @@ export class PaneController {
     this.matrix.wire(this.guard);
     this.guard("Reading the background map setting", () => this.mapBackground.load())();
     this.geocode.init();
+    this.compare.init();
     this.updateFormVisibility();
     this.preview.draw();
   }
@@ -292,6 +301,7 @@ export class PaneController {
   private settingsChanged(): void {
     this.updateFormVisibility();
     this.preview.draw();
+    this.compare.refresh();
     // Detour, speed, service minutes and windows change the problem itself.
     void this.refreshRead().catch((err: unknown) => this.showError(`Reading the tables failed: ${String(err)}`));
   }
@@ -307,22 +317,34 @@ export class PaneController {
   }
 
   private setOptimizeEnabled(): void {
-    this.dom.optimize.disabled = this.solver.running || !this.read?.ok;
-    this.dom.stop.disabled = !this.solver.running;
+    this.dom.optimize.disabled = this.solver.running || this.compare.running || !this.read?.ok;
+    this.dom.stop.disabled = !this.solver.running || this.compare.running;
+    this.compare.setButtons();
+  }
+
+  /**
+   * Check the form and read the tables with it, as a run starts.
+   *
+   * @returns the read tables, or undefined when the form or the tables have errors (shown in the pane)
+   */
+  private async prepareRun(): Promise<(ReadResult & { ok: true }) | undefined> {
+    this.dom.error.hidden = true;
+    const form = settingsFromForm(readForm(this.dom));
+    if (form.issues.length > 0) return void this.showError(form.issues.map((i) => i.message).join(" "));
+    await this.refreshRead();
+    const read = this.read;
+    if (!read?.ok) return void this.showError("Fix the errors listed under Stops and Fleet first.");
+    return read;
   }
 
   private async optimize(): Promise<void> {
     const d = this.dom;
-    d.error.hidden = true;
     // Each run is offered a free name of its own (the sheets may have changed since the last one).
     await this.suggestScenarioName();
-    const form = settingsFromForm(readForm(d));
-    if (form.issues.length > 0) return this.showError(form.issues.map((i) => i.message).join(" "));
-    await this.refreshRead();
-    const read = this.read;
-    if (!read?.ok) return this.showError("Fix the errors listed under Stops and Fleet first.");
+    const read = await this.prepareRun();
+    if (!read) return;
     const s = read.settings;
-    const scenario = form.scenario;
+    const scenario = settingsFromForm(readForm(d)).scenario;
     const doubtful = this.stops ? doubtfulPlaces(read.problem, read.stopRows, this.geocode.review(this.stops.read)) : [];
     const matrixSource = this.matrix.source;
     this.convergence.reset();
