@@ -5,8 +5,9 @@
  * and, with a move budget, the page's costs equal to `kiln compare-schedules --json` on the same
  * file. Skips with a printed reason when Chromium is absent, fails under CI.
  */
-import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import type { Server } from "node:http";
+import { createRequire } from "node:module";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -167,6 +168,15 @@ describe.skipIf(!CHROMIUM)("Compare plans… in the standalone page", () => {
           .map((el) => el.id || el.outerHTML),
       );
     expect(unnamed).toEqual([]);
+    // axe-core (Deque's accessibility engine, from the npm registry) finds nothing in the open section with its table.
+    await page.addScriptTag({ content: readFileSync(createRequire(import.meta.url).resolve("axe-core/axe.min.js"), "utf8") });
+    const violations = await page.evaluate(async () => {
+      type Result = { id: string; help: string; nodes: { target: string[] }[] };
+      const axe = (window as unknown as { axe: { run(c: Element, o: object): Promise<{ violations: Result[] }> } }).axe;
+      const { violations } = await axe.run(document.getElementById("compare-section")!, { resultTypes: ["violations"] });
+      return violations.map((v) => `${v.id}: ${v.help} at ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+    });
+    expect(violations).toEqual([]);
 
     // Stop in the middle: the table counts the finished runs only.
     await page.fill("#compare-seeds", "5");
