@@ -135,8 +135,13 @@ export async function geocodeAddresses(addresses: readonly string[], options: Ge
       await sleepUntil(lastStart + intervalMs, now, signal);
       if (signal?.aborted) return stop();
       requests++;
-      lastStart = now();
-      const tried = await tryOnce(doFetch, buildGeocodeRequest(options.template, address, options.headers ?? {}), timeoutMs, signal);
+      const tried = await tryOnce(
+        doFetch,
+        buildGeocodeRequest(options.template, address, options.headers ?? {}),
+        timeoutMs,
+        signal,
+        () => (lastStart = now()),
+      );
       lastAnswer = now();
       if (signal?.aborted) return stop();
       if ("candidates" in tried) {
@@ -176,6 +181,7 @@ async function tryOnce(
   request: { url: string; headers: Readonly<Record<string, string>> },
   timeoutMs: number,
   signal: AbortSignal | undefined,
+  onSent: () => void,
 ): Promise<Try> {
   const controller = new AbortController();
   let timedOut = false;
@@ -186,10 +192,14 @@ async function tryOnce(
   const onCancel = (): void => controller.abort();
   signal?.addEventListener("abort", onCancel);
   try {
-    const response = await doFetch(request.url, {
+    const sending = doFetch(request.url, {
       headers: { Accept: "application/geo+json, application/json", ...request.headers },
       signal: controller.signal,
     });
+    // The start is stamped once the request is handed over, not before: a delay between deciding
+    // to send and sending (a busy machine) must not shorten the gap to the next request.
+    onSent();
+    const response = await sending;
     const text = await response.text();
     if (!response.ok) {
       const failure = `answered HTTP ${response.status}${text.trim() ? ` ${quote(text)}` : ""}`;
