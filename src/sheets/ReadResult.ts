@@ -25,6 +25,15 @@ export interface StopRow {
   readonly address?: string;
 }
 
+/** A vehicle the Fleet's Lock column locks, and the cell that says so. */
+export interface LockedVehicle {
+  /** Vehicle id as in `Problem.vehicles`. */
+  readonly vehicle: string;
+  readonly sheet: string;
+  /** A1 address of its Lock cell. */
+  readonly cell: string;
+}
+
 /** Result of reading the input tables. */
 export type ReadResult =
   | {
@@ -38,6 +47,11 @@ export type ReadResult =
       readonly fleetColumns: readonly ColumnMatch[];
       /** Non-blocking notes (e.g. a stop no vehicle can carry: it will be reported unassigned). */
       readonly warnings: readonly Issue[];
+      /**
+       * Vehicles whose Fleet `Lock` cell says yes, with that cell: their routes are kept exactly
+       * when re-planning from a plan sheet (`withEarlierPlan`); empty when the Fleet has no Lock column.
+       */
+      readonly lockedVehicles: readonly LockedVehicle[];
     }
   | {
       readonly ok: false;

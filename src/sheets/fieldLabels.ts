@@ -53,6 +53,7 @@ export const FIELD_LABELS: Readonly<Record<TableKind, Readonly<Record<string, st
     maxDrivingH: "Max driving h",
     maxDutyH: "Max duty h",
     maxKm: "Max km",
+    lock: "Lock",
   },
 };
 

@@ -382,6 +382,8 @@ const FLEET_SYNONYMS: Record<string, readonly string[]> = {
   maxDrivingH: ["maxdrivingh", "maxdriving", "maxdrivinghours", "maxdriveh", "maxdrive", "drivinglimith", "drivinglimit", "maxdrivingtime"],
   maxDutyH: ["maxdutyh", "maxduty", "maxdutyhours", "maxdutytime", "dutylimith", "dutylimit", "maxworkh", "maxworkinghours"],
   maxKm: ["maxkm", "kmlimit", "maxdistance", "maxdistancekm", "distancelimit", "distancelimitkm", "maxkilometres", "maxkilometers"],
+  // Re-planning from a plan sheet: this vehicle's published route is kept exactly (yes/no).
+  lock: ["lock", "locked", "keeproute", "lockroute", "lockedroute", "keepsameroute"],
 };
 
 /** Fields whose header may carry a unit word (a load dimension). */

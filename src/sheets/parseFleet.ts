@@ -6,6 +6,7 @@ import type { TableColumns } from "./matchHeaders.js";
 import { readDegrees } from "./parseCoordinate.js";
 import { parseFeatures } from "./parseFeatures.js";
 import { parseLatLon } from "./parseLatLon.js";
+import { parseYesNo } from "./parseYesNo.js";
 import { cellIssue, readTable } from "./readTable.js";
 import { readWorkRules, type WorkRules } from "./readWorkRules.js";
 import { rowReader, type RowReader } from "./rowReader.js";
@@ -37,6 +38,8 @@ export interface ParsedVehicle {
   readonly rules: WorkRules;
   /** 0-based sheet row of the fleet row it came from. */
   readonly sheetRow0: number;
+  /** A1 address of its Lock cell when that cell says yes (keep its route when re-planning from a plan sheet). */
+  readonly lockCell?: string;
 }
 
 /** What `parseFleet` found. */
@@ -60,7 +63,8 @@ export interface ParsedFleet {
  * (blank 0), Speed km/h (blank: the settings speed), Max stops, Features, and the working-time
  * columns of `readWorkRules` (Drive before break, Break min, Break from, Break to, Max driving h,
  * Max duty h, Max km), Driver (who drives it, for route sheets; names the vehicles when there is no
- * Vehicle column). A Count of 2 or more
+ * Vehicle column), Lock (yes/no, blank no: keep the vehicle's route when re-planning from a plan
+ * sheet; `parseYesNo`). A Count of 2 or more
  * makes "Van A 1", "Van A 2", ...; a Count of 0 leaves the row out; blank keeps one vehicle
  * with the row's name. Without a Vehicle column vehicles are named "Vehicle 1", "Vehicle 2"...
  *
@@ -130,6 +134,7 @@ export function parseFleet(read: SheetRead, columnMap: readonly ColumnMapEntry[]
     const maxStops = r.num("maxStops", "max stops", { min: 1, integer: true, example: "20" });
     const featureText = r.text("features");
     const rules = readWorkRules(r, name);
+    const lockCell = readLock(r, name);
     if (issues.length > before || start === undefined || end === undefined) return;
     for (let k = 1; k <= count; k++) {
       const id = count > 1 ? `${name} ${k}` : name;
@@ -156,10 +161,25 @@ export function parseFleet(read: SheetRead, columnMap: readonly ColumnMapEntry[]
         ...(featureText !== undefined ? { features: parseFeatures(featureText) } : {}),
         rules,
         sheetRow0: row.sheetRow0,
+        ...(lockCell !== undefined ? { lockCell } : {}),
       });
     }
   });
   return { ...base, vehicles, dimensions, issues };
+}
+
+/** The A1 address of the row's Lock cell when it says yes; a cell that is neither yes nor no is an issue there. */
+function readLock(r: RowReader, name: string): string | undefined {
+  if (!r.has("lock") || r.blank("lock") || r.excelErrorAt("lock")) return undefined;
+  const locked = parseYesNo(r.raw("lock"));
+  if (locked === undefined) {
+    r.fail(
+      "lock",
+      `Lock ${JSON.stringify(String(plainCell(r.raw("lock"))))} for vehicle "${name}" is not yes or no; type yes to keep this vehicle's route as published when re-planning from a plan sheet, or leave the cell blank.`,
+    );
+    return undefined;
+  }
+  return locked ? r.cell("lock") : undefined;
 }
 
 /** A depot point from a latitude/longitude pair or one "lat, lon" column. */

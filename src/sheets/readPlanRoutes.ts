@@ -23,6 +23,19 @@ export interface PlanRouteCells {
 }
 
 /**
+ * Whether a sheet reads as a Kiln plan: its route table's header (`ROUTE_TABLE_HEADER`) is in its
+ * first rows. The same test `readPlanRoutes` makes, so a sheet offered as a plan to start from is
+ * one the CLI's `--from-plan` takes too.
+ *
+ * @param read - a sheet as read
+ * @returns true when the sheet has a plan's route table
+ * @example looksLikePlanSheet(stopsSheet) // => false
+ */
+export function looksLikePlanSheet(read: SheetRead): boolean {
+  return routeTableHeaderRow(read) >= 0;
+}
+
+/**
  * Read the routes back from a plan sheet written by Kiln (`layoutPlan`): the route table is
  * found by its own header (`ROUTE_TABLE_HEADER`: Vehicle, Seq, Stop, ... in the layout's
  * order); depot rows (Seq 0 and the closing `Depot end` row) and break rows (`Break` in Stop,
@@ -40,10 +53,7 @@ export function readPlanRoutes(read: SheetRead): { routes: PlanRouteCells[] } | 
     return v === null ? "" : String(v).trim();
   };
   const width = ROUTE_TABLE_HEADER.indexOf("Name") + 1;
-  let header = -1;
-  for (let r = 0; r < Math.min(read.values.length, HEADER_SEARCH_ROWS) && header < 0; r++) {
-    if (ROUTE_TABLE_HEADER.slice(0, width).every((h, c) => text(r, c) === h)) header = r;
-  }
+  const header = routeTableHeaderRow(read);
   if (header < 0) {
     return {
       issues: [
@@ -115,4 +125,17 @@ export function readPlanRoutes(read: SheetRead): { routes: PlanRouteCells[] } | 
     twice.set(route.vehicle, route.cell);
   }
   return issues.length > 0 ? { issues } : { routes };
+}
+
+/** Row (within `read.values`) of the route table's header, or -1. */
+function routeTableHeaderRow(read: SheetRead): number {
+  const width = ROUTE_TABLE_HEADER.indexOf("Name") + 1;
+  const text = (r: number, c: number): string => {
+    const v = plainCell(read.values[r]?.[c]);
+    return v === null ? "" : String(v).trim();
+  };
+  for (let r = 0; r < Math.min(read.values.length, HEADER_SEARCH_ROWS); r++) {
+    if (ROUTE_TABLE_HEADER.slice(0, width).every((h, c) => text(r, c) === h)) return r;
+  }
+  return -1;
 }

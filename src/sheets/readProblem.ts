@@ -215,6 +215,9 @@ export function readProblem(
     stopColumns,
     fleetColumns,
     warnings: foldWarnings(warnings),
+    lockedVehicles: fleet.vehicles.flatMap((v) =>
+      v.lockCell !== undefined ? [{ vehicle: v.id, sheet: input.fleet.sheet, cell: v.lockCell }] : [],
+    ),
   };
 }
 

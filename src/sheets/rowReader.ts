@@ -2,6 +2,7 @@ import type { Issue } from "../core/index.js";
 import { excelError, isBlank, plainCell, readNumber, shownValue } from "./cellValue.js";
 import { parseDuration } from "./parseDuration.js";
 import { parseTime } from "./parseTime.js";
+import { cellAddress } from "./cellAddress.js";
 import { cellIssue, type Table, type TableRow } from "./readTable.js";
 
 /** Typed access to the cells of one table row; every defect goes to the shared issue list. */
@@ -13,6 +14,8 @@ export interface RowReader {
   /** The raw cell of a field (`undefined` when the table has no such column). */
   raw(key: string): unknown;
   blank(key: string): boolean;
+  /** A1 address of the field's cell (the row's first cell when the column is absent). */
+  cell(key: string): string;
   /** Record an issue at the field's cell (or at the row's first cell when the column is absent). */
   fail(key: string, message: string): void;
   /** Trimmed text, `undefined` when blank; an Excel error value is an issue. */
@@ -64,6 +67,7 @@ export function rowReader(table: Table, row: TableRow, issues: Issue[]): RowRead
     has: (key) => col(key) !== undefined,
     raw,
     blank: (key) => isBlank(raw(key)),
+    cell: (key) => cellAddress(row.sheetRow0, table.col0 + (col(key) ?? 0)),
     fail,
     excelErrorAt,
     text(key) {

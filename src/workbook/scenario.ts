@@ -96,22 +96,56 @@ export async function readScenarioInput(port: WorkbookPort, request: ScenarioReq
     { stops, fleet, ...(settings ? { settings } : {}), ...(matrix ? { matrix } : {}), ...(unlocated ? { unlocated } : {}) },
     request.overrides,
   );
-  if (!read.ok || !request.fromPlan || !earlierSheet) return read;
-  return withEarlierPlan(read, earlierSheet, request.fromPlan);
+  if (!read.ok) return read;
+  return withEarlierPlan(read, request.fromPlan && earlierSheet ? { ...request.fromPlan, read: earlierSheet } : undefined);
 }
 
+/** Where the pane's ticked routes come from, in messages about them. */
+export const LOCKED_ROUTES_SOURCE = "Locked routes";
+
 /**
- * A read problem with the earlier plan of `sheet` to start from (re-planning a published day);
- * a sheet that is not a Kiln plan, or names a vehicle the Fleet no longer has, comes back as issues.
+ * A read problem with the earlier plan of a plan sheet to start from (re-planning a published
+ * day), shared by the CLI and the pane: the sheet's route table (`readPlanRoutes`) becomes the
+ * problem's `earlier`, with the routes of the Fleet's Lock column and of `from.lock` kept exactly.
+ * A sheet that is not a Kiln plan, or names a vehicle the Fleet no longer has, comes back as
+ * issues at its cell. Without a plan sheet the problem is unchanged, and each ticked Lock cell is
+ * a warning there (nothing to lock), never an error.
+ *
+ * @param read - the tables as read (`readProblem`)
+ * @param from - the plan sheet as read, the extra vehicles to lock and where they were named
+ *   (`--lock`, `LOCKED_ROUTES_SOURCE`); undefined for a plan from scratch
+ * @returns the read result with `problem.earlier` set, or the issues
+ * @example withEarlierPlan(read, { read: planSheet, lock: ["Van 2"], lockSource: "--lock" }).problem.earlier.locked
  */
-function withEarlierPlan(read: ReadResult & { ok: true }, sheet: SheetRead, from: NonNullable<ScenarioRequest["fromPlan"]>): ReadResult {
+export function withEarlierPlan(
+  read: ReadResult & { ok: true },
+  from: { readonly read: SheetRead; readonly lock: readonly string[]; readonly lockSource: string } | undefined,
+): ReadResult {
+  if (!from) return read.lockedVehicles.length === 0 ? read : { ...read, warnings: [...read.warnings, ...nothingToLock(read)] };
   const fail = (issues: Issue[]): ReadResult => ({ ok: false, issues, stopColumns: read.stopColumns, fleetColumns: read.fleetColumns });
-  const table = readPlanRoutes(sheet);
+  const table = readPlanRoutes(from.read);
   if ("issues" in table) return fail(table.issues);
   const stabilityCost = read.settings.stabilityCost ?? STABILITY_COST_DEFAULT;
-  const built = buildEarlierPlan(read.problem, sheet.sheet, table.routes, { stabilityCost, lock: from.lock, lockSource: from.lockSource });
+  const lock = [...new Set([...read.lockedVehicles.map((l) => l.vehicle), ...from.lock])];
+  const built = buildEarlierPlan(read.problem, from.read.sheet, table.routes, { stabilityCost, lock, lockSource: from.lockSource });
   if (!built.earlier) return fail(built.issues);
   return { ...read, problem: { ...read.problem, earlier: built.earlier }, warnings: [...read.warnings, ...built.warnings] };
+}
+
+/** One warning per ticked Lock cell (a Count row locks all its vehicles) when no plan sheet is chosen. */
+function nothingToLock(read: ReadResult & { ok: true }): Issue[] {
+  const byCell = new Map<string, { sheet: string; cell: string; vehicles: string[] }>();
+  for (const l of read.lockedVehicles) {
+    const key = `${l.sheet}!${l.cell}`;
+    const entry = byCell.get(key) ?? { sheet: l.sheet, cell: l.cell, vehicles: [] };
+    entry.vehicles.push(l.vehicle);
+    byCell.set(key, entry);
+  }
+  return [...byCell.values()].map(({ sheet, cell, vehicles }) => ({
+    sheet,
+    cell,
+    message: `${sheet}!${cell}: Lock says yes for ${vehicles.map((v) => `"${v}"`).join(", ")}, but there is nothing to lock: no earlier plan chosen. Choose the plan sheet to start from (Start from plan sheet in the pane, --from-plan SHEET on the command line), or clear the Lock cell.`,
+  }));
 }
 
 /**

@@ -126,4 +126,47 @@ describe("kiln plan --from-plan", () => {
     expect(await main(["plan", first, "--lock", van, "--out", join(dir, "z.xlsx")], lockAlone.io)).toBe(2);
     expect(lockAlone.err()).toContain("--from-plan SHEET");
   });
+
+  it("locks the route of a vehicle whose Fleet Lock cell says yes, and warns at that cell when no plan sheet is given", async () => {
+    const { dir, path } = await demoCopy();
+    const first = join(dir, "first.xlsx");
+    expect(await main(["plan", path, "--moves", "20000", "--seed", "2", "--out", first], captureIO().io)).toBe(0);
+    const before = await routesOf(first, "Plan");
+    const [lockedVan, lockedStops] = [...before].find(([, s]) => s.length >= 3)!;
+    const cancelled = lockedStops[0]!;
+    await editStops(first, [cancelled]);
+    // A Lock column at the end of the Fleet: yes for the locked van only.
+    const book = await loadWithExcelJs(await readFile(first));
+    const fleet = book.getWorksheet("Fleet")!;
+    const col = fleet.getRow(1).cellCount + 1;
+    let lockCell = "";
+    fleet.eachRow((row, n) => {
+      if (n === 1) row.getCell(col).value = "Lock";
+      else if (String(row.getCell(1).value) === lockedVan) {
+        row.getCell(col).value = "yes";
+        lockCell = row.getCell(col).address;
+      }
+    });
+    expect(lockCell).not.toBe("");
+    await writeFile(first, Buffer.from(await book.xlsx.writeBuffer()));
+
+    // No plan sheet given: a warning at the Lock cell, and the plan is made from scratch.
+    const alone = captureIO();
+    expect(await main(["plan", first, "--moves", "2000", "--out", join(dir, "alone.xlsx")], alone.io), alone.err()).toBe(0);
+    expect(alone.err()).toContain(
+      `warning: Fleet!${lockCell}: Lock says yes for "${lockedVan}", but there is nothing to lock: no earlier plan chosen.`,
+    );
+
+    // From the plan sheet with a low stability cost (other routes may change): the locked one stays as it was.
+    const second = join(dir, "second.xlsx");
+    const cap = captureIO();
+    const flags = ["--from-plan", "Plan", "--stability-cost", "0", "--moves", "20000", "--seed", "9"];
+    expect(await main(["plan", first, ...flags, "--scenario", "Again", "--out", second], cap.io), cap.err()).toBe(0);
+    expect((await routesOf(second, "Again")).get(lockedVan)).toEqual(lockedStops.slice(1));
+    const ws = (await loadWithExcelJs(await readFile(second))).getWorksheet("Again")!;
+    const labels = ws.getRow(3).values as unknown[];
+    expect(String((ws.getRow(4).values as unknown[])[labels.indexOf("Re-planned from")])).toBe(
+      `Plan, stability cost 0 per stop moved, locked: ${lockedVan}`,
+    );
+  });
 });
