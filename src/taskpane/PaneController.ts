@@ -9,11 +9,11 @@ import { COLUMN_MAP_KEY, mergeColumnMaps, storedColumnMap, type ColumnMapEntry }
 import type { SheetRead } from "../sheets/grid.js";
 import type { TableKind } from "../sheets/matchHeaders.js";
 import { parseSettingsSheet } from "../sheets/parseSettingsSheet.js";
-import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "../sheets/PlanSettings.js";
+import { PLAN_SETTINGS_DEFAULTS, STABILITY_COST_DEFAULT, type PlanSettings } from "../sheets/PlanSettings.js";
 import { proposeScenarioName } from "../sheets/proposeScenarioName.js";
 import { readProblem } from "../sheets/readProblem.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
-import { sourceOf, writeScenarioResult } from "../workbook/scenario.js";
+import { sourceOf, withEarlierPlan, writeScenarioResult } from "../workbook/scenario.js";
 import { ComparePlansPanel } from "./ComparePlansPanel.js";
 import { ConvergencePlot } from "./ConvergencePlot.js";
 import { GeocodePanel } from "./GeocodePanel.js";
@@ -21,6 +21,7 @@ import { CoolingPreview } from "./CoolingPreview.js";
 import { createGuard } from "./guardHandler.js";
 import { MapBackgroundControl } from "./MapBackgroundControl.js";
 import { MatrixPicker } from "./MatrixPicker.js";
+import { PlanSheetPicker } from "./PlanSheetPicker.js";
 import type { PaneSource, PickedTable } from "./PaneSource.js";
 import { NavigationDownloads } from "./navigationDownloads.js";
 import { paneDom, readForm, writeForm, type PaneDom } from "./paneDom.js";
@@ -56,6 +57,11 @@ export class PaneController {
     () => this.source.port,
     () => this.refreshRead(),
   );
+  private readonly planSheet = new PlanSheetPicker(
+    this.dom,
+    () => this.source.port,
+    () => this.refreshRead(),
+  );
   private readonly geocode = new GeocodePanel({
     source: () => this.source,
     tables: () => ({ ...(this.stops ? { stops: this.stops } : {}), ...(this.fleet ? { fleet: this.fleet } : {}) }),
@@ -79,6 +85,8 @@ export class PaneController {
         scenario: string;
         runSeconds: number;
         matrixSource?: string;
+        /** The plan sheet the run started from (re-planning a published day). */
+        fromPlan?: string;
         written?: string;
         /** Places whose geocoded address is doubtful, for the map. */
         doubtful: readonly DoubtfulPlace[];
@@ -100,6 +108,7 @@ export class PaneController {
     d.modeBadge.dataset.mode = this.source.mode;
     d.modeBadge.textContent = this.source.mode === "excel" ? "in Excel" : "standalone · files";
     d.caution.textContent = CAUTION_TEXT;
+    d.stabilityCost.placeholder = `${STABILITY_COST_DEFAULT} (default)`;
     d.errorClose.addEventListener("click", () => (d.error.hidden = true));
     const settingsChanged = this.guard("Reading the settings", () => this.settingsChanged());
     const hold = new PointerHold(document);
@@ -143,6 +152,7 @@ export class PaneController {
     }
     this.mapBackground.wire(this.guard);
     this.matrix.wire(this.guard);
+    this.planSheet.wire(this.guard);
     this.guard("Reading the background map setting", () => this.mapBackground.load())();
     this.geocode.init();
     this.compare.init();
@@ -159,6 +169,7 @@ export class PaneController {
     this.last = undefined;
     this.geocode.reset();
     this.matrix.reset();
+    this.planSheet.reset();
     this.dom.result.hidden = true;
     this.downloads.clear();
     await this.mapBackground.load();
@@ -180,6 +191,20 @@ export class PaneController {
       console.error("Listing the distance matrix sheets failed", err);
       this.matrix.reset(
         `The workbook's sheets could not be read to find a distance matrix (${String(err)}); try again after picking the tables.`,
+      );
+    }
+    await this.refreshPlanSheetList();
+  }
+
+  /** Offer the workbook's plan sheets to start from; a failure says so beside the control. */
+  private async refreshPlanSheetList(): Promise<void> {
+    const skip = [this.stops?.read.sheet, this.fleet?.read.sheet, this.settingsSheet?.sheet].filter((n): n is string => !!n);
+    try {
+      await this.planSheet.refreshList(skip);
+    } catch (err) {
+      console.error("Listing the plan sheets failed", err);
+      this.planSheet.reset(
+        `The workbook's sheets could not be read to find its plan sheets (${String(err)}); try again after picking the tables.`,
       );
     }
   }
@@ -232,7 +257,7 @@ export class PaneController {
       return;
     }
     // With a geocoding lookup made on these tables, their coordinates are filled in (in memory).
-    const read = readProblem(
+    const tables = readProblem(
       {
         ...this.geocode.input(this.stops.read, this.fleet.read),
         ...(this.settingsSheet ? { settings: this.settingsSheet } : {}),
@@ -241,7 +266,10 @@ export class PaneController {
       this.overrides(form.settings),
       { maxLocations: PANE_MAX_LOCATIONS },
     );
+    // The earlier plan and locks go through the same step as the CLI's --from-plan and --lock.
+    const read = tables.ok ? withEarlierPlan(tables, this.planSheet.start) : tables;
     if (token !== this.readToken) return;
+    this.planSheet.setFleetLocked(tables.ok ? tables.lockedVehicles.map((l) => l.vehicle) : []);
     this.read = read;
     const issues = read.ok ? read.warnings.map((w) => ({ ...w, warning: true })) : read.issues;
     this.renderTables({ stops: read.stopColumns, fleet: read.fleetColumns }, issues);
@@ -268,6 +296,7 @@ export class PaneController {
           pEnd: form.pEnd,
           seed: form.seed,
           seconds: form.seconds,
+          stabilityCost: form.stabilityCost,
         }
       : form;
     return this.columnMap.length > 0 ? { ...shown, columnMap: this.columnMap } : shown;
@@ -288,8 +317,8 @@ export class PaneController {
       ? this.guard("Select cell", (sheet: string, cell: string) => this.source.selectCell?.(sheet, cell))
       : undefined;
     const onMap = this.guard("Map a column", (_kind: TableKind, header: string, field: string) => this.mapColumn(header, field));
-    // The matrix sheet's problems go beside its picker, the rest under the tables.
-    const rest = this.matrix.show(issues, onCell);
+    // The matrix sheet's and the earlier plan's problems go beside their pickers, the rest under the tables.
+    const rest = this.planSheet.show(this.matrix.show(issues, onCell), onCell);
     renderPickedTables(this.dom, this.stops, this.fleet, columns, rest, onCell, onMap, (kind) => this.emptyTableHint(kind));
   }
 
@@ -347,6 +376,7 @@ export class PaneController {
     const scenario = settingsFromForm(readForm(d)).scenario;
     const doubtful = this.stops ? doubtfulPlaces(read.problem, read.stopRows, this.geocode.review(this.stops.read)) : [];
     const matrixSource = this.matrix.source;
+    const fromPlan = read.problem.earlier ? this.planSheet.sheetName : undefined;
     this.convergence.reset();
     this.preview.clearObserved();
     d.progressBar.style.width = "0%";
@@ -375,6 +405,7 @@ export class PaneController {
             runSeconds: result.stats.elapsedMs / 1000,
             doubtful,
             ...(matrixSource !== undefined ? { matrixSource } : {}),
+            ...(fromPlan !== undefined ? { fromPlan } : {}),
           };
           this.setOptimizeEnabled();
           this.showResult(stopped);
@@ -423,12 +454,15 @@ export class PaneController {
         stopsSource: this.stops.address,
         fleetSource: this.fleet.address,
         ...(last.matrixSource !== undefined ? { matrixSource: last.matrixSource } : {}),
+        ...(last.fromPlan !== undefined ? { fromPlan: last.fromPlan } : {}),
         sheetPerVehicle: this.dom.sheetPerVehicle.checked,
       });
       last.written = out.sheetName;
       const routes = out.routeSheets.map((n) => `"${n}"`).join(", ");
       this.dom.writeStatus.textContent = `Written to sheet "${out.sheetName}"${routes ? `, route sheets ${routes}` : ""} and a row on the Compare sheet.`;
       await this.suggestScenarioName();
+      // The new plan sheet can be started from.
+      await this.refreshPlanSheetList();
       return out;
     } finally {
       this.dom.write.disabled = false;
@@ -450,7 +484,12 @@ export class PaneController {
     writeForm(d, formFromSettings(record.settings, record.scenario, readForm(d)));
     // The rerun lands in a sheet of its own: offer the next free name, not the plan's own.
     await this.suggestScenarioName();
-    d.rerunStatus.textContent = `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}). Optimize writes a new sheet, "${d.scenario.value}".`;
+    // A re-planned run starts from the same plan sheet with the same routes locked.
+    const gone = await this.planSheet.restore(record.fromPlan, record.locked ?? []);
+    const from = record.fromPlan !== undefined && gone === undefined ? `, starting from plan sheet "${record.fromPlan}"` : "";
+    d.rerunStatus.textContent =
+      `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}${from}). Optimize writes a new sheet, "${d.scenario.value}".` +
+      (gone ? ` ${gone}` : "");
     this.settingsChanged();
   }
 

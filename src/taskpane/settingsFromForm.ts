@@ -3,7 +3,7 @@
  * `PlanSettings`. Pure (no DOM), so a bad entry becomes an `Issue`, never an exception.
  */
 import type { Issue, CoolingSpec } from "../core/index.js";
-import { PLAN_SETTINGS_DEFAULTS, type PlanSettings } from "../sheets/PlanSettings.js";
+import { PLAN_SETTINGS_DEFAULTS, STABILITY_COST_DEFAULT, type PlanSettings } from "../sheets/PlanSettings.js";
 import { PARAMETERS_OF, SETTING_FIELDS, type SettingKey } from "../sheets/settingFields.js";
 import { buildCooling, crossProblems, parseSettingValue, type ScheduleParams } from "../sheets/settingsSchema.js";
 
@@ -18,6 +18,7 @@ export interface PaneForm {
   readonly "late-cost": string;
   readonly seconds: string;
   readonly seed: string;
+  readonly "stability-cost": string;
   readonly rule: string;
   /** CoolingSpec kind. */
   readonly schedule: string;
@@ -43,6 +44,7 @@ export const PANE_FORM_FIELDS: readonly (keyof PaneForm)[] = [
   "late-cost",
   "seconds",
   "seed",
+  "stability-cost",
   "rule",
   "schedule",
   "alpha",
@@ -73,6 +75,7 @@ export const FIELD_OF: Partial<Record<SettingKey, keyof PaneForm>> = {
   lateCostPerMin: "late-cost",
   seconds: "seconds",
   seed: "seed",
+  stabilityCost: "stability-cost",
   rule: "rule",
   schedule: "schedule",
   alpha: "alpha",
@@ -121,6 +124,8 @@ export function settingsFromForm(form: PaneForm): FormReading {
       : d.lateCostPerMin;
   const seconds = read("seconds", d.seconds);
   const seed = read("seed", d.seed);
+  // Blank: the default stability cost (as when the Settings sheet and the CLI give none).
+  const stabilityCost = form["stability-cost"].trim() === "" ? undefined : read<number>("stabilityCost", STABILITY_COST_DEFAULT);
   const rule = read("rule", d.rule);
   const manual = form.temperatures === "manual";
   const p0 = manual ? d.p0 : read("p0", d.p0);
@@ -151,6 +156,7 @@ export function settingsFromForm(form: PaneForm): FormReading {
     lateCostPerMin,
     seconds,
     seed,
+    ...(stabilityCost !== undefined ? { stabilityCost } : {}),
     rule,
     cooling,
     p0,
@@ -181,6 +187,7 @@ export function formFromSettings(settings: PlanSettings, scenario: string, curre
     "late-cost": String(settings.lateCostPerMin),
     seconds: String(settings.seconds),
     seed: String(settings.seed),
+    "stability-cost": settings.stabilityCost === undefined ? "" : String(settings.stabilityCost),
     rule: settings.rule,
     schedule: c.kind,
     ...(c.kind === "geometric" ? { alpha: blankIfUndefined(c.alpha), "moves-per-level": blankIfUndefined(c.movesPerLevel) } : {}),

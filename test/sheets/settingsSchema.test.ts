@@ -24,6 +24,7 @@ const FORM: PaneForm = {
   "late-cost": "1",
   seconds: "10",
   seed: "1",
+  "stability-cost": "",
   rule: "metropolis",
   schedule: "geometric",
   alpha: "0.94",

@@ -11,6 +11,7 @@ const FORM: PaneForm = {
   "late-cost": "1",
   seconds: "10",
   seed: "1",
+  "stability-cost": "",
   rule: "metropolis",
   schedule: "timeFraction",
   alpha: "0.94",
@@ -80,6 +81,7 @@ describe("settingsFromForm", () => {
       cooling: { kind: "geometric" as const, alpha: 0.9, movesPerLevel: 500 },
       p0: 0.4,
       pEnd: 0.01,
+      stabilityCost: 500,
     };
     const back = settingsFromForm(formFromSettings(stored, "Plan 7", FORM));
     expect(back.issues).toEqual([]);
