@@ -13,6 +13,12 @@
  * and 30 min inside 12:00-13:30, invented values for the measurement only) to measure what they
  * cost; `--sizes 100,1000` picks the sizes.
  *
+ * `--replan` measures re-planning a published day against planning from scratch on the same
+ * instance: the earlier plan is the best plan of a 20 000-move run with every 20th stop left out
+ * (stops added since), a stability cost of 20 and the first vehicle's route locked (invented
+ * values for the measurement only); each size then gets a "plain" and a "re-plan" row, and the
+ * figures also go to `bench/results/moveEvaluations-replan-<date>.json` with the machine's load.
+ *
  * Run: npx tsx bench/moveEvaluations.ts   (writes bench/out/moveEvaluations.json)
  */
 import { mkdirSync, writeFileSync } from "node:fs";
@@ -25,7 +31,9 @@ import { Move, proposeMove } from "../src/core/moves/proposeMove.js";
 import { SearchState } from "../src/core/moves/SearchState.js";
 import { buildNeighbours } from "../src/core/neighbours/buildNeighbours.js";
 import { compileProblem } from "../src/core/schedule/compileProblem.js";
-import { createSolver } from "../src/core/solve.js";
+import { createSolver, solve } from "../src/core/solve.js";
+import { loadavg } from "node:os";
+import { benchEnvironment, writeResults } from "./results.js";
 
 function instance(n: number): Problem {
   const rng = createRandom(`bench-${n}`);
@@ -98,6 +106,15 @@ function withRules(p: Problem, rules: string): Problem {
   };
 }
 
+/** `--replan`: the same instance re-planned from an earlier plan (see the header). */
+const REPLAN = process.argv.includes("--replan");
+
+function withEarlier(p: Problem): Problem {
+  const published = solve(p, { seed: 1, budget: { moves: 20_000 } }).plan;
+  const routes = p.vehicles.map((_, k) => (published.routes[k]?.visits ?? []).map((v) => v.stop).filter((i) => i % 20 !== 19));
+  return { ...p, earlier: { routes, stabilityCost: 20, locked: [0] } };
+}
+
 function raw(problem: Problem, seconds: number): number {
   const cp = compileProblem(problem);
   const w = initialWeights(cp);
@@ -145,7 +162,9 @@ function median(values: readonly number[]): number {
   return v.length % 2 === 1 ? v[mid]! : (v[mid - 1]! + v[mid]!) / 2;
 }
 
+const loadBefore = loadavg()[0]!;
 const rows: {
+  mode: "plain" | "re-plan";
   stops: number;
   vehicles: number;
   rawPerSecond: number;
@@ -156,35 +175,53 @@ const rows: {
   inRunRuns: number[];
 }[] = [];
 for (const n of SIZES) {
-  const problem = withRules(instance(n), RULES);
-  const rawRuns: number[] = [];
-  const inRunRuns: number[] = [];
-  let last = { perSecond: 0, cost: 0, feasible: false };
-  for (let r = 0; r < REPEAT; r++) {
-    rawRuns.push(Math.round(raw(problem, 1)));
-    last = inRun(problem, Math.max(10_000, 2 * rawRuns[rawRuns.length - 1]!));
-    inRunRuns.push(Math.round(last.perSecond));
+  const plain = withRules(instance(n), RULES);
+  for (const mode of REPLAN ? (["plain", "re-plan"] as const) : (["plain"] as const)) {
+    const problem = mode === "plain" ? plain : withEarlier(plain);
+    const rawRuns: number[] = [];
+    const inRunRuns: number[] = [];
+    let last = { perSecond: 0, cost: 0, feasible: false };
+    for (let r = 0; r < REPEAT; r++) {
+      rawRuns.push(Math.round(raw(problem, 1)));
+      last = inRun(problem, Math.max(10_000, 2 * rawRuns[rawRuns.length - 1]!));
+      inRunRuns.push(Math.round(last.perSecond));
+    }
+    rows.push({
+      mode,
+      stops: n,
+      vehicles: problem.vehicles.length,
+      rawPerSecond: Math.round(median(rawRuns)),
+      inRunPerSecond: Math.round(median(inRunRuns)),
+      runCost: Math.round(last.cost),
+      feasible: last.feasible,
+      rawRuns,
+      inRunRuns,
+    });
   }
-  rows.push({
-    stops: n,
-    vehicles: problem.vehicles.length,
-    rawPerSecond: Math.round(median(rawRuns)),
-    inRunPerSecond: Math.round(median(inRunRuns)),
-    runCost: Math.round(last.cost),
-    feasible: last.feasible,
-    rawRuns,
-    inRunRuns,
-  });
 }
-console.log(`Medians of ${REPEAT} runs per size (raw: 1 s each; in run: a createSolver run of about 2 s of moves each); rules: ${RULES}.`);
-console.log("| stops | vehicles | raw evaluations/s | in-run evaluations/s | in-run plan cost | feasible |");
-console.log("|---:|---:|---:|---:|---:|:---|");
+console.log(
+  `Medians of ${REPEAT} runs per size (raw: 1 s each; in run: a createSolver run of about 2 s of moves each); rules: ${RULES}${REPLAN ? "; plain and re-plan" : ""}.`,
+);
+console.log("| mode | stops | vehicles | raw evaluations/s | in-run evaluations/s | in-run plan cost | feasible |");
+console.log("|:---|---:|---:|---:|---:|---:|:---|");
 for (const r of rows)
   console.log(
-    `| ${r.stops} | ${r.vehicles} | ${r.rawPerSecond.toLocaleString("en")} | ${r.inRunPerSecond.toLocaleString("en")} | ${r.runCost} | ${r.feasible} |`,
+    `| ${r.mode} | ${r.stops} | ${r.vehicles} | ${r.rawPerSecond.toLocaleString("en")} | ${r.inRunPerSecond.toLocaleString("en")} | ${r.runCost} | ${r.feasible} |`,
   );
 mkdirSync(new URL("./out/", import.meta.url), { recursive: true });
 writeFileSync(
   new URL("./out/moveEvaluations.json", import.meta.url),
-  JSON.stringify({ node: process.version, rules: RULES, rows }, null, 2),
+  JSON.stringify({ node: process.version, rules: RULES, replan: REPLAN, rows }, null, 2),
 );
+if (REPLAN) {
+  const path = writeResults("moveEvaluations-replan", {
+    bench: "moveEvaluations --replan",
+    environment: benchEnvironment(),
+    // The machine may be shared: its 1-minute load average before and after, for reading the figures.
+    loadAverage1m: { before: Math.round(loadBefore * 10) / 10, after: Math.round(loadavg()[0]! * 10) / 10 },
+    repeat: REPEAT,
+    rules: RULES,
+    rows,
+  });
+  console.log(`Written ${path}`);
+}
