@@ -172,7 +172,7 @@ export class GeocodePanel {
       const block = coordinateColumns(original, filled, l.result.review, kind);
       if (block) written += await port.fillEmptyCells(original.sheet, block.row, block.col, block.values);
     }
-    this.el.progress.textContent = `Added ${written} cells (Latitude, Longitude and Geocode match) to the sheet; no cell that held a value was changed.`;
+    this.el.progress.textContent = `Added ${written} cells (coordinates, start and end depot coordinates beside address text, and the Geocode match) to the sheets; no cell that held a value was changed.`;
     this.el.write.disabled = true;
   }
 

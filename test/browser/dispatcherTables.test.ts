@@ -19,6 +19,7 @@ import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import {
   DISPATCHER_STOPS,
   DROP_TIMES,
+  DISPATCHER_DEPOTS,
   dispatcherAddressWorkbook,
   dispatcherWorkbook,
   routeRows,
@@ -204,6 +205,9 @@ describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () 
       await expect(first.textContent()).resolves.toMatch(/Thursday round!C6.*Mill Street, Crustwick, Kilnland → approximate/);
       await expect(own.locator("#stops-issues li").count()).resolves.toBe(0);
       await expect(own.locator("#fleet-issues li").count()).resolves.toBe(0);
+      // "Add coordinates to the sheet" writes the depots' points too (checked in the download below).
+      await own.click("#geocode-write");
+      await expect.poll(() => own.locator("#geocode-progress").textContent(), { timeout: 30_000 }).toMatch(/^Added \d+ cells/);
 
       await own.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
       await own.click("#optimize");
@@ -245,7 +249,35 @@ describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () 
       const [download] = await Promise.all([own.waitForEvent("download"), own.click("#download")]);
       const saved = join(dir, "addresses.page.xlsx");
       await download.saveAs(saved);
-      const pagePlan = sheetValues(await loadWithExcelJs(await readFile(saved)), "Plan 1");
+      const pageBook = await loadWithExcelJs(await readFile(saved));
+      const pagePlan = sheetValues(pageBook, "Plan 1");
+      // The depots' address text stays; their points (the service's answers) sit in new columns to
+      // the right, start then end, before the match label: the same columns as kiln geocode writes.
+      const vans = sheetValues(pageBook, "Vans");
+      const { start, end } = DISPATCHER_DEPOTS;
+      expect(vans[0]!.slice(2)).toEqual([
+        "Depot",
+        "End depot",
+        "Shift start",
+        "Shift end",
+        "Start latitude",
+        "Start longitude",
+        "End latitude",
+        "End longitude",
+        "Geocode match",
+      ]);
+      expect(vans[1]!.slice(2)).toEqual([
+        start.address,
+        end.address,
+        "05:00",
+        "13:00",
+        start.lat,
+        start.lon,
+        end.lat,
+        end.lon,
+        `found: ${start.address}; end depot found: ${end.address}`,
+      ]);
+      expect(vans[2]!.slice(6, 8)).toEqual([start.lat, start.lon]);
       expect(serviceMinutes(pagePlan)).toEqual(DROP_TIMES);
       const served = routeRows(pagePlan).filter((r) => /^K\d+$/.test(String(r.Stop)));
       expect(served.map((r) => String(r.Stop)).sort()).toEqual(DISPATCHER_STOPS.map((s) => s.ref).sort());

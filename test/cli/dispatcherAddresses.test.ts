@@ -102,4 +102,56 @@ describe("a dispatcher's address-only workbook through kiln plan --geocoder", ()
     expect(await main(["plan", out, "--geocoder", server.template, "--out", join(dir, "round.again.xlsx")], again.io), again.err()).toBe(0);
     expect(server.seen.length).toBe(seen);
   }, 120_000);
+
+  it("kiln geocode writes the depots' points beside their address text (start and end), never over it, and the copy plans from them", async () => {
+    const input = join(dir, "depots.xlsx");
+    await writeFile(input, await dispatcherAddressWorkbook());
+    const out = join(dir, "depots.geo.xlsx");
+    const cap = captureIO();
+    expect(await main(["geocode", input, "--geocoder", server.template, "--rate", "50", "--out", out], cap.io), cap.err()).toBe(0);
+    const vans = sheetValues(await loadWithExcelJs(await readFile(out)), "Vans");
+    // The address text in Depot and End depot stays; the points go into new columns to the right,
+    // start then end, before the match label (the service's answers, [lon, lat] in RFC 7946 order).
+    expect(vans[0]).toEqual([
+      "Vehicle",
+      "Capacity",
+      "Depot",
+      "End depot",
+      "Shift start",
+      "Shift end",
+      "Start latitude",
+      "Start longitude",
+      "End latitude",
+      "End longitude",
+      "Geocode match",
+    ]);
+    const { start, end } = DISPATCHER_DEPOTS;
+    expect(vans[1]).toEqual([
+      "Van 1",
+      30,
+      start.address,
+      end.address,
+      "05:00",
+      "13:00",
+      start.lat,
+      start.lon,
+      end.lat,
+      end.lon,
+      `found: ${start.address}; end depot found: ${end.address}`,
+    ]);
+    // Van 2 has no end depot address: its end columns stay empty, and its label names only the start.
+    expect(vans[2]!.slice(2, 8)).toEqual([start.address, "", "05:00", "13:00", start.lat, start.lon]);
+    expect(vans[2]!.slice(8, 10).every((v) => v === undefined || v === null || v === "")).toBe(true);
+    expect(vans[2]![10]).toBe(`found: ${start.address}`);
+
+    // The copy plans with no geocoder at all: the written points are read as typed coordinates.
+    const planned = join(dir, "depots.plan.xlsx");
+    const run = captureIO();
+    expect(await main(["plan", out, "--moves", "3000", "--seed", "2", "--out", planned], run.io), run.err()).toBe(0);
+    const rows = routeRows(sheetValues(await loadWithExcelJs(await readFile(planned)), "Plan"));
+    const at = (r: Record<string, unknown>) => ({ lat: Number(r.Latitude), lon: Number(r.Longitude) });
+    const van1 = rows.filter((r) => String(r.Vehicle) === "Van 1");
+    expect(at(van1[0]!)).toEqual({ lat: start.lat, lon: start.lon });
+    expect(at(van1.at(-1)!)).toEqual({ lat: end.lat, lon: end.lon });
+  }, 120_000);
 });
