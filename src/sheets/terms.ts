@@ -9,4 +9,9 @@ export const TERMS = {
   unassigned: "Unassigned",
   /** Stops without a Priority (so they must be served) that the plan still does not serve. */
   mustServeLeftOut: "Must-serve left out",
+  /**
+   * The action that plans: the pane's button and step heading, the ribbon button
+   * (manifest.xml `Kiln.OpenPane.Label`); the CLI's command is its verb, `kiln plan`.
+   */
+  planAction: "Plan routes",
 } as const;

@@ -10,6 +10,7 @@ import { formatCooling } from "../sheets/formatCooling.js";
 import type { PlanSettings } from "../sheets/PlanSettings.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { parseSettingValue } from "../sheets/settingsSchema.js";
+import { TERMS } from "../sheets/terms.js";
 import {
   formatTemperaturePlan,
   parseTemperaturePlan,
@@ -31,7 +32,7 @@ export interface ComparePlansHost {
   formSettings(): PlanSettings;
   /** Read the tables with the form's settings; undefined (the pane shows why) when they cannot be planned. */
   prepare(): Promise<(ReadResult & { ok: true }) | undefined>;
-  /** Called when a comparison starts or ends, so the pane can enable or disable Optimize. */
+  /** Called when a comparison starts or ends, so the pane can enable or disable Plan routes. */
   busyChanged(): void;
   guard<A extends unknown[]>(action: string, fn: (...args: A) => unknown): (...args: A) => void;
 }
@@ -132,7 +133,7 @@ export class ComparePlansPanel {
 
   private async compare(): Promise<void> {
     if (this.going) return;
-    if (this.host.solver.running) return this.say("Optimize is running: stop it or wait for it, then compare.");
+    if (this.host.solver.running) return this.say(`${TERMS.planAction} is running: stop it or wait for it, then compare.`);
     const chosen = this.chosenPlans();
     const seeds = parseSeeds(this.el.seeds.value);
     const seconds = parseSettingValue("seconds", this.el.seconds.value);

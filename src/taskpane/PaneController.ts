@@ -1,10 +1,11 @@
 /**
  * The task pane's behaviour, top to bottom: pick stops and fleet, settings, cooling preview,
- * optimize in the worker, show and write the result, rerun from a plan sheet. Works the same
+ * plan routes in the worker, show and write the result, rerun from a plan sheet. Works the same
  * over Excel and over a file (see `PaneSource`); every handler goes through one guard.
  */
 import type { SolveResult } from "../core/index.js";
 import { CAUTION_TEXT } from "../sheets/caution.js";
+import { TERMS } from "../sheets/terms.js";
 import { COLUMN_MAP_KEY, mergeColumnMaps, storedColumnMap, type ColumnMapEntry } from "../sheets/columnMap.js";
 import type { SheetRead } from "../sheets/grid.js";
 import type { TableKind } from "../sheets/matchHeaders.js";
@@ -117,7 +118,7 @@ export class PaneController {
     for (const input of d.formInputs) if (input instanceof HTMLInputElement) input.addEventListener("input", onSettings);
     d.optimize.addEventListener(
       "click",
-      this.guard("Optimize", () => this.optimize()),
+      this.guard(TERMS.planAction, () => this.optimize()),
     );
     d.stop.addEventListener(
       "click",
@@ -440,7 +441,7 @@ export class PaneController {
     const last = this.last;
     if (!last || !this.stops || !this.fleet) return undefined;
     if (last.written) {
-      this.dom.writeStatus.textContent = `Already written to sheet "${last.written}". Optimize again for a new plan.`;
+      this.dom.writeStatus.textContent = `Already written to sheet "${last.written}". ${TERMS.planAction} again for a new plan.`;
       return undefined;
     }
     this.dom.write.disabled = true;
@@ -488,7 +489,7 @@ export class PaneController {
     const gone = await this.planSheet.restore(record.fromPlan, record.locked ?? []);
     const from = record.fromPlan !== undefined && gone === undefined ? `, starting from plan sheet "${record.fromPlan}"` : "";
     d.rerunStatus.textContent =
-      `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}${from}). Optimize writes a new sheet, "${d.scenario.value}".` +
+      `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}${from}). ${TERMS.planAction} writes a new sheet, "${d.scenario.value}".` +
       (gone ? ` ${gone}` : "");
     this.settingsChanged();
   }

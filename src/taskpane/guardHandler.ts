@@ -11,8 +11,8 @@ export type Guarded<A extends unknown[]> = (...args: A) => void;
  * Make a wrapper for handlers that reports failures through `show`.
  *
  * @param show - puts a message in the pane
- * @returns `guard(name, handler)`; `name` says what the user was doing ("Optimize")
- * @example button.onclick = guard("Optimize", () => optimize());
+ * @returns `guard(name, handler)`; `name` says what the user was doing ("Plan routes")
+ * @example button.onclick = guard("Plan routes", () => optimize());
  */
 export function createGuard(show: (message: string) => void) {
   return function guard<A extends unknown[]>(name: string, handler: (...args: A) => unknown): Guarded<A> {

@@ -1,5 +1,5 @@
 /**
- * Holds layout-changing updates while a pointer is pressed. A click on Optimize right after
+ * Holds layout-changing updates while a pointer is pressed. A click on Plan routes right after
  * typing in a field first blurs the field (its `change` event fires on pointer down); if the
  * pane re-rendered then, the preview text and issue lists could move the button from under the
  * pointer and the click would land elsewhere. Updates wait for the pointer to be released (and

@@ -4,6 +4,7 @@
 import type { RunRecord } from "../sheets/PlanSettings.js";
 import { SCENARIO_SETTINGS_PREFIX, scenarioSettingsKey } from "../sheets/scenarioSettingsKey.js";
 import { parseRunRecord } from "../sheets/settingsSchema.js";
+import { TERMS } from "../sheets/terms.js";
 import type { WorkbookPort } from "../workbook/WorkbookPort.js";
 
 /**
@@ -20,7 +21,9 @@ export async function storedRunRecord(port: WorkbookPort, sheet: string): Promis
   }
   const loaded = parseRunRecord(stored);
   if (!loaded.ok) {
-    return { message: `The settings stored for "${sheet}" cannot be read (${loaded.message}); optimize with the pane's settings instead.` };
+    return {
+      message: `The settings stored for "${sheet}" cannot be read (${loaded.message}); press ${TERMS.planAction} with the pane's settings instead.`,
+    };
   }
   return { record: loaded.record };
 }

@@ -119,7 +119,7 @@ describe.skipIf(!CHROMIUM)("Compare plans… in the standalone page", () => {
     await page.fill("#compare-seeds", "2");
     await page.fill("#compare-seconds", "1");
     await page.click("#compare-run");
-    // While it runs, Optimize waits.
+    // While it runs, Plan routes waits.
     await expect.poll(() => page.locator("#compare-stop").isEnabled()).toBe(true);
     await expect(page.locator("#optimize").isEnabled()).resolves.toBe(false);
     await expect

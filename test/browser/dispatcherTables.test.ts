@@ -88,7 +88,7 @@ describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () 
     return path;
   }
 
-  /** Optimize, write, download; the downloaded file's path. */
+  /** Plan routes, write, download; the downloaded file's path. */
   async function planAndDownload(name: string): Promise<string> {
     await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
     await page.click("#optimize");

@@ -208,7 +208,7 @@ describe.skipIf(!CHROMIUM)("the pane at 350 px: axe-core, keyboard, nothing cut 
     await page.selectOption("#stops-sheet", "Stops");
     await expect.poll(() => page.locator("#stops-summary").textContent(), { timeout: 30_000 }).toMatch(/data rows?/);
 
-    // Step 2: a run, started with Enter on the focused Optimize button (a long one, stopped below).
+    // Step 2: a run, started with Enter on the focused Plan routes button (a long one, stopped below).
     await page.fill("#seconds", "120");
     await page.locator("#seconds").dispatchEvent("change");
     await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
@@ -307,7 +307,7 @@ describe.skipIf(!CHROMIUM)("the pane at 350 px: axe-core, keyboard, nothing cut 
       const empty = await tabWalk();
       expect.soft(empty.missed, "controls Tab never reaches in Excel").toEqual([]);
       const excelOrder = ["stops-use-selection", "fleet-use-selection", ...STEP_ORDER.filter((k) => !/-sheet$|^file-input$/.test(k))];
-      // Optimize is disabled (so skipped by Tab) until both tables are chosen.
+      // Plan routes is disabled (so skipped by Tab) until both tables are chosen.
       const beforeTables = excelOrder.filter((k) => k !== "optimize");
       expect.soft(subsequence(empty.order, beforeTables)).toEqual(beforeTables);
 

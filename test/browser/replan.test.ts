@@ -90,7 +90,7 @@ describe.skipIf(!CHROMIUM)("re-planning a published day in the standalone page",
     await expect.poll(() => page.locator("#stops-summary").textContent(), { timeout: 60_000 }).toMatch(new RegExp(`${stopRows} data rows`));
   }
 
-  /** Optimize, write, download; the downloaded file's path. */
+  /** Plan routes, write, download; the downloaded file's path. */
   async function planAndDownload(name: string): Promise<string> {
     await page.waitForSelector("#optimize:not([disabled])", { timeout: 60_000 });
     await page.click("#optimize");

@@ -1,6 +1,7 @@
 // One name per concept: the pane (taskpane.html and its totals), the plan and Compare sheets and
 // the CLI show the same words for each setting, cooling schedule, acceptance rule and the
-// unassigned counts, all read from the tables in src/sheets (settingFields.ts, terms.ts).
+// unassigned counts, and the action that plans ("Plan routes", `kiln plan`), all read from the
+// tables in src/sheets (settingFields.ts, terms.ts).
 // The expected words are the project's own choice; the check is that no surface diverges.
 import { readFileSync, readdirSync, statSync } from "node:fs";
 import { join } from "node:path";
@@ -108,6 +109,62 @@ describe("one display name per concept", () => {
     const c = captureIO();
     expect(await main(["plan", path, "--moves", "2000", "--seed", "1"], c.io)).toBe(0);
     expect(c.out()).toMatch(new RegExp(`^${TERMS.unassigned}: \\d+`, "m"));
+  });
+
+  it("the action that plans has one name: the pane's button and step heading, the ribbon button, the help, the CLI command and the README", async () => {
+    const action = TERMS.planAction;
+    const text = (html: string): string =>
+      html
+        .replace(/<[^>]*>/g, " ")
+        .replace(/\s+/g, " ")
+        .trim();
+    const button = /<button\b[^>]*\bid="optimize"[^>]*>([\s\S]*?)<\/button>/.exec(PANE_HTML)?.[1];
+    expect(text(button ?? "")).toBe(action);
+    const heading = /<section id="optimize-section"[^>]*>\s*<h2>([\s\S]*?)<\/h2>/.exec(PANE_HTML)?.[1] ?? "";
+    expect(text(heading.replace(/<span class="step">[^<]*<\/span>/, ""))).toBe(action);
+    // The ribbon button that opens the pane (manifest.xml resource string).
+    const manifest = readFileSync(join(ROOT, "manifest.xml"), "utf8");
+    expect(/<bt:String id="Kiln\.OpenPane\.Label" DefaultValue="([^"]*)"/.exec(manifest)?.[1]).toBe(action);
+    // The pane's help tells the user to press it by that name.
+    expect(readFileSync(join(ROOT, "src/taskpane/help.html"), "utf8")).toContain(`<em>${action}</em>`);
+    // The CLI's command is the action's verb, and its help says the action.
+    const verb = action.split(" ")[0]!.toLowerCase();
+    const c = captureIO();
+    expect(await main([verb, "--help"], c.io)).toBe(0);
+    expect(c.out()).toMatch(new RegExp(`^Usage: kiln ${verb}\\b`, "m"));
+    expect(c.out().toLowerCase()).toContain(action.toLowerCase());
+    expect(readFileSync(join(ROOT, "README.md"), "utf8")).toContain(`"${action}"`);
+  });
+
+  it("no other word for the action that plans: 'optimize' appears in no text the user reads", () => {
+    const other = /\boptimi[sz]e\b/i;
+    const prose = [
+      join(ROOT, "README.md"),
+      join(ROOT, "DEVELOPERS.md"),
+      join(ROOT, "manifest.xml"),
+      ...walk(join(ROOT, "docs")).filter((f) => f.endsWith(".md")),
+      ...walk(join(ROOT, "src")).filter((f) => f.endsWith(".html")),
+    ];
+    const hits = prose.flatMap((f) =>
+      readFileSync(f, "utf8")
+        // Markup and its attributes (element ids such as #optimize) are not read by the user.
+        .replace(/<[^>]*>/g, " ")
+        .split("\n")
+        .flatMap((line, i) => (other.test(line) ? [`${f}:${i + 1}`] : [])),
+    );
+    // Every string the pane, the sheets and the CLI show, except ids and selectors.
+    const code = walk(join(ROOT, "src")).filter((f) => f.endsWith(".ts") && !f.includes(`${join("src", "core")}`));
+    for (const f of code) {
+      const source = readFileSync(f, "utf8")
+        .replace(/\/\*[\s\S]*?\*\//g, " ")
+        .replace(/(^|[^:"'`\\])\/\/.*$/gm, "$1");
+      for (const m of source.matchAll(/"(?:\\.|[^"\\\n])*"|'(?:\\.|[^'\\\n])*'|`(?:\\.|[^`\\])*`/g)) {
+        const literal = m[0].slice(1, -1);
+        if (/^[#.]?[\w-]+$/.test(literal)) continue;
+        if (other.test(literal)) hits.push(`${f}: ${literal}`);
+      }
+    }
+    expect(hits).toEqual([]);
   });
 
   it("no other word for unassigned stops is shown: 'unserved' appears in no text the user reads", () => {

@@ -5,11 +5,11 @@ describe("createGuard (the pane's one error boundary)", () => {
   it("shows a thrown error in the pane instead of letting it escape", () => {
     const shown: string[] = [];
     const errors = vi.spyOn(console, "error").mockImplementation(() => undefined);
-    const handler = createGuard((m) => shown.push(m))("Optimize", () => {
+    const handler = createGuard((m) => shown.push(m))("Plan routes", () => {
       throw new RangeError("alpha must be in (0, 1), got 2");
     });
     expect(() => handler()).not.toThrow();
-    expect(shown).toEqual(["Optimize failed: alpha must be in (0, 1), got 2"]);
+    expect(shown).toEqual(["Plan routes failed: alpha must be in (0, 1), got 2"]);
     errors.mockRestore();
   });
 
