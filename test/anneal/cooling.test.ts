@@ -51,6 +51,35 @@ describe("cooling schedules follow their published definitions", () => {
     expect(temperatureAt(l, 10_000, 1)).toBeCloseTo(1, 9);
   });
 
+  it("a fitted β or α, for several budgets, matches the closed forms to 1e-9 and reaches T end at the last move when the recurrence is stepped move by move", () => {
+    // Closed forms of the published recurrences: Lundy & Mees (1986) T(k+1) = T(k) / (1 + βT(k)),
+    // so 1/T(M) = 1/T0 + Mβ; geometric (Kirkpatrick et al. 1983) T = T0 α^level, level = floor(k / L).
+    const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
+    for (const [t0, tEnd] of [
+      [100, 1],
+      [37.5, 0.02],
+    ] as const) {
+      for (const budgetMoves of [1_000, 37_501, 250_000, 2_000_000]) {
+        const l = resolveCooling({ kind: "lundyMees" }, { t0, tEnd, budgetMoves });
+        if (l.kind !== "lundyMees") throw new Error("expected Lundy-Mees");
+        expect(rel(l.beta, (1 / tEnd - 1 / t0) / budgetMoves), `β, M=${budgetMoves}`).toBeLessThan(1e-9);
+        let t = t0;
+        for (let k = 0; k < budgetMoves; k++) t = t / (1 + l.beta * t);
+        expect(rel(t, tEnd), `Lundy-Mees stepped, M=${budgetMoves}`).toBeLessThan(1e-9);
+
+        for (const movesPerLevel of [1, 50, 999]) {
+          const g = resolveCooling({ kind: "geometric", movesPerLevel }, { t0, tEnd, budgetMoves });
+          if (g.kind !== "geometric") throw new Error("expected geometric");
+          const levels = Math.floor(budgetMoves / movesPerLevel);
+          expect(rel(g.alpha, Math.pow(tEnd / t0, 1 / levels)), `α, M=${budgetMoves}, L=${movesPerLevel}`).toBeLessThan(1e-9);
+          let tg = t0;
+          for (let level = 0; level < levels; level++) tg *= g.alpha;
+          expect(rel(tg, tEnd), `geometric stepped, M=${budgetMoves}, L=${movesPerLevel}`).toBeLessThan(1e-9);
+        }
+      }
+    }
+  });
+
   it("rejects parameters outside their ranges", () => {
     const t = { t0: 10, tEnd: 1, budgetMoves: 10 };
     expect(() => resolveCooling({ kind: "geometric", alpha: 1.2, movesPerLevel: 1 }, t)).toThrow(RangeError);
