@@ -41,3 +41,18 @@ export function cellAddress(row0: number, col0: number): string {
 export function sheetRef(name: string): string {
   return /^[A-Za-z_][A-Za-z0-9_.]*$/.test(name) ? name : `'${name.replace(/'/g, "''")}'`;
 }
+
+/**
+ * The sheet name of a reference as `sheetRef` writes it, with or without a cell or range after
+ * the "!": the quotes removed and doubled quotes undone (Excel's formula syntax, common practice).
+ *
+ * @param ref - e.g. "'Road km'!A1:E5", "Km!A1:E5" or "Km"
+ * @returns the sheet's name
+ * @example sheetOfRef("'Bob''s van'!A1:C3") // => "Bob's van"
+ */
+export function sheetOfRef(ref: string): string {
+  const quoted = /^'((?:[^']|'')*)'(?:!|$)/.exec(ref);
+  if (quoted) return quoted[1]!.replace(/''/g, "'");
+  const bang = ref.lastIndexOf("!");
+  return bang < 0 ? ref : ref.slice(0, bang);
+}

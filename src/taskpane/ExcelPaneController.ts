@@ -21,6 +21,7 @@ export class ExcelPaneController extends PaneController {
       port: book,
       selectCell: (sheet, cell) => book.selectCell(sheet, cell),
       activeSheetName: () => book.activeSheetName(),
+      watchSheets: async (listener) => (await book.watchSheets(listener)).added,
       pickSelection: async (table) => {
         const selection = await book.readSelection();
         if (table === "fleet" || !book.capabilities().geography) return { read: selection.read, address: selection.address };
@@ -51,6 +52,9 @@ export class ExcelPaneController extends PaneController {
   override init(): void {
     super.init();
     void this.suggestScenarioName().catch((err: unknown) => console.error("Could not list the sheets", err));
-    void this.loadWorkbookSettings().catch((err: unknown) => this.showError(`Reading the Settings sheet failed: ${String(err)}`));
+    // The Settings sheet first: it is never offered as a distance matrix.
+    void this.loadWorkbookSettings()
+      .catch((err: unknown) => this.showError(`Reading the Settings sheet failed: ${String(err)}`))
+      .then(() => this.refreshMatrixList());
   }
 }

@@ -154,6 +154,11 @@ export class PaneController {
     this.mapBackground.wire(this.guard);
     this.matrix.wire(this.guard);
     this.planSheet.wire(this.guard);
+    this.matrix.follow(
+      this.source.watchSheets?.bind(this.source),
+      () => this.matrixSkip(),
+      (m) => this.showError(m),
+    );
     this.guard("Reading the background map setting", () => this.mapBackground.load())();
     this.geocode.init();
     this.compare.init();
@@ -180,28 +185,24 @@ export class PaneController {
   }
 
   /**
-   * Offer the workbook's distance matrix sheets (the picked tables' sheets left out). A failure
-   * to read a sheet leaves the picker at great-circle distances and says so beside it; it never
-   * stands in the way of the tables.
+   * Offer the workbook's distance matrix sheets and its plan sheets to start from (the picked
+   * tables' sheets left out). A failure to read a sheet leaves the pickers at great-circle
+   * distances and no plan sheet and says so beside them; it never stands in the way of the tables.
    */
   protected async refreshMatrixList(): Promise<void> {
-    const skip = [this.stops?.read.sheet, this.fleet?.read.sheet, this.settingsSheet?.sheet].filter((n): n is string => !!n);
-    try {
-      await this.matrix.refreshList(skip);
-    } catch (err) {
-      console.error("Listing the distance matrix sheets failed", err);
-      this.matrix.reset(
-        `The workbook's sheets could not be read to find a distance matrix (${String(err)}); try again after picking the tables.`,
-      );
-    }
+    await this.matrix.relist(this.matrixSkip());
     await this.refreshPlanSheetList();
+  }
+
+  /** Sheets never offered as a distance matrix or a plan to start from: the picked tables' and the Settings sheet. */
+  private matrixSkip(): string[] {
+    return [this.stops?.read.sheet, this.fleet?.read.sheet, this.settingsSheet?.sheet].filter((n): n is string => !!n);
   }
 
   /** Offer the workbook's plan sheets to start from; a failure says so beside the control. */
   private async refreshPlanSheetList(): Promise<void> {
-    const skip = [this.stops?.read.sheet, this.fleet?.read.sheet, this.settingsSheet?.sheet].filter((n): n is string => !!n);
     try {
-      await this.planSheet.refreshList(skip);
+      await this.planSheet.refreshList(this.matrixSkip());
     } catch (err) {
       console.error("Listing the plan sheets failed", err);
       this.planSheet.reset(
@@ -483,13 +484,17 @@ export class PaneController {
     if ("message" in stored) return void (d.rerunStatus.textContent = stored.message);
     const record = stored.record;
     writeForm(d, formFromSettings(record.settings, record.scenario, readForm(d)));
+    // The run's distances too: its matrix sheet, or straight lines when it used none.
+    const matrixNote = await this.matrix.restore(record.matrixSource, this.matrixSkip());
     // The rerun lands in a sheet of its own: offer the next free name, not the plan's own.
     await this.suggestScenarioName();
     // A re-planned run starts from the same plan sheet with the same routes locked.
     const gone = await this.planSheet.restore(record.fromPlan, record.locked ?? []);
     const from = record.fromPlan !== undefined && gone === undefined ? `, starting from plan sheet "${record.fromPlan}"` : "";
+    const distances = record.matrixSource !== undefined && matrixNote === undefined ? `, distances from ${record.matrixSource}` : "";
     d.rerunStatus.textContent =
-      `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}${from}). ${TERMS.planAction} writes a new sheet, "${d.scenario.value}".` +
+      `Loaded the settings of "${sheet}" (tables were ${record.stopsSource} and ${record.fleetSource}${distances}${from}). ${TERMS.planAction} writes a new sheet, "${d.scenario.value}".` +
+      (matrixNote ? ` ${matrixNote}` : "") +
       (gone ? ` ${gone}` : "");
     this.settingsChanged();
   }

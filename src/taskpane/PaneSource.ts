@@ -24,4 +24,9 @@ export interface PaneSource {
    * coordinates of Geography cells are filled in where the host exposes them.
    */
   pickSelection?(table: "stops" | "fleet"): Promise<PickedTable>;
+  /**
+   * Call `listener` when sheets are added, deleted or renamed in the workbook (Excel only, where
+   * the host has the events); resolves to whether any change is watched.
+   */
+  watchSheets?(listener: (change: { readonly kind: string; readonly from?: string; readonly to?: string }) => void): Promise<boolean>;
 }

@@ -21,7 +21,7 @@ import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
 import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
-import { installFakeExcel } from "./fakeExcelHost.js";
+import { installFakeExcel, type FakeExcelLog } from "./fakeExcelHost.js";
 import { startTileServer } from "./tileServer.js";
 import { ensureBuild } from "./ensureBuild.js";
 import { OFFICE_JS_CDN } from "../../scripts/addinBuild.js";
@@ -518,6 +518,101 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
       await expect(excelPage.locator("#pane-error").isHidden()).resolves.toBe(true);
     } finally {
       await excelPage.close();
+      input.cleanup();
+    }
+  }, 300_000);
+
+  it("Excel mode (fake Excel host): the Distances list follows sheets added, renamed and deleted (sheet events), or focus where the host has no events; Rerun restores the run's matrix sheet or says it is gone", async () => {
+    const input = await inputWorkbook();
+    const stops = await excelValues(input.path, "Stops");
+    const fleet = await excelValues(input.path, "Fleet");
+    // Small invented matrices: they read as a distance matrix, though they do not name the demo's
+    // stops (their problems show beside the picker, which is all this test needs).
+    const km = (a: string, b: string) => [
+      ["km", a, b],
+      [a, 0, 3.5],
+      [b, 3.5, 0],
+    ];
+    const record = {
+      scenario: "Plan 4",
+      createdSerial: 46000.5,
+      moves: 1000,
+      runSeconds: 2,
+      stopsSource: "Stops!A1:N85",
+      fleetSource: "Fleet!A1:O6",
+      matrixSource: "'Road km'!A1:C3",
+      settings: { ...PLAN_SETTINGS_DEFAULTS, seed: 78 },
+    };
+    // The picker's first option (MatrixPicker's NO_MATRIX_TEXT, the pane's own words).
+    const NO_MATRIX_TEXT = "Straight line × detour factor";
+    const open = async (sets: string[]) => {
+      const page = await context!.newPage();
+      await page.addInitScript(installFakeExcel, {
+        sheets: { Stops: stops, Fleet: fleet, "Road km": km("A", "B"), "Plan 4": [["Scenario", "Plan 4"]] },
+        settings: { "kiln.scenario.Plan 4": JSON.stringify(record) },
+        sets,
+      });
+      await page.goto(`${baseUrl}/taskpane.html`);
+      await page.waitForSelector("body[data-ready='true'][data-mode='excel']", { timeout: 30_000 });
+      return page;
+    };
+    type Fake = { __kilnExcel: FakeExcelLog };
+    const options = (page: Page) => page.locator("#matrix-sheet option").allTextContents();
+    const events = await open(["1.7", "1.17"]);
+    try {
+      const select = (sheet: string) => events.evaluate((s) => ((window as unknown as Fake).__kilnExcel.selectSheet = s), sheet);
+      await select("Stops");
+      await events.click("#stops-use-selection");
+      await select("Fleet");
+      await events.click("#fleet-use-selection");
+      await expect.poll(() => options(events), { timeout: 30_000 }).toEqual([NO_MATRIX_TEXT, "Road km"]);
+      await expect(events.locator("#matrix-sheet").inputValue()).resolves.toBe("");
+
+      // A sheet added in Excel (WorksheetCollection.onAdded, ExcelApi 1.7) is offered without a click.
+      await events.evaluate((m) => (window as unknown as Fake).__kilnExcel.addSheet("Ferry km", m), km("A", "B"));
+      await expect.poll(() => options(events), { timeout: 30_000 }).toEqual([NO_MATRIX_TEXT, "Road km", "Ferry km"]);
+
+      // Rerun from the plan sheet: the run's matrix sheet is chosen again, and the status says so.
+      await select("Plan 4");
+      await events.click("#rerun");
+      await expect.poll(() => events.locator("#rerun-status").textContent()).toMatch(/Loaded the settings of "Plan 4"/);
+      await expect(events.locator("#rerun-status").textContent()).resolves.toContain("distances from 'Road km'!A1:C3");
+      await expect(events.locator("#matrix-sheet").inputValue()).resolves.toBe("Road km");
+      await expect(events.locator("#seed").inputValue()).resolves.toBe("78");
+      await expect.poll(() => events.locator("#matrix-summary").textContent(), { timeout: 30_000 }).toContain("'Road km'!A1:C3");
+
+      // Renamed in Excel (onNameChanged, ExcelApi 1.17): the choice follows the new name.
+      await events.evaluate(() => (window as unknown as Fake).__kilnExcel.renameSheet("Road km", "Road km May"));
+      await expect.poll(() => options(events), { timeout: 30_000 }).toEqual([NO_MATRIX_TEXT, "Road km May", "Ferry km"]);
+      await expect(events.locator("#matrix-sheet").inputValue()).resolves.toBe("Road km May");
+      await expect.poll(() => events.locator("#matrix-summary").textContent(), { timeout: 30_000 }).toContain("'Road km May'!A1:C3");
+
+      // Deleted in Excel (onDeleted): straight-line distances again, and the list without it.
+      await events.evaluate(() => (window as unknown as Fake).__kilnExcel.deleteSheet("Road km May"));
+      await expect.poll(() => options(events), { timeout: 30_000 }).toEqual([NO_MATRIX_TEXT, "Ferry km"]);
+      await expect(events.locator("#matrix-sheet").inputValue()).resolves.toBe("");
+      await expect(events.locator("#matrix-summary").isHidden()).resolves.toBe(true);
+
+      // A rerun whose matrix sheet is gone says so, and plans on straight lines rather than another sheet.
+      await events.click("#rerun");
+      await expect.poll(() => events.locator("#rerun-status").textContent()).toContain('no sheet "Road km" reads as a distance matrix now');
+      await expect(events.locator("#matrix-sheet").inputValue()).resolves.toBe("");
+      await expect(events.locator("#pane-error").isHidden()).resolves.toBe(true);
+    } finally {
+      await events.close();
+    }
+
+    // A host without the sheet events (below ExcelApi 1.7): focusing the picker lists the sheets again.
+    const quiet = await open([]);
+    try {
+      await expect.poll(() => options(quiet), { timeout: 30_000 }).toEqual([NO_MATRIX_TEXT, "Road km"]);
+      await quiet.evaluate((m) => (window as unknown as Fake).__kilnExcel.addSheet("Ferry km", m), km("A", "B"));
+      await quiet.waitForTimeout(1000);
+      await expect(options(quiet)).resolves.toEqual([NO_MATRIX_TEXT, "Road km"]);
+      await quiet.focus("#matrix-sheet");
+      await expect.poll(() => options(quiet), { timeout: 30_000 }).toEqual([NO_MATRIX_TEXT, "Road km", "Ferry km"]);
+    } finally {
+      await quiet.close();
       input.cleanup();
     }
   }, 300_000);

@@ -1,6 +1,6 @@
 import { createRequire } from "node:module";
 import { describe, expect, it } from "vitest";
-import { cellAddress, columnLetter } from "../../src/sheets/cellAddress.js";
+import { cellAddress, columnLetter, sheetOfRef, sheetRef } from "../../src/sheets/cellAddress.js";
 import { dateFromExcelSerial, excelSerialFromDate } from "../../src/sheets/excelSerial.js";
 import { parseCsv } from "../../src/sheets/parseCsv.js";
 import { parseTime } from "../../src/sheets/parseTime.js";
@@ -127,6 +127,16 @@ describe("cell addresses (A1 notation of ECMA-376 Part 1, §18.3.1.4 cell refere
     expect(columnLetter(16383)).toBe("XFD"); // Excel's last column
     expect(cellAddress(6, 4)).toBe("E7");
     expect(() => columnLetter(-1)).toThrow(RangeError);
+  });
+
+  it("reads the sheet name back out of a reference, quoted as Excel quotes it (names with spaces or quotes in single quotes, a quote doubled; common practice)", () => {
+    expect(sheetOfRef("Km!A1:E5")).toBe("Km");
+    expect(sheetOfRef("'Road km'!A1:K11")).toBe("Road km");
+    expect(sheetOfRef("'Bob''s van'!B2")).toBe("Bob's van");
+    expect(sheetOfRef("'Bob''s van'")).toBe("Bob's van");
+    expect(sheetOfRef("Km")).toBe("Km");
+    for (const name of ["Km", "Road km", "Bob's van", "a!b", "'quoted'", "Plan 2 (3)"])
+      expect(sheetOfRef(`${sheetRef(name)}!A1:C3`), name).toBe(name);
   });
 });
 

@@ -15,6 +15,9 @@ import { readGeographyIn, type GeographyRead } from "./readGeographyIn.js";
 
 export type { ExcelCapabilities, GeographyRead, SelectionRead };
 
+/** A change to the workbook's list of sheets (`ExcelWorkbook.watchSheets`). */
+export type SheetChange = { readonly kind: "added" | "deleted" } | { readonly kind: "renamed"; readonly from: string; readonly to: string };
+
 /** Options of `ExcelWorkbook`. */
 export interface ExcelWorkbookOptions {
   /** Estimated request bytes above which writes are split into row chunks (default `PAYLOAD_BUDGET_BYTES`, 2 MB). */
@@ -433,6 +436,29 @@ export class ExcelWorkbook implements WorkbookPort {
   }
 
   /** Name of the active worksheet. */
+  /**
+   * Call `listener` whenever a sheet is added, deleted (ExcelApi 1.7) or renamed (ExcelApi 1.17)
+   * in the workbook, by the user or by a co-author, so lists of sheets can follow. The handlers
+   * last as long as the pane (Excel drops them when the add-in closes).
+   *
+   * @param listener - told what changed; for a rename, the old and new name
+   * @returns which events are watched; none below ExcelApi 1.7
+   * @throws OfficeActionError when Excel fails
+   * @example await book.watchSheets((c) => c.kind === "renamed" && console.log(c.from, "->", c.to))
+   */
+  async watchSheets(listener: (change: SheetChange) => void): Promise<{ added: boolean; deleted: boolean; renamed: boolean }> {
+    const caps = this.capabilities();
+    if (!caps.sheetEvents) return { added: false, deleted: false, renamed: false };
+    return this.#run("watch the sheets for changes", async (context) => {
+      const sheets = context.workbook.worksheets;
+      sheets.onAdded.add(async () => listener({ kind: "added" }));
+      sheets.onDeleted.add(async () => listener({ kind: "deleted" }));
+      if (caps.sheetRenameEvents) sheets.onNameChanged.add(async (e) => listener({ kind: "renamed", from: e.nameBefore, to: e.nameAfter }));
+      await context.sync();
+      return { added: true, deleted: true, renamed: caps.sheetRenameEvents };
+    });
+  }
+
   async activeSheetName(): Promise<string> {
     return this.#run("find the active sheet", async (context) => {
       const ws = context.workbook.worksheets.getActiveWorksheet();

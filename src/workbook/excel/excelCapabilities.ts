@@ -12,6 +12,10 @@ export interface ExcelCapabilities {
   readonly merges: boolean;
   /** `valuesAsJson` (Geography linked entities), ExcelApi 1.16. */
   readonly geography: boolean;
+  /** `worksheets.onAdded` and `onDeleted`, ExcelApi 1.7. */
+  readonly sheetEvents: boolean;
+  /** `worksheets.onNameChanged`, ExcelApi 1.17. */
+  readonly sheetRenameEvents: boolean;
 }
 
 /** Optional features of the running Excel; all false outside Office. */
@@ -25,5 +29,7 @@ export function excelCapabilities(): ExcelCapabilities {
     printLayout: has("1.9"),
     merges: has("1.13"),
     geography: has("1.16"),
+    sheetEvents: has("1.7"),
+    sheetRenameEvents: has("1.17"),
   };
 }
