@@ -32,6 +32,8 @@ try {
 
   const help = run("npx", ["--no-install", "kiln", "--help"], app);
   if (!/solve/.test(help)) problems.push(`kiln --help did not list the solve command:\n${help}`);
+  const version = run("npx", ["--no-install", "kiln", "--version"], app).trim();
+  if (version !== packed.version) problems.push(`kiln --version printed "${version}", the package is ${packed.version}`);
 
   copyFileSync(join(root, "demo", "kiln-demo.xlsx"), join(app, "demo.xlsx"));
   const solved = run("npx", ["--no-install", "kiln", "plan", "demo.xlsx", "--moves", "20000", "--seed", "1"], app);

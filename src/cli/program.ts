@@ -12,14 +12,20 @@ import { declareGeocode } from "./geocodeCommand.js";
 import { declareProfile } from "./profileCommand.js";
 import { declareCompareSchedules } from "./compareSchedulesCommand.js";
 
-/** The package version (package.json sits two folders up from both src/cli and dist/cli). */
+/**
+ * The package version, from the package's own package.json: two folders up from src/cli (run
+ * through tsx), three from dist/cli/cli (the compiled `bin`, also in an installed tarball).
+ */
 export function packageVersion(): string {
-  try {
-    const text = readFileSync(new URL("../../package.json", import.meta.url), "utf8");
-    return String((JSON.parse(text) as { version?: unknown }).version ?? "0.0.0");
-  } catch {
-    return "0.0.0";
+  for (const up of ["../../package.json", "../../../package.json"]) {
+    try {
+      const pkg = JSON.parse(readFileSync(new URL(up, import.meta.url), "utf8")) as { name?: unknown; version?: unknown };
+      if (pkg.name === "kiln-routes" && typeof pkg.version === "string") return pkg.version;
+    } catch {
+      // Not there in this layout: try the next.
+    }
   }
+  return "0.0.0";
 }
 
 /**

@@ -1,6 +1,8 @@
 // The command line on commander: help, version, usage mistakes (exit 2 with a suggestion) and the
 // planning command's names. Exit codes follow common practice for command-line tools (2 = usage).
-import { readFileSync } from "node:fs";
+import { execFileSync } from "node:child_process";
+import { existsSync, readFileSync } from "node:fs";
+import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { main } from "../../src/cli/main.js";
 import { SETTING_FIELDS } from "../../src/sheets/settingFields.js";
@@ -52,6 +54,19 @@ describe("kiln command line", () => {
     expect(await main(["--version"], c.io)).toBe(0);
     const pkg = JSON.parse(readFileSync(new URL("../../package.json", import.meta.url), "utf8")) as { version: string };
     expect(c.out().trim()).toBe(pkg.version);
+  });
+
+  it("the compiled kiln (dist/cli, the package's bin) prints the package version too", () => {
+    const pkg = JSON.parse(readFileSync(new URL("../../package.json", import.meta.url), "utf8")) as {
+      version: string;
+      bin: { kiln: string };
+    };
+    const bin = fileURLToPath(new URL(`../../${pkg.bin.kiln}`, import.meta.url));
+    if (!existsSync(bin) && !process.env["CI"]) {
+      console.warn(`compiled kiln: skipped because ${bin} is missing (npm ci or npm test build it; under CI this fails)`);
+      return;
+    }
+    expect(execFileSync(process.execPath, [bin, "--version"], { encoding: "utf8" }).trim()).toBe(pkg.version);
   });
 
   it("an unknown option exits 2 with a suggestion", async () => {
