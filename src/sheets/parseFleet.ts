@@ -189,9 +189,15 @@ function readPoint(r: RowReader, latKey: string, lonKey: string, pairKey: string
     if (r.excelErrorAt(pairKey)) return undefined;
     const p = parseLatLon(r.raw(pairKey));
     if (p === undefined || Math.abs(p.lat) > 90 || Math.abs(p.lon) > 180) {
+      const text = String(plainCell(r.raw(pairKey)));
+      // Words in the cell: an address typed where the coordinates go, which a geocoder can look up.
+      const address =
+        p === undefined && /\p{L}{2,}/u.test(text)
+          ? `, or, as it reads as an address, set up a geocoding service (--geocoder, or Geocoding in the pane) to look it up`
+          : "";
       r.fail(
         pairKey,
-        `the ${what} ${JSON.stringify(String(plainCell(r.raw(pairKey))))} is not "latitude, longitude"; type decimal degrees such as "45.76, 4.83" (latitude -90..90, longitude -180..180).`,
+        `the ${what} ${JSON.stringify(text)} is not "latitude, longitude"; type decimal degrees such as "45.76, 4.83" (latitude -90..90, longitude -180..180)${address}.`,
       );
       return undefined;
     }

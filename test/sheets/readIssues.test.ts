@@ -87,6 +87,19 @@ describe("readProblem reports defects by sheet and cell", () => {
     expectIssue(list, "Stops", "D2", "geography option");
   });
 
+  it("a depot address typed where the depot's coordinates go says a geocoding service can look it up; a bad number does not", () => {
+    const fleet = sheet("Fleet", [
+      ["Vehicle", "Capacity", "Depot", "End depot", "Shift start", "Shift end"],
+      ["Van 1", 30, "1 Oven Row, Crustwick", "8 Flour Quay, Crustwick", "05:00", "13:00"],
+      ["Van 2", 30, "95, 4.3", "", "05:00", "13:00"],
+    ]);
+    const list = issues(readProblem({ stops: sheet("Stops", [STOP_HEADER, OK_STOP]), fleet }));
+    expectIssue(list, "Fleet", "C2", "set up a geocoding service (--geocoder, or Geocoding in the pane)");
+    expectIssue(list, "Fleet", "D2", "set up a geocoding service (--geocoder, or Geocoding in the pane)");
+    expectIssue(list, "Fleet", "C3", '"95, 4.3" is not "latitude, longitude"');
+    expect(list.find((i) => i.cell === "C3")!.message).not.toContain("geocoding");
+  });
+
   it("a header row with no coordinate columns, and an address-only table", () => {
     const stops = sheet("Stops", [
       ["Stop", "Name", "Address"],
@@ -204,7 +217,12 @@ describe("readProblem reports defects by sheet and cell", () => {
     );
     const list = issues(read([OK_STOP], [OK_VAN], { settings }));
     expectIssue(list, "Settings", "D4", `unknown setting "Colour"`);
-    expectIssue(list, "Settings", "E5", `Cooling schedule "quadratic" is not valid: enter one of geometric, linear, lundy-mees, time-based.`);
+    expectIssue(
+      list,
+      "Settings",
+      "E5",
+      `Cooling schedule "quadratic" is not valid: enter one of geometric, linear, lundy-mees, time-based.`,
+    );
     expectIssue(list, "Settings", "E6", `Acceptance rule "greedy" is not valid: enter one of metropolis, logistic.`);
     expectIssue(list, "Settings", "E7", "Detour factor 0.8 is not valid: enter a number from 1 to 3, such as 1.3.");
     expectIssue(list, "Settings", "E8", "hard, soft");
