@@ -4,14 +4,15 @@
  * ../shared/benchmarks when present (or KILN_BENCHMARKS_DIR), else the committed copies in
  * test/fixtures/reference, each solved at equal time by
  *   - the engine as shipped (one chain),
- *   - the engine with each part that `SolveOptions` can switch off switched off in turn, and
+ *   - the engine with each part switched off in turn by its `SolveOptions` switch (granular
+ *     neighbourhood, O(1) move evaluation, route minimisation, adaptive penalties), and
  *   - a plain textbook annealer (bench/textbookAnnealer.ts).
  * Prints a markdown table and writes bench/results/ablation-<date>.json.
  *
- *   npm run bench:ablation -- [--seconds S] [--seed N]
+ *   npm run bench:ablation -- [--seconds S] [--seed N] [--cpu-clock]
  *
- * Parts without a switch in `SolveOptions` (O(1) move evaluation, route minimisation, adaptive
- * penalties) are listed as not measured rather than switched off by a change to the search.
+ * `--cpu-clock` counts the seconds in CPU time of this process, so every variant gets the same
+ * work on a loaded machine.
  */
 import { existsSync, readFileSync } from "node:fs";
 import { resolve } from "node:path";
@@ -20,8 +21,8 @@ import { Command } from "commander";
 import { benchRecord, loadBenchFile, type BenchInstance } from "../src/cli/benchCommand.js";
 import { settingFlags } from "../src/cli/settingFlags.js";
 import { type ChainOptions, runChains } from "../src/cli/chains.js";
-import { solomonToProblem, tsplibToProblem, type Plan, type Problem } from "../src/core/index.js";
-import { benchEnvironment, rssSampler, writeResults } from "./results.js";
+import { solomonToProblem, tsplibToProblem, type Plan } from "../src/core/index.js";
+import { benchEnvironment, cpuClock, rssSampler, writeResults } from "./results.js";
 import { textbookAnneal } from "./textbookAnnealer.js";
 
 const INSTANCES = [
@@ -38,15 +39,14 @@ const SHARED = process.env["KILN_BENCHMARKS_DIR"]
   : fileURLToPath(new URL("../../shared/benchmarks/", import.meta.url));
 const FIXTURES = fileURLToPath(new URL("../test/fixtures/reference/", import.meta.url));
 
-/** Engine variants: each switchable part off in turn. */
-const VARIANTS: readonly { name: string; options: (problem: Problem) => ChainOptions }[] = [
-  { name: "engine", options: () => ({}) },
-  // k = every other stop: a move may pair any two stops, as without a granular neighbourhood.
-  { name: "no granular neighbours", options: (p) => ({ neighbours: Math.max(1, p.stops.length) }) },
+/** Engine variants: each switchable part off in turn (the ablation switches of `SolveOptions`). */
+const VARIANTS: readonly { name: string; options: ChainOptions }[] = [
+  { name: "engine", options: {} },
+  { name: "no granular neighbours", options: { granularNeighbours: false } },
+  { name: "no O(1) evaluation", options: { incrementalEvaluation: false } },
+  { name: "no route minimisation", options: { routeMinimisation: false } },
+  { name: "no adaptive penalties", options: { adaptivePenalties: false } },
 ];
-
-/** Parts the engine has that `SolveOptions` cannot switch off (not measured here). */
-const NOT_SWITCHABLE = ["O(1) move evaluation", "route minimisation", "adaptive penalties"];
 
 interface AblationRow {
   instance: string;
@@ -84,13 +84,14 @@ async function main(argv: string[]): Promise<number> {
   const program = new Command("bench/ablation")
     .option("--seconds <S>", "seconds per run (every variant gets the same)", "10")
     .option("--seed <N>", "seed of every run", "1")
+    .option("--cpu-clock", "count seconds of this process's CPU time instead of wall time")
     .exitOverride();
   try {
     program.parse(argv, { from: "user" });
   } catch {
     return 2;
   }
-  const opts = program.opts<{ seconds: string; seed: string }>();
+  const opts = program.opts<{ seconds: string; seed: string; cpuClock?: boolean }>();
   const flags = settingFlags({ seconds: opts.seconds, seed: opts.seed });
   if (flags.errors.length > 0) {
     for (const e of flags.errors) process.stderr.write(e + "\n");
@@ -102,7 +103,7 @@ async function main(argv: string[]): Promise<number> {
   const dir = shared ? { tsplib: SHARED + "tsplib/", solomon: SHARED + "solomon/" } : { tsplib: FIXTURES, solomon: FIXTURES };
   process.stderr.write(`instances from ${shared ? SHARED : FIXTURES}\n`);
   const refs = references(dir);
-  const now = (): number => performance.now();
+  const now = opts.cpuClock ? cpuClock() : (): number => performance.now();
 
   const rows: AblationRow[] = [];
   for (const [suite, name, ext] of INSTANCES) {
@@ -134,7 +135,7 @@ async function main(argv: string[]): Promise<number> {
     for (const v of VARIANTS) {
       process.stderr.write(`${name}: ${v.name}, ${seconds} s ...\n`);
       const rss = rssSampler();
-      const { plan, stats } = await runChains(problem, { seed, budget: { seconds }, ...v.options(problem) }, 1, { now });
+      const { plan, stats } = await runChains(problem, { seed, budget: { seconds }, ...v.options }, 1, { now });
       add(v.name, plan, stats.moves, stats.evaluations, stats.elapsedMs, rss.stop());
     }
     process.stderr.write(`${name}: textbook annealer, ${seconds} s ...\n`);
@@ -145,7 +146,7 @@ async function main(argv: string[]): Promise<number> {
   }
 
   const lines = [
-    `Ablation at equal time: ${seconds} s per run, seed ${seed}, one core.`,
+    `Ablation at equal time: ${seconds} ${opts.cpuClock ? "CPU" : "wall"} seconds per run, seed ${seed}, one core.`,
     "",
     "| instance | variant | reference | ours | gap % | vehicles (ours / best-known) | feasible | moves | evaluations/s | peak RSS MB |",
     "|---|---|---:|---:|---:|---:|---|---:|---:|---:|",
@@ -154,14 +155,12 @@ async function main(argv: string[]): Promise<number> {
         `| ${r.instance} | ${r.variant} | ${r.reference} | ${r.ours} | ${r.gapPct.toFixed(2)} | ${r.vehicles !== undefined ? `${r.vehicles} / ${r.referenceVehicles}` : ""} | ` +
         `${r.feasible ? "yes" : "**no**"} | ${r.moves.toLocaleString("en-US")} | ${r.evaluationsPerSecond.toLocaleString("en-US")} | ${r.peakRssMb.toFixed(0)} |`,
     ),
-    "",
-    `Not measured (no switch in SolveOptions): ${NOT_SWITCHABLE.join(", ")}.`,
   ];
   // The peak RSS is the process's: the samples of one run include what earlier runs left allocated.
   const environment = benchEnvironment();
   lines.push(`Node ${environment.node}, ${environment.cpuModel} (${environment.cpuCount} cores).`);
   process.stdout.write(lines.join("\n") + "\n");
-  const written = writeResults("ablation", { bench: "ablation", environment, seed, seconds, notSwitchable: NOT_SWITCHABLE, rows });
+  const written = writeResults("ablation", { bench: "ablation", environment, seed, seconds, clock: opts.cpuClock ? "cpu" : "wall", rows });
   process.stderr.write(`wrote ${written}\n`);
   return 0;
 }

@@ -56,3 +56,15 @@ export function writeResults(name: string, data: unknown): string {
   writeFileSync(RESULTS_DIR + file, JSON.stringify(data, null, 2) + "\n");
   return `bench/results/${file}`;
 }
+
+/**
+ * A milliseconds clock of this process's CPU time (user + system, `process.cpuUsage`): on a
+ * shared, loaded machine a run given S seconds of it does the same work whatever else runs.
+ * Only for runs on the main thread (worker chains keep their own wall clock).
+ */
+export function cpuClock(): () => number {
+  return () => {
+    const u = process.cpuUsage();
+    return (u.user + u.system) / 1000;
+  };
+}

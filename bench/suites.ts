@@ -5,7 +5,12 @@
  * vehicles, seconds, moves, evaluations/s, peak RSS, workers) with the Node version and CPU
  * model to `bench/results/<name>-<date>.json` (`--name`, default "suites").
  *
- *   npm run bench -- [--seconds S] [--only NAME,NAME] [--suite tsplib|solomon] [--seed N] [--workers N] [--fixtures]
+ *   npm run bench -- [--seconds S] [--only NAME,NAME] [--suite tsplib|solomon] [--seed N] [--seeds K] [--cpu-clock]
+ *                    [--workers N] [--fixtures]
+ *
+ * `--seeds K` runs seeds N..N+K-1 on every instance and adds a table of medians by instance;
+ * `--cpu-clock` counts the budget in CPU seconds of this process instead of wall seconds (one
+ * worker only), so runs on a loaded machine get the same work.
  *
  * Small GEO instances (burma14, ulysses16, ulysses22) always get 1 s; the others `--seconds`
  * (default 30). EUC_2D instances run only when named with `--only`. The benchmark folder is
@@ -19,7 +24,7 @@ import { benchInstance, loadBenchFile, type SolomonBenchRecord, type TsplibBench
 import { Command } from "commander";
 import { settingFlags } from "../src/cli/settingFlags.js";
 import { parseWorkers } from "../src/cli/chains.js";
-import { benchEnvironment, rssSampler, writeResults } from "./results.js";
+import { benchEnvironment, cpuClock, rssSampler, writeResults } from "./results.js";
 
 const BENCHMARKS_DIR = process.env["KILN_BENCHMARKS_DIR"]
   ? resolve(process.env["KILN_BENCHMARKS_DIR"]) + "/"
@@ -32,6 +37,7 @@ const LARGE_GEO = ["gr96", "gr202", "gr431"];
 
 interface Row {
   instance: string;
+  seed: number;
   /** Optimal length (TSPLIB) or best-known distance (Solomon). */
   reference: number;
   /** Our length or distance. */
@@ -57,6 +63,8 @@ async function runSuites(argv: string[]): Promise<number> {
     )
     .option("--seconds <S>", "seconds per large instance", "30")
     .option("--seed <N>", "seed of every run", "1")
+    .option("--seeds <K>", "run seeds N..N+K-1 and add medians by instance", "1")
+    .option("--cpu-clock", "count seconds of this process's CPU time instead of wall time (one worker only)")
     .option("--suite <NAME>", "tsplib or solomon (default both)")
     .option("--only <NAMES>", "comma-separated instance names")
     .option("--workers <N>", "independent chains per instance on worker threads (default 1)")
@@ -71,6 +79,8 @@ async function runSuites(argv: string[]): Promise<number> {
   const opts = program.opts<{
     seconds: string;
     seed: string;
+    seeds: string;
+    cpuClock?: boolean;
     suite?: string;
     only?: string;
     workers?: string;
@@ -87,6 +97,11 @@ async function runSuites(argv: string[]): Promise<number> {
   errors.push(...flags.errors);
   const seconds = flags.overrides.seconds ?? 30;
   const seed = flags.overrides.seed ?? 1;
+  const seedCount = Number(opts.seeds);
+  if (!Number.isInteger(seedCount) || seedCount < 1 || seedCount > 20)
+    errors.push(`--seeds: "${opts.seeds}" is not a whole number from 1 to 20`);
+  if (opts.cpuClock && workers > 1) errors.push("--cpu-clock counts this thread's process time: use it with one worker");
+  const now = opts.cpuClock ? cpuClock() : (): number => performance.now();
   const suite = opts.suite;
   if (suite !== undefined && suite !== "tsplib" && suite !== "solomon") errors.push(`--suite must be tsplib or solomon, got "${suite}"`);
   if (!opts.fixtures && !existsSync(BENCHMARKS_DIR))
@@ -130,52 +145,59 @@ async function runSuites(argv: string[]): Promise<number> {
       for (const e of loaded.errors) process.stderr.write(e + "\n");
       return 2;
     }
-    process.stderr.write(`${job.name}: ${job.seconds} s, ${workers} worker(s) ...\n`);
-    const rss = rssSampler();
-    const started = performance.now();
-    const { record, evaluations, moves } = await benchInstance(loaded, {
-      seed,
-      budget: { seconds: job.seconds },
-      now: () => performance.now(),
-      workers,
-    });
-    const wallS = (performance.now() - started) / 1000;
-    const peakRssMb = rss.stop();
-    const common = {
-      instance: job.name,
-      seconds: Math.round(wallS * 100) / 100,
-      moves,
-      evaluations,
-      evaluationsPerSecond: wallS > 0 ? Math.round(evaluations / wallS) : 0,
-      peakRssMb,
-      workers,
-    };
-    if (record.format === "tsplib") {
-      const reference = Number(optimal.find(([n]) => n === job.name)?.[1]);
-      rows.push({ ...common, reference, ours: record.length, gapPct: gap(record.length, reference), feasible: true, record });
-    } else {
-      const ref = bestKnown.find(([n]) => n === job.name);
-      const reference = Number(ref?.[2]);
-      const ours = Math.round(record.distance * 100) / 100;
-      rows.push({
-        ...common,
-        reference,
-        ours,
-        referenceVehicles: Number(ref?.[1]),
-        vehicles: record.vehicles,
-        gapPct: gap(record.distance, reference),
-        feasible: record.feasible,
-        record,
+    for (let runSeed = seed; runSeed < seed + seedCount; runSeed++) {
+      process.stderr.write(`${job.name}: seed ${runSeed}, ${job.seconds} s${opts.cpuClock ? " CPU" : ""}, ${workers} worker(s) ...\n`);
+      const rss = rssSampler();
+      const started = now();
+      const { record, evaluations, moves } = await benchInstance(loaded, {
+        seed: runSeed,
+        budget: { seconds: job.seconds },
+        now,
+        workers,
       });
+      const wallS = (now() - started) / 1000;
+      const peakRssMb = rss.stop();
+      const common = {
+        instance: job.name,
+        seed: runSeed,
+        seconds: Math.round(wallS * 100) / 100,
+        moves,
+        evaluations,
+        evaluationsPerSecond: wallS > 0 ? Math.round(evaluations / wallS) : 0,
+        peakRssMb,
+        workers,
+      };
+      if (record.format === "tsplib") {
+        const reference = Number(optimal.find(([n]) => n === job.name)?.[1]);
+        rows.push({ ...common, reference, ours: record.length, gapPct: gap(record.length, reference), feasible: true, record });
+      } else {
+        const ref = bestKnown.find(([n]) => n === job.name);
+        const reference = Number(ref?.[2]);
+        const ours = Math.round(record.distance * 100) / 100;
+        rows.push({
+          ...common,
+          reference,
+          ours,
+          referenceVehicles: Number(ref?.[1]),
+          vehicles: record.vehicles,
+          gapPct: gap(record.distance, reference),
+          feasible: record.feasible,
+          record,
+        });
+      }
     }
   }
 
   process.stdout.write(table(rows) + "\n");
+  const medians = seedCount > 1 ? medianRows(rows) : [];
+  if (medians.length > 0) process.stdout.write("\n" + medianTable(medians, seed, seedCount) + "\n");
   const environment = benchEnvironment();
   process.stdout.write(
-    `\nNode ${environment.node}, ${environment.cpuModel} (${environment.cpuCount} cores), seed ${seed}, ${workers} worker(s)\n`,
+    `\nNode ${environment.node}, ${environment.cpuModel} (${environment.cpuCount} cores), seed ${seed}` +
+      `${seedCount > 1 ? ` to ${seed + seedCount - 1}` : ""}, ${workers} worker(s), ${opts.cpuClock ? "CPU" : "wall"} seconds\n`,
   );
-  const written = writeResults(opts.name, { bench: "suites", environment, seed, seconds, workers, rows });
+  const clock = opts.cpuClock ? "cpu" : "wall";
+  const written = writeResults(opts.name, { bench: "suites", environment, seed, seeds: seedCount, clock, seconds, workers, rows, medians });
   process.stderr.write(`wrote ${written}\n`);
   return 0;
 }
@@ -207,6 +229,67 @@ function table(rows: readonly Row[]): string {
     if (infeasible > 0) lines.push(`| **infeasible plans** | | ${infeasible} of ${sol.length} | | | | | | | |`);
   }
   return lines.join("\n");
+}
+
+/** Median by instance over its seeds: gap, vehicles, moves; feasible when every seed was. */
+interface MedianRow {
+  instance: string;
+  reference: number;
+  referenceVehicles?: number;
+  ours: number;
+  gapPct: number;
+  vehicles?: number;
+  feasibleRuns: number;
+  runs: number;
+  moves: number;
+}
+
+function medianRows(rows: readonly Row[]): MedianRow[] {
+  const names = [...new Set(rows.map((r) => r.instance))];
+  return names.map((instance) => {
+    const rs = rows.filter((r) => r.instance === instance);
+    const vehicles = rs.map((r) => r.vehicles).filter((v): v is number => v !== undefined);
+    return {
+      instance,
+      reference: rs[0]!.reference,
+      ...(rs[0]!.referenceVehicles !== undefined ? { referenceVehicles: rs[0]!.referenceVehicles } : {}),
+      ours: median(rs.map((r) => r.ours)),
+      gapPct: median(rs.map((r) => r.gapPct)),
+      ...(vehicles.length > 0 ? { vehicles: median(vehicles) } : {}),
+      feasibleRuns: rs.filter((r) => r.feasible).length,
+      runs: rs.length,
+      moves: median(rs.map((r) => r.moves)),
+    };
+  });
+}
+
+function medianTable(rows: readonly MedianRow[], seed: number, count: number): string {
+  const lines = [
+    `Medians over seeds ${seed} to ${seed + count - 1}:`,
+    "",
+    "| instance | reference | ours (median) | gap % (median) | vehicles (median / best-known) | feasible runs | moves (median) |",
+    "|---|---:|---:|---:|---:|---:|---:|",
+  ];
+  for (const r of rows) {
+    const vehicles = r.vehicles !== undefined ? `${r.vehicles} / ${r.referenceVehicles}` : "";
+    lines.push(
+      `| ${r.instance} | ${r.reference} | ${r.ours} | ${pct(r.gapPct)} | ${vehicles} | ${r.feasibleRuns} / ${r.runs} | ${r.moves.toLocaleString("en-US")} |`,
+    );
+  }
+  const withVehicles = rows.filter((r) => r.vehicles !== undefined);
+  if (withVehicles.length > 0) {
+    const ours = withVehicles.reduce((s, r) => s + r.vehicles!, 0);
+    const best = withVehicles.reduce((s, r) => s + (r.referenceVehicles ?? 0), 0);
+    lines.push(`| **sum of median vehicles** | | | | ${ours} / ${best} | | |`);
+  }
+  lines.push(`| **mean of median gaps** | | | ${pct(mean(rows.map((r) => r.gapPct)))} | | | |`);
+  return lines.join("\n");
+}
+
+function median(xs: readonly number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 === 1 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
 }
 
 /** Rows of a small CSV without quoting, header dropped, as [name, ...values]. */

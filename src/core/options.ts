@@ -88,6 +88,32 @@ export interface SolveOptions {
   readonly onProgress?: (progress: Progress) => void;
   readonly progressEveryMs: number;
   readonly signal?: AbortFlag;
+  /**
+   * Ablation switches: each part of the engine can be switched off to measure what it buys
+   * (`bench/ablation.ts`). All true by default; plans with the defaults are the engine's.
+   *
+   * Granular neighbourhood: a move relates a stop to one of its `neighbours` closest partners
+   * (Vidal et al. 2013). Off: the partner is drawn uniformly from every stop a vehicle can serve
+   * (construction and route elimination keep their candidate lists).
+   */
+  readonly granularNeighbours: boolean;
+  /**
+   * O(1) move evaluation on segment summaries (Vidal et al. 2013). Off: every candidate route
+   * is walked stop by stop from its depot, every arc read from the matrix, as a plain annealer
+   * re-evaluates the routes a move touches.
+   */
+  readonly incrementalEvaluation: boolean;
+  /**
+   * Route elimination under the vehicles-first objective (`eliminateRoute`, after the route
+   * minimisation of Nagata & Bräysy 2009). Off: no route is ever emptied on purpose; a route
+   * still empties when the moves happen to take its last stop.
+   */
+  readonly routeMinimisation: boolean;
+  /**
+   * Adaptive penalty weights for time warp and excess load (`adaptPenalties`). Off: the weights
+   * stay at their initial values (`initialWeights`) for the whole run.
+   */
+  readonly adaptivePenalties: boolean;
 }
 
 /** The geometric factor when neither it nor moves per level is given: 0.94 is a usual choice (common practice). */
@@ -104,4 +130,8 @@ export const SOLVE_DEFAULTS: Omit<SolveOptions, "now" | "onProgress" | "signal" 
   calibrationSamples: 300,
   neighbours: 20,
   progressEveryMs: 100,
+  granularNeighbours: true,
+  incrementalEvaluation: true,
+  routeMinimisation: true,
+  adaptivePenalties: true,
 };

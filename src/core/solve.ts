@@ -62,7 +62,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   const now = o.now;
   const startedAt = now ? (o.startedAt ?? now()) : 0;
   const run = prepareRun(problem, o, startedAt);
-  const { cp, rng, nb, state, active, cooling, t0, tEnd, budgetMoves, seconds } = run;
+  const { cp, rng, nb, moveNb, state, active, cooling, t0, tEnd, budgetMoves, seconds } = run;
 
   const best = new BestPlan(problem, cp);
   best.consider(state);
@@ -70,6 +70,8 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   const mv = new Move();
   let moves = 0;
   let evaluations = 0;
+  let routeEliminations = 0;
+  let penaltyUpdates = 0;
   let accepted = 0;
   let acceptedSinceReport = 0;
   let movesSinceReport = 0;
@@ -113,7 +115,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
         if (budgetMoves !== undefined) fraction = moves / budgetMoves;
         temperature = fraction >= QUENCH_FROM ? 0 : temperatureAt(cooling, moves, fraction);
       }
-      if (proposeMove(state, nb, rng, mv, active)) {
+      if (proposeMove(state, moveNb, rng, mv, active)) {
         evaluations++;
         const dE = mv.delta;
         let accept: boolean;
@@ -130,9 +132,17 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
           best.consider(state);
         }
       }
-      if (moves % ADAPT_EVERY === 0) adaptPenalties(state, run.weights);
-      if (cp.hierarchical && elimination.due(moves, fraction, best.key1, state)) {
-        if (eliminateRoute(state, nb, rng) >= 0) best.consider(state);
+      if (o.adaptivePenalties && moves % ADAPT_EVERY === 0) {
+        const wTime = state.wTime;
+        const wLoad = state.wLoad;
+        adaptPenalties(state, run.weights);
+        if (state.wTime !== wTime || state.wLoad !== wLoad) penaltyUpdates++;
+      }
+      if (o.routeMinimisation && cp.hierarchical && elimination.due(moves, fraction, best.key1, state)) {
+        if (eliminateRoute(state, nb, rng) >= 0) {
+          routeEliminations++;
+          best.consider(state);
+        }
       }
       if (moves % CLOCK_EVERY === 0) {
         if (o.signal?.aborted) {
@@ -183,6 +193,9 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
           accepted,
           feasibleFound: best.feasibleFound,
           cooling,
+          fullRouteEvaluations: state.fullEvaluations,
+          routeEliminations,
+          penaltyUpdates,
           ...(run.movesPerSecond === undefined ? {} : { measuredMovesPerSecond: run.movesPerSecond }),
         },
       };

@@ -48,7 +48,15 @@ export class SearchState {
   readonly rulesLoad: Float64Array;
   readonly rulesPick: Float64Array;
   readonly rulesMax: Float64Array;
+  /**
+   * When true, `evaluate` walks every candidate route stop by stop from its depot instead of
+   * concatenating segment summaries (`SolveOptions.incrementalEvaluation` off), and counts the
+   * routes so evaluated in `fullEvaluations`.
+   */
+  fullEvaluation = false;
+  fullEvaluations = 0;
   private readonly tmp: Int32Array[];
+  private fullChain: Int32Array | undefined;
 
   /**
    * @param cp - the compiled problem
@@ -74,7 +82,7 @@ export class SearchState {
     this.rulesPick = new Float64Array(cp.dims);
     this.rulesMax = new Float64Array(cp.dims);
     this.rulesOn = Uint8Array.from({ length: V }, (_, v) => (hasRouteRules(cp, v) ? 1 : 0));
-    this.tmp = [new Int32Array(cp.n + 1), new Int32Array(cp.n + 1)];
+    this.tmp = [new Int32Array(cp.n + 1), new Int32Array(cp.n + 1), new Int32Array(cp.n + 1)];
     this.wTime = wTime;
     this.wLoad = wLoad;
     for (let s = 0; s < cp.n; s++) {
@@ -147,7 +155,27 @@ export class SearchState {
    * Allocation-free: this is the hot path (see `evaluatePieces`).
    */
   evaluate(v: number, pieces: Int32Array, m: number, slot: number): number {
+    if (this.fullEvaluation) return this.evaluateFully(v, pieces, m, slot);
     return evaluatePieces(this, v, pieces, m, slot);
+  }
+
+  /**
+   * The same result as `evaluate` without segment summaries: the candidate route is written
+   * out and evaluated as a chain of single stops, every arc read from the matrix (O(route)).
+   */
+  evaluateFully(v: number, pieces: Int32Array, m: number, slot: number): number {
+    const stops = this.tmp[2]!;
+    const count = this.materialise(pieces, m, stops);
+    const chain = (this.fullChain ??= new Int32Array(4 * (this.cp.n + 1)));
+    for (let i = 0; i < count; i++) {
+      const s = stops[i]!;
+      chain[4 * i] = -1;
+      chain[4 * i + 1] = s;
+      chain[4 * i + 2] = s;
+      chain[4 * i + 3] = 0;
+    }
+    this.fullEvaluations++;
+    return evaluatePieces(this, v, chain, count, slot);
   }
 
   /**

@@ -22,6 +22,9 @@ export class Move {
   /** Stop that leaves the pool (-1 none) and stop that enters it (-1 none). */
   poolIn = -1;
   poolOut = -1;
+  /** The stop drawn and its partner (read by tests and the ablation checks). */
+  u = -1;
+  v = -1;
   /** Change of the penalised total cost. */
   delta = 0;
   /** Change of the number of used vehicles. */
@@ -46,8 +49,10 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
   const cp = state.cp;
   const u = active ? active[rng.int(active.length)]! : rng.int(cp.n);
   if (state.routeOf[u]! < -1) return false;
-  const v = nb.list[u * nb.k + rng.int(nb.k)]!;
-  if (v < 0) return false;
+  const v = nb.all ? nb.all[rng.int(nb.all.length)]! : nb.list[u * nb.k + rng.int(nb.k)]!;
+  mv.u = u;
+  mv.v = v;
+  if (v < 0 || v === u) return false;
   mv.poolIn = -1;
   mv.poolOut = -1;
   mv.vB = -1;

@@ -4,6 +4,11 @@ import type { CompiledProblem } from "../schedule/compileProblem.js";
 export interface Neighbours {
   readonly k: number;
   readonly list: Int32Array;
+  /**
+   * When present, moves draw a stop's partner uniformly from these stops instead of from its
+   * list (the granular neighbourhood switched off, `SolveOptions.granularNeighbours`).
+   */
+  readonly all?: Int32Array;
 }
 
 /** Weights of waiting and time warp in the proximity measure (Vidal et al. 2013 use 0.2 and 1). */
@@ -57,6 +62,21 @@ export function buildNeighbours(cp: CompiledProblem, k: number = 20): Neighbours
     }
   }
   return { k: kk, list };
+}
+
+/**
+ * The same lists with the granular neighbourhood switched off for moves: a move's partner is
+ * any stop some vehicle can serve (`list` and `k` stay for construction and route elimination).
+ *
+ * @param cp - the compiled problem
+ * @param nb - the granular lists
+ * @returns neighbours whose moves pair any two servable stops
+ * @example proposeMove(state, everyPartner(cp, nb), rng, mv)
+ */
+export function everyPartner(cp: CompiledProblem, nb: Neighbours): Neighbours {
+  const all: number[] = [];
+  for (let s = 0; s < cp.n; s++) if (!cp.unservableReason[s]) all.push(s);
+  return { k: nb.k, list: nb.list, all: Int32Array.from(all) };
 }
 
 /**

@@ -7,7 +7,7 @@ import { sampleUphill } from "../anneal/sampleUphill.js";
 import { constructPlan } from "../construct/constructPlan.js";
 import type { Problem } from "../model.js";
 import { SearchState } from "../moves/SearchState.js";
-import { buildNeighbours, type Neighbours } from "../neighbours/buildNeighbours.js";
+import { buildNeighbours, everyPartner, type Neighbours } from "../neighbours/buildNeighbours.js";
 import type { SolveOptions } from "../options.js";
 import { compileProblem, type CompiledProblem } from "../schedule/compileProblem.js";
 import { validateProblem } from "../validateProblem.js";
@@ -33,7 +33,10 @@ const DESCENT_MOVES_PER_STOP = 50;
 export interface PreparedRun {
   readonly cp: CompiledProblem;
   readonly rng: Random;
+  /** Candidate lists of construction and route elimination. */
   readonly nb: Neighbours;
+  /** Where moves draw a stop's partner: `nb`, or every servable stop with the granular neighbourhood off. */
+  readonly moveNb: Neighbours;
   readonly state: SearchState;
   /** Initial penalty weights (adaptive penalties stay within bounds of these). */
   readonly weights: { readonly wTime: number; readonly wLoad: number };
@@ -79,6 +82,7 @@ export function prepareRun(problem: Problem, o: SolveOptions, startedAt = o.now 
   const nb = buildNeighbours(cp, o.neighbours);
   const weights = initialWeights(cp);
   const state = new SearchState(cp, weights.wTime, weights.wLoad);
+  const moveNb = o.granularNeighbours ? nb : everyPartner(cp, nb);
   const movable = (s: number): boolean => !cp.unservableReason[s] && !(cp.homeVehicle[s]! >= 0 && cp.locked[cp.homeVehicle[s]!]);
   const active = Int32Array.from(Array.from({ length: cp.n }, (_, s) => s).filter(movable));
   if (problem.earlier) startFromEarlier(state, problem.earlier.routes);
@@ -87,19 +91,35 @@ export function prepareRun(problem: Problem, o: SolveOptions, startedAt = o.now 
     // Worth more than the whole first plan: one vehicle fewer always wins.
     state.vehicleWeight = 2 * (state.realCost() + Math.abs(state.total())) + 1;
   }
-  descend(state, nb, rng, active, DESCENT_MOVES_PER_STOP * active.length);
-  const cal = sampleUphill(state, nb, rng, o.calibrationSamples, active);
+  state.fullEvaluation = !o.incrementalEvaluation;
+  descend(state, moveNb, rng, active, DESCENT_MOVES_PER_STOP * active.length);
+  const cal = sampleUphill(state, moveNb, rng, o.calibrationSamples, active);
   const temps = calibrateTemperatures(cal.meanUphill, o.rule, o.p0, o.pEnd, cal.uphill);
   let movesPerSecond: number | undefined;
   let expectedMoves = budgetMoves ?? 0;
   if (seconds !== undefined) {
     const rateOptions = { seed: o.seed, now: o.now!, rule: o.rule, temperature: temps.t0 };
-    movesPerSecond = measureMoveRate(state, nb, active, rateOptions);
+    movesPerSecond = measureMoveRate(state, moveNb, active, rateOptions);
     const secondsLeft = Math.max(0, seconds - (o.now!() - startedAt) / 1000);
     expectedMoves = Math.max(1, Math.round((movesPerSecond ?? 0) * secondsLeft));
   }
   const cooling = resolveCooling(o.cooling, { ...temps, budgetMoves: expectedMoves });
   const t0 = cooling.t0;
   const tEnd = "tEnd" in cooling ? cooling.tEnd : temperatureAt(cooling, expectedMoves, 1);
-  return { cp, rng, nb, state, weights, active, cooling, t0, tEnd, meanUphill: cal.meanUphill, budgetMoves, seconds, movesPerSecond };
+  return {
+    cp,
+    rng,
+    nb,
+    moveNb,
+    state,
+    weights,
+    active,
+    cooling,
+    t0,
+    tEnd,
+    meanUphill: cal.meanUphill,
+    budgetMoves,
+    seconds,
+    movesPerSecond,
+  };
 }

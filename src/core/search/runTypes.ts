@@ -16,6 +16,14 @@ export interface RunStats {
   feasibleFound: boolean;
   /** The schedule as run, with every fitted number (beta, alpha, levels) fixed. */
   cooling: ResolvedCooling;
+  /**
+   * What the switchable parts did (see the ablation switches of `SolveOptions`): candidate
+   * routes evaluated stop by stop instead of on segment summaries, routes emptied by route
+   * elimination, and updates of the adaptive penalties that changed a weight.
+   */
+  fullRouteEvaluations: number;
+  routeEliminations: number;
+  penaltyUpdates: number;
   /** Moves per second measured before a seconds run (see `measureMoveRate`); absent for a move budget. */
   measuredMovesPerSecond?: number;
 }
