@@ -6,7 +6,10 @@
  */
 import { parentPort, workerData } from "node:worker_threads";
 import { createSolver } from "../core/index.js";
-import { epochMs, type ChainRequest, type ChainMessage } from "./chains.js";
+import type { ChainRequest, ChainMessage } from "./chains.js";
+
+/** Milliseconds since the epoch, as `epochMs` in chains.ts (inlined: the worker loads only the core). */
+const epochMs = (): number => performance.timeOrigin + performance.now();
 
 const port = parentPort;
 if (port) {

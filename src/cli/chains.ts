@@ -1,20 +1,34 @@
 /**
- * Several independent annealing chains on worker threads (`--workers N`). Chain k solves with
- * the seed `chainSeed(seed, k)` and the full budget; the plan kept is the best by the solver's
- * own order (`comparePlans`), ties to the lowest chain index, so the same seed, move budget and
- * N always give the same plan, and chain 0 is the run one chain would make.
+ * Several independent annealing chains on worker threads (`--workers N`). The seeds, the plan
+ * kept and the combined progress are the core's (`core/chains.ts`, shared with the pane's Web
+ * Workers): chain k solves with `chainSeed(seed, k)` and the full budget, the best plan by
+ * `comparePlans` is kept (ties to the lowest chain), so the same seed, move budget and N always
+ * give the same plan, and chain 0 is the run one chain would make.
  */
 import { existsSync, readFileSync } from "node:fs";
 import { createRequire } from "node:module";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
-import { comparePlans, createSolver, type Problem, type Progress, type SolveOptions, type SolveResult } from "../core/index.js";
+import {
+  chainSeed,
+  combineProgress,
+  createSolver,
+  keptChain,
+  type Problem,
+  type Progress,
+  type SolveOptions,
+  type SolveResult,
+} from "../core/index.js";
+import { parseSettingValue } from "../sheets/settingsSchema.js";
+import { SETTING_FIELDS, type NumberField } from "../sheets/settingFields.js";
+
+export { chainSeed, combineProgress };
 
 /** What a chain may be told: everything of `SolveOptions` a thread can receive. */
 export type ChainOptions = Omit<Partial<SolveOptions>, "now" | "onProgress" | "signal">;
 
-/** The most chains `--workers` accepts (more than any machine this runs on has cores to give). */
-export const MAX_WORKERS = 64;
+/** The most chains `--workers` accepts (the Workers setting's range). */
+export const MAX_WORKERS = (SETTING_FIELDS.workers as NumberField).max!;
 
 /** Moves per slice of the one-chain run between looks at the event loop (Ctrl-C). */
 const SLICE = 4096;
@@ -53,33 +67,17 @@ export interface ChainsHooks {
 }
 
 /**
- * The seed of chain k: the run's seed itself for chain 0, a seed derived from it otherwise.
- *
- * @param seed - the run's seed
- * @param chain - chain index from 0
- * @returns the chain's seed
- * @example chainSeed(7, 0) // => 7; chainSeed(7, 2) // => "7/chain 2"
- */
-export function chainSeed(seed: number | string, chain: number): number | string {
-  return chain === 0 ? seed : `${seed}/chain ${chain}`;
-}
-
-/**
- * Check a `--workers` value.
+ * Check a `--workers` value with the settings schema (the Workers field the pane shares).
  *
  * @param text - the option text, or undefined when not given
- * @returns the number of chains (1 when not given), or the error line
+ * @returns the number of chains (1 when not given: the CLI's default), or the error line
  * @example parseWorkers("2") // => { workers: 2 }
  */
 export function parseWorkers(text: string | undefined): { workers: number } | { error: string } {
   if (text === undefined) return { workers: 1 };
-  const n = Number(text.trim());
-  if (!Number.isInteger(n) || n < 1 || n > MAX_WORKERS) {
-    return {
-      error: `--workers: "${text}" is not a whole number from 1 to ${MAX_WORKERS}; give the number of chains to run at once, e.g. --workers 2`,
-    };
-  }
-  return { workers: n };
+  const parsed = parseSettingValue("workers", text);
+  if (!parsed.ok) return { error: `--${SETTING_FIELDS.workers.flag}: ${parsed.message}` };
+  return { workers: parsed.value as number };
 }
 
 /**
@@ -97,8 +95,10 @@ export function parseWorkers(text: string | undefined): { workers: number } | { 
  */
 export async function runChains(problem: Problem, options: ChainOptions, workers: number, hooks: ChainsHooks = {}): Promise<ChainsResult> {
   const results = workers <= 1 ? [await runHere(problem, options, hooks)] : await runOnThreads(problem, options, workers, hooks);
-  let best = 0;
-  for (let k = 1; k < results.length; k++) if (comparePlans(problem, results[k]!.plan, results[best]!.plan) < 0) best = k;
+  const best = keptChain(
+    problem,
+    results.map((r) => r.plan),
+  );
   return { ...results[best]!, chain: best, chains: results };
 }
 
@@ -189,26 +189,4 @@ function runOnThreads(problem: Problem, options: ChainOptions, workers: number, 
  */
 export function epochMs(): number {
   return performance.timeOrigin + performance.now();
-}
-
-/**
- * One progress of several chains: the budget fraction of the slowest chain, the moves of all,
- * the best cost any chain has found, and the temperature of chain 0.
- *
- * @param latest - each chain's latest progress (undefined before its first report)
- * @returns the combined progress
- * @example combineProgress([p0, p1]).bestCost // => Math.min(p0.bestCost, p1.bestCost)
- */
-export function combineProgress(latest: readonly (Progress | undefined)[]): Progress {
-  const ps = latest.filter((p): p is Progress => p !== undefined);
-  const n = latest.length;
-  return {
-    moves: ps.reduce((s, p) => s + p.moves, 0),
-    fraction: ps.length < n ? 0 : Math.min(...ps.map((p) => p.fraction)),
-    temperature: (latest[0] ?? ps[0])?.temperature ?? 0,
-    currentCost: Math.min(...ps.map((p) => p.currentCost)),
-    bestCost: Math.min(...ps.map((p) => p.bestCost)),
-    acceptanceRate: ps.length > 0 ? ps.reduce((s, p) => s + p.acceptanceRate, 0) / ps.length : 0,
-    elapsedMs: Math.max(0, ...ps.map((p) => p.elapsedMs)),
-  };
 }

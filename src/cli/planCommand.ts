@@ -13,6 +13,7 @@ import { prepareRun } from "./prepareRun.js";
 import { progressBar } from "./progressBar.js";
 import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptions.js";
 import { TERMS } from "../sheets/terms.js";
+import { SETTING_FIELDS, rangeText } from "../sheets/settingFields.js";
 import { addGeocodeOptions, geocoderSetup, type GeocodeOptionValues } from "./geocodeOptions.js";
 import { reviewLines } from "./geocodeCommand.js";
 
@@ -37,9 +38,9 @@ export function declarePlan(program: Command, io: CliIO, exit: (code: number) =>
     .option("--scenario <NAME>", "name of the plan sheet to write", "Plan")
     .option("--out <OUT.xlsx>", "where to write the new workbook (never the input itself)")
     .option(
-      "--workers <N>",
-      `independent annealing chains run at once on worker threads, 1 to ${MAX_WORKERS} (default 1); each gets the whole budget ` +
-        "and the best plan is kept; the same seed, --moves and N give the same plan",
+      `--${SETTING_FIELDS.workers.flag} <N>`,
+      `${SETTING_FIELDS.workers.label}: ${SETTING_FIELDS.workers.help}; ${rangeText(SETTING_FIELDS.workers)} ` +
+        `(default 1, or the Settings sheet's Workers row; up to ${MAX_WORKERS})`,
     )
     .option(
       "--gpx <FILE.gpx>",
@@ -92,7 +93,10 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
   if ("errors" in prepared || "error" in workers) {
     return reportErrors(io, [...("error" in workers ? [workers.error] : []), ...("errors" in prepared ? prepared.errors : [])]);
   }
-  const { book, read, inputPath } = prepared;
+  const { book, inputPath } = prepared;
+  // --workers wins over the Settings sheet's Workers row; the plan sheet records the number used.
+  const chains = opts.workers !== undefined ? workers.workers : (prepared.read.settings.workers ?? 1);
+  const read = { ...prepared.read, settings: { ...prepared.read.settings, workers: chains } };
   const out = await outputPath(inputPath, opts.out);
   if ("error" in out) return reportErrors(io, [out.error]);
   const targetErrors = await checkNavigationTargets(opts, inputPath, out.path);
@@ -127,7 +131,7 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
   process.on("SIGINT", onInterrupt);
   let result: Awaited<ReturnType<typeof runChains>>;
   try {
-    result = await runChains(read.problem, options, workers.workers, {
+    result = await runChains(read.problem, options, chains, {
       now: io.now,
       onProgress: (p) => bar.update(p),
       signal: stop.signal,
@@ -179,9 +183,9 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
     ...plan.violations.map((v) => `  ${v}`),
     `Run: ${result.stats.moves} moves in ${runSeconds.toFixed(1)} s, seed ${s.seed}, ${formatCooling(s.cooling, s.rule)}${stop.signal.aborted ? ", stopped by Ctrl-C" : ""}`,
   ];
-  if (workers.workers > 1) {
+  if (chains > 1) {
     const total = result.chains.reduce((sum, c) => sum + c.stats.moves, 0);
-    lines.push(`Chains: ${workers.workers} on worker threads, ${total} moves in all; the plan is chain ${result.chain + 1}'s`);
+    lines.push(`Chains: ${chains} on worker threads, ${total} moves in all; the plan is chain ${result.chain + 1}'s`);
   }
   if (book.skippedCharts.length > 0) {
     lines.push("Route chart: not drawn in the file (exceljs cannot write charts); the Excel add-in draws it.");

@@ -6,6 +6,7 @@ export { greatCircleKm } from "./geo/greatCircleKm.js";
 export { buildMatrix, userMatrix, type BuildMatrixOptions } from "./geo/buildMatrix.js";
 export { solve, createSolver, type Solver, type SolveResult, type RunStats } from "./solve.js";
 export { comparePlans } from "./comparePlans.js";
+export { chainSeed, combineProgress, keptChain } from "./chains.js";
 export { summariseRuns, type RunsSummary, type SeededRun } from "./summariseRuns.js";
 export { evaluatePlan } from "./schedule/evaluatePlan.js";
 export { unservableStops } from "./schedule/unservableStops.js";

@@ -47,6 +47,11 @@ export interface PlanSettings {
   readonly windowBreakMin?: number;
   readonly breakFrom?: number;
   readonly breakTo?: number;
+  /**
+   * Independent annealing chains run at once, one per worker (thread); the best plan is kept.
+   * Absent: one chain (the CLI's default; the pane starts its field at the browser's cores minus one).
+   */
+  readonly workers?: number;
 }
 
 /**

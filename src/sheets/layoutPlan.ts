@@ -46,6 +46,7 @@ export const SETTINGS_LABELS = [
   "Distances",
   "Columns mapped",
   "Re-planned from",
+  "Workers",
 ] as const;
 
 /** Labels of the totals block. */
@@ -159,6 +160,8 @@ function settingsValues(run: RunRecord): FormattedRow {
     [distancesText(run), F.text],
     [formatColumnMap(s.columnMap ?? []) || "none", F.text],
     [replanText(run), F.text],
+    // Chains run at once; with several, Moves above is the kept chain's.
+    [run.settings.workers ?? 1, F.integer],
   ]);
 }
 

@@ -98,6 +98,7 @@ export function parseSettingsSheet(read: SheetRead): { settings: Partial<PlanSet
   set("objective", values.get("objective") as PlanSettings["objective"] | undefined);
   set("country", values.get("country") as string | undefined);
   set("stabilityCost", num("stabilityCost"));
+  set("workers", num("workers"));
   for (const k of ["driveBeforeBreakH", "breakMin", "windowBreakMin", "breakFrom", "breakTo"] as const) set(k, num(k));
 
   const params: ScheduleParams = {};

@@ -32,7 +32,8 @@ export type SettingKey =
   | "breakMin"
   | "windowBreakMin"
   | "breakFrom"
-  | "breakTo";
+  | "breakTo"
+  | "workers";
 
 interface FieldBase {
   /** Name shown in messages, the pane and the Settings sheet ("Detour factor"). */
@@ -426,6 +427,18 @@ export const SETTING_FIELDS: Readonly<Record<SettingKey, SettingField>> = {
     unit: "minutes from midnight",
     example: "13:30",
     time: true,
+  },
+  workers: {
+    type: "number",
+    label: "Workers",
+    flag: "workers",
+    valueName: "N",
+    sheetKeys: ["workers", "chains", "workerchains"],
+    help: "independent annealing chains run at once, one per worker (thread); each gets the whole budget and the best plan is kept; the same seed, move budget and workers give the same plan",
+    min: 1,
+    max: 64,
+    integer: true,
+    example: "2",
   },
   country: {
     type: "text",

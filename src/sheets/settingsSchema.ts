@@ -84,6 +84,7 @@ export const planSettingsSchema = z
     windowBreakMin: n("windowBreakMin").optional(),
     breakFrom: n("breakFrom").optional(),
     breakTo: n("breakTo").optional(),
+    workers: n("workers").optional(),
   })
   .superRefine((s, ctx) => {
     for (const p of crossProblems(s)) ctx.addIssue({ code: "custom", path: [p.key], message: p.message });

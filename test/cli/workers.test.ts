@@ -80,7 +80,11 @@ describe("independent chains (--workers)", () => {
     expect(parseWorkers(undefined)).toEqual({ workers: 1 });
     expect(parseWorkers("4")).toEqual({ workers: 4 });
     for (const bad of ["0", "1.5", "x", "65"])
-      expect(parseWorkers(bad)).toHaveProperty("error", expect.stringMatching(/--workers: .*e\.g\. --workers 2/));
+      // The Workers field of the settings schema (the pane's field says the same).
+      expect(parseWorkers(bad)).toHaveProperty(
+        "error",
+        expect.stringMatching(/^--workers: Workers .+ is not valid: enter a whole number from 1 to 64, such as 2\.$/),
+      );
   });
 });
 
@@ -110,7 +114,7 @@ describe("kiln plan --workers", () => {
     const { path } = await demoCopy();
     const cap = captureIO();
     expect(await main(["plan", path, "--workers", "0"], cap.io)).toBe(2);
-    expect(cap.err()).toMatch(/^--workers: "0" is not a whole number from 1 to 64/);
+    expect(cap.err()).toMatch(/^--workers: Workers 0 is not valid: enter a whole number from 1 to 64/);
   });
 
   it("the compiled CLI finds its worker module (dist/cli/cli/chainWorker.js)", async () => {

@@ -85,7 +85,10 @@ describe("scenario sheet layout (DESIGN.md §5)", () => {
       "Distances",
       "Columns mapped",
       "Re-planned from",
+      "Workers",
     ]);
+    // One chain when the run record names no workers (the CLI's default).
+    expect(values[3]![15]).toBe(1);
     // No column mapping was given, and the block says so; nor was it a re-plan.
     expect(values[3]![13]).toBe("none");
     expect(values[3]![14]).toBe("none");
