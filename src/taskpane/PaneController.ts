@@ -33,8 +33,9 @@ import { doubtfulPlaces, type DoubtfulPlace } from "./doubtfulPlaces.js";
 import { PANE_MAX_LOCATIONS } from "../sheets/sizeWarning.js";
 import { PointerHold } from "./pointerHold.js";
 import { showFinished, showProgress } from "./runProgress.js";
-import { formFromSettings, settingsFromForm } from "./settingsFromForm.js";
+import { defaultPaneWorkers, formFromSettings, settingsFromForm } from "./settingsFromForm.js";
 import { SolverClient } from "./SolverClient.js";
+import { SolverPool } from "./SolverPool.js";
 import { storedRunRecord } from "./storedRunRecord.js";
 
 /** The pane. Call `init` once. */
@@ -42,6 +43,8 @@ export class PaneController {
   protected readonly dom: PaneDom = paneDom();
   protected readonly guard = createGuard((m) => this.showError(m));
   private readonly solver = new SolverClient();
+  /** The run's workers: the preview's worker is chain 0, more are started when the Workers field asks. */
+  private readonly pool = new SolverPool(this.solver, () => new SolverClient());
   private readonly preview = new CoolingPreview(this.dom, this.solver);
   private readonly convergence = new ConvergencePlot(this.dom.convergencePlot);
   private readonly map = new RouteMap({
@@ -110,6 +113,7 @@ export class PaneController {
     d.modeBadge.textContent = this.source.mode === "excel" ? "in Excel" : "standalone · files";
     d.caution.textContent = CAUTION_TEXT;
     d.stabilityCost.placeholder = `${STABILITY_COST_DEFAULT} (default)`;
+    d.workers.value = String(defaultPaneWorkers(navigator.hardwareConcurrency));
     d.errorClose.addEventListener("click", () => (d.error.hidden = true));
     const settingsChanged = this.guard("Reading the settings", () => this.settingsChanged());
     const hold = new PointerHold(document);
@@ -122,7 +126,7 @@ export class PaneController {
     );
     d.stop.addEventListener(
       "click",
-      this.guard("Stop", () => this.solver.stop()),
+      this.guard("Stop", () => this.pool.stop()),
     );
     d.write.addEventListener(
       "click",
@@ -299,6 +303,7 @@ export class PaneController {
           seed: form.seed,
           seconds: form.seconds,
           stabilityCost: form.stabilityCost,
+          ...(form.workers !== undefined ? { workers: form.workers } : {}),
         }
       : form;
     return this.columnMap.length > 0 ? { ...shown, columnMap: this.columnMap } : shown;
@@ -348,8 +353,9 @@ export class PaneController {
   }
 
   private setOptimizeEnabled(): void {
-    this.dom.optimize.disabled = this.solver.running || this.compare.running || !this.read?.ok;
-    this.dom.stop.disabled = !this.solver.running || this.compare.running;
+    const busy = this.pool.running || this.solver.running;
+    this.dom.optimize.disabled = busy || this.compare.running || !this.read?.ok;
+    this.dom.stop.disabled = !this.pool.running || this.compare.running;
     this.compare.setButtons();
   }
 
@@ -384,16 +390,19 @@ export class PaneController {
     d.progressBar.style.width = "0%";
     d.optimizeSection.dataset.state = "running";
     const budget = s.moves !== undefined ? { moves: s.moves } : { seconds: s.seconds };
+    const workers = s.workers ?? 1;
+    d.statMemory.textContent = "–";
     let lastDraw = -Infinity;
-    this.solver.start(
+    this.pool.start(
       read.problem,
       { seed: s.seed, budget, rule: s.rule, cooling: s.cooling, p0: s.p0, pEnd: s.pEnd },
+      workers,
       {
         onProgress: (p) => {
-          // The worker already paces itself; this keeps a busy page at one redraw per 200 ms too.
+          // The workers already pace themselves; this keeps a busy page at one redraw per 200 ms too.
           if (p.elapsedMs - lastDraw < 200 && p.fraction < 1) return;
           lastDraw = p.elapsedMs;
-          showProgress(d, this.convergence, p, s.moves === undefined ? s.seconds : undefined);
+          showProgress(d, this.convergence, p, s.moves === undefined ? s.seconds : undefined, workers);
           this.preview.observe(p);
         },
         onResult: (result, stopped) => {
@@ -418,6 +427,8 @@ export class PaneController {
           this.showError([message, ...issues.map((i) => `${i.sheet}${i.cell ? "!" + i.cell : ""}: ${i.message}`)].join(" "));
         },
       },
+      // Milliseconds since the epoch, the workers' clock: every chain's seconds budget ends together.
+      performance.timeOrigin + performance.now(),
     );
     this.setOptimizeEnabled();
   }

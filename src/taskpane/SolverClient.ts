@@ -5,10 +5,16 @@
 import type { Issue, Problem, Progress, SolveResult } from "../core/index.js";
 import type { FromWorker, ToWorker, WorkerSolveOptions } from "./workerProtocol.js";
 
+/** Figures of one run besides the solver's own. */
+export interface RunFigures {
+  /** Largest JS heap the worker reported (bytes); undefined when the browser reports none in a worker. */
+  readonly peakHeapBytes?: number | undefined;
+}
+
 /** Callbacks of one run. */
 export interface RunHandlers {
   onProgress(progress: Progress): void;
-  onResult(result: SolveResult, stopped: boolean): void;
+  onResult(result: SolveResult, stopped: boolean, figures?: RunFigures): void;
   onError(message: string, issues: readonly Issue[]): void;
 }
 
@@ -23,8 +29,15 @@ export class WorkerError extends Error {
   }
 }
 
+/** What a pool of chains needs from one worker's client (`SolverClient`, or a stand-in in tests). */
+export interface ChainClient {
+  readonly running: boolean;
+  start(problem: Problem, options: WorkerSolveOptions, handlers: RunHandlers): number;
+  stop(): void;
+}
+
 /** Talks to one solver worker. */
-export class SolverClient {
+export class SolverClient implements ChainClient {
   private readonly worker: Worker;
   private nextId = 1;
   private run: { runId: number; handlers: RunHandlers } | undefined;
@@ -113,7 +126,7 @@ export class SolverClient {
     if (m.type === "progress") run.handlers.onProgress(m.progress);
     else if (m.type === "result") {
       this.run = undefined;
-      run.handlers.onResult(m.result, m.stopped);
+      run.handlers.onResult(m.result, m.stopped, { peakHeapBytes: m.peakHeapBytes });
     } else if (m.type === "error") {
       this.run = undefined;
       run.handlers.onError(m.message, m.issues);

@@ -6,6 +6,7 @@ import type { Progress, SolveResult } from "../core/index.js";
 import type { ConvergencePlot } from "./ConvergencePlot.js";
 import { formatDuration } from "./formatClock.js";
 import type { PaneDom } from "./paneDom.js";
+import type { PoolResult } from "./SolverPool.js";
 
 /**
  * Show one progress report.
@@ -14,8 +15,9 @@ import type { PaneDom } from "./paneDom.js";
  * @param convergence - the convergence plot, which gets the point
  * @param p - the report
  * @param seconds - the run's seconds budget; undefined for a move budget (remaining time extrapolated)
+ * @param workers - chains running (the report is their combined progress when more than one)
  */
-export function showProgress(d: PaneDom, convergence: ConvergencePlot, p: Progress, seconds: number | undefined): void {
+export function showProgress(d: PaneDom, convergence: ConvergencePlot, p: Progress, seconds: number | undefined, workers = 1): void {
   d.progressBar.style.width = `${Math.round(p.fraction * 100)}%`;
   d.progressBar.parentElement?.setAttribute("aria-valuenow", String(Math.round(p.fraction * 100)));
   d.statElapsed.textContent = formatDuration(p.elapsedMs / 1000);
@@ -26,6 +28,7 @@ export function showProgress(d: PaneDom, convergence: ConvergencePlot, p: Progre
   d.statBest.textContent = Number.isFinite(p.bestCost) ? formatCost(p.bestCost) : "none feasible yet";
   d.statAccept.textContent = p.worseAccepted === undefined ? "–" : `${(p.worseAccepted * 100).toFixed(1)}%`;
   d.statTemp.textContent = p.temperature.toPrecision(3);
+  d.statWorkers.textContent = `${workers} running, ${p.moves.toLocaleString("en")} moves in all`;
   convergence.add(p);
 }
 
@@ -38,12 +41,41 @@ export function showProgress(d: PaneDom, convergence: ConvergencePlot, p: Progre
  * @param result - the run's result
  * @param stopped - true when the user pressed Stop
  */
-export function showFinished(d: PaneDom, result: SolveResult, stopped: boolean): void {
+export function showFinished(d: PaneDom, result: SolveResult | PoolResult, stopped: boolean): void {
   d.progressBar.style.width = "100%";
   d.progressBar.parentElement?.setAttribute("aria-valuenow", "100");
   d.statElapsed.textContent = formatDuration(result.stats.elapsedMs / 1000);
   d.statRemaining.textContent = stopped ? "stopped" : "finished";
   d.statBest.textContent = formatCost(result.plan.totals.cost);
+  d.statWorkers.textContent = workersText(result);
+  d.statMemory.textContent = memoryText(result);
+}
+
+/**
+ * The Workers figure after a run: how many chains ran, their moves together, and whose plan is kept.
+ *
+ * @param result - a run's result (one chain, or the pool's with every chain)
+ * @returns e.g. "2; the plan is chain 2's (1,234,567 moves in all)"
+ * @example workersText(oneChainResult) // => "1 (52,000 moves)"
+ */
+export function workersText(result: SolveResult | PoolResult): string {
+  const chains = "chains" in result ? result.chains : [result];
+  const moves = chains.reduce((s, c) => s + c.stats.moves, 0).toLocaleString("en");
+  if (chains.length === 1) return `1 (${moves} moves)`;
+  return `${chains.length}; the plan is chain ${("chain" in result ? result.chain : 0) + 1}'s (${moves} moves in all)`;
+}
+
+/**
+ * The peak-memory figure after a run: the largest JS heap a worker reported, or why there is none.
+ *
+ * @param result - a run's result
+ * @returns e.g. "41 MB JS heap (largest worker)", or "not available: …"
+ * @example memoryText({ ...result, peakHeapBytes: 42e6 }) // => "40 MB JS heap (largest worker)"
+ */
+export function memoryText(result: SolveResult | PoolResult): string {
+  const bytes = "peakHeapBytes" in result ? result.peakHeapBytes : undefined;
+  if (bytes === undefined) return "not available: this browser reports no memory figure inside a worker";
+  return `${Math.round(bytes / 2 ** 20)} MB JS heap (largest worker)`;
 }
 
 function formatCost(cost: number): string {

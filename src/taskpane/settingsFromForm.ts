@@ -4,7 +4,7 @@
  */
 import type { Issue, CoolingSpec } from "../core/index.js";
 import { PLAN_SETTINGS_DEFAULTS, STABILITY_COST_DEFAULT, type PlanSettings } from "../sheets/PlanSettings.js";
-import { PARAMETERS_OF, SETTING_FIELDS, type SettingKey } from "../sheets/settingFields.js";
+import { PARAMETERS_OF, SETTING_FIELDS, type NumberField, type SettingKey } from "../sheets/settingFields.js";
 import { buildCooling, crossProblems, parseSettingValue, type ScheduleParams } from "../sheets/settingsSchema.js";
 
 /** The raw text of every settings field, keyed by the input's id. */
@@ -19,6 +19,8 @@ export interface PaneForm {
   readonly seconds: string;
   readonly seed: string;
   readonly "stability-cost": string;
+  /** Chains run at once (the Workers setting). */
+  readonly workers: string;
   readonly rule: string;
   /** CoolingSpec kind. */
   readonly schedule: string;
@@ -45,6 +47,7 @@ export const PANE_FORM_FIELDS: readonly (keyof PaneForm)[] = [
   "seconds",
   "seed",
   "stability-cost",
+  "workers",
   "rule",
   "schedule",
   "alpha",
@@ -76,6 +79,7 @@ export const FIELD_OF: Partial<Record<SettingKey, keyof PaneForm>> = {
   seconds: "seconds",
   seed: "seed",
   stabilityCost: "stability-cost",
+  workers: "workers",
   rule: "rule",
   schedule: "schedule",
   alpha: "alpha",
@@ -126,6 +130,7 @@ export function settingsFromForm(form: PaneForm): FormReading {
   const seed = read("seed", d.seed);
   // Blank: the default stability cost (as when the Settings sheet and the CLI give none).
   const stabilityCost = form["stability-cost"].trim() === "" ? undefined : read<number>("stabilityCost", STABILITY_COST_DEFAULT);
+  const workers = read("workers", 1);
   const rule = read("rule", d.rule);
   const manual = form.temperatures === "manual";
   const p0 = manual ? d.p0 : read("p0", d.p0);
@@ -161,6 +166,7 @@ export function settingsFromForm(form: PaneForm): FormReading {
     cooling,
     p0,
     pEnd,
+    workers,
   };
   return { scenario, settings, issues };
 }
@@ -188,6 +194,8 @@ export function formFromSettings(settings: PlanSettings, scenario: string, curre
     seconds: String(settings.seconds),
     seed: String(settings.seed),
     "stability-cost": settings.stabilityCost === undefined ? "" : String(settings.stabilityCost),
+    // No Workers given (older plans, a Settings sheet without the row): the field keeps its value.
+    ...(settings.workers !== undefined ? { workers: String(settings.workers) } : {}),
     rule: settings.rule,
     schedule: c.kind,
     ...(c.kind === "geometric" ? { alpha: blankIfUndefined(c.alpha), "moves-per-level": blankIfUndefined(c.movesPerLevel) } : {}),
@@ -199,6 +207,21 @@ export function formFromSettings(settings: PlanSettings, scenario: string, curre
     ...(manual ? { t0: String(c.t0) } : {}),
     ...("tEnd" in c && c.tEnd !== undefined ? { "t-end": String(c.tEnd) } : {}),
   };
+}
+
+/**
+ * The Workers field's starting value in the pane: the cores the browser reports
+ * (`navigator.hardwareConcurrency`) minus one, so the page stays responsive, at least 1 and at
+ * most the field's 64. The CLI's default stays 1.
+ *
+ * @param cores - what the browser reports (undefined or 0 when it reports nothing)
+ * @returns the number of workers
+ * @example defaultPaneWorkers(8) // => 7; defaultPaneWorkers(1) // => 1
+ */
+export function defaultPaneWorkers(cores: number | undefined): number {
+  const max = (SETTING_FIELDS.workers as NumberField).max ?? 64;
+  if (cores === undefined || !Number.isFinite(cores)) return 1;
+  return Math.max(1, Math.min(max, Math.floor(cores) - 1));
 }
 
 /** Schedule parameters a blank field leaves to fitting or calibration (see `resolveCooling`). */

@@ -10,9 +10,15 @@ const scope = self as unknown as {
   onmessage: ((event: { data: unknown }) => void) | null;
 };
 
+/** Chromium's non-standard `performance.memory`, where a browser offers it in a worker. */
+const memory = (performance as Performance & { memory?: { usedJSHeapSize?: number } }).memory;
+
 const host = createEngineHost({
   post: (message) => scope.postMessage(message),
-  now: () => performance.now(),
+  // Milliseconds since the epoch: the same scale in every worker and the page, so several chains
+  // can share one start (`SolveOptions.startedAt`) and a seconds budget ends at one moment.
+  now: () => performance.timeOrigin + performance.now(),
+  heapUsedBytes: () => memory?.usedJSHeapSize,
   // A macrotask, not a microtask: the stop message must get its turn between slices.
   defer: (callback) => setTimeout(callback, 0),
 });

@@ -37,7 +37,14 @@ export type ToWorker =
 /** Messages from the worker to the pane. */
 export type FromWorker =
   | { readonly type: "progress"; readonly runId: number; readonly progress: Progress }
-  | { readonly type: "result"; readonly runId: number; readonly result: SolveResult; readonly stopped: boolean }
+  | {
+      readonly type: "result";
+      readonly runId: number;
+      readonly result: SolveResult;
+      readonly stopped: boolean;
+      /** Largest JS heap the worker reported during the run (bytes); absent when its browser reports none. */
+      readonly peakHeapBytes?: number;
+    }
   | {
       readonly type: "sampled";
       readonly requestId: number;
@@ -69,6 +76,11 @@ export interface EngineHostDeps {
   readonly sliceMoves?: number;
   /** Least milliseconds between two progress messages (default 200). */
   readonly progressEveryMs?: number;
+  /**
+   * The worker's JS heap in use now (bytes), or undefined when the browser does not say
+   * (Chromium's `performance.memory` exists in pages only, not in workers); sampled every slice.
+   */
+  readonly heapUsedBytes?: () => number | undefined;
 }
 
 /** The engine host: feed it every message the worker receives. */
@@ -96,7 +108,11 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
   }
   const sliceMoves = Math.max(1, Math.floor(deps.sliceMoves ?? 20_000));
   const progressEveryMs = deps.progressEveryMs ?? 200;
-  let run: { runId: number; solver: Solver; stopRequested: boolean; lastProgressMs: number } | undefined;
+  let run: { runId: number; solver: Solver; stopRequested: boolean; lastProgressMs: number; peakHeapBytes?: number } | undefined;
+  const sampleHeap = (current: NonNullable<typeof run>): void => {
+    const used = deps.heapUsedBytes?.();
+    if (used !== undefined && Number.isFinite(used)) current.peakHeapBytes = Math.max(current.peakHeapBytes ?? 0, used);
+  };
 
   const post = (message: FromWorker): void => {
     try {
@@ -115,7 +131,15 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
     if (!current) return;
     run = undefined;
     try {
-      post({ type: "result", runId: current.runId, result: current.solver.result(), stopped });
+      sampleHeap(current);
+      const peak = current.peakHeapBytes;
+      post({
+        type: "result",
+        runId: current.runId,
+        result: current.solver.result(),
+        stopped,
+        ...(peak !== undefined ? { peakHeapBytes: peak } : {}),
+      });
     } catch (err) {
       fail({ runId: current.runId }, err);
     }
@@ -127,6 +151,7 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
     if (current.stopRequested) return finish(true);
     try {
       const done = current.solver.step(sliceMoves);
+      sampleHeap(current);
       const nowMs = deps.now();
       if (done || nowMs - current.lastProgressMs >= progressEveryMs) {
         current.lastProgressMs = nowMs;
@@ -153,6 +178,7 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
       return fail({ runId: msg.runId }, err);
     }
     run = { runId: msg.runId, solver, stopRequested: false, lastProgressMs: -Infinity };
+    sampleHeap(run);
     deps.defer(() => slice(msg.runId));
   };
 

@@ -25,6 +25,7 @@ const FORM: PaneForm = {
   seconds: "10",
   seed: "1",
   "stability-cost": "",
+  workers: "1",
   rule: "metropolis",
   schedule: "geometric",
   alpha: "0.94",

@@ -12,6 +12,7 @@ const FORM: PaneForm = {
   seconds: "10",
   seed: "1",
   "stability-cost": "",
+  workers: "1",
   rule: "metropolis",
   schedule: "timeFraction",
   alpha: "0.94",
@@ -30,7 +31,20 @@ describe("settingsFromForm", () => {
     const r = settingsFromForm(FORM);
     expect(r.issues).toEqual([]);
     expect(r.scenario).toBe("Plan 3");
-    expect(r.settings).toEqual({ ...PLAN_SETTINGS_DEFAULTS });
+    // The Workers field always says how many chains run (1 in this form).
+    expect(r.settings).toEqual({ ...PLAN_SETTINGS_DEFAULTS, workers: 1 });
+  });
+
+  it("reads the Workers field with the settings schema's range (1 to 64) and message", () => {
+    expect(settingsFromForm({ ...FORM, workers: "3" }).settings.workers).toBe(3);
+    for (const bad of ["0", "65", "2.5", ""]) {
+      const r = settingsFromForm({ ...FORM, workers: bad });
+      expect(r.issues.map((i) => [i.cell, i.message])).toEqual([
+        ["Workers", expect.stringMatching(/^Workers .*(is not valid|is empty): enter a whole number from 1 to 64, such as 2\.$/)],
+      ]);
+    }
+    // A stored record without Workers (older plans) leaves the field as it is.
+    expect(formFromSettings(PLAN_SETTINGS_DEFAULTS, "Plan 2", { ...FORM, workers: "5" }).workers).toBe("5");
   });
 
   it("reports every bad field at once, naming the field and the allowed range, and never throws", () => {
@@ -82,6 +96,7 @@ describe("settingsFromForm", () => {
       p0: 0.4,
       pEnd: 0.01,
       stabilityCost: 500,
+      workers: 3,
     };
     const back = settingsFromForm(formFromSettings(stored, "Plan 7", FORM));
     expect(back.issues).toEqual([]);
