@@ -12,15 +12,22 @@
  * `--cpu-clock` counts the budget in CPU seconds of this process instead of wall seconds (one
  * worker only), so runs on a loaded machine get the same work.
  *
+ *   npm run bench -- --suite solomon --seconds 8 --equal-time 1,2
+ *
+ * `--equal-time A,B` runs every instance once with A and once with B workers at the same
+ * wall-clock seconds (the chains share one clock start, so B workers get no extra time) and
+ * prints one row per instance with both results side by side, written to
+ * `bench/results/<name>-<date>.json` (default name "workers-A-vs-B").
+ *
  * Small GEO instances (burma14, ulysses16, ulysses22) always get 1 s; the others `--seconds`
  * (default 30). EUC_2D instances run only when named with `--only`. The benchmark folder is
  * `KILN_BENCHMARKS_DIR` when set, otherwise `../shared/benchmarks` beside the checkout;
  * `--fixtures` runs the six committed reference instances of test/fixtures/reference instead.
  */
-import { existsSync, readFileSync } from "node:fs";
-import { resolve } from "node:path";
+import { existsSync, readFileSync, readdirSync, statSync } from "node:fs";
+import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import { benchInstance, loadBenchFile, type SolomonBenchRecord, type TsplibBenchRecord } from "../src/cli/benchCommand.js";
+import type { SolomonBenchRecord, TsplibBenchRecord } from "../src/cli/benchCommand.js";
 import { Command } from "commander";
 import { settingFlags } from "../src/cli/settingFlags.js";
 import { parseWorkers } from "../src/cli/chains.js";
@@ -68,8 +75,9 @@ async function runSuites(argv: string[]): Promise<number> {
     .option("--suite <NAME>", "tsplib or solomon (default both)")
     .option("--only <NAMES>", "comma-separated instance names")
     .option("--workers <N>", "independent chains per instance on worker threads (default 1)")
+    .option("--equal-time <A,B>", "run every instance with A and with B workers at the same seconds and compare them side by side")
     .option("--fixtures", "run the committed reference instances (test/fixtures/reference) instead of the benchmark folder")
-    .option("--name <NAME>", "results file name: bench/results/<NAME>-<date>.json", "suites")
+    .option("--name <NAME>", "results file name: bench/results/<NAME>-<date>.json (default suites, or workers-A-vs-B)")
     .exitOverride();
   try {
     program.parse(argv, { from: "user" });
@@ -85,13 +93,20 @@ async function runSuites(argv: string[]): Promise<number> {
     only?: string;
     workers?: string;
     fixtures?: boolean;
-    name: string;
+    equalTime?: string;
+    name?: string;
   }>();
   const errors: string[] = [];
   const parsedWorkers = parseWorkers(opts.workers);
   if ("error" in parsedWorkers) errors.push(parsedWorkers.error);
   const workers = "workers" in parsedWorkers ? parsedWorkers.workers : 1;
-  if (!/^[\w.-]+$/.test(opts.name)) errors.push(`--name: "${opts.name}" may hold only letters, digits, ".", "_" and "-"`);
+  const pair = opts.equalTime !== undefined ? parsePair(opts.equalTime) : undefined;
+  if (pair && "error" in pair) errors.push(pair.error);
+  if (pair && opts.workers !== undefined) errors.push("give --workers or --equal-time, not both");
+  if (pair && opts.cpuClock) errors.push("--equal-time compares at equal wall-clock time: leave out --cpu-clock");
+  if (pair && opts.seeds !== "1") errors.push("--equal-time runs the one seed of --seed: leave out --seeds");
+  const name = opts.name ?? (pair && "counts" in pair ? `workers-${pair.counts[0]}-vs-${pair.counts[1]}` : "suites");
+  if (!/^[\w.-]+$/.test(name)) errors.push(`--name: "${name}" may hold only letters, digits, ".", "_" and "-"`);
   if (opts.fixtures) suiteDir = () => FIXTURES_DIR;
   const flags = settingFlags({ seconds: opts.seconds, seed: opts.seed });
   errors.push(...flags.errors);
@@ -138,6 +153,58 @@ async function runSuites(argv: string[]): Promise<number> {
     return 2;
   }
 
+  const { benchInstance, loadBenchFile, compiled } = await benchCode();
+  process.stderr.write(
+    compiled
+      ? "using the compiled CLI in dist/cli (worker threads start as in the product)\n"
+      : "using the sources through tsx: dist/cli is missing or older than src/ (npm run build:cli); each worker thread compiles TypeScript as it starts, which costs it time\n",
+  );
+  if (pair && "counts" in pair) {
+    const compared: [Row, Row][] = [];
+    for (const job of jobs) {
+      const loaded = await loadBenchFile(job.file);
+      if ("errors" in loaded) {
+        for (const e of loaded.errors) process.stderr.write(e + "\n");
+        return 2;
+      }
+      const both: Row[] = [];
+      for (const count of pair.counts) {
+        process.stderr.write(`${job.name}: ${job.seconds} s, ${count} worker(s) ...\n`);
+        const rss = rssSampler();
+        const started = performance.now();
+        const { record, evaluations, moves } = await benchInstance(loaded, {
+          seed,
+          budget: { seconds: job.seconds },
+          now: () => performance.now(),
+          workers: count,
+        });
+        const wallS = (performance.now() - started) / 1000;
+        both.push(toRow(job.name, seed, count, wallS, rss.stop(), record, evaluations, moves));
+      }
+      compared.push([both[0]!, both[1]!]);
+    }
+    const environment = benchEnvironment();
+    process.stdout.write(pairTable(compared, pair.counts) + "\n");
+    process.stdout.write(
+      `\nNode ${environment.node}, ${environment.cpuModel} (${environment.cpuCount} cores), seed ${seed}, ${seconds} s per instance for both\n`,
+    );
+    const written = writeResults(name, {
+      bench: "equal-time",
+      environment,
+      seed,
+      seconds,
+      workers: pair.counts,
+      rows: compared.map(([a, b]) => ({
+        instance: a.instance,
+        reference: a.reference,
+        referenceVehicles: a.referenceVehicles,
+        runs: [a, b],
+      })),
+    });
+    process.stderr.write(`wrote ${written}\n`);
+    return 0;
+  }
+
   const rows: Row[] = [];
   for (const job of jobs) {
     const loaded = await loadBenchFile(job.file);
@@ -156,35 +223,7 @@ async function runSuites(argv: string[]): Promise<number> {
         workers,
       });
       const wallS = (now() - started) / 1000;
-      const peakRssMb = rss.stop();
-      const common = {
-        instance: job.name,
-        seed: runSeed,
-        seconds: Math.round(wallS * 100) / 100,
-        moves,
-        evaluations,
-        evaluationsPerSecond: wallS > 0 ? Math.round(evaluations / wallS) : 0,
-        peakRssMb,
-        workers,
-      };
-      if (record.format === "tsplib") {
-        const reference = Number(optimal.find(([n]) => n === job.name)?.[1]);
-        rows.push({ ...common, reference, ours: record.length, gapPct: gap(record.length, reference), feasible: true, record });
-      } else {
-        const ref = bestKnown.find(([n]) => n === job.name);
-        const reference = Number(ref?.[2]);
-        const ours = Math.round(record.distance * 100) / 100;
-        rows.push({
-          ...common,
-          reference,
-          ours,
-          referenceVehicles: Number(ref?.[1]),
-          vehicles: record.vehicles,
-          gapPct: gap(record.distance, reference),
-          feasible: record.feasible,
-          record,
-        });
-      }
+      rows.push(toRow(job.name, runSeed, workers, wallS, rss.stop(), record, evaluations, moves));
     }
   }
 
@@ -197,9 +236,48 @@ async function runSuites(argv: string[]): Promise<number> {
       `${seedCount > 1 ? ` to ${seed + seedCount - 1}` : ""}, ${workers} worker(s), ${opts.cpuClock ? "CPU" : "wall"} seconds\n`,
   );
   const clock = opts.cpuClock ? "cpu" : "wall";
-  const written = writeResults(opts.name, { bench: "suites", environment, seed, seeds: seedCount, clock, seconds, workers, rows, medians });
+  const written = writeResults(name, { bench: "suites", environment, seed, seeds: seedCount, clock, seconds, workers, rows, medians });
   process.stderr.write(`wrote ${written}\n`);
   return 0;
+
+  /** One run's row against its reference. */
+  function toRow(
+    instance: string,
+    runSeed: number,
+    count: number,
+    wallS: number,
+    peakRssMb: number,
+    record: SolomonBenchRecord | TsplibBenchRecord,
+    evaluations: number,
+    moves: number,
+  ): Row {
+    const common = {
+      instance,
+      seed: runSeed,
+      seconds: Math.round(wallS * 100) / 100,
+      moves,
+      evaluations,
+      evaluationsPerSecond: wallS > 0 ? Math.round(evaluations / wallS) : 0,
+      peakRssMb,
+      workers: count,
+    };
+    if (record.format === "tsplib") {
+      const reference = Number(optimal.find(([n]) => n === instance)?.[1]);
+      return { ...common, reference, ours: record.length, gapPct: gap(record.length, reference), feasible: true, record };
+    }
+    const ref = bestKnown.find(([n]) => n === instance);
+    const reference = Number(ref?.[2]);
+    return {
+      ...common,
+      reference,
+      ours: Math.round(record.distance * 100) / 100,
+      referenceVehicles: Number(ref?.[1]),
+      vehicles: record.vehicles,
+      gapPct: gap(record.distance, reference),
+      feasible: record.feasible,
+      record,
+    };
+  }
 }
 
 function table(rows: readonly Row[]): string {
@@ -290,6 +368,99 @@ function median(xs: readonly number[]): number {
   const s = [...xs].sort((a, b) => a - b);
   const m = s.length >> 1;
   return s.length % 2 === 1 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
+}
+
+/**
+ * The bench path of `kiln bench`: the compiled one in dist/cli when it is newer than every source
+ * file (a worker thread then starts from plain JavaScript, as in the installed CLI), otherwise the
+ * sources (a worker thread then first registers tsx and compiles, seconds on a loaded machine,
+ * which an equal-time comparison would count against the chains).
+ */
+async function benchCode(): Promise<typeof import("../src/cli/benchCommand.js") & { compiled: boolean }> {
+  const dist = fileURLToPath(new URL("../dist/cli/cli/benchCommand.js", import.meta.url));
+  if (existsSync(dist) && statSync(dist).mtimeMs >= newestMtime(fileURLToPath(new URL("../src/", import.meta.url)))) {
+    return { ...((await import(dist)) as typeof import("../src/cli/benchCommand.js")), compiled: true };
+  }
+  return { ...(await import("../src/cli/benchCommand.js")), compiled: false };
+}
+
+function newestMtime(dir: string): number {
+  let newest = 0;
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    const path = join(dir, entry.name);
+    newest = Math.max(newest, entry.isDirectory() ? newestMtime(path) : statSync(path).mtimeMs);
+  }
+  return newest;
+}
+
+/**
+ * Read `--equal-time A,B`: two worker counts, each checked like `--workers`.
+ *
+ * @param text - the option text
+ * @returns the two counts, or the error line
+ * @example parsePair("1,2") // => { counts: [1, 2] }
+ */
+function parsePair(text: string): { counts: [number, number] } | { error: string } {
+  const parts = text.split(",").map((p) => p.trim());
+  if (parts.length !== 2) return { error: `--equal-time: "${text}" is not two worker counts; give them as A,B, e.g. --equal-time 1,2` };
+  const counts: number[] = [];
+  for (const p of parts) {
+    const w = parseWorkers(p);
+    if ("error" in w) return { error: w.error.replace(/^--workers/, "--equal-time") };
+    counts.push(w.workers);
+  }
+  return { counts: [counts[0]!, counts[1]!] };
+}
+
+/**
+ * One row per instance, the two worker counts side by side at the same seconds: distance and
+ * vehicles of each, the distance gap of each to the best-known, and which one is better by the
+ * hierarchical order (vehicles first, then distance; an infeasible plan loses to a feasible one).
+ */
+function pairTable(pairs: readonly [Row, Row][], counts: readonly [number, number]): string {
+  const [a, b] = counts;
+  const w = (n: number): string => `${n} worker${n === 1 ? "" : "s"}`;
+  const lines = [
+    `| instance | best-known (vehicles / distance) | ${w(a)}: vehicles / distance | ${w(b)}: vehicles / distance | gap % (${a}) | gap % (${b}) | better | moves (${a}) | moves (${b}) | peak RSS MB (${a} / ${b}) |`,
+    "|---|---:|---:|---:|---:|---:|:---:|---:|---:|---:|",
+  ];
+  const cell = (r: Row): string => {
+    const rec = r.record;
+    if (rec.format === "tsplib") return String(rec.length);
+    return `${rec.vehicles} / ${rec.distance.toFixed(2)}${rec.feasible ? "" : " (infeasible)"}`;
+  };
+  const wins = [0, 0, 0];
+  for (const [ra, rb] of pairs) {
+    const order = compareRows(ra, rb);
+    wins[order < 0 ? 0 : order > 0 ? 1 : 2]!++;
+    const ref = ra.referenceVehicles !== undefined ? `${ra.referenceVehicles} / ${ra.reference.toFixed(2)}` : String(ra.reference);
+    lines.push(
+      `| ${ra.instance} | ${ref} | ${cell(ra)} | ${cell(rb)} | ${pct(ra.gapPct)} | ${pct(rb.gapPct)} | ${order < 0 ? a : order > 0 ? b : "="} | ` +
+        `${ra.moves.toLocaleString("en-US")} | ${rb.moves.toLocaleString("en-US")} | ${ra.peakRssMb.toFixed(0)} / ${rb.peakRssMb.toFixed(0)} |`,
+    );
+  }
+  const vehicles = (rows: readonly Row[]): number => rows.reduce((s, r) => s + (r.vehicles ?? 0), 0);
+  const as = pairs.map(([x]) => x);
+  const bs = pairs.map(([, y]) => y);
+  const best = as.reduce((s, r) => s + (r.referenceVehicles ?? 0), 0);
+  // The mean gap over the instances where both runs reach the best-known vehicle count, so the two means are comparable.
+  const matched = pairs.filter(([x, y]) => x.vehicles === x.referenceVehicles && y.vehicles === y.referenceVehicles);
+  lines.push(`| **total vehicles** | ${best} | ${vehicles(as)} | ${vehicles(bs)} | | | | | | |`);
+  lines.push(`| **mean gap %, all** | | | | ${pct(mean(as.map((r) => r.gapPct)))} | ${pct(mean(bs.map((r) => r.gapPct)))} | | | | |`);
+  lines.push(
+    `| **mean gap %, ${matched.length} instances where both reach the best-known vehicles** | | | | ${pct(mean(matched.map(([x]) => x.gapPct)))} | ${pct(mean(matched.map(([, y]) => y.gapPct)))} | | | | |`,
+  );
+  lines.push(`| **better on** | | | | | | ${a}: ${wins[0]}, ${b}: ${wins[1]}, equal: ${wins[2]} | | | |`);
+  const infeasible = [as, bs].map((rows) => rows.filter((r) => !r.feasible).length);
+  if (infeasible[0]! + infeasible[1]! > 0) lines.push(`| **infeasible plans** | | ${infeasible[0]} | ${infeasible[1]} | | | | | | |`);
+  return lines.join("\n");
+}
+
+/** Hierarchical order of two bench rows: feasible first, then fewer vehicles, then shorter (0.005 tolerance). */
+function compareRows(x: Row, y: Row): number {
+  if (x.feasible !== y.feasible) return x.feasible ? -1 : 1;
+  if ((x.vehicles ?? 0) !== (y.vehicles ?? 0)) return (x.vehicles ?? 0) - (y.vehicles ?? 0);
+  return Math.abs(x.ours - y.ours) < 0.005 ? 0 : x.ours - y.ours;
 }
 
 /** Rows of a small CSV without quoting, header dropped, as [name, ...values]. */
