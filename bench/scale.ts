@@ -13,10 +13,14 @@
  *    125-vehicle day in 180 s (seconds counted from the start, setup included), each in a child
  *    process of its own so that its peak resident memory (`process.resourceUsage().maxRSS`, the
  *    kernel's peak) is its own; feasibility re-checked by `evaluatePlan`.
+ * 4. **The same days in the page's worker** (`pageDay.ts`): Debian's Chromium runs the built
+ *    page's solver worker on each day; wall seconds, the worker's heap figure where the browser
+ *    gives one, and the renderer's peak resident memory. Skipped with the reason printed when
+ *    Chromium or the built page (`npm run build`) is missing.
  *
  * The instances are invented here (stops scattered around depots, windows over the day), no
  * real places. Run: `npx tsx bench/scale.ts [--label after] [--rounds 3] [--moves 1500000]
- * [--skip-days] [--only-days]`, or `npm run bench:scale`.
+ * [--skip-days] [--only-days] [--skip-page] [--only-page]`, or `npm run bench:scale`.
  */
 import { execFileSync } from "node:child_process";
 import { loadavg } from "node:os";
@@ -26,6 +30,7 @@ import { buildMatrix } from "../src/core/geo/buildMatrix.js";
 import type { Problem, Stop, Vehicle } from "../src/core/model.js";
 import { evaluatePlan } from "../src/core/schedule/evaluatePlan.js";
 import { createSolver } from "../src/core/solve.js";
+import { pageDaysUnavailable, runPageDays, type PageDayRow } from "./pageDay.js";
 import { benchEnvironment, writeResults } from "./results.js";
 
 const arg = (name: string): string | undefined => {
@@ -137,17 +142,27 @@ function runDay(n: number, vehicles: number, seconds: number): void {
   );
 }
 
+/** The whole days of parts 3 and 4: stops, vehicles, seconds. */
+const DAYS = [
+  [2000, 50, 60],
+  [5000, 125, 180],
+] as const;
+
 if (arg("--day") !== undefined) {
   runDay(Number(arg("--day")), Number(arg("--vehicles")), Number(arg("--seconds")));
 } else {
-  main();
+  main().catch((e: unknown) => {
+    console.error(`bench/scale: ${e instanceof Error ? e.message : String(e)}`);
+    process.exitCode = 1;
+  });
 }
 
-function main(): void {
+async function main(): Promise<void> {
   const label = arg("--label");
   const rounds = Math.max(1, Number(arg("--rounds") ?? 3));
   const moves = Math.max(10_000, Number(arg("--moves") ?? 1_500_000));
-  const onlyDays = process.argv.includes("--only-days");
+  const onlyPage = process.argv.includes("--only-page");
+  const onlyDays = process.argv.includes("--only-days") || onlyPage;
   const environment = { ...benchEnvironment(), loadAverageAtStart: loadavg().map((x) => Math.round(x * 10) / 10) };
   console.log(
     `Node ${environment.node}, ${environment.cpuModel} x${environment.cpuCount}, load average ${environment.loadAverageAtStart.join(" ")}`,
@@ -204,12 +219,9 @@ function main(): void {
 
   // 3. Whole days, each in a child process.
   const days: unknown[] = [];
-  if (!process.argv.includes("--skip-days")) {
+  if (!process.argv.includes("--skip-days") && !onlyPage) {
     const script = fileURLToPath(import.meta.url);
-    for (const [n, vehicles, seconds] of [
-      [2000, 50, 60],
-      [5000, 125, 180],
-    ] as const) {
+    for (const [n, vehicles, seconds] of DAYS) {
       const out = execFileSync(
         process.execPath,
         [...process.execArgv, script, "--day", String(n), "--vehicles", String(vehicles), "--seconds", String(seconds)],
@@ -225,6 +237,26 @@ function main(): void {
       console.log(
         `| ${d.stops} stops, ${d.vehicles} vehicles | ${d.budgetSeconds} | ${d.wallSeconds} | ${d.matrixSeconds} | ${d.setupSeconds} | ${d.evaluations} | ${d.feasible} | ${d.unassigned} | ${d.vehiclesUsed} | ${d.cost} | ${d.peakRssMB} |`,
       );
+  }
+  // 4. The same days in the page's worker.
+  let pageDays: PageDayRow[] | { skipped: string } = { skipped: "--skip-page" };
+  if (!process.argv.includes("--skip-page")) {
+    const why = pageDaysUnavailable();
+    if (why !== undefined) {
+      console.log(`\nPage worker days skipped: ${why}`);
+      pageDays = { skipped: why };
+    } else {
+      pageDays = await runPageDays(DAYS.map(([n, vehicles, seconds]) => ({ problem: scaleDay(n, vehicles), seconds })));
+      console.log(
+        "\nIn the page's solver worker (Chromium; memory: the renderer's peak resident set, page and worker together)\n" +
+          "| day | budget s | wall s | moves | feasible | unassigned | vehicles used | cost | worker heap MB | renderer peak RSS MB |\n" +
+          "|---|---:|---:|---:|:---|---:|---:|---:|---:|---:|",
+      );
+      for (const d of pageDays)
+        console.log(
+          `| ${d.stops} stops, ${d.vehicles} vehicles | ${d.budgetSeconds} | ${d.wallSeconds} | ${d.moves} | ${d.feasible} | ${d.unassigned} | ${d.vehiclesUsed} | ${d.cost} | ${d.workerPeakHeapMB ?? "not available"} | ${d.rendererPeakRssMB ?? "not available"} |`,
+        );
+    }
   }
   const loadAverageAtEnd = loadavg().map((x) => Math.round(x * 10) / 10);
   console.log(`\nload average at the end ${loadAverageAtEnd.join(" ")}`);
@@ -248,6 +280,7 @@ function main(): void {
       },
     },
     days,
+    pageDays,
   });
   console.log(`wrote ${file}`);
 }

@@ -45,6 +45,7 @@ const STEP_ORDER = [
   "windows",
   "seconds",
   "seed",
+  "workers",
   "rule",
   "schedule",
   "temperatures",
