@@ -499,7 +499,9 @@ export class PaneController {
     const matrixNote = await this.matrix.restore(record.matrixSource, this.matrixSkip());
     // The rerun lands in a sheet of its own: offer the next free name, not the plan's own.
     await this.suggestScenarioName();
-    // A re-planned run starts from the same plan sheet with the same routes locked.
+    // A re-planned run starts from the same plan sheet with the same routes locked (the plan
+    // sheets listed afresh: sheets may have been added or renamed since the list was made).
+    if (record.fromPlan !== undefined) await this.refreshPlanSheetList();
     const gone = await this.planSheet.restore(record.fromPlan, record.locked ?? []);
     const from = record.fromPlan !== undefined && gone === undefined ? `, starting from plan sheet "${record.fromPlan}"` : "";
     const distances = record.matrixSource !== undefined && matrixNote === undefined ? `, distances from ${record.matrixSource}` : "";
