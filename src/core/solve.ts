@@ -8,6 +8,7 @@ import { SOLVE_DEFAULTS, type Progress, type SolveOptions } from "./options.js";
 import { adaptPenalties, ADAPT_EVERY } from "./search/adaptPenalties.js";
 import { BestPlan } from "./search/BestPlan.js";
 import { EliminationSchedule } from "./search/EliminationSchedule.js";
+import { FinalDescent } from "./search/finalDescent.js";
 import { prepareRun } from "./search/prepareRun.js";
 import { keepHardRules } from "./schedule/keepHardRules.js";
 import type { SolveResult, Solver } from "./search/runTypes.js";
@@ -21,6 +22,7 @@ const TEMPERATURE_EVERY = 16;
  * The last part of the budget runs at temperature 0 (descent): the calibrated end temperature
  * matches the mean uphill change of the first plan, which is far larger than the changes near
  * a good plan, so without it the run would end on a plan slightly above its local optimum.
+ * The quench starts from the best feasible plan with a steepest descent (`finalDescent`).
  */
 const QUENCH_FROM = 0.95;
 
@@ -28,7 +30,8 @@ const QUENCH_FROM = 0.95;
  * Plan routes by simulated annealing (Kirkpatrick, Gelatt & Vecchi 1983) with Metropolis or
  * logistic acceptance over relocate, swap, 2-opt, 2-opt*, or-opt and pool moves in a granular
  * neighbourhood, time-warp and load penalties that adapt so the search crosses infeasible
- * plans, and the best feasible plan kept. When no plan serves every must-serve stop within the
+ * plans, and the best feasible plan kept; the last part of the budget descends from the best
+ * plan at temperature 0 (a steepest descent over the neighbourhood, then random improving moves). When no plan serves every must-serve stop within the
  * rules, the least violating one is cut back to the rules (`keepHardRules`): the stops left out
  * are unassigned with a reason, so the plan returned never breaks capacity, a hard window, a
  * shift, a feature or max stops.
@@ -82,6 +85,8 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   let fraction = 0;
   let temperature = t0;
   let done = active.length === 0;
+  let polished = false;
+  let descent: FinalDescent | undefined;
   const metropolis = o.rule === "metropolis";
   let progress: Progress = makeProgress();
 
@@ -98,6 +103,35 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     };
   }
 
+  /**
+   * Clock, abort and progress, every `CLOCK_EVERY` moves and after each slice of the final
+   * descent; true when the run is over.
+   */
+  function checkClock(): boolean {
+    if (o.signal?.aborted) {
+      done = true;
+      return true;
+    }
+    if (now) {
+      const t = now();
+      elapsedMs = t - startedAt;
+      if (seconds !== undefined) {
+        fraction = Math.min(1, elapsedMs / (seconds * 1000));
+        if (elapsedMs >= seconds * 1000) done = true;
+      }
+      if (o.onProgress && t - lastReportAt >= o.progressEveryMs) {
+        progress = makeProgress();
+        o.onProgress(progress);
+        lastReportAt = t;
+        acceptedSinceReport = 0;
+        movesSinceReport = 0;
+        worseSinceReport = 0;
+        worseAcceptedSinceReport = 0;
+      }
+    }
+    return done;
+  }
+
   function step(maxMoves: number): boolean {
     if (done) return true;
     if (o.signal?.aborted) {
@@ -109,11 +143,32 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
         done = true;
         break;
       }
+      if (descent) {
+        // The final descent, in slices of whole stops (the same evaluations however the run is
+        // sliced); its evaluations count as moves of the budget.
+        const left = budgetMoves !== undefined ? budgetMoves - moves : Number.MAX_SAFE_INTEGER;
+        const used = descent.run(left, maxMoves - k);
+        moves += used;
+        movesSinceReport += used;
+        evaluations += used;
+        k += Math.max(0, used - 1);
+        if (descent.finished || used === 0) descent = undefined;
+        if (budgetMoves !== undefined) fraction = Math.min(1, moves / budgetMoves);
+        if (checkClock()) break;
+        continue;
+      }
       moves++;
       movesSinceReport++;
       if (moves % TEMPERATURE_EVERY === 0) {
         if (budgetMoves !== undefined) fraction = moves / budgetMoves;
         temperature = fraction >= QUENCH_FROM ? 0 : temperatureAt(cooling, moves, fraction);
+        if (!polished && fraction >= QUENCH_FROM) {
+          // The quench starts from the best feasible plan, with a steepest descent on it.
+          polished = true;
+          if (best.feasibleFound) best.restore(state);
+          descent = new FinalDescent(state, moveNb, active, () => best.consider(state));
+          continue;
+        }
       }
       if (proposeMove(state, moveNb, rng, mv, active)) {
         evaluations++;
@@ -144,30 +199,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
           best.consider(state);
         }
       }
-      if (moves % CLOCK_EVERY === 0) {
-        if (o.signal?.aborted) {
-          done = true;
-          break;
-        }
-        if (now) {
-          const t = now();
-          elapsedMs = t - startedAt;
-          if (seconds !== undefined) {
-            fraction = Math.min(1, elapsedMs / (seconds * 1000));
-            if (elapsedMs >= seconds * 1000) done = true;
-          }
-          if (o.onProgress && t - lastReportAt >= o.progressEveryMs) {
-            progress = makeProgress();
-            o.onProgress(progress);
-            lastReportAt = t;
-            acceptedSinceReport = 0;
-            movesSinceReport = 0;
-            worseSinceReport = 0;
-            worseAcceptedSinceReport = 0;
-          }
-          if (done) break;
-        }
-      }
+      if (moves % CLOCK_EVERY === 0 && checkClock()) break;
     }
     if (now) elapsedMs = now() - startedAt;
     progress = makeProgress();

@@ -51,6 +51,20 @@ export class BestPlan {
     this.take(state);
   }
 
+  /** Put the best plan back into `state` (its routes and pool). */
+  restore(state: SearchState): void {
+    for (let v = 0; v < state.routes.length; v++) {
+      const r = state.routes[v]!;
+      if (r.len === 0) continue;
+      const stops = Array.from(r.nodes.subarray(1, r.len + 1));
+      state.setRoute(v, []);
+      for (const s of stops) state.addToPool(s);
+    }
+    this.routes.forEach((stops, v) => {
+      if (stops.length > 0) state.setRoute(v, stops);
+    });
+  }
+
   /** The best plan, exactly re-evaluated, with its unassigned stops and why. */
   plan(): Plan {
     const cp = this.cp;

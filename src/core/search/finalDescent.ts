@@ -1,0 +1,156 @@
+import type { Random } from "../anneal/createRandom.js";
+import { applyMove, Move, proposeMove } from "../moves/proposeMove.js";
+import type { SearchState } from "../moves/SearchState.js";
+import type { Neighbours } from "../neighbours/buildNeighbours.js";
+
+/**
+ * The choices `proposeMove` draws, given in turn instead of at random: a stop, one of its
+ * neighbours, then the move kind and its variant. Feeding every combination enumerates the
+ * whole neighbourhood of a stop with the very moves the annealer draws.
+ */
+class Choices implements Random {
+  readonly values = new Float64Array(6);
+  private at = 0;
+
+  set(neighbour: number, roll: number, kind: number, a: number, b: number): void {
+    const v = this.values;
+    v[0] = 0;
+    v[1] = neighbour;
+    v[2] = roll;
+    v[3] = kind;
+    v[4] = a;
+    v[5] = b;
+    this.at = 0;
+  }
+
+  next(): number {
+    return this.values[this.at++] ?? 0.5;
+  }
+
+  int(): number {
+    return this.values[this.at++] ?? 0;
+  }
+}
+
+/**
+ * Variants after the kind: (a, b) of the kinds' own draws. Relocate and swap draw nothing;
+ * 2-opt* draws which tails meet between routes (a < 0.5 or not; 2-opt within a route draws
+ * nothing, so its two entries are one move); or-opt draws its length (a: 0 = 2 stops,
+ * 1 = 3) and whether the chain is reversed (b < 0.5).
+ */
+const VARIANTS: readonly (readonly [number, number, number])[] = [
+  [0, 0, 0.25],
+  [1, 0, 0.25],
+  [2, 0, 0.25],
+  [3, 0.25, 0.25],
+  [3, 0.75, 0.25],
+  [4, 0, 0.25],
+  [4, 0, 0.75],
+  [4, 1, 0.25],
+  [4, 1, 0.75],
+];
+/** A roll past the pool and open-route draws of `proposeMove` (0.07): a move between two stops. */
+const ROLL_PAIR = 0.5;
+
+/**
+ * Steepest descent over the granular neighbourhood: for each stop in turn, every move
+ * `proposeMove` can make between it and one of its neighbours is evaluated and the best one
+ * applied when it lowers the penalised cost; sweeps over the stops repeat until a whole sweep
+ * improves nothing (a local optimum of the neighbourhood). Deterministic, and resumable
+ * between stops: `run` may be called with any quota, the evaluations are the same.
+ */
+export class FinalDescent {
+  /** True once a whole sweep improved nothing. */
+  finished = false;
+  private readonly choices = new Choices();
+  private readonly one = new Int32Array(1);
+  private readonly mv = new Move();
+  private readonly bestMv = new Move();
+  /** Next stop (index into `active`) and whether the sweep under way improved anything. */
+  private at = 0;
+  private improvedInSweep = false;
+
+  /**
+   * @param state - the solution, changed in place
+   * @param nb - neighbour lists
+   * @param active - the stops that may move
+   * @param improved - called after each applied move (e.g. to keep the best plan)
+   */
+  constructor(
+    private readonly state: SearchState,
+    private readonly nb: Neighbours,
+    private readonly active: Int32Array,
+    private readonly improved: () => void,
+  ) {
+    if (active.length === 0) this.finished = true;
+  }
+
+  /**
+   * Descend stop by stop until finished, `limit` evaluations are used (never more), or at least
+   * `quota` are used (checked between stops).
+   *
+   * @param limit - evaluations the budget still allows
+   * @param quota - evaluations after which to pause
+   * @returns the evaluations used
+   */
+  run(limit: number, quota: number): number {
+    const { state, nb, choices, one, mv } = this;
+    let used = 0;
+    while (!this.finished && used < limit && used < quota) {
+      one[0] = this.active[this.at]!;
+      const inPool = state.routeOf[one[0]]! === -1;
+      let best = -1e-9;
+      let bestKey = -1;
+      // With the granular neighbourhood off, every servable stop is a neighbour.
+      const K = nb.all ? nb.all.length : nb.k;
+      const count = inPool ? 2 : VARIANTS.length;
+      for (let k = 0; k < K; k++) {
+        for (let i = 0; i < count && used < limit - 1; i++) {
+          this.choose(k, i, inPool);
+          if (!proposeMove(state, nb, choices, mv, one)) continue;
+          used++;
+          if (mv.delta < best) {
+            best = mv.delta;
+            bestKey = k * VARIANTS.length + i;
+          }
+        }
+      }
+      if (used >= limit - 1 && bestKey < 0) break;
+      if (bestKey >= 0) {
+        // Evaluate the best again: its route results must be the last ones in `state.out`.
+        this.choose(Math.floor(bestKey / VARIANTS.length), bestKey % VARIANTS.length, inPool);
+        proposeMove(state, nb, choices, this.bestMv, one);
+        used++;
+        applyMove(state, this.bestMv);
+        this.improved();
+        this.improvedInSweep = true;
+      }
+      if (++this.at === this.active.length) {
+        this.at = 0;
+        if (!this.improvedInSweep) this.finished = true;
+        this.improvedInSweep = false;
+      }
+    }
+    return used;
+  }
+
+  private choose(k: number, i: number, inPool: boolean): void {
+    if (inPool) this.choices.set(k, i === 0 ? 0.25 : 0.75, 0, 0, 0);
+    else this.choices.set(k, ROLL_PAIR, VARIANTS[i]![0], VARIANTS[i]![1], VARIANTS[i]![2]);
+  }
+}
+
+/**
+ * Run a `FinalDescent` to its end or to `maxEvaluations`.
+ *
+ * @param state - the solution, changed in place
+ * @param nb - neighbour lists
+ * @param active - the stops that may move
+ * @param maxEvaluations - evaluations allowed
+ * @param improved - called after each applied move
+ * @returns the evaluations used
+ * @example finalDescent(state, nb, active, 1e6, () => best.consider(state))
+ */
+export function finalDescent(state: SearchState, nb: Neighbours, active: Int32Array, maxEvaluations: number, improved: () => void): number {
+  return new FinalDescent(state, nb, active, improved).run(maxEvaluations, Number.MAX_SAFE_INTEGER);
+}
