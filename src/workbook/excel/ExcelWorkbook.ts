@@ -1,22 +1,24 @@
-import type { CellValue, PrintSetup, RouteChart, SheetGrid } from "../../sheets/grid.js";
+import type { CellValue, RouteChart, SheetGrid } from "../../sheets/grid.js";
+import { checkPrintSetup } from "../../sheets/printSetup.js";
 import type { RunWrite, SheetRead, WorkbookPort } from "../WorkbookPort.js";
+import { addSheetIn } from "./addSheetIn.js";
+import { applyPrintSetup } from "./applyPrintSetup.js";
 import { excelCapabilities, type ExcelCapabilities } from "./excelCapabilities.js";
 import { readMerges, readSelectionIn, readUsedRange, readValues, toRead, type SelectionRead } from "./excelReads.js";
-import { checkSheetName, deleteSheets, writeNewSheet } from "./excelSheetWrite.js";
+import { checkSheetName, writeVeryHiddenSheetIn } from "./excelSheetWrite.js";
+import { fillEmptyCellsIn } from "./fillEmptyCellsIn.js";
 import { OfficeActionError } from "./OfficeActionError.js";
-import { planGridWrite, type GridWritePlan } from "./planGridWrite.js";
-import { textCheckNotice, verifyTextCells } from "./verifyTextCells.js";
-import { queueGridWrite } from "./queueGridWrite.js";
-import { queuePrintSetup } from "./queuePrintSetup.js";
-import { queueRouteChart } from "./queueRouteChart.js";
-import { checkPrintSetup } from "../../sheets/printSetup.js";
+import { planGridWrite } from "./planGridWrite.js";
+import { queueAppend } from "./queueAppend.js";
 import { parseBlock, parseRangeAddress } from "./rangeAddress.js";
 import { readGeographyIn, type GeographyRead } from "./readGeographyIn.js";
+import { checkWrittenText } from "./verifyTextCells.js";
+import { watchSheetsIn, type SheetChange } from "./watchSheetsIn.js";
+import { writeRunIn } from "./writeRunIn.js";
 
 export type { ExcelCapabilities, GeographyRead, SelectionRead };
 
-/** A change to the workbook's list of sheets (`ExcelWorkbook.watchSheets`). */
-export type SheetChange = { readonly kind: "added" | "deleted" } | { readonly kind: "renamed"; readonly from: string; readonly to: string };
+export type { SheetChange };
 
 /** Options of `ExcelWorkbook`. */
 export interface ExcelWorkbookOptions {
@@ -88,51 +90,7 @@ export class ExcelWorkbook implements WorkbookPort {
     if (grid.print) checkPrintSetup(grid.print, grid.values.length);
     const plan = planGridWrite(grid, { budgetBytes: this.#budgetBytes });
     const caps = this.capabilities();
-    await this.#run(`add the sheet "${name}"`, async (context) => {
-      const existing = context.workbook.worksheets.getItemOrNullObject(name);
-      existing.load("isNullObject");
-      await context.sync();
-      if (!existing.isNullObject) throw new Error(`a sheet named "${name}" already exists; choose a free name`);
-      await writeNewSheet(context, name, async (sheet) => {
-        await queueGridWrite(context, sheet, plan, { freeze: caps.freezePanes });
-        if (chart && chart.series.length > 0) {
-          if (caps.charts) queueRouteChart(sheet, chart);
-          else this.#notice(`The route chart on "${name}" was skipped: it needs Excel with ExcelApi 1.7 or later.`);
-        }
-      });
-      if (!caps.freezePanes && plan.freezeRows > 0) this.#notice(`Header rows of "${name}" are not frozen: that needs ExcelApi 1.7.`);
-      await this.#checkText(context, name, plan);
-      if (grid.print) await this.#applyPrintSetup(context, name, grid.print, caps.printLayout);
-    });
-  }
-
-  /** Reads back the risky text cells just written and tells the pane about any Excel changed. */
-  async #checkText(context: Excel.RequestContext, name: string, plan: GridWritePlan): Promise<void> {
-    if (plan.checkCells.length === 0) return;
-    const notice = textCheckNotice(name, await verifyTextCells(context, context.workbook.worksheets.getItem(name), plan));
-    if (notice) this.#notice(notice);
-  }
-
-  /**
-   * Print settings go in their own sync after the sheet is written, so a host that refuses
-   * one of them keeps the plan; what could not be set is told as a notice.
-   */
-  async #applyPrintSetup(context: Excel.RequestContext, name: string, print: PrintSetup, supported: boolean): Promise<void> {
-    const skipped = `Print settings of "${name}" (orientation, paper, fit to width, title rows, page breaks, header and footer)`;
-    const sheet = context.workbook.worksheets.getItem(name);
-    if (!supported || !("pageLayout" in sheet) || !("horizontalPageBreaks" in sheet)) {
-      this.#notice(
-        `${skipped} were not set: they need Excel with ExcelApi 1.9 or later. Set them under Page Layout if you print the sheet.`,
-      );
-      return;
-    }
-    try {
-      queuePrintSetup(sheet, print);
-      await context.sync();
-    } catch (error) {
-      const why = new OfficeActionError("set them", error).message;
-      this.#notice(`${skipped} were not all set. ${why}. The plan was written; check them under Page Layout before printing.`);
-    }
+    await this.#run(`add the sheet "${name}"`, (context) => addSheetIn(context, name, grid, chart, plan, caps, this.#notice));
   }
 
   /**
@@ -144,36 +102,10 @@ export class ExcelWorkbook implements WorkbookPort {
     checkSheetName(name);
     const caps = this.capabilities();
     await this.#run(`append rows to the sheet "${name}"`, async (context) => {
-      const rowsPlan = await this.#queueAppend(context, name, header, rows, caps.freezePanes);
+      const rowsPlan = await queueAppend(context, name, header, rows, caps.freezePanes, this.#budgetBytes);
       await context.sync();
-      await this.#checkText(context, name, rowsPlan);
+      await checkWrittenText(context, name, rowsPlan, this.#notice);
     });
-  }
-
-  /**
-   * Reads where `name` ends and queues the header (for a new or empty sheet) and the rows below
-   * it; the caller syncs. A missing sheet is added (and removed again if its first write fails).
-   */
-  async #queueAppend(
-    context: Excel.RequestContext,
-    name: string,
-    header: SheetGrid,
-    rows: SheetGrid,
-    freezePanes: boolean,
-    beforeWrite?: () => void,
-  ): Promise<GridWritePlan> {
-    const used = await readUsedRange(context, name, "isNullObject, rowIndex, rowCount");
-    beforeWrite?.();
-    const start = used === undefined || used.isNullObject ? 0 : used.rowIndex + used.rowCount;
-    const headerPlan = start === 0 ? planGridWrite(header, { budgetBytes: this.#budgetBytes }) : undefined;
-    const rowsPlan = planGridWrite(rows, { startRow: start + (headerPlan?.rows ?? 0), budgetBytes: this.#budgetBytes });
-    const write = async (sheet: Excel.Worksheet): Promise<void> => {
-      if (headerPlan) await queueGridWrite(context, sheet, headerPlan, { freeze: freezePanes && used === undefined });
-      await queueGridWrite(context, sheet, rowsPlan, { freeze: false });
-    };
-    if (used === undefined) await writeNewSheet(context, name, write);
-    else await write(context.workbook.worksheets.getItem(name));
-    return rowsPlan;
   }
 
   /**
@@ -196,75 +128,17 @@ export class ExcelWorkbook implements WorkbookPort {
     const action = `write the plan "${run.sheets[0]?.name ?? ""}"`;
     const attempt = (): Promise<void> =>
       this.#run(action, async (context) => {
-        const appended = await this.#writeRunIn(context, run, plans, caps);
-        for (const [i, sheet] of run.sheets.entries()) await this.#checkText(context, sheet.name, plans[i]!);
-        await this.#checkText(context, run.append.name, appended);
+        const appended = await writeRunIn(context, run, plans, caps, { budgetBytes: this.#budgetBytes, notice: this.#notice });
+        for (const [i, sheet] of run.sheets.entries()) await checkWrittenText(context, sheet.name, plans[i]!, this.#notice);
+        await checkWrittenText(context, run.append.name, appended, this.#notice);
         for (const sheet of run.sheets)
-          if (sheet.grid.print) await this.#applyPrintSetup(context, sheet.name, sheet.grid.print, caps.printLayout);
+          if (sheet.grid.print) await applyPrintSetup(context, sheet.name, sheet.grid.print, caps.printLayout, this.#notice);
       });
     try {
       await attempt();
     } catch (error) {
       if (!(error instanceof OfficeActionError) || error.code !== "GeneralException") throw error;
       await attempt();
-    }
-  }
-
-  async #writeRunIn(
-    context: Excel.RequestContext,
-    run: RunWrite,
-    plans: readonly GridWritePlan[],
-    caps: ExcelCapabilities,
-  ): Promise<GridWritePlan> {
-    const sheets = context.workbook.worksheets;
-    sheets.load("items/name, items/position");
-    await context.sync();
-    const taken = new Set(sheets.items.map((s) => s.name.toLowerCase()));
-    for (const sheet of run.sheets) {
-      if (taken.has(sheet.name.toLowerCase())) throw new Error(`a sheet named "${sheet.name}" already exists; choose a free name`);
-    }
-    // New sheets go before the Compare sheet (worksheet.position, ExcelApi 1.1), so Compare stays
-    // after the plans it compares; without a Compare sheet yet they go at the end, as `add` puts them.
-    const compare = sheets.items.find((s) => s.name.toLowerCase() === run.append.name.toLowerCase());
-    const added: string[] = [];
-    try {
-      for (const [i, sheet] of run.sheets.entries()) {
-        const ws = sheets.add(sheet.name);
-        if (compare) ws.position = compare.position + i;
-        added.push(sheet.name);
-        await queueGridWrite(context, ws, plans[i]!, { freeze: caps.freezePanes });
-        if (sheet.chart && sheet.chart.series.length > 0) {
-          if (caps.charts) queueRouteChart(ws, sheet.chart);
-          else this.#notice(`The route chart on "${sheet.name}" was skipped: it needs Excel with ExcelApi 1.7 or later.`);
-        }
-        if (!caps.freezePanes && plans[i]!.freezeRows > 0)
-          this.#notice(`Header rows of "${sheet.name}" are not frozen: that needs ExcelApi 1.7.`);
-      }
-      await context.sync();
-      let id: string | undefined;
-      const first = run.sheets[0];
-      if (first) {
-        const ws = sheets.getItem(first.name);
-        ws.load("id");
-        await context.sync();
-        id = ws.id;
-      }
-      // The record goes into the same batch as the Compare rows, after the last read that may fail.
-      const { key, value } = run.record(id);
-      const appended = await this.#queueAppend(context, run.append.name, run.append.header, run.append.rows, caps.freezePanes, () =>
-        context.workbook.settings.add(key, value),
-      );
-      await context.sync();
-      return appended;
-    } catch (error) {
-      const kept = await deleteSheets(context, added);
-      const what =
-        added.length === 0
-          ? ""
-          : kept
-            ? " (the sheets it had added were removed)"
-            : ` (remove the half-written sheets ${added.map((n) => `"${n}"`).join(", ")} by hand)`;
-      throw new OfficeActionError(`write the plan${what}`, error);
     }
   }
 
@@ -290,24 +164,7 @@ export class ExcelWorkbook implements WorkbookPort {
    */
   async writeVeryHiddenSheet(name: string, values: readonly (readonly CellValue[])[]): Promise<void> {
     checkSheetName(name);
-    const width = Math.max(0, ...values.map((r) => r.length));
-    const grid = values.map((r) => Array.from({ length: width }, (_, c) => r[c] ?? ""));
-    await this.#run(`store the sheet "${name}"`, async (context) => {
-      const found = context.workbook.worksheets.getItemOrNullObject(name);
-      found.load("isNullObject");
-      await context.sync();
-      let sheet = found;
-      if (found.isNullObject) {
-        sheet = context.workbook.worksheets.add(name);
-        sheet.visibility = Excel.SheetVisibility.veryHidden;
-      } else sheet.getRange().clear(Excel.ClearApplyTo.contents);
-      if (grid.length > 0 && width > 0) {
-        const range = sheet.getRangeByIndexes(0, 0, grid.length, width);
-        range.numberFormat = grid.map((r) => r.map(() => "@"));
-        range.values = grid;
-      }
-      await context.sync();
-    });
+    await this.#run(`store the sheet "${name}"`, (context) => writeVeryHiddenSheetIn(context, name, values));
   }
 
   /**
@@ -320,24 +177,7 @@ export class ExcelWorkbook implements WorkbookPort {
   async fillEmptyCells(sheet: string, row: number, col: number, values: readonly (readonly CellValue[])[]): Promise<number> {
     const width = Math.max(0, ...values.map((r) => r.length));
     if (values.length === 0 || width === 0) return 0;
-    return this.#run(`add values to the sheet "${sheet}"`, async (context) => {
-      const range = context.workbook.worksheets.getItem(sheet).getRangeByIndexes(row, col, values.length, width);
-      range.load("values");
-      await context.sync();
-      let written = 0;
-      const grid = range.values.map((line, r) =>
-        line.map((now, c) => {
-          const v = values[r]?.[c] ?? null;
-          if (v === null || v === "" || (now !== "" && now !== null)) return null;
-          written++;
-          return v;
-        }),
-      );
-      if (written === 0) return 0;
-      range.values = grid as unknown as (string | number | boolean)[][];
-      await context.sync();
-      return written;
-    });
+    return this.#run(`add values to the sheet "${sheet}"`, (context) => fillEmptyCellsIn(context, sheet, row, col, values, width));
   }
 
   /** The add-in's settings of this workbook (`workbook.settings`, ExcelApi 1.4), as text. */
@@ -435,7 +275,6 @@ export class ExcelWorkbook implements WorkbookPort {
     });
   }
 
-  /** Name of the active worksheet. */
   /**
    * Call `listener` whenever a sheet is added, deleted (ExcelApi 1.7) or renamed (ExcelApi 1.17)
    * in the workbook, by the user or by a co-author, so lists of sheets can follow. The handlers
@@ -449,16 +288,10 @@ export class ExcelWorkbook implements WorkbookPort {
   async watchSheets(listener: (change: SheetChange) => void): Promise<{ added: boolean; deleted: boolean; renamed: boolean }> {
     const caps = this.capabilities();
     if (!caps.sheetEvents) return { added: false, deleted: false, renamed: false };
-    return this.#run("watch the sheets for changes", async (context) => {
-      const sheets = context.workbook.worksheets;
-      sheets.onAdded.add(async () => listener({ kind: "added" }));
-      sheets.onDeleted.add(async () => listener({ kind: "deleted" }));
-      if (caps.sheetRenameEvents) sheets.onNameChanged.add(async (e) => listener({ kind: "renamed", from: e.nameBefore, to: e.nameAfter }));
-      await context.sync();
-      return { added: true, deleted: true, renamed: caps.sheetRenameEvents };
-    });
+    return this.#run("watch the sheets for changes", (context) => watchSheetsIn(context, caps, listener));
   }
 
+  /** Name of the active worksheet. */
   async activeSheetName(): Promise<string> {
     return this.#run("find the active sheet", async (context) => {
       const ws = context.workbook.worksheets.getActiveWorksheet();

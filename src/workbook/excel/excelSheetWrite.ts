@@ -1,3 +1,4 @@
+import type { CellValue } from "../../sheets/grid.js";
 import { OfficeActionError } from "./OfficeActionError.js";
 
 /**
@@ -44,3 +45,31 @@ export async function deleteSheets(context: Excel.RequestContext, names: readonl
 }
 
 export { checkSheetName } from "../../sheets/uniqueSheetName.js";
+
+/**
+ * Replaces the content of the very hidden sheet `name` (`Excel.SheetVisibility.veryHidden`,
+ * ExcelApi 1.1) in the batch of `context`, adding it when absent; values are written as text
+ * ("@"). One sync to find the sheet, one to write.
+ */
+export async function writeVeryHiddenSheetIn(
+  context: Excel.RequestContext,
+  name: string,
+  values: readonly (readonly CellValue[])[],
+): Promise<void> {
+  const width = Math.max(0, ...values.map((r) => r.length));
+  const grid = values.map((r) => Array.from({ length: width }, (_, c) => r[c] ?? ""));
+  const found = context.workbook.worksheets.getItemOrNullObject(name);
+  found.load("isNullObject");
+  await context.sync();
+  let sheet = found;
+  if (found.isNullObject) {
+    sheet = context.workbook.worksheets.add(name);
+    sheet.visibility = Excel.SheetVisibility.veryHidden;
+  } else sheet.getRange().clear(Excel.ClearApplyTo.contents);
+  if (grid.length > 0 && width > 0) {
+    const range = sheet.getRangeByIndexes(0, 0, grid.length, width);
+    range.numberFormat = grid.map((r) => r.map(() => "@"));
+    range.values = grid;
+  }
+  await context.sync();
+}

@@ -51,3 +51,15 @@ export function textCheckNotice(sheet: string, result: Awaited<ReturnType<typeof
   if (result.unchecked > 0) parts.push(`${result.unchecked} more text cells of "${sheet}" starting with = + - @ or ' were not checked.`);
   return parts.length > 0 ? parts.join(" ") : undefined;
 }
+
+/** Reads back the risky text cells of `plan` just written to `name` and tells `notice` about any Excel changed. */
+export async function checkWrittenText(
+  context: Excel.RequestContext,
+  name: string,
+  plan: GridWritePlan,
+  notice: (message: string) => void,
+): Promise<void> {
+  if (plan.checkCells.length === 0) return;
+  const text = textCheckNotice(name, await verifyTextCells(context, context.workbook.worksheets.getItem(name), plan));
+  if (text) notice(text);
+}
