@@ -1,3 +1,5 @@
+import type { Issue } from "../core/index.js";
+import type { SheetRead } from "./grid.js";
 import { FIELD_LABELS, fieldLabel } from "./fieldLabels.js";
 import { fieldKey, headerWords, matchHeader, type TableKind } from "./matchHeaders.js";
 
@@ -140,4 +142,26 @@ export function storedColumnMap(json: string | undefined): ColumnMapEntry[] {
   } catch {
     return [];
   }
+}
+
+/**
+ * Mappings the user typed (an option or a Settings row, so with a `where`) whose header is in
+ * neither table: an issue each, since a misspelt header would otherwise change nothing silently.
+ * Mappings remembered by the pane are for whatever tables come next and are not checked.
+ */
+export function unmatchedMappings(
+  columnMap: readonly ColumnMapEntry[],
+  used: readonly ColumnMapEntry[],
+  input: { stops: SheetRead; fleet: SheetRead },
+  tablesRead: boolean,
+): Issue[] {
+  if (!tablesRead) return [];
+  const applied = new Set(used.map((e) => e.header));
+  return columnMap
+    .filter((e) => e.where !== undefined && !applied.has(e.header))
+    .map((e) => ({
+      sheet: e.where!.includes("!") ? e.where!.slice(0, e.where!.lastIndexOf("!")) : "options",
+      cell: e.where!.includes("!") ? e.where!.slice(e.where!.lastIndexOf("!") + 1) : "",
+      message: `${e.where}: no column headed "${e.header}" in the stops table (${input.stops.sheet}) or the fleet table (${input.fleet.sheet}); check the header as it is typed in the table (case, spaces and punctuation do not matter) or remove the mapping.`,
+    }));
 }
