@@ -11,9 +11,11 @@
 import type { LatLon, Plan, Problem } from "../core/index.js";
 import { depotName, describeRoutes, stopHoverText } from "./describeRoutes.js";
 import type { DoubtfulPlace } from "./doubtfulPlaces.js";
-import { DEPOT_HALF_PX, drawDoubtful, drawRouteLayer, type DrawnRoute, type MapPoint } from "./drawRouteLayer.js";
+import { drawRouteLayer, type DrawnRoute, type MapPoint } from "./drawRouteLayer.js";
 import { fitEquirectangular, type FittedProjection } from "./fitEquirectangular.js";
-import { placeLabels, type Box, type LabelRequest } from "./placeLabels.js";
+import { placeMapLabels } from "./mapLabels.js";
+import { renderMapLegend } from "./mapLegend.js";
+import { renderMapText } from "./mapText.js";
 import { vehicleStyle, type RouteStyle } from "./vehicleColour.js";
 
 /** The elements the map draws into (see taskpane.html). */
@@ -40,9 +42,6 @@ interface HoverPoint extends MapPoint {
   readonly text: string;
 }
 
-const LABEL_FONT = "600 11px Segoe UI, sans-serif";
-const LABEL_H_PX = 16;
-const LABEL_PAD_PX = 4;
 /** Numbers go into every stop marker when no two stops are closer than this, px. */
 const NUMBER_SPACING_PX = 17;
 const PADDING_PX = 26;
@@ -161,14 +160,14 @@ export class RouteMap {
       h,
     );
 
-    this.placeLabelElements(ctx, depots, routes, scaleBox, w, h);
-    this.renderLegend(routes, doubtful.length);
+    placeMapLabels(this.el.labels, ctx, depots, routes, scaleBox, w, h);
+    renderMapLegend(this.el.legend, routes, doubtful.length, this.highlighted, (v) => this.toggleHighlight(v));
     const words = describeRoutes(
       problem,
       plan,
       styles.map((s) => (s ? `${s.colourName}${s.dash.length ? " dashed" : ""} line` : "")),
     );
-    renderText(
+    renderMapText(
       this.el.text,
       words,
       depots.map((d) => d.name),
@@ -180,99 +179,6 @@ export class RouteMap {
     canvas.dataset.routes = JSON.stringify(routes.map((r) => ({ vehicle: r.vehicle, stops: r.stops })));
     canvas.dataset.highlight = this.highlighted ?? "";
     canvas.dataset.depots = JSON.stringify(depots.map((d) => ({ name: d.name, x: Math.round(d.x), y: Math.round(d.y) })));
-  }
-
-  private placeLabelElements(
-    ctx: CanvasRenderingContext2D,
-    depots: readonly (MapPoint & { name: string })[],
-    routes: readonly { vehicle: string; first: MapPoint; style: RouteStyle }[],
-    scaleBox: Box,
-    w: number,
-    h: number,
-  ): void {
-    ctx.font = LABEL_FONT;
-    // A long name (a depot shared by many vehicles) is cut with an ellipsis so it still finds a place;
-    // its hover text and the map in words carry it in full.
-    const maxW = Math.round(Math.max(90, Math.min(220, w * 0.5)));
-    const size = (text: string) => ({ w: Math.min(maxW, Math.ceil(ctx.measureText(text).width) + 2 * LABEL_PAD_PX + 2), h: LABEL_H_PX });
-    const depotBoxes = depots.map((d) => ({
-      x: d.x - DEPOT_HALF_PX - 1,
-      y: d.y - DEPOT_HALF_PX - 1,
-      w: 2 * DEPOT_HALF_PX + 2,
-      h: 2 * DEPOT_HALF_PX + 2,
-    }));
-    // Depots first: a depot's name matters more than where a vehicle's label sits.
-    const requests: (LabelRequest & { text: string; kind: "depot" | "vehicle"; colour?: string })[] = [
-      ...depots.map((d) => ({ x: d.x, y: d.y, ...size(d.name), text: d.name, kind: "depot" as const })),
-      ...routes.map((r) => ({
-        x: r.first.x,
-        y: r.first.y,
-        ...size(r.vehicle),
-        text: r.vehicle,
-        kind: "vehicle" as const,
-        colour: r.style.colour,
-      })),
-    ];
-    const boxes = placeLabels(requests, { width: w, height: h, obstacles: [...depotBoxes, scaleBox] });
-    const nodes: HTMLElement[] = [];
-    requests.forEach((req, i) => {
-      const box = boxes[i];
-      if (!box) return;
-      const span = document.createElement("span");
-      span.className = `map-label ${req.kind}`;
-      span.textContent = req.text;
-      span.style.left = `${box.x}px`;
-      span.style.top = `${box.y}px`;
-      span.style.width = `${box.w}px`;
-      span.style.height = `${box.h}px`;
-      if (req.colour) span.style.borderLeftColor = req.colour;
-      nodes.push(span);
-    });
-    this.el.labels.replaceChildren(...nodes);
-    this.el.labels.dataset.omitted = String(boxes.filter((b) => !b).length);
-  }
-
-  private renderLegend(routes: readonly { vehicle: string; style: RouteStyle; stops: string[]; km: number }[], doubtful: number): void {
-    const notes: HTMLElement[] = [];
-    if (doubtful > 0) {
-      // The legend's key for the doubtful marker: the same ring and "?" drawn on a small canvas.
-      const item = document.createElement("li");
-      item.className = "legend-note doubtful";
-      const key = document.createElement("canvas");
-      const ratio = window.devicePixelRatio || 1;
-      key.width = Math.round(28 * ratio);
-      key.height = Math.round(28 * ratio);
-      key.className = "legend-key";
-      key.setAttribute("aria-hidden", "true");
-      const kctx = key.getContext("2d");
-      if (kctx) {
-        kctx.setTransform(ratio, 0, 0, ratio, 0, 0);
-        drawDoubtful(kctx, { x: 13, y: 15 });
-      }
-      item.append(key, `doubtful address match (${doubtful}): check the place; see the geocoding review`);
-      notes.push(item);
-    }
-    this.el.legend.replaceChildren(
-      ...routes.map((r) => {
-        const item = document.createElement("li");
-        const button = document.createElement("button");
-        button.type = "button";
-        button.className = "legend-entry";
-        button.dataset.vehicle = r.vehicle;
-        button.setAttribute("aria-pressed", String(this.highlighted === r.vehicle));
-        button.title = this.highlighted === r.vehicle ? "Show all routes" : `Highlight the route of ${r.vehicle}`;
-        const swatch = document.createElement("span");
-        swatch.className = "swatch";
-        swatch.style.borderTopColor = r.style.colour;
-        swatch.style.borderTopStyle =
-          r.style.dash.length === 0 ? "solid" : r.style.dash.length === 2 ? (r.style.dash[0]! > 4 ? "dashed" : "dotted") : "double";
-        button.append(swatch, `${r.vehicle}: ${r.stops.length} stops, ${Math.round(r.km * 10) / 10} km`);
-        button.addEventListener("click", () => this.toggleHighlight(r.vehicle));
-        item.append(button);
-        return item;
-      }),
-      ...notes,
-    );
   }
 
   private toggleHighlight(vehicle: string): void {
@@ -329,55 +235,4 @@ function isSparse(points: readonly MapPoint[]): boolean {
     grid.set(key, [...(grid.get(key) ?? []), p]);
   }
   return true;
-}
-
-function renderText(
-  target: HTMLElement,
-  words: ReturnType<typeof describeRoutes>,
-  depots: readonly string[],
-  doubtful: readonly DoubtfulPlace[],
-): void {
-  const heading = document.createElement("p");
-  heading.textContent = `Route map in words: ${words.routes.length} route${words.routes.length === 1 ? "" : "s"}; depots: ${[...new Set(depots)].join(", ")}.`;
-  const list = document.createElement("ul");
-  for (const r of words.routes) {
-    const li = document.createElement("li");
-    const ol = document.createElement("ol");
-    ol.append(
-      ...r.stops.map((s) => {
-        const item = document.createElement("li");
-        item.textContent = s;
-        return item;
-      }),
-    );
-    li.append(r.summary, ol);
-    list.append(li);
-  }
-  const nodes: HTMLElement[] = [heading, list];
-  if (words.unassigned.length > 0) {
-    const un = document.createElement("ul");
-    un.append(
-      ...words.unassigned.map((s) => {
-        const item = document.createElement("li");
-        item.textContent = s;
-        return item;
-      }),
-    );
-    nodes.push(un);
-  }
-  if (doubtful.length > 0) {
-    const note = document.createElement("p");
-    note.textContent = `Doubtful address matches, marked with a dashed ring and a question mark: ${doubtful.length}.`;
-    const list = document.createElement("ul");
-    list.className = "doubtful";
-    list.append(
-      ...doubtful.map((d) => {
-        const item = document.createElement("li");
-        item.textContent = `${d.name} (${d.cell}): ${d.match}`;
-        return item;
-      }),
-    );
-    nodes.push(note, list);
-  }
-  target.replaceChildren(...nodes);
 }
