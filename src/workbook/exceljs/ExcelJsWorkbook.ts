@@ -7,17 +7,10 @@ import { writeGrid } from "./writeGrid.js";
 import { writePrintSetup } from "./writePrintSetup.js";
 import { checkPrintSetup } from "../../sheets/printSetup.js";
 import { checkSheetName } from "../../sheets/uniqueSheetName.js";
+import { MAX_CELL_TEXT, readSettingRows, SETTINGS_SHEET, writeSettingRow } from "./settingsSheet.js";
+import { lastUsedRow, readUsedRange } from "./usedRange.js";
 
-/**
- * Name of the very hidden sheet that holds the add-in's key/value settings in a file.
- * Excel's own per-add-in store (`workbook.settings`) is not reachable from a file library,
- * so files carry the same keys as `Key | Value` rows on a sheet users cannot unhide from
- * the Excel UI ("veryHidden", ECMA-376 Part 1, 18.18.68 ST_SheetState).
- */
-export const SETTINGS_SHEET = "kiln-settings";
-
-/** Excel's longest cell text (Excel specifications and limits: 32,767 characters). */
-const MAX_CELL_TEXT = 32_767;
+export { SETTINGS_SHEET };
 
 /**
  * A `WorkbookPort` over an .xlsx file held in memory, through exceljs. It takes and gives
@@ -127,43 +120,7 @@ export class ExcelJsWorkbook implements WorkbookPort {
    */
   async readSheet(name: string): Promise<SheetRead | undefined> {
     const ws = this.findSheet(name);
-    if (!ws) return undefined;
-    let top = Infinity,
-      left = Infinity,
-      bottom = -1,
-      right = -1;
-    ws.eachRow({ includeEmpty: false }, (row, r) => {
-      row.eachCell({ includeEmpty: false }, (cell, c) => {
-        if (rawCellValue(cell.value) === "") return;
-        top = Math.min(top, r);
-        bottom = Math.max(bottom, r);
-        left = Math.min(left, c);
-        right = Math.max(right, c);
-      });
-    });
-    if (bottom < 0) return { sheet: ws.name, row: 0, col: 0, values: [] };
-    const values: (number | string | boolean)[][] = [];
-    // Merged areas, from their cells in the range (cheaper than `ws.model.merges`, which builds every row's model).
-    const merges = new Map<string, { row: number; col: number; bottom: number; right: number }>();
-    for (let r = top; r <= bottom; r++) {
-      const row = ws.getRow(r);
-      const line: (number | string | boolean)[] = [];
-      for (let c = left; c <= right; c++) {
-        const cell = row.getCell(c);
-        line.push(rawCellValue(cell.value));
-        if (!cell.isMerged) continue;
-        const master = cell.master;
-        const m = merges.get(master.address) ?? { row: Number(master.row), col: Number(master.col), bottom: r, right: c };
-        m.bottom = Math.max(m.bottom, r);
-        m.right = Math.max(m.right, c);
-        merges.set(master.address, m);
-      }
-      values.push(line);
-    }
-    const blocks = [...merges.values()]
-      .filter((m) => m.bottom > m.row || m.right > m.col)
-      .map((m) => ({ row: m.row - 1, col: m.col - 1, rows: m.bottom - m.row + 1, cols: m.right - m.col + 1 }));
-    return { sheet: ws.name, row: top - 1, col: left - 1, values, ...(blocks.length > 0 ? { merges: blocks } : {}) };
+    return ws ? readUsedRange(ws) : undefined;
   }
 
   /**
@@ -293,15 +250,7 @@ export class ExcelJsWorkbook implements WorkbookPort {
    */
   async readSettings(): Promise<Record<string, string>> {
     const ws = this.findSheet(SETTINGS_SHEET);
-    const settings: Record<string, string> = {};
-    if (!ws) return settings;
-    ws.eachRow({ includeEmpty: false }, (row, r) => {
-      if (r === 1) return; // header
-      const key = rawCellValue(row.getCell(1).value);
-      if (key === "") return;
-      settings[String(key)] = String(rawCellValue(row.getCell(2).value));
-    });
-    return settings;
+    return ws ? readSettingRows(ws) : {};
   }
 
   /**
@@ -322,12 +271,7 @@ export class ExcelJsWorkbook implements WorkbookPort {
       ws.state = "veryHidden";
       writeGrid(ws, { values: [["Key", "Value"]], boldRows: [0] }, 1);
     }
-    let target = lastUsedRow(ws) + 1;
-    ws.eachRow({ includeEmpty: false }, (row, r) => {
-      if (r > 1 && rawCellValue(row.getCell(1).value) === key) target = r;
-    });
-    // Text format so a value such as "=1" or "0012" comes back exactly as written.
-    writeGrid(ws, { values: [[key, value]], numberFormats: [["@", "@"]] }, target, { layout: false });
+    writeSettingRow(ws, key, value);
   }
 
   /** True for a workbook in the 1904 date system (old Mac files). */
@@ -356,16 +300,6 @@ export class ExcelJsWorkbook implements WorkbookPort {
     if (this.findSheet(name)) throw new RangeError(`name "${name}" is already a sheet of this workbook (see uniqueSheetName)`);
     return this.book.addWorksheet(name);
   }
-}
-
-function lastUsedRow(ws: ExcelJS.Worksheet): number {
-  let last = 0;
-  ws.eachRow({ includeEmpty: false }, (row, r) => {
-    row.eachCell({ includeEmpty: false }, (cell) => {
-      if (rawCellValue(cell.value) !== "") last = Math.max(last, r);
-    });
-  });
-  return last;
 }
 
 function toArrayBuffer(bytes: Uint8Array): ArrayBuffer {
