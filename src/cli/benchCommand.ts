@@ -19,7 +19,8 @@ import {
 import { parseWorkers, runChains, MAX_WORKERS } from "./chains.js";
 import type { CliIO } from "./CliIO.js";
 import { Option, type Command } from "commander";
-import { SETTING_FIELDS, rangeText } from "../sheets/settingFields.js";
+import { SETTING_FIELDS } from "../sheets/settingFields.js";
+import { rangeText } from "../sheets/settingFieldTypes.js";
 import { settingFlags } from "./settingFlags.js";
 
 /** Seconds per instance when neither `--seconds` nor `--moves` is given. */

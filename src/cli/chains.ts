@@ -20,7 +20,8 @@ import {
   type SolveResult,
 } from "../core/index.js";
 import { parseSettingValue } from "../sheets/settingsSchema.js";
-import { SETTING_FIELDS, type NumberField } from "../sheets/settingFields.js";
+import { SETTING_FIELDS } from "../sheets/settingFields.js";
+import { type NumberField } from "../sheets/settingFieldTypes.js";
 
 export { chainSeed, combineProgress };
 

@@ -3,7 +3,9 @@ import { summariseRuns, type RunsSummary, type SeededRun } from "../core/index.j
 import { CAUTION_TEXT } from "../sheets/caution.js";
 import { formatCooling } from "../sheets/formatCooling.js";
 import type { PlanSettings } from "../sheets/PlanSettings.js";
-import { SCHEDULE_PARAMETERS, SETTING_FIELDS, type SettingKey } from "../sheets/settingFields.js";
+import { SETTING_FIELDS } from "../sheets/settingFields.js";
+import { SCHEDULE_PARAMETERS } from "../sheets/scheduleNames.js";
+import { type SettingKey } from "../sheets/settingFieldTypes.js";
 import { parseTemperaturePlan, TEMPERATURE_PLAN_EXAMPLE, withTemperaturePlan, type TemperaturePlan } from "../sheets/temperaturePlan.js";
 import { runChains, type ChainOptions } from "./chains.js";
 import type { CliIO } from "./CliIO.js";

@@ -13,7 +13,8 @@ import { prepareRun } from "./prepareRun.js";
 import { progressBar } from "./progressBar.js";
 import { addRunOptions, givenSettings, type InputSheetOptions } from "./runOptions.js";
 import { TERMS } from "../sheets/terms.js";
-import { SETTING_FIELDS, rangeText } from "../sheets/settingFields.js";
+import { SETTING_FIELDS } from "../sheets/settingFields.js";
+import { rangeText } from "../sheets/settingFieldTypes.js";
 import { addGeocodeOptions, geocoderSetup, type GeocodeOptionValues } from "./geocodeOptions.js";
 import { reviewLines } from "./geocodeCommand.js";
 

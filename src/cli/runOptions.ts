@@ -5,7 +5,8 @@
  */
 import { Option, type Command } from "commander";
 import { PLAN_SETTINGS_DEFAULTS, STABILITY_COST_DEFAULT } from "../sheets/PlanSettings.js";
-import { SETTING_FIELDS, rangeText, type SettingKey } from "../sheets/settingFields.js";
+import { SETTING_FIELDS } from "../sheets/settingFields.js";
+import { rangeText, type SettingKey } from "../sheets/settingFieldTypes.js";
 import { RUN_SETTING_KEYS } from "./settingFlags.js";
 
 /** Options that name input sheets (commander attribute name -> flag). */

@@ -5,7 +5,9 @@
  */
 import type { CoolingSpec } from "../core/index.js";
 import type { PlanSettings } from "../sheets/PlanSettings.js";
-import { SCHEDULE_PARAMETERS, SETTING_FIELDS, type SettingKey } from "../sheets/settingFields.js";
+import { SETTING_FIELDS } from "../sheets/settingFields.js";
+import { SCHEDULE_PARAMETERS } from "../sheets/scheduleNames.js";
+import { type SettingKey } from "../sheets/settingFieldTypes.js";
 import { buildCooling, parseSettingValue, type ScheduleParams } from "../sheets/settingsSchema.js";
 
 /** The settings a run command takes as options, in help order. */

@@ -1,5 +1,5 @@
 import type { AcceptanceRule, CoolingSpec } from "../core/index.js";
-import { RULE_NAMES, SCHEDULE_NAMES } from "./settingFields.js";
+import { RULE_NAMES, SCHEDULE_NAMES } from "./scheduleNames.js";
 
 /**
  * A readable text of a cooling schedule (and optionally its acceptance rule and the targets its

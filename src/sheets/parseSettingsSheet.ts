@@ -6,7 +6,9 @@ import type { PlanSettings } from "./PlanSettings.js";
 import { checkColumnMap, parseColumnMap, type ColumnMapEntry } from "./columnMap.js";
 import { cellAddress } from "./cellAddress.js";
 import { cellIssue } from "./readTable.js";
-import { SCHEDULE_PARAMETERS, SETTING_FIELDS, rangeText, type SettingKey } from "./settingFields.js";
+import { SETTING_FIELDS } from "./settingFields.js";
+import { SCHEDULE_PARAMETERS } from "./scheduleNames.js";
+import { rangeText, type SettingKey } from "./settingFieldTypes.js";
 import { buildCooling, parseSettingValue, type ScheduleParams } from "./settingsSchema.js";
 
 const HEADER_KEYS = new Set(["setting", "settings", "key", "name", "parameter", "option"]);

@@ -10,17 +10,9 @@ import { headerWords } from "./matchHeaders.js";
 import { parseDuration } from "./parseDuration.js";
 import { parseTime } from "./parseTime.js";
 import type { PlanSettings, RunRecord } from "./PlanSettings.js";
-import {
-  PARAMETERS_OF,
-  SCHEDULE_NAMES,
-  SCHEDULE_PARAMETERS,
-  SETTING_FIELDS,
-  rangeText,
-  type NumberField,
-  type TextField,
-  type ScheduleParameter,
-  type SettingKey,
-} from "./settingFields.js";
+import { SETTING_FIELDS } from "./settingFields.js";
+import { PARAMETERS_OF, SCHEDULE_NAMES, SCHEDULE_PARAMETERS, type ScheduleParameter } from "./scheduleNames.js";
+import { rangeText, type NumberField, type TextField, type SettingKey } from "./settingFieldTypes.js";
 
 // No generated code: zod otherwise probes `new Function` on first use, which the pages'
 // Content-Security-Policy refuses and reports (docs/content-security-policy.md).

@@ -8,7 +8,8 @@
 import type { AcceptanceRule, CoolingSpec } from "../core/index.js";
 import { headerWords } from "./matchHeaders.js";
 import type { PlanSettings } from "./PlanSettings.js";
-import { PARAMETERS_OF, SCHEDULE_PARAMETERS, SCHEDULE_TOKENS, SETTING_FIELDS, type ScheduleParameter } from "./settingFields.js";
+import { SETTING_FIELDS } from "./settingFields.js";
+import { PARAMETERS_OF, SCHEDULE_PARAMETERS, SCHEDULE_TOKENS, type ScheduleParameter } from "./scheduleNames.js";
 import { buildCooling, crossProblems, parseSettingValue, type ScheduleParams } from "./settingsSchema.js";
 
 /** A temperature plan: a cooling schedule and, when given, its own acceptance rule and targets. */

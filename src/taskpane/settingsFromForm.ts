@@ -4,7 +4,9 @@
  */
 import type { Issue, CoolingSpec } from "../core/index.js";
 import { PLAN_SETTINGS_DEFAULTS, STABILITY_COST_DEFAULT, type PlanSettings } from "../sheets/PlanSettings.js";
-import { PARAMETERS_OF, SETTING_FIELDS, type NumberField, type SettingKey } from "../sheets/settingFields.js";
+import { SETTING_FIELDS } from "../sheets/settingFields.js";
+import { PARAMETERS_OF } from "../sheets/scheduleNames.js";
+import { type NumberField, type SettingKey } from "../sheets/settingFieldTypes.js";
 import { buildCooling, crossProblems, parseSettingValue, type ScheduleParams } from "../sheets/settingsSchema.js";
 
 /** The raw text of every settings field, keyed by the input's id. */
