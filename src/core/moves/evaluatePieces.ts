@@ -1,15 +1,21 @@
+import { concatWindows, WindowSummary } from "../schedule/concatWindows.js";
 import { penalisedCost } from "./penalisedCost.js";
 import { applyRouteRules } from "./routeRules.js";
 import { R_COST, R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_SIZE, R_STOPTW } from "./routeResults.js";
 import type { SearchState } from "./SearchState.js";
 
+/** The summary `concatWindows` writes (one at a time: nothing here calls back). */
+const W = new WindowSummary();
+
 /**
  * Penalised cost of vehicle `v` driving the concatenation of `m` pieces in `pieces`
  * (4 ints each: route, from, to, reversed; route -1: the one stop `from`); the route results
- * go to `state.out` at `slot`. Segment summaries are concatenated (Vidal et al. 2013) without
- * copying stops: forward prefixes and suffixes of the same vehicle cost O(1); other pieces
- * O(1) too when they hold no binding window (prefix sums), else O(piece length).
- * Allocation-free: this is the hot path.
+ * go to `state.out` at `slot`. Segment summaries are concatenated (Vidal et al. 2013,
+ * `concatWindows`) without copying stops: forward prefixes and suffixes of the same vehicle
+ * cost O(1); other pieces O(1) too when they hold no binding window (prefix sums), else
+ * O(piece length). Allocation-free: this is the hot path. A pool stop is a piece of one stop,
+ * so the loop concatenates in one place (which also keeps the body small enough for the
+ * engine to inline `concatWindows` at each call).
  *
  * @param state - the search state (routes, weights, scratch)
  * @param v - the vehicle that would drive the route
@@ -53,79 +59,69 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   for (; k < m; k++) {
     const src = pieces[4 * k]!;
     const i = pieces[4 * k + 1]!;
-    if (src < 0) {
-      // One pool stop.
-      const loc = cp.stopLoc[i]!;
-      const km = Dm[last * L + loc]!;
-      const t = (derived ? (km / dv) * mu : T[last * L + loc]!) * f;
-      const e2 = cp.earliestMin[i]!;
-      const l2 = cp.latestMin[i]!;
-      const delta = aD - aTW + t;
-      const wt = Math.max(e2 - delta - aL, 0);
-      const tw = Math.max(aE + delta - l2, 0);
-      aE = Math.max(e2 - delta, aE) - wt;
-      aL = Math.min(l2 - delta, aL) + tw;
-      aD += cp.serviceMin[i]! + t + wt;
-      aTW += tw;
-      dist += km;
-      for (let d = 0; d < dims; d++) load[d] = load[d]! + cp.demand[i * dims + d]!;
-      last = loc;
-      continue;
-    }
-    const j = pieces[4 * k + 2]!;
-    const rev = pieces[4 * k + 3]! !== 0;
-    const r = state.routes[src]!;
-    const sameSpeed = cp.travelFactor[src] === f;
-    const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
-    const lastLoc = rev ? r.locs[i]! : r.locs[j]!;
-    const kmIn = Dm[last * L + firstLoc]!;
-    const tIn = (derived ? (kmIn / dv) * mu : T[last * L + firstLoc]!) * f;
+    // The piece's summary (d2, tw2, e2, l2), the leg into it and where it ends.
     let d2: number;
     let tw2 = 0;
     let e2 = -Infinity;
     let l2 = Infinity;
-    if (sameSpeed && !rev && j === r.len) {
-      d2 = r.sufD[i]!;
-      tw2 = r.sufTW[i]!;
-      e2 = r.sufE[i]!;
-      l2 = r.sufL[i]!;
-    } else if (sameSpeed && r.cumWin[j]! - r.cumWin[i - 1]! === 0) {
-      d2 = r.cumSvc[j]! - r.cumSvc[i - 1]! + (rev ? r.cumTravR[j]! - r.cumTravR[i]! : r.cumTrav[j]! - r.cumTrav[i]!);
+    let kmIn: number;
+    let tIn: number;
+    if (src < 0) {
+      // One pool stop.
+      const loc = cp.stopLoc[i]!;
+      kmIn = Dm[last * L + loc]!;
+      tIn = (derived ? (kmIn / dv) * mu : T[last * L + loc]!) * f;
+      d2 = cp.serviceMin[i]!;
+      e2 = cp.earliestMin[i]!;
+      l2 = cp.latestMin[i]!;
+      dist += kmIn;
+      for (let d = 0; d < dims; d++) load[d] = load[d]! + cp.demand[i * dims + d]!;
+      last = loc;
     } else {
-      // Walk the piece: binding windows or another speed. Its legs come from the route's own
-      // copies of the matrix entries (forward into p, or reversed out of p + 1).
-      d2 = 0;
-      for (let q = 0; q <= j - i; q++) {
-        const p = rev ? j - q : i + q;
-        const s = r.nodes[p]!;
-        if (q === 0) {
-          d2 = cp.serviceMin[s]!;
-          e2 = cp.earliestMin[s]!;
-          l2 = cp.latestMin[s]!;
-        } else {
-          const t = (rev ? r.legMinR[p + 1]! : r.legMin[p]!) * f;
-          const ee = cp.earliestMin[s]!;
-          const ll = cp.latestMin[s]!;
-          const delta = d2 - tw2 + t;
-          const wt = Math.max(ee - delta - l2, 0);
-          const tw = Math.max(e2 + delta - ll, 0);
-          e2 = Math.max(ee - delta, e2) - wt;
-          l2 = Math.min(ll - delta, l2) + tw;
-          d2 += cp.serviceMin[s]! + t + wt;
-          tw2 += tw;
+      const j = pieces[4 * k + 2]!;
+      const rev = pieces[4 * k + 3]! !== 0;
+      const r = state.routes[src]!;
+      const sameSpeed = cp.travelFactor[src] === f;
+      const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
+      kmIn = Dm[last * L + firstLoc]!;
+      tIn = (derived ? (kmIn / dv) * mu : T[last * L + firstLoc]!) * f;
+      if (sameSpeed && !rev && j === r.len) {
+        d2 = r.sufD[i]!;
+        tw2 = r.sufTW[i]!;
+        e2 = r.sufE[i]!;
+        l2 = r.sufL[i]!;
+      } else if (sameSpeed && r.cumWin[j]! - r.cumWin[i - 1]! === 0) {
+        d2 = r.cumSvc[j]! - r.cumSvc[i - 1]! + (rev ? r.cumTravR[j]! - r.cumTravR[i]! : r.cumTrav[j]! - r.cumTrav[i]!);
+      } else {
+        // Walk the piece: binding windows or another speed. Its legs come from the route's own
+        // copies of the matrix entries (forward into p, or reversed out of p + 1).
+        d2 = 0;
+        for (let q = 0; q <= j - i; q++) {
+          const p = rev ? j - q : i + q;
+          const s = r.nodes[p]!;
+          if (q === 0) {
+            d2 = cp.serviceMin[s]!;
+            e2 = cp.earliestMin[s]!;
+            l2 = cp.latestMin[s]!;
+          } else {
+            const t = (rev ? r.legMinR[p + 1]! : r.legMin[p]!) * f;
+            concatWindows(W, d2, tw2, e2, l2, t, cp.serviceMin[s]!, 0, cp.earliestMin[s]!, cp.latestMin[s]!);
+            d2 = W.duration;
+            tw2 = W.timeWarp;
+            e2 = W.earliest;
+            l2 = W.latest;
+          }
         }
       }
+      dist += kmIn + (rev ? r.cumDistR[j]! - r.cumDistR[i]! : r.cumDist[j]! - r.cumDist[i]!);
+      for (let d = 0; d < dims; d++) load[d] = load[d]! + r.preLoad[j * dims + d]! - r.preLoad[(i - 1) * dims + d]!;
+      last = rev ? r.locs[i]! : r.locs[j]!;
     }
-    const delta = aD - aTW + tIn;
-    const wt = Math.max(e2 - delta - aL, 0);
-    const tw = Math.max(aE + delta - l2, 0);
-    aE = Math.max(e2 - delta, aE) - wt;
-    aL = Math.min(l2 - delta, aL) + tw;
-    aD += d2 + tIn + wt;
-    aTW += tw2 + tw;
-    dist += kmIn + (rev ? r.cumDistR[j]! - r.cumDistR[i]! : r.cumDist[j]! - r.cumDist[i]!);
-    for (let d = 0; d < dims; d++) load[d] = load[d]! + r.preLoad[j * dims + d]! - r.preLoad[(i - 1) * dims + d]!;
-    last = lastLoc;
+    concatWindows(W, aD, aTW, aE, aL, tIn, d2, tw2, e2, l2);
+    aD = W.duration;
+    aTW = W.timeWarp;
+    aE = W.earliest;
+    aL = W.latest;
   }
   // End depot: its lateness is overtime, kept apart from lateness at stops.
   const endLoc = cp.endLoc[v]!;
@@ -141,10 +137,10 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     kmEnd = Dm[last * L + endLoc]!;
     tEnd = T[last * L + endLoc]! * f;
   }
-  const delta = aD - aTW + tEnd;
-  const wt = Math.max(cp.shiftStartMin[v]! - delta - aL, 0);
-  const endTW = Math.max(aE + delta - cp.shiftEndMin[v]!, 0);
-  const duration = aD + tEnd + wt;
+  // The end depot is a segment of no duration whose window is the shift.
+  concatWindows(W, aD, aTW, aE, aL, tEnd, 0, 0, cp.shiftStartMin[v]!, cp.shiftEndMin[v]!);
+  const endTW = W.joinWarp;
+  const duration = W.duration;
   dist += kmEnd;
   let excess = 0;
   for (let d = 0; d < dims; d++) {

@@ -1,4 +1,8 @@
 import type { CompiledProblem } from "./compileProblem.js";
+import { concatWindows, WindowSummary } from "./concatWindows.js";
+
+/** The summary `concatWindows` writes (one at a time: nothing here calls back). */
+const W = new WindowSummary();
 
 /**
  * One vehicle's route during the search, with prefix and suffix segment summaries
@@ -158,20 +162,23 @@ export class RouteArrays {
       cumSvc[i] = cumSvc[i - 1]! + cp.serviceMin[s]!;
       cumWin[i] = cumWin[i - 1]! + cp.windowed[s]!;
       for (let d = 0; d < dims; d++) preLoad[i * dims + d] = preLoad[(i - 1) * dims + d]! + cp.demand[s * dims + d]!;
-      // Concatenation (Vidal et al. 2013): prefix(i-1) then stop i.
-      const D1 = preD[i - 1]!;
-      const TW1 = preTW[i - 1]!;
-      const E1 = preE[i - 1]!;
-      const L1 = preL[i - 1]!;
-      const e2 = cp.earliestMin[s]!;
-      const l2 = cp.latestMin[s]!;
-      const delta = D1 - TW1 + t;
-      const wt = Math.max(e2 - delta - L1, 0);
-      const tw = Math.max(E1 + delta - l2, 0);
-      preD[i] = D1 + cp.serviceMin[s]! + t + wt;
-      preTW[i] = TW1 + tw;
-      preE[i] = Math.max(e2 - delta, E1) - wt;
-      preL[i] = Math.min(l2 - delta, L1) + tw;
+      // Prefix(i-1) then stop i.
+      concatWindows(
+        W,
+        preD[i - 1]!,
+        preTW[i - 1]!,
+        preE[i - 1]!,
+        preL[i - 1]!,
+        t,
+        cp.serviceMin[s]!,
+        0,
+        cp.earliestMin[s]!,
+        cp.latestMin[s]!,
+      );
+      preD[i] = W.duration;
+      preTW[i] = W.timeWarp;
+      preE[i] = W.earliest;
+      preL[i] = W.latest;
     }
     if (cp.anyPickup) this.rebuildPickups(lo, hi);
     const { sufD, sufTW, sufE, sufL } = this;
@@ -185,20 +192,23 @@ export class RouteArrays {
     for (let i = Math.min(hi, len - 1); i >= 1; i--) {
       const s = this.nodes[i]!;
       const t = cumTrav[i + 1]! - cumTrav[i]!;
-      const D1 = cp.serviceMin[s]!;
-      const E1 = cp.earliestMin[s]!;
-      const L1 = cp.latestMin[s]!;
-      const D2 = sufD[i + 1]!;
-      const TW2 = sufTW[i + 1]!;
-      const e2 = sufE[i + 1]!;
-      const l2 = sufL[i + 1]!;
-      const delta = D1 + t;
-      const wt = Math.max(e2 - delta - L1, 0);
-      const tw = Math.max(E1 + delta - l2, 0);
-      sufD[i] = D1 + D2 + t + wt;
-      sufTW[i] = TW2 + tw;
-      sufE[i] = Math.max(e2 - delta, E1) - wt;
-      sufL[i] = Math.min(l2 - delta, L1) + tw;
+      // Stop i then suffix(i+1).
+      concatWindows(
+        W,
+        cp.serviceMin[s]!,
+        0,
+        cp.earliestMin[s]!,
+        cp.latestMin[s]!,
+        t,
+        sufD[i + 1]!,
+        sufTW[i + 1]!,
+        sufE[i + 1]!,
+        sufL[i + 1]!,
+      );
+      sufD[i] = W.duration;
+      sufTW[i] = W.timeWarp;
+      sufE[i] = W.earliest;
+      sufL[i] = W.latest;
     }
   }
 
