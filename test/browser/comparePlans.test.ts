@@ -5,19 +5,16 @@
  * and, with a move budget, the page's costs equal to `kiln compare-schedules --json` on the same
  * file. Skips with a printed reason when Chromium is absent, fails under CI.
  */
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import type { Server } from "node:http";
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import { createRequire } from "node:module";
-import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import { chromium, type BrowserContext, type Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { serveStatic } from "../../scripts/serveStatic.js";
 import { main } from "../../src/cli/main.js";
 import { dispatcherWorkbook } from "../fixtures/dispatcherWorkbook.js";
 import { captureIO } from "../workbook/harness.js";
-import { DIST, ensureBuild } from "./ensureBuild.js";
+import { openPageSession, type PageSession } from "./pageSession.js";
 
 const CHROMIUM = existsSync("/usr/bin/chromium") ? "/usr/bin/chromium" : undefined;
 if (!CHROMIUM) {
@@ -39,43 +36,18 @@ interface Row {
 }
 
 describe.skipIf(!CHROMIUM)("Compare plans… in the standalone page", () => {
-  let server: Server | undefined;
-  let baseUrl = "";
-  let context: BrowserContext | undefined;
+  let session: PageSession | undefined;
   let page: Page;
+  let baseUrl = "";
   let dir = "";
 
   beforeAll(async () => {
-    await ensureBuild();
-    ({ server, url: baseUrl } = await serveStatic(DIST));
-    dir = mkdtempSync(join(tmpdir(), "kiln-compare-"));
-    context = await chromium.launchPersistentContext(join(dir, "profile"), {
-      executablePath: CHROMIUM!,
-      headless: true,
-      args: [
-        "--no-sandbox",
-        "--disable-gpu",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
-      viewport: { width: 350, height: 900 },
-    });
-    page = context.pages()[0] ?? (await context.newPage());
-    page.on("pageerror", (err) => console.error("page error:", err.message));
-    // Nothing may leave the machine: only our own server, blobs and data URLs.
-    await page.route("**/*", (route) => {
-      const url = route.request().url();
-      if (url.startsWith(baseUrl) || url.startsWith("blob:") || url.startsWith("data:")) return route.continue();
-      return route.abort();
-    });
+    session = await openPageSession(CHROMIUM!, "kiln-compare-", { viewport: { width: 350, height: 900 }, acceptDownloads: false });
+    ({ page, baseUrl, dir } = session);
   }, 600_000);
 
   afterAll(async () => {
-    await context?.close();
-    await new Promise<void>((ok) => (server ? server.close(() => ok()) : ok()));
-    if (dir) rmSync(dir, { recursive: true, force: true });
+    await session?.close();
   });
 
   async function open(path: string): Promise<void> {

@@ -5,14 +5,11 @@
  * Settings sheet starting the form. The same file plans the same in the page and in the CLI.
  * Skips with a printed reason when Chromium is absent, fails under CI.
  */
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { existsSync, writeFileSync } from "node:fs";
 import { readFile } from "node:fs/promises";
-import type { Server } from "node:http";
-import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { chromium, type BrowserContext, type Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { serveStatic } from "../../scripts/serveStatic.js";
 import { main } from "../../src/cli/main.js";
 import { COLUMN_MAP_KEY } from "../../src/sheets/columnMap.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
@@ -27,7 +24,7 @@ import {
   type DispatcherWorkbookOptions,
 } from "../fixtures/dispatcherWorkbook.js";
 import { captureIO, loadWithExcelJs, sheetValues } from "../workbook/harness.js";
-import { DIST, ensureBuild } from "./ensureBuild.js";
+import { openPageSession, type PageSession } from "./pageSession.js";
 import { startGeocodeServer } from "../geocode/geocodeServer.js";
 
 const CHROMIUM = existsSync("/usr/bin/chromium") ? "/usr/bin/chromium" : undefined;
@@ -37,44 +34,18 @@ if (!CHROMIUM) {
 }
 
 describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () => {
-  let server: Server | undefined;
-  let baseUrl = "";
-  let context: BrowserContext | undefined;
+  let session: PageSession | undefined;
   let page: Page;
+  let baseUrl = "";
   let dir = "";
 
   beforeAll(async () => {
-    await ensureBuild();
-    ({ server, url: baseUrl } = await serveStatic(DIST));
-    dir = mkdtempSync(join(tmpdir(), "kiln-dispatcher-"));
-    context = await chromium.launchPersistentContext(join(dir, "profile"), {
-      executablePath: CHROMIUM!,
-      headless: true,
-      args: [
-        "--no-sandbox",
-        "--disable-gpu",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
-      viewport: { width: 360, height: 900 },
-      acceptDownloads: true,
-    });
-    page = context.pages()[0] ?? (await context.newPage());
-    page.on("pageerror", (err) => console.error("page error:", err.message));
-    // Nothing may leave the machine: only our own server, blobs and data URLs.
-    await page.route("**/*", (route) => {
-      const url = route.request().url();
-      if (url.startsWith(baseUrl) || url.startsWith("blob:") || url.startsWith("data:")) return route.continue();
-      return route.abort();
-    });
+    session = await openPageSession(CHROMIUM!, "kiln-dispatcher-");
+    ({ page, baseUrl, dir } = session);
   }, 600_000);
 
   afterAll(async () => {
-    await context?.close();
-    await new Promise<void>((ok) => (server ? server.close(() => ok()) : ok()));
-    if (dir) rmSync(dir, { recursive: true, force: true });
+    await session?.close();
   });
 
   /** Open a built workbook in a fresh page and wait until both tables are read. */
@@ -162,7 +133,7 @@ describe.skipIf(!CHROMIUM)("a dispatcher's workbook in the standalone page", () 
 
   it("plans an address-only workbook (depots as addresses too) through a loopback geocoder: Default country from the Settings sheet, the doubtful match drawn distinctly on the map, drop minutes used, the same plan as the CLI", async () => {
     const geo = await startGeocodeServer();
-    const own = await context!.newPage();
+    const own = await session!.context.newPage();
     try {
       // Nothing may leave the machine: our own server, the loopback geocoder, blobs and data URLs.
       const outside: string[] = [];

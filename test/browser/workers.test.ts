@@ -6,19 +6,16 @@
  * both plan sheets record Workers 2. Skips with a printed reason when Chromium is absent, fails
  * under CI.
  */
-import { existsSync, mkdtempSync, rmSync } from "node:fs";
+import { existsSync } from "node:fs";
 import { readFile, writeFile } from "node:fs/promises";
-import type { Server } from "node:http";
-import { tmpdir } from "node:os";
 import { join } from "node:path";
 import ExcelJS from "exceljs";
-import { chromium, type BrowserContext, type Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { serveStatic } from "../../scripts/serveStatic.js";
 import { main } from "../../src/cli/main.js";
 import { routeRows } from "../fixtures/dispatcherWorkbook.js";
 import { captureIO, loadWithExcelJs, sheetValues } from "../workbook/harness.js";
-import { DIST, ensureBuild } from "./ensureBuild.js";
+import { openPageSession, type PageSession } from "./pageSession.js";
 
 const CHROMIUM = existsSync("/usr/bin/chromium") ? "/usr/bin/chromium" : undefined;
 if (!CHROMIUM) {
@@ -36,44 +33,18 @@ function settingOf(plan: unknown[][], label: string): unknown {
 }
 
 describe.skipIf(!CHROMIUM)("several workers in the standalone page", () => {
-  let server: Server | undefined;
-  let baseUrl = "";
-  let context: BrowserContext | undefined;
+  let session: PageSession | undefined;
   let page: Page;
+  let baseUrl = "";
   let dir = "";
 
   beforeAll(async () => {
-    await ensureBuild();
-    ({ server, url: baseUrl } = await serveStatic(DIST));
-    dir = mkdtempSync(join(tmpdir(), "kiln-workers-"));
-    context = await chromium.launchPersistentContext(join(dir, "profile"), {
-      executablePath: CHROMIUM!,
-      headless: true,
-      args: [
-        "--no-sandbox",
-        "--disable-gpu",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
-      viewport: { width: 360, height: 900 },
-      acceptDownloads: true,
-    });
-    page = context.pages()[0] ?? (await context.newPage());
-    page.on("pageerror", (err) => console.error("page error:", err.message));
-    // Nothing may leave the machine: only our own server, blobs and data URLs.
-    await page.route("**/*", (route) => {
-      const url = route.request().url();
-      if (url.startsWith(baseUrl) || url.startsWith("blob:") || url.startsWith("data:")) return route.continue();
-      return route.abort();
-    });
+    session = await openPageSession(CHROMIUM!, "kiln-workers-");
+    ({ page, baseUrl, dir } = session);
   }, 600_000);
 
   afterAll(async () => {
-    await context?.close();
-    await new Promise<void>((ok) => (server ? server.close(() => ok()) : ok()));
-    if (dir) rmSync(dir, { recursive: true, force: true });
+    await session?.close();
   });
 
   it("two workers with the demo's seed and a move budget give the CLI's --workers 2 plan, stop by stop, and say so", async () => {
