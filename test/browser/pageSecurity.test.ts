@@ -23,6 +23,7 @@ import { TOTALS_LABELS } from "../../src/sheets/layoutPlan.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { readScenarioInput } from "../../src/workbook/scenario.js";
 import { ensureBuild, DIST } from "./ensureBuild.js";
+import { CHROMIUM_FLAGS } from "./pageSession.js";
 import { startTileServer } from "./tileServer.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
@@ -108,14 +109,7 @@ describe.skipIf(!CHROMIUM)("pages under their Content-Security-Policy", () => {
     context = await chromium.launchPersistentContext(userDataDir, {
       executablePath: CHROMIUM!,
       headless: true,
-      args: [
-        "--no-sandbox",
-        "--disable-gpu",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
+      args: [...CHROMIUM_FLAGS],
       viewport: { width: 360, height: 900 },
       acceptDownloads: true,
     });

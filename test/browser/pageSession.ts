@@ -11,6 +11,16 @@ import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { serveStatic } from "../../scripts/serveStatic.js";
 import { DIST, ensureBuild } from "./ensureBuild.js";
 
+/** Headless Chromium flags of every browser test: no sandbox (root in CI), no GPU, and nothing fetched in the background. */
+export const CHROMIUM_FLAGS = [
+  "--no-sandbox",
+  "--disable-gpu",
+  "--no-first-run",
+  "--disable-background-networking",
+  "--disable-component-update",
+  "--disable-sync",
+] as const;
+
 /** A page on the served build, with a scratch folder for files; `close` undoes all of it. */
 export interface PageSession {
   readonly page: Page;

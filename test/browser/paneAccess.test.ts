@@ -21,6 +21,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { DIST, ensureBuild } from "./ensureBuild.js";
+import { CHROMIUM_FLAGS } from "./pageSession.js";
 import { installFakeExcel } from "./fakeExcelHost.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));
@@ -72,14 +73,7 @@ describe.skipIf(!CHROMIUM)("the pane at 350 px: axe-core, keyboard, nothing cut 
     context = await chromium.launchPersistentContext(join(dir, "profile"), {
       executablePath: CHROMIUM!,
       headless: true,
-      args: [
-        "--no-sandbox",
-        "--disable-gpu",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
+      args: [...CHROMIUM_FLAGS],
       viewport: { width: PANE_WIDTH, height: 900 },
     });
     page = context.pages()[0] ?? (await context.newPage());

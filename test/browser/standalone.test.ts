@@ -24,6 +24,7 @@ import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
 import { installFakeExcel, type FakeExcelLog } from "./fakeExcelHost.js";
 import { startTileServer } from "./tileServer.js";
 import { ensureBuild } from "./ensureBuild.js";
+import { CHROMIUM_FLAGS } from "./pageSession.js";
 import { OFFICE_JS_CDN } from "../../scripts/addinBuild.js";
 import { startGeocodeServer } from "../geocode/geocodeServer.js";
 
@@ -114,14 +115,7 @@ describe.skipIf(!CHROMIUM)("task pane in Chromium", () => {
     context = await chromium.launchPersistentContext(userDataDir, {
       executablePath: CHROMIUM!,
       headless: true,
-      args: [
-        "--no-sandbox",
-        "--disable-gpu",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
+      args: [...CHROMIUM_FLAGS],
       viewport: { width: 360, height: 900 },
       acceptDownloads: true,
     });
