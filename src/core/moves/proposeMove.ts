@@ -34,8 +34,9 @@ export class Move {
 /**
  * Draw one random move from the granular neighbourhood: a stop u at random, one of its
  * k nearest partners v, then a move that relates u and v (relocate, swap, 2-opt, 2-opt*,
- * or-opt of 2-3 stops, optionally reversed; pool moves; opening an empty route), and
- * compute its cost change without touching the routes.
+ * or-opt of 2-3 stops; pool moves; opening an empty route), and compute its cost change
+ * without touching the routes. Within a route, 2-opt and or-opt always make u and v
+ * neighbours, on either side, so the legs from and to the depot can change too.
  *
  * @param state - current solution
  * @param nb - neighbour lists
@@ -194,9 +195,15 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
       break;
     }
     case MoveKind.twoOpt: {
-      // Reverse the stretch between them so that the lower one is followed by the other.
-      const from = p < q ? p + 1 : q + 1;
-      const to = p < q ? q : p;
+      // 2-opt (Croes 1958): reverse a stretch so that u and v become neighbours on the route.
+      // With lo < hi their positions: reversing lo+1..hi makes the edges (lo, hi) and
+      // (lo+1, hi+1); reversing lo..hi-1 makes (lo-1, hi-1) and (lo, hi). Both add the
+      // edge u-v, drawn with equal chance.
+      const lo = Math.min(p, q);
+      const hi = Math.max(p, q);
+      const successors = rng.next() < 0.5;
+      const from = successors ? lo + 1 : lo;
+      const to = successors ? hi : hi - 1;
       if (to <= from) return false;
       m = piece(A, m, ru, 1, from - 1, 0);
       m = piece(A, m, ru, from, to, 1);
@@ -204,21 +211,28 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
       break;
     }
     default: {
+      // Or-opt (Or 1976): a chain of 2 or 3 stops that starts or ends at u moves next to v,
+      // after or before it, turned so that u and v become neighbours on the route.
       const c = 2 + rng.int(2);
-      const end = p + c - 1;
-      if (end > a || (q >= p && q <= end)) return false;
-      const rev = rng.next() < 0.5 ? 1 : 0;
-      if (q === p - 1 && !rev) return false;
-      if (q < p) {
-        m = piece(A, m, ru, 1, q, 0);
-        m = piece(A, m, ru, p, end, rev);
-        m = piece(A, m, ru, q + 1, p - 1, 0);
-        m = piece(A, m, ru, end + 1, a, 0);
+      const after = rng.next() < 0.5;
+      const startsAtU = rng.next() < 0.5;
+      const first = startsAtU ? p : p - c + 1;
+      const last = first + c - 1;
+      if (first < 1 || last > a || (q >= first && q <= last)) return false;
+      // After v, u leads the chain; before v, u ends it.
+      const rev = after === startsAtU ? 0 : 1;
+      const cut = after ? q : q - 1;
+      if ((cut === first - 1 || cut === last) && !rev) return false;
+      if (cut < first) {
+        m = piece(A, m, ru, 1, cut, 0);
+        m = piece(A, m, ru, first, last, rev);
+        m = piece(A, m, ru, cut + 1, first - 1, 0);
+        m = piece(A, m, ru, last + 1, a, 0);
       } else {
-        m = piece(A, m, ru, 1, p - 1, 0);
-        m = piece(A, m, ru, end + 1, q, 0);
-        m = piece(A, m, ru, p, end, rev);
-        m = piece(A, m, ru, q + 1, a, 0);
+        m = piece(A, m, ru, 1, first - 1, 0);
+        m = piece(A, m, ru, last + 1, cut, 0);
+        m = piece(A, m, ru, first, last, rev);
+        m = piece(A, m, ru, cut + 1, a, 0);
       }
     }
   }

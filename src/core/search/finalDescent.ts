@@ -9,10 +9,10 @@ import type { Neighbours } from "../neighbours/buildNeighbours.js";
  * whole neighbourhood of a stop with the very moves the annealer draws.
  */
 class Choices implements Random {
-  readonly values = new Float64Array(6);
+  readonly values = new Float64Array(7);
   private at = 0;
 
-  set(neighbour: number, roll: number, kind: number, a: number, b: number): void {
+  set(neighbour: number, roll: number, kind: number, a: number, b: number, c: number): void {
     const v = this.values;
     v[0] = 0;
     v[1] = neighbour;
@@ -20,6 +20,7 @@ class Choices implements Random {
     v[3] = kind;
     v[4] = a;
     v[5] = b;
+    v[6] = c;
     this.at = 0;
   }
 
@@ -33,22 +34,29 @@ class Choices implements Random {
 }
 
 /**
- * Variants after the kind: (a, b) of the kinds' own draws. Relocate and swap draw nothing;
- * 2-opt* draws which tails meet between routes (a < 0.5 or not; 2-opt within a route draws
- * nothing, so its two entries are one move); or-opt draws its length (a: 0 = 2 stops,
- * 1 = 3) and whether the chain is reversed (b < 0.5).
+ * Variants after the kind: (a, b, c) of the kinds' own draws. Relocate and swap draw nothing;
+ * 2-opt* draws which tails meet between routes, 2-opt within a route which of the two
+ * reversals that join u and v (a < 0.5 or not); or-opt draws its length (a: 0 = 2 stops,
+ * 1 = 3), then between routes whether the chain is reversed (b < 0.5), within a route whether
+ * it goes after v (b < 0.5) and whether it starts at u (c < 0.5).
  */
-const VARIANTS: readonly (readonly [number, number, number])[] = [
-  [0, 0, 0.25],
-  [1, 0, 0.25],
-  [2, 0, 0.25],
-  [3, 0.25, 0.25],
-  [3, 0.75, 0.25],
-  [4, 0, 0.25],
-  [4, 0, 0.75],
-  [4, 1, 0.25],
-  [4, 1, 0.75],
+const VARIANTS: readonly (readonly [number, number, number, number])[] = [
+  [0, 0, 0.25, 0.25],
+  [1, 0, 0.25, 0.25],
+  [2, 0, 0.25, 0.25],
+  [3, 0.25, 0.25, 0.25],
+  [3, 0.75, 0.25, 0.25],
+  [4, 0, 0.25, 0.25],
+  [4, 0, 0.75, 0.25],
+  [4, 1, 0.25, 0.25],
+  [4, 1, 0.75, 0.25],
+  [4, 0, 0.25, 0.75],
+  [4, 0, 0.75, 0.75],
+  [4, 1, 0.25, 0.75],
+  [4, 1, 0.75, 0.75],
 ];
+/** Variants from here on differ only within a route (between routes they repeat earlier ones). */
+const WITHIN_ROUTE_ONLY = 9;
 /** A roll past the pool and open-route draws of `proposeMove` (0.07): a move between two stops. */
 const ROLL_PAIR = 0.5;
 
@@ -104,8 +112,11 @@ export class FinalDescent {
       // With the granular neighbourhood off, every servable stop is a neighbour.
       const K = nb.all ? nb.all.length : nb.k;
       const count = inPool ? 2 : VARIANTS.length;
+      const ru = state.routeOf[one[0]]!;
       for (let k = 0; k < K; k++) {
-        for (let i = 0; i < count && used < limit - 1; i++) {
+        const v = nb.all ? nb.all[k]! : nb.list[one[0] * nb.k + k]!;
+        const n = v >= 0 && state.routeOf[v] === ru ? count : Math.min(count, WITHIN_ROUTE_ONLY);
+        for (let i = 0; i < n && used < limit - 1; i++) {
           this.choose(k, i, inPool);
           if (!proposeMove(state, nb, choices, mv, one)) continue;
           used++;
@@ -135,8 +146,11 @@ export class FinalDescent {
   }
 
   private choose(k: number, i: number, inPool: boolean): void {
-    if (inPool) this.choices.set(k, i === 0 ? 0.25 : 0.75, 0, 0, 0);
-    else this.choices.set(k, ROLL_PAIR, VARIANTS[i]![0], VARIANTS[i]![1], VARIANTS[i]![2]);
+    if (inPool) this.choices.set(k, i === 0 ? 0.25 : 0.75, 0, 0, 0, 0);
+    else {
+      const [kind, a, b, c] = VARIANTS[i]!;
+      this.choices.set(k, ROLL_PAIR, kind, a, b, c);
+    }
   }
 }
 
