@@ -19,6 +19,10 @@
  * values for the measurement only); each size then gets a "plain" and a "re-plan" row, and the
  * figures also go to `bench/results/moveEvaluations-replan-<date>.json` with the machine's load.
  *
+ * Sizes are interleaved (every size once per round), and the in-run rate of the largest size
+ * over the smallest is printed with the table, taken within each round (median over rounds).
+ * `--label NAME` also writes the figures to `bench/results/moveEvaluations-NAME-<date>.json`.
+ *
  * Run: npx tsx bench/moveEvaluations.ts   (writes bench/out/moveEvaluations.json)
  */
 import { mkdirSync, writeFileSync } from "node:fs";
@@ -174,31 +178,43 @@ const rows: {
   rawRuns: number[];
   inRunRuns: number[];
 }[] = [];
-for (const n of SIZES) {
+// Every size in each round (sizes interleaved), so that a change in the machine's load between
+// rounds touches every size alike and the ratio of two sizes can be taken within one round.
+const cases = SIZES.flatMap((n) => {
   const plain = withRules(instance(n), RULES);
-  for (const mode of REPLAN ? (["plain", "re-plan"] as const) : (["plain"] as const)) {
-    const problem = mode === "plain" ? plain : withEarlier(plain);
-    const rawRuns: number[] = [];
-    const inRunRuns: number[] = [];
-    let last = { perSecond: 0, cost: 0, feasible: false };
-    for (let r = 0; r < REPEAT; r++) {
-      rawRuns.push(Math.round(raw(problem, 1)));
-      last = inRun(problem, Math.max(10_000, 2 * rawRuns[rawRuns.length - 1]!));
-      inRunRuns.push(Math.round(last.perSecond));
-    }
-    rows.push({
-      mode,
-      stops: n,
-      vehicles: problem.vehicles.length,
-      rawPerSecond: Math.round(median(rawRuns)),
-      inRunPerSecond: Math.round(median(inRunRuns)),
-      runCost: Math.round(last.cost),
-      feasible: last.feasible,
-      rawRuns,
-      inRunRuns,
-    });
+  return (REPLAN ? (["plain", "re-plan"] as const) : (["plain"] as const)).map((mode) => ({
+    n,
+    mode,
+    problem: mode === "plain" ? plain : withEarlier(plain),
+    rawRuns: [] as number[],
+    inRunRuns: [] as number[],
+    last: { perSecond: 0, cost: 0, feasible: false },
+  }));
+});
+for (let r = 0; r < REPEAT; r++) {
+  for (const c of cases) {
+    c.rawRuns.push(Math.round(raw(c.problem, 1)));
+    c.last = inRun(c.problem, Math.max(10_000, 2 * c.rawRuns[c.rawRuns.length - 1]!));
+    c.inRunRuns.push(Math.round(c.last.perSecond));
   }
 }
+for (const c of cases)
+  rows.push({
+    mode: c.mode,
+    stops: c.n,
+    vehicles: c.problem.vehicles.length,
+    rawPerSecond: Math.round(median(c.rawRuns)),
+    inRunPerSecond: Math.round(median(c.inRunRuns)),
+    runCost: Math.round(c.last.cost),
+    feasible: c.last.feasible,
+    rawRuns: c.rawRuns,
+    inRunRuns: c.inRunRuns,
+  });
+// In-run rate of the largest size over the smallest, within each round (plain mode), median.
+const plainCases = cases.filter((c) => c.mode === "plain");
+const smallest = plainCases[0];
+const largest = plainCases[plainCases.length - 1];
+const ratios = smallest && largest && largest !== smallest ? largest.inRunRuns.map((x, r) => x / smallest.inRunRuns[r]!) : [];
 console.log(
   `Medians of ${REPEAT} runs per size (raw: 1 s each; in run: a createSolver run of about 2 s of moves each); rules: ${RULES}${REPLAN ? "; plain and re-plan" : ""}.`,
 );
@@ -208,20 +224,28 @@ for (const r of rows)
   console.log(
     `| ${r.mode} | ${r.stops} | ${r.vehicles} | ${r.rawPerSecond.toLocaleString("en")} | ${r.inRunPerSecond.toLocaleString("en")} | ${r.runCost} | ${r.feasible} |`,
   );
+if (ratios.length > 0)
+  console.log(
+    `In-run rate at ${largest!.n} stops over ${smallest!.n} stops: ${(100 * median(ratios)).toFixed(0)}% (ratio within each round, median of ${ratios.length}: ${ratios.map((x) => `${(100 * x).toFixed(0)}%`).join(", ")})`,
+  );
 mkdirSync(new URL("./out/", import.meta.url), { recursive: true });
 writeFileSync(
   new URL("./out/moveEvaluations.json", import.meta.url),
-  JSON.stringify({ node: process.version, rules: RULES, replan: REPLAN, rows }, null, 2),
+  JSON.stringify({ node: process.version, rules: RULES, replan: REPLAN, rows, inRunRatioLargestToSmallest: ratios }, null, 2),
 );
-if (REPLAN) {
-  const path = writeResults("moveEvaluations-replan", {
-    bench: "moveEvaluations --replan",
+/** `--label NAME` (or `--replan`): the figures also go to `bench/results/moveEvaluations-<label>-<date>.json`. */
+const labelAt = process.argv.indexOf("--label");
+const LABEL = labelAt > 0 ? process.argv[labelAt + 1] : REPLAN ? "replan" : undefined;
+if (LABEL) {
+  const path = writeResults(`moveEvaluations-${LABEL}`, {
+    bench: `moveEvaluations${REPLAN ? " --replan" : ""}`,
     environment: benchEnvironment(),
     // The machine may be shared: its 1-minute load average before and after, for reading the figures.
     loadAverage1m: { before: Math.round(loadBefore * 10) / 10, after: Math.round(loadavg()[0]! * 10) / 10 },
     repeat: REPEAT,
     rules: RULES,
     rows,
+    inRunRatioLargestToSmallest: { rounds: ratios, median: ratios.length > 0 ? median(ratios) : null },
   });
   console.log(`Written ${path}`);
 }

@@ -12,7 +12,11 @@
  * 3. **Whole days**: a generated 2 000-stop, 50-vehicle day with windows in 60 s and a 5 000-stop,
  *    125-vehicle day in 180 s (seconds counted from the start, setup included), each in a child
  *    process of its own so that its peak resident memory (`process.resourceUsage().maxRSS`, the
- *    kernel's peak) is its own; feasibility re-checked by `evaluatePlan`.
+ *    kernel's peak) is its own; feasibility re-checked by `evaluatePlan`. The generator can make
+ *    stops that no vehicle can serve at all (a window that closes too late to drive back within
+ *    the shift): the table counts them apart (`unservableStops`, the engine's reasons listed), so
+ *    "feasible" for a day means every stop that can be served is served, and gives when the best
+ *    plan first did so.
  * 4. **The same days in the page's worker** (`pageDay.ts`): Debian's Chromium runs the built
  *    page's solver worker on each day; wall seconds, the worker's heap figure where the browser
  *    gives one, and the renderer's peak resident memory. Skipped with the reason printed when
@@ -29,6 +33,7 @@ import { createRandom } from "../src/core/anneal/createRandom.js";
 import { buildMatrix } from "../src/core/geo/buildMatrix.js";
 import type { Problem, Stop, Vehicle } from "../src/core/model.js";
 import { evaluatePlan } from "../src/core/schedule/evaluatePlan.js";
+import { unservableStops } from "../src/core/schedule/unservableStops.js";
 import { createSolver } from "../src/core/solve.js";
 import { pageDaysUnavailable, runPageDays, type PageDayRow } from "./pageDay.js";
 import { benchEnvironment, writeResults } from "./results.js";
@@ -107,7 +112,18 @@ function runDay(n: number, vehicles: number, seconds: number): void {
   const t0 = performance.now();
   const problem = scaleDay(n, vehicles);
   const matrixMs = performance.now() - t0;
-  const solver = createSolver(problem, { seed: 1, budget: { seconds: seconds - matrixMs / 1000 }, now: () => performance.now() });
+  // When the best plan first serves every stop that can be served (the progress reports a best
+  // cost once such a plan exists), in seconds from the start, matrix included.
+  let completeAtS: number | null = null;
+  const solver = createSolver(problem, {
+    seed: 1,
+    budget: { seconds: seconds - matrixMs / 1000 },
+    now: () => performance.now(),
+    progressEveryMs: 250,
+    onProgress: (p) => {
+      if (completeAtS === null && Number.isFinite(p.bestCost)) completeAtS = (performance.now() - t0) / 1000;
+    },
+  });
   const setupMs = performance.now() - t0;
   let memoryMid = process.memoryUsage();
   let steps = 0;
@@ -118,6 +134,12 @@ function runDay(n: number, vehicles: number, seconds: number): void {
     problem,
     result.plan.routes.map((r) => r.visits.map((v) => v.stop)),
   );
+  // Is the day feasible at all? The stops no vehicle can serve even alone, with the engine's
+  // reasons, apart from the stops the plan left out although they could be served.
+  const unservable = new Set(unservableStops(problem).map((u) => u.stop));
+  const reasons: Record<string, number> = {};
+  for (const u of result.plan.unassigned) reasons[u.reason] = (reasons[u.reason] ?? 0) + 1;
+  const servedOfServable = n - unservable.size - result.plan.unassigned.filter((u) => !unservable.has(u.stop)).length;
   const used = result.plan.routes.filter((r) => r.visits.length > 0).length;
   const mb = (b: number): number => Math.round(b / 2 ** 20);
   console.log(
@@ -132,6 +154,11 @@ function runDay(n: number, vehicles: number, seconds: number): void {
       evaluations: result.stats.evaluations,
       feasible: result.plan.feasible && check.violations.length === 0,
       unassigned: result.plan.unassigned.length,
+      unservable: unservable.size,
+      servable: n - unservable.size,
+      servedOfServable,
+      allServableServedAtSeconds: completeAtS === null ? null : Math.round((completeAtS as number) * 10) / 10,
+      unassignedReasons: reasons,
       vehiclesUsed: used,
       cost: Math.round(result.plan.totals.cost),
       peakRssMB: Math.round(process.resourceUsage().maxRSS / 1024),
@@ -230,13 +257,16 @@ async function main(): Promise<void> {
       days.push(JSON.parse(out.trim().split("\n").pop()!));
     }
     console.log(
-      "\n| day | budget s | wall s | matrix s | setup s | evaluations | feasible | unassigned | vehicles used | cost | peak RSS MB |",
+      "\n| day | budget s | wall s | matrix s | setup s | evaluations | feasible | unassigned | no vehicle can serve | servable served | all servable served at s | vehicles used | cost | peak RSS MB |",
     );
-    console.log("|---|---:|---:|---:|---:|---:|:---|---:|---:|---:|---:|");
+    console.log("|---|---:|---:|---:|---:|---:|:---|---:|---:|---:|---:|---:|---:|---:|");
     for (const d of days as Record<string, number | boolean>[])
       console.log(
-        `| ${d.stops} stops, ${d.vehicles} vehicles | ${d.budgetSeconds} | ${d.wallSeconds} | ${d.matrixSeconds} | ${d.setupSeconds} | ${d.evaluations} | ${d.feasible} | ${d.unassigned} | ${d.vehiclesUsed} | ${d.cost} | ${d.peakRssMB} |`,
+        `| ${d.stops} stops, ${d.vehicles} vehicles | ${d.budgetSeconds} | ${d.wallSeconds} | ${d.matrixSeconds} | ${d.setupSeconds} | ${d.evaluations} | ${d.feasible} | ${d.unassigned} | ${d.unservable} | ${d.servedOfServable} of ${d.servable} | ${d.allServableServedAtSeconds ?? "never"} | ${d.vehiclesUsed} | ${d.cost} | ${d.peakRssMB} |`,
       );
+    console.log("\nWhy stops were left unassigned (the engine's reasons):");
+    for (const d of days as { stops: number; unassignedReasons: Record<string, number> }[])
+      for (const [reason, count] of Object.entries(d.unassignedReasons)) console.log(`- ${d.stops} stops: ${count} x ${reason}`);
   }
   // 4. The same days in the page's worker.
   let pageDays: PageDayRow[] | { skipped: string } = { skipped: "--skip-page" };
