@@ -121,6 +121,13 @@ export interface Matrix {
   readonly travelMin: Float64Array;
   /** True when the user supplied the matrix: vehicle speeds then do not rescale it. */
   readonly userSupplied: boolean;
+  /**
+   * Set by `buildMatrix`: every km entry is the great-circle km between `Problem.locations`
+   * times this detour factor (`placeKm`), so the search may compute an entry instead of reading
+   * it from a table too large for the processor's caches. Leave it out of a matrix whose km
+   * were changed afterwards (the search also checks a sample of entries).
+   */
+  readonly greatCircle?: { readonly detourFactor: number };
 }
 
 /** How the cost of a plan is compared. */

@@ -6,6 +6,13 @@ import { buildMatrix, userMatrix } from "../../src/core/geo/buildMatrix.js";
 import { greatCircleKm } from "../../src/core/geo/greatCircleKm.js";
 import type { Problem } from "../../src/core/model.js";
 import { compileProblem } from "../../src/core/schedule/compileProblem.js";
+import { computablePlaces } from "../../src/core/schedule/compiledArcs.js";
+import { placeKm } from "../../src/core/geo/placeKm.js";
+import { initialWeights } from "../../src/core/anneal/initialWeights.js";
+import { constructPlan } from "../../src/core/construct/constructPlan.js";
+import { SearchState } from "../../src/core/moves/SearchState.js";
+import { buildNeighbours } from "../../src/core/neighbours/buildNeighbours.js";
+import { descend } from "../../src/core/search/descend.js";
 import { RouteArrays } from "../../src/core/schedule/RouteArrays.js";
 import { createRandom } from "../../src/core/anneal/createRandom.js";
 import { randomInstance } from "./randomInstance.js";
@@ -81,6 +88,54 @@ describe("compiled arc tables read the matrix's own numbers", () => {
   });
 });
 
+describe("a great-circle matrix's km computed instead of read", () => {
+  it("computes every entry bitwise as buildMatrix stored it", () => {
+    // The stored entries are buildMatrix's, checked above against greatCircleKm (and that
+    // against geolib in test/reference/greatCircleGeolib.test.ts).
+    const p = randomInstance(4, { stops: 40, vehicles: 3 });
+    const places = computablePlaces(p, 2)!;
+    expect(places).toBeDefined();
+    const L = p.matrix.size;
+    let mismatches = 0;
+    for (let a = 0; a < L; a++)
+      for (let b = 0; b < L; b++) if (!Object.is(placeKm(places, a, b), p.matrix.distanceKm[a * L + b])) mismatches++;
+    expect(mismatches).toBe(0);
+  });
+
+  it("reads the table when it is small, the user's, or changed since it was built", () => {
+    const p = randomInstance(5, { stops: 20, vehicles: 2 });
+    expect(computablePlaces(p)).toBeUndefined(); // below COMPUTE_KM_FROM_LOCATIONS
+    expect(compileProblem(p).places).toBeUndefined();
+    const L = p.matrix.size;
+    const km = Array.from({ length: L }, (_, i) => Array.from({ length: L }, (_, j) => p.matrix.distanceKm[i * L + j]!));
+    expect(computablePlaces({ ...p, matrix: userMatrix(km) }, 2)).toBeUndefined();
+    const { greatCircle: _, ...unmarked } = p.matrix;
+    expect(computablePlaces({ ...p, matrix: unmarked }, 2)).toBeUndefined();
+    // One sampled entry (row 0, column 1) off by a rounding step.
+    const changed = p.matrix.distanceKm.slice();
+    changed[1] = changed[1]! * (1 + Number.EPSILON);
+    expect(computablePlaces({ ...p, matrix: { ...p.matrix, distanceKm: changed } }, 2)).toBeUndefined();
+  });
+
+  it("leaves the search's numbers as they were: the same first plan, descent and costs", () => {
+    const p = randomInstance(6, { stops: 60, vehicles: 5 });
+    const run = (computeKmFrom: number): { routes: number[][]; total: number } => {
+      const cp = compileProblem(p, computeKmFrom);
+      const w = initialWeights(cp);
+      const state = new SearchState(cp, w.wTime, w.wLoad);
+      const nb = buildNeighbours(cp, 10);
+      constructPlan(state, nb);
+      const active = Int32Array.from({ length: cp.n }, (_, i) => i);
+      descend(state, nb, createRandom(9), active, 20_000);
+      return { routes: state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1))), total: state.total() };
+    };
+    const read = run(Infinity);
+    const computed = run(2);
+    expect(computed.routes).toEqual(read.routes);
+    expect(Object.is(computed.total, read.total)).toBe(true);
+  });
+});
+
 describe("RouteArrays rebuilt after an edit equals one built from scratch", () => {
   const FIELDS = [
     "locs",
@@ -105,10 +160,12 @@ describe("RouteArrays rebuilt after an edit equals one built from scratch", () =
   ] as const;
 
   it.each([
-    ["generated, shared minutes", randomInstance(3, { stops: 30, vehicles: 3 })],
-    ["Solomon C101", solomonToProblem(parseSolomon(fixture("C101.txt")))],
-  ])("%s: 3 000 random inserts, removals, swaps and reversals", (_, problem) => {
-    const cp = compileProblem(problem);
+    ["generated, shared minutes", randomInstance(3, { stops: 30, vehicles: 3 }), undefined],
+    ["generated, km computed from the places", randomInstance(3, { stops: 30, vehicles: 3 }), 2],
+    ["Solomon C101", solomonToProblem(parseSolomon(fixture("C101.txt"))), undefined],
+  ])("%s: 3 000 random inserts, removals, swaps and reversals", (_, problem, computeKmFrom) => {
+    const cp = compileProblem(problem, computeKmFrom);
+    if (computeKmFrom !== undefined) expect(cp.places).toBeDefined();
     const v = 1;
     const route = new RouteArrays(cp, v);
     const rng = createRandom("edits");

@@ -1,6 +1,6 @@
-import { DEFAULT_DETOUR_FACTOR, DEFAULT_SPEED_KMH, EARTH_MEAN_RADIUS_KM } from "../constants.js";
+import { DEFAULT_DETOUR_FACTOR, DEFAULT_SPEED_KMH } from "../constants.js";
 import type { LatLon, Matrix } from "../model.js";
-import { RAD } from "./greatCircleKm.js";
+import { placeKm, places } from "./placeKm.js";
 
 /** Side of the square tiles the matrix is filled in (64 x 64 entries: 32 KB per array). */
 const TILE = 64;
@@ -31,25 +31,17 @@ export function buildMatrix(locations: readonly LatLon[], options: Partial<Build
   const n = locations.length;
   const distanceKm = new Float64Array(n * n);
   const travelMin = new Float64Array(n * n);
-  // The same arithmetic as `greatCircleKm(a, b) * detour`, term by term, so every entry is
-  // bitwise what the pairwise call gives, with each point's cosine taken once instead of once
-  // per pair, and the matrix filled in square tiles so the mirrored writes stay in cache.
-  const lat = Float64Array.from(locations, (p) => p.lat);
-  const lon = Float64Array.from(locations, (p) => p.lon);
-  const cosLat = Float64Array.from(locations, (p) => Math.cos(p.lat * RAD));
+  // Every entry is `placeKm` (bitwise `greatCircleKm(a, b) * detour`, each point's cosine taken
+  // once), from the lower index to the higher and mirrored; the matrix filled in square tiles
+  // so the mirrored writes stay in cache.
+  const p = places(locations, detour);
   for (let i0 = 0; i0 < n; i0 += TILE) {
     const i1 = Math.min(n, i0 + TILE);
     for (let j0 = i0; j0 < n; j0 += TILE) {
       const j1 = Math.min(n, j0 + TILE);
       for (let i = i0; i < i1; i++) {
-        const latI = lat[i]!;
-        const lonI = lon[i]!;
-        const cosI = cosLat[i]!;
         for (let j = Math.max(j0, i + 1); j < j1; j++) {
-          const dLat = (lat[j]! - latI) * RAD;
-          const dLon = (lon[j]! - lonI) * RAD;
-          const h = Math.sin(dLat / 2) ** 2 + cosI * cosLat[j]! * Math.sin(dLon / 2) ** 2;
-          const km = 2 * Math.asin(Math.min(1, Math.sqrt(h))) * EARTH_MEAN_RADIUS_KM * detour;
+          const km = placeKm(p, i, j);
           const min = (km / speed) * 60;
           distanceKm[i * n + j] = km;
           distanceKm[j * n + i] = km;
@@ -59,7 +51,7 @@ export function buildMatrix(locations: readonly LatLon[], options: Partial<Build
       }
     }
   }
-  return { size: n, distanceKm, travelMin, userSupplied: false };
+  return { size: n, distanceKm, travelMin, userSupplied: false, greatCircle: { detourFactor: detour } };
 }
 
 /**

@@ -1,3 +1,4 @@
+import { placeKm } from "../geo/placeKm.js";
 import { concatWindows, WindowSummary } from "../schedule/concatWindows.js";
 import { penalisedCost } from "./penalisedCost.js";
 import { applyRouteRules } from "./routeRules.js";
@@ -29,6 +30,8 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   const L = cp.locationCount;
   const T = cp.travelMin;
   const Dm = cp.distanceKm;
+  // On a large great-circle matrix the km are computed, not read (bitwise the same; `placeKm`).
+  const P = cp.places;
   // Minutes from km when the matrix allows it (bitwise the stored minutes; one read per arc).
   const derived = cp.travelFromKm;
   const dv = cp.travelDivisor;
@@ -69,7 +72,7 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     if (src < 0) {
       // One pool stop.
       const loc = cp.stopLoc[i]!;
-      kmIn = Dm[last * L + loc]!;
+      kmIn = P ? placeKm(P, last, loc) : Dm[last * L + loc]!;
       tIn = (derived ? (kmIn / dv) * mu : T[last * L + loc]!) * f;
       d2 = cp.serviceMin[i]!;
       e2 = cp.earliestMin[i]!;
@@ -83,7 +86,7 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
       const r = state.routes[src]!;
       const sameSpeed = cp.travelFactor[src] === f;
       const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
-      kmIn = Dm[last * L + firstLoc]!;
+      kmIn = P ? placeKm(P, last, firstLoc) : Dm[last * L + firstLoc]!;
       tIn = (derived ? (kmIn / dv) * mu : T[last * L + firstLoc]!) * f;
       if (sameSpeed && !rev && j === r.len) {
         d2 = r.sufD[i]!;

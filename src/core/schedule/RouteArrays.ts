@@ -1,3 +1,4 @@
+import { placeKm } from "../geo/placeKm.js";
 import type { CompiledProblem } from "./compileProblem.js";
 import { concatWindows, WindowSummary } from "./concatWindows.js";
 
@@ -131,14 +132,16 @@ export class RouteArrays {
     const L = cp.locationCount;
     const T = cp.travelMin;
     const Dm = cp.distanceKm;
+    const P = cp.places;
     const derived = cp.travelFromKm;
     const dv = cp.travelDivisor;
     const mu = cp.travelMultiplier;
     for (let i = lo, end = Math.min(legHi, len); i <= end; i++) {
       const a = locs[i - 1]!;
       const b = locs[i]!;
-      const km = Dm[a * L + b]!;
-      const kmR = Dm[b * L + a]!;
+      // Computed on a large great-circle matrix (symmetric: one computation), else read.
+      const km = P ? placeKm(P, a, b) : Dm[a * L + b]!;
+      const kmR = P ? km : Dm[b * L + a]!;
       legKm[i] = km;
       legKmR[i] = kmR;
       legMin[i] = derived ? (km / dv) * mu : T[a * L + b]!;

@@ -1,6 +1,7 @@
 import type { Problem } from "../model.js";
 import { compileEarlier } from "./compileEarlier.js";
-import { endDepotArcs, scanMatrix } from "./compiledArcs.js";
+import type { Places } from "../geo/placeKm.js";
+import { computablePlaces, COMPUTE_KM_FROM_LOCATIONS, endDepotArcs, scanMatrix } from "./compiledArcs.js";
 import { reachable, reasonFor } from "./unservableReasons.js";
 
 /**
@@ -25,6 +26,11 @@ export interface CompiledProblem {
    * arc instead of two, with identical values. False: both tables are read.
    */
   readonly travelFromKm: boolean;
+  /**
+   * When set, `distanceKm[a * L + b]` is bitwise `placeKm(places, a, b)` and the hot loops
+   * compute it instead of reading a table too large for the caches (`computablePlaces`).
+   */
+  readonly places: Places | undefined;
   readonly travelDivisor: number;
   readonly travelMultiplier: number;
   /**
@@ -95,11 +101,13 @@ export interface CompiledProblem {
  * Flatten a (validated) problem for the search.
  *
  * @param problem - a problem without `validateProblem` issues
+ * @param computeKmFrom - from this many locations on, a great-circle matrix's km are computed
+ *   in the hot loops (`computablePlaces`; default `COMPUTE_KM_FROM_LOCATIONS`; the same numbers)
  * @returns the compiled arrays; stops no vehicle can serve carry a reason in words
  * @throws RangeError when the problem has no vehicle
  * @example compileProblem(problem).compatible[s * V + v] // => 1 when v may serve s
  */
-export function compileProblem(problem: Problem): CompiledProblem {
+export function compileProblem(problem: Problem, computeKmFrom: number = COMPUTE_KM_FROM_LOCATIONS): CompiledProblem {
   const n = problem.stops.length;
   const V = problem.vehicles.length;
   if (V < 1) throw new RangeError("problem.vehicles must not be empty");
@@ -239,6 +247,7 @@ export function compileProblem(problem: Problem): CompiledProblem {
     travelMin: m.travelMin,
     distanceKm: m.distanceKm,
     travelFromKm: arcs.divisor > 0,
+    places: computablePlaces(problem, computeKmFrom),
     travelDivisor: arcs.divisor > 0 ? arcs.divisor : 1,
     travelMultiplier: arcs.multiplier,
     ...endDepotArcs(m.distanceKm, m.travelMin, L, endLoc),

@@ -1,4 +1,33 @@
-/** The matrix scan and the end-depot arc table that `compileProblem` builds for the search. */
+/** The matrix scan, the end-depot arc table and the computable places that `compileProblem` builds for the search. */
+import { placeKm, places, type Places } from "../geo/placeKm.js";
+import type { Problem } from "../model.js";
+
+/**
+ * From this many locations on, the search computes the km of a great-circle matrix instead of
+ * reading them: the table is then 8 MB or more (16 MB at 1 448), beyond the processor's faster
+ * caches, where a read at random costs more than the haversine (`bench/results/scale-*`).
+ */
+export const COMPUTE_KM_FROM_LOCATIONS = 1024;
+
+/**
+ * The places of a matrix built by `buildMatrix` (`Matrix.greatCircle`) when the search should
+ * compute its km (`COMPUTE_KM_FROM_LOCATIONS` or more locations) and a sample of entries (two
+ * per row) is bitwise what `placeKm` gives; otherwise undefined and the table is read.
+ *
+ * @param problem - the problem
+ * @param fromLocations - the size from which to compute (default `COMPUTE_KM_FROM_LOCATIONS`)
+ * @returns the places, or undefined
+ */
+export function computablePlaces(problem: Problem, fromLocations = COMPUTE_KM_FROM_LOCATIONS): Places | undefined {
+  const m = problem.matrix;
+  const L = m.size;
+  if (!m.greatCircle || m.userSupplied || L < fromLocations || problem.locations.length !== L) return undefined;
+  const p = places(problem.locations, m.greatCircle.detourFactor);
+  for (let i = 0; i < L; i++) {
+    for (const j of [(i * 7919 + 1) % L, (i * 104729 + 7) % L]) if (placeKm(p, i, j) !== m.distanceKm[i * L + j]) return undefined;
+  }
+  return p;
+}
 
 /** Largest number of entries (2 per arc) of the end-depot table; beyond it the matrix is read. */
 const TO_END_MAX_ENTRIES = 1 << 23;
