@@ -1,4 +1,12 @@
-import { sampleMeanUphill, calibrateTemperatures, describeProfile, profile, type ProfilePoint, SOLVE_DEFAULTS } from "../core/index.js";
+import {
+  sampleMeanUphill,
+  calibrateTemperatures,
+  describeProfile,
+  profile,
+  type ProfilePoint,
+  ROUTE_MINIMISATION_SHARE,
+  SOLVE_DEFAULTS,
+} from "../core/index.js";
 import { formatCooling } from "../sheets/formatCooling.js";
 import type { CliIO } from "./CliIO.js";
 import type { Command } from "commander";
@@ -71,6 +79,11 @@ export async function runProfileOf(
     expected
       ? `Moves: about ${budgetMoves} expected in ${s.seconds} s (${formatRate(rate)} measured on this problem; pass --moves K for an exact table)`
       : `Moves: ${budgetMoves}`,
+    ...(read.problem.objective === "hierarchical"
+      ? [
+          `Vehicles first: a route-minimisation phase (ejection pool, squeeze, ejections) uses up to ${Math.round(100 * ROUTE_MINIMISATION_SHARE)}% of the budget before the annealing (less when it reaches the lower bound on vehicles or saves none for a while); the schedule below then runs over the rest.`,
+        ]
+      : []),
     "",
     ...profileTable(points),
     "",

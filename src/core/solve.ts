@@ -1,6 +1,7 @@
 import { acceptanceProbability } from "./anneal/acceptanceProbability.js";
-import { temperatureAt } from "./anneal/resolveCooling.js";
+import { resolveCooling, temperatureAt } from "./anneal/resolveCooling.js";
 import { isWorseMove } from "./anneal/sampleUphill.js";
+import { ROUTE_MINIMISATION_SHARE, ROUTE_MINIMISATION_STALL } from "./constants.js";
 import type { Problem } from "./model.js";
 import { eliminateRoute } from "./moves/eliminateRoute.js";
 import { applyMove, Move, proposeMove } from "./moves/proposeMove.js";
@@ -10,6 +11,7 @@ import { BestPlan } from "./search/BestPlan.js";
 import { EliminationSchedule } from "./search/EliminationSchedule.js";
 import { FinalDescent } from "./search/finalDescent.js";
 import { prepareRun } from "./search/prepareRun.js";
+import { RouteMinimiser } from "./search/routeMinimisation.js";
 import { keepHardRules } from "./schedule/keepHardRules.js";
 import type { SolveResult, Solver } from "./search/runTypes.js";
 
@@ -25,13 +27,24 @@ const TEMPERATURE_EVERY = 16;
  * The quench starts from the best feasible plan with a steepest descent (`finalDescent`).
  */
 const QUENCH_FROM = 0.95;
+/**
+ * At the route-minimisation phase's fleet, a chain that has broken a rule for this many moves
+ * per stop goes back to the best plan with the initial penalty weights (measured on Solomon
+ * R109, R207, C103: better distance at the same vehicles; `bench/results/route-minimisation-*`).
+ */
+const RESTART_MOVES_PER_STOP = 2000;
 
 /**
  * Plan routes by simulated annealing (Kirkpatrick, Gelatt & Vecchi 1983) with Metropolis or
  * logistic acceptance over relocate, swap, 2-opt, 2-opt*, or-opt and pool moves in a granular
  * neighbourhood, time-warp and load penalties that adapt so the search crosses infeasible
  * plans, and the best feasible plan kept; the last part of the budget descends from the best
- * plan at temperature 0 (a steepest descent over the neighbourhood, then random improving moves). When no plan serves every must-serve stop within the
+ * plan at temperature 0 (a steepest descent over the neighbourhood, then random improving moves).
+ * Under the vehicles-first objective a route-minimisation phase (`RouteMinimiser`: ejection
+ * pool, squeeze, ejections and perturbation, after Nagata & Bräysy 2009) first empties routes
+ * for up to `ROUTE_MINIMISATION_SHARE` of the budget (less when it stalls or reaches
+ * the lower bound on vehicles), and the annealing schedule runs over the
+ * rest from the plan with the fewest vehicles. When no plan serves every must-serve stop within the
  * rules, the least violating one is cut back to the rules (`keepHardRules`): the stops left out
  * are unassigned with a reason, so the plan returned never breaks capacity, a hard window, a
  * shift, a feature or max stops.
@@ -65,11 +78,43 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   const now = o.now;
   const startedAt = now ? (o.startedAt ?? now()) : 0;
   const run = prepareRun(problem, o, startedAt);
-  const { cp, rng, nb, moveNb, state, active, cooling, t0, tEnd, budgetMoves, seconds } = run;
+  const { cp, rng, nb, moveNb, state, active, t0, budgetMoves, seconds } = run;
+  let { cooling, tEnd } = run;
 
   const best = new BestPlan(problem, cp);
   best.consider(state);
   const elimination = new EliminationSchedule();
+  // The route-minimisation phase runs first (it repairs a first plan that breaks a rule);
+  // when it finds no feasible plan, the annealer's own route elimination
+  // (`EliminationSchedule`) empties routes as it goes.
+  let minimiser =
+    o.routeMinimisation && cp.hierarchical && active.length > 0
+      ? new RouteMinimiser(
+          state,
+          nb,
+          moveNb,
+          rng,
+          active,
+          best,
+          budgetMoves !== undefined ? ROUTE_MINIMISATION_STALL * budgetMoves : Infinity,
+        )
+      : undefined;
+  /** Seconds budgets: the share of the budget used when the phase last saved a vehicle (or started). */
+  let savedAtFraction = 0;
+  let savedCount = 0;
+  /** Whether the annealer empties routes itself: only when the phase did not run or found no feasible plan. */
+  let annealerEliminates = minimiser === undefined;
+  /**
+   * After a phase that found a feasible plan, the annealing keeps its number of vehicles: moves
+   * that open or empty a route are not drawn into the chain. Otherwise the adaptive time-warp
+   * weight grows until opening a vehicle pays, or the vehicle weight empties routes into plans
+   * that break every window, and the chain leaves the phase's fleet for good.
+   */
+  let fixedFleet = false;
+  let feasibleAt = 0;
+  /** Moves and budget share the phase used: the annealing schedule runs over the rest. */
+  let phaseMoves = 0;
+  let phaseFraction = 0;
   const mv = new Move();
   let moves = 0;
   let evaluations = 0;
@@ -132,6 +177,28 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     return done;
   }
 
+  /**
+   * End the route-minimisation phase: back to the best plan (fewest vehicles) when a removal
+   * was under way, and the cooling schedule fitted again to the moves left for the annealing.
+   */
+  function endPhase(): void {
+    if (!minimiser) return;
+    minimiser.abandon();
+    routeEliminations += minimiser.attempts;
+    annealerEliminates = !best.feasibleFound;
+    fixedFleet = best.feasibleFound;
+    minimiser = undefined;
+    phaseMoves = moves;
+    phaseFraction = Math.min(fraction, QUENCH_FROM);
+    if (phaseMoves === 0) return;
+    const left =
+      budgetMoves !== undefined
+        ? budgetMoves - moves
+        : Math.round((run.movesPerSecond ?? 0) * Math.max(0, (seconds ?? 0) - elapsedMs / 1000));
+    cooling = resolveCooling(o.cooling, { t0, tEnd, budgetMoves: Math.max(1, left) });
+    if (!("tEnd" in cooling)) tEnd = temperatureAt(cooling, Math.max(1, left), 1);
+  }
+
   function step(maxMoves: number): boolean {
     if (done) return true;
     if (o.signal?.aborted) {
@@ -142,6 +209,25 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
       if (budgetMoves !== undefined && moves >= budgetMoves) {
         done = true;
         break;
+      }
+      if (minimiser) {
+        // The route-minimisation phase, in slices of whole pops; its evaluations count as moves.
+        const limit = budgetMoves !== undefined ? Math.floor(ROUTE_MINIMISATION_SHARE * budgetMoves) - moves : Number.MAX_SAFE_INTEGER;
+        const used = limit > 0 ? minimiser.run(limit, maxMoves - k) : 0;
+        moves += used;
+        movesSinceReport += used;
+        evaluations += used;
+        k += Math.max(0, used - 1);
+        if (budgetMoves !== undefined) fraction = Math.min(1, moves / budgetMoves);
+        const over = checkClock();
+        if (minimiser.removed !== savedCount) {
+          savedCount = minimiser.removed;
+          savedAtFraction = fraction;
+        }
+        const stalled = budgetMoves === undefined && fraction - savedAtFraction >= ROUTE_MINIMISATION_STALL;
+        if (minimiser.finished || used >= limit || fraction >= ROUTE_MINIMISATION_SHARE || stalled || over) endPhase();
+        if (over) break;
+        continue;
       }
       if (descent) {
         // The final descent, in slices of whole stops (the same evaluations however the run is
@@ -161,7 +247,8 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
       movesSinceReport++;
       if (moves % TEMPERATURE_EVERY === 0) {
         if (budgetMoves !== undefined) fraction = moves / budgetMoves;
-        temperature = fraction >= QUENCH_FROM ? 0 : temperatureAt(cooling, moves, fraction);
+        const annealFraction = phaseFraction > 0 ? (fraction - phaseFraction) / (1 - phaseFraction) : fraction;
+        temperature = fraction >= QUENCH_FROM ? 0 : temperatureAt(cooling, moves - phaseMoves, annealFraction);
         if (!polished && fraction >= QUENCH_FROM) {
           // The quench starts from the best feasible plan, with a steepest descent on it.
           polished = true;
@@ -170,7 +257,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
           continue;
         }
       }
-      if (proposeMove(state, moveNb, rng, mv, active)) {
+      if (proposeMove(state, moveNb, rng, mv, active) && !(fixedFleet && mv.usedDelta !== 0)) {
         evaluations++;
         const dE = mv.delta;
         let accept: boolean;
@@ -187,13 +274,22 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
           best.consider(state);
         }
       }
+      if (fixedFleet && moves % ADAPT_EVERY === 0) {
+        // At the phase's fleet the chain can stay out of the rules for good: back to the best plan.
+        if (state.isFeasible()) feasibleAt = moves;
+        else if (moves - feasibleAt >= RESTART_MOVES_PER_STOP * active.length) {
+          best.restore(state);
+          state.setWeights(run.weights.wTime, run.weights.wLoad);
+          feasibleAt = moves;
+        }
+      }
       if (o.adaptivePenalties && moves % ADAPT_EVERY === 0) {
         const wTime = state.wTime;
         const wLoad = state.wLoad;
         adaptPenalties(state, run.weights);
         if (state.wTime !== wTime || state.wLoad !== wLoad) penaltyUpdates++;
       }
-      if (o.routeMinimisation && cp.hierarchical && elimination.due(moves, fraction, best.key1, state)) {
+      if (o.routeMinimisation && cp.hierarchical && annealerEliminates && elimination.due(moves, fraction, best.key1, state)) {
         if (eliminateRoute(state, nb, rng) >= 0) {
           routeEliminations++;
           best.consider(state);

@@ -18,8 +18,10 @@ export interface RunStats {
   cooling: ResolvedCooling;
   /**
    * What the switchable parts did (see the ablation switches of `SolveOptions`): candidate
-   * routes evaluated stop by stop instead of on segment summaries, routes emptied by route
-   * elimination, and updates of the adaptive penalties that changed a weight.
+   * routes evaluated stop by stop instead of on segment summaries, routes emptied on purpose
+   * (removals started by the route-minimisation phase, or the annealer's route eliminations
+   * when the phase found no feasible plan), and updates of the adaptive penalties that changed
+   * a weight.
    */
   fullRouteEvaluations: number;
   routeEliminations: number;
