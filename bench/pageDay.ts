@@ -15,6 +15,7 @@ import { createServer, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
+import { CHROMIUM_FLAGS } from "../scripts/chromiumFlags.js";
 import { serveStatic } from "../scripts/serveStatic.js";
 import type { Problem } from "../src/core/model.js";
 import { evaluatePlan } from "../src/core/schedule/evaluatePlan.js";
@@ -69,14 +70,7 @@ export async function runPageDays(days: readonly { problem: Problem; seconds: nu
       const browser = await chromium.launch({
         executablePath: CHROMIUM,
         headless: true,
-        args: [
-          "--no-sandbox",
-          "--disable-gpu",
-          "--no-first-run",
-          "--disable-background-networking",
-          "--disable-component-update",
-          "--disable-sync",
-        ],
+        args: [...CHROMIUM_FLAGS],
       });
       let bins: { url: string; close(): Promise<void> } | undefined;
       try {

@@ -23,7 +23,7 @@ import { TOTALS_LABELS } from "../../src/sheets/layoutPlan.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { readScenarioInput } from "../../src/workbook/scenario.js";
 import { ensureBuild, DIST } from "./ensureBuild.js";
-import { CHROMIUM_FLAGS } from "./pageSession.js";
+import { CHROMIUM_FLAGS } from "../../scripts/chromiumFlags.js";
 import { startTileServer } from "./tileServer.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));

@@ -8,18 +8,9 @@ import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { CHROMIUM_FLAGS } from "../../scripts/chromiumFlags.js";
 import { serveStatic } from "../../scripts/serveStatic.js";
 import { DIST, ensureBuild } from "./ensureBuild.js";
-
-/** Headless Chromium flags of every browser test: no sandbox (root in CI), no GPU, and nothing fetched in the background. */
-export const CHROMIUM_FLAGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-] as const;
 
 /** A page on the served build, with a scratch folder for files; `close` undoes all of it. */
 export interface PageSession {
@@ -58,14 +49,7 @@ export async function openPageSession(
     context = await chromium.launchPersistentContext(join(dir, "profile"), {
       executablePath: chromiumPath,
       headless: true,
-      args: [
-        "--no-sandbox",
-        "--disable-gpu",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
+      args: [...CHROMIUM_FLAGS],
       viewport: options.viewport ?? { width: 360, height: 900 },
       acceptDownloads: options.acceptDownloads ?? true,
     });

@@ -21,7 +21,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { serveStatic } from "../../scripts/serveStatic.js";
 import { ExcelJsWorkbook } from "../../src/workbook/exceljs/ExcelJsWorkbook.js";
 import { DIST, ensureBuild } from "./ensureBuild.js";
-import { CHROMIUM_FLAGS } from "./pageSession.js";
+import { CHROMIUM_FLAGS } from "../../scripts/chromiumFlags.js";
 import { installFakeExcel } from "./fakeExcelHost.js";
 
 const ROOT = resolve(fileURLToPath(new URL("../..", import.meta.url)));

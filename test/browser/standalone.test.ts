@@ -24,7 +24,7 @@ import { PLAN_SETTINGS_DEFAULTS } from "../../src/sheets/PlanSettings.js";
 import { installFakeExcel, type FakeExcelLog } from "./fakeExcelHost.js";
 import { startTileServer } from "./tileServer.js";
 import { ensureBuild } from "./ensureBuild.js";
-import { CHROMIUM_FLAGS } from "./pageSession.js";
+import { CHROMIUM_FLAGS } from "../../scripts/chromiumFlags.js";
 import { OFFICE_JS_CDN } from "../../scripts/addinBuild.js";
 import { startGeocodeServer } from "../geocode/geocodeServer.js";
 
