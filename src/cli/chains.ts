@@ -1,9 +1,11 @@
 /**
- * Several independent annealing chains on worker threads (`--workers N`). The seeds, the plan
- * kept and the combined progress are the core's (`core/chains.ts`, shared with the pane's Web
- * Workers): chain k solves with `chainSeed(seed, k)` and the full budget, the best plan by
- * `comparePlans` is kept (ties to the lowest chain), so the same seed, move budget and N always
- * give the same plan, and chain 0 is the run one chain would make.
+ * Several annealing chains on worker threads (`--workers N`). The seeds, the sharing, the plan
+ * kept and the combined progress are the core's (`core/chains.ts`, `core/shareRounds.ts`,
+ * shared with the pane's Web Workers): chain k solves with `chainSeed(seed, k)` and the full
+ * budget; at the marks of the budget (`shareMarks`) every chain reports its best plan and
+ * continues from the best of them (`ShareRounds`, `SharingChain`); at the end the best plan by
+ * `comparePlans` is kept (ties to the lowest chain). Marks of a move budget are move counts, so
+ * the same seed, move budget and N always give the same plan.
  */
 import { existsSync, readFileSync } from "node:fs";
 import { createRequire } from "node:module";
@@ -14,7 +16,13 @@ import {
   combineProgress,
   createSolver,
   keptChain,
+  SOLVE_DEFAULTS,
+  shareMarks,
+  ShareRounds,
+  type Plan,
   type Problem,
+  type ShareDelivery,
+  type ShareMark,
   type Progress,
   type SolveOptions,
   type SolveResult,
@@ -39,6 +47,8 @@ export interface ChainRequest {
   readonly problem: Problem;
   readonly options: ChainOptions;
   readonly chain: number;
+  /** Where the chain reports its best plan and waits for the round's (none: an independent chain). */
+  readonly marks: readonly ShareMark[];
   /** SharedArrayBuffer of one Int32: non-zero asks the chain to stop. */
   readonly stop: SharedArrayBuffer;
 }
@@ -46,8 +56,12 @@ export interface ChainRequest {
 /** What a chain worker posts back. */
 export type ChainMessage =
   | { readonly type: "progress"; readonly chain: number; readonly progress: Progress }
+  | { readonly type: "mark"; readonly chain: number; readonly plan: Plan }
   | { readonly type: "done"; readonly chain: number; readonly result: SolveResult }
   | { readonly type: "error"; readonly chain: number; readonly message: string };
+
+/** What the main thread sends a chain worker at a mark: the plan of the round, or none (stopped). */
+export type ChainReply = { readonly type: "share"; readonly plan: Plan | undefined };
 
 /** The outcome of every chain, and which one was kept. */
 export interface ChainsResult extends SolveResult {
@@ -55,6 +69,8 @@ export interface ChainsResult extends SolveResult {
   readonly chain: number;
   /** Each chain's own result, by index. */
   readonly chains: readonly SolveResult[];
+  /** Times the chains shared their best plan (0 for one chain or independent chains). */
+  readonly shares: number;
 }
 
 /** How a multi-chain run reports and stops. */
@@ -65,6 +81,11 @@ export interface ChainsHooks {
   readonly onProgress?: (progress: Progress) => void;
   /** Aborting it stops every chain; each keeps its best plan and the best of those is returned. */
   readonly signal?: AbortSignal;
+  /**
+   * False runs the chains independently (no sharing), for the bench that compares the two;
+   * the product always shares (default true).
+   */
+  readonly share?: boolean;
 }
 
 /**
@@ -82,9 +103,9 @@ export function parseWorkers(text: string | undefined): { workers: number } | { 
 }
 
 /**
- * Run `workers` independent chains and keep the best plan. One chain runs in this thread (the
- * same moves as `solve`), yielding to the event loop between slices so an abort can arrive;
- * more run on worker threads.
+ * Run `workers` chains that share their best plan at the marks of the budget, and keep the best
+ * plan. One chain runs in this thread (the same moves as `solve`), yielding to the event loop
+ * between slices so an abort can arrive; more run on worker threads.
  *
  * @param problem - a problem without `validateProblem` issues
  * @param options - the solve options every chain shares (the seed is derived per chain)
@@ -95,12 +116,13 @@ export function parseWorkers(text: string | undefined): { workers: number } | { 
  * @example (await runChains(problem, { seed: 1, budget: { moves: 100_000 } }, 2)).plan
  */
 export async function runChains(problem: Problem, options: ChainOptions, workers: number, hooks: ChainsHooks = {}): Promise<ChainsResult> {
-  const results = workers <= 1 ? [await runHere(problem, options, hooks)] : await runOnThreads(problem, options, workers, hooks);
+  const { results, shares } =
+    workers <= 1 ? { results: [await runHere(problem, options, hooks)], shares: 0 } : await runOnThreads(problem, options, workers, hooks);
   const best = keptChain(
     problem,
     results.map((r) => r.plan),
   );
-  return { ...results[best]!, chain: best, chains: results };
+  return { ...results[best]!, chain: best, chains: results, shares };
 }
 
 async function runHere(problem: Problem, options: ChainOptions, hooks: ChainsHooks): Promise<SolveResult> {
@@ -130,10 +152,17 @@ function workerModule(): { url: URL | string; eval: boolean } {
   return { url: `import(${JSON.stringify(api)}).then((m) => m.register()).then(() => import(${JSON.stringify(ts)}));`, eval: true };
 }
 
-function runOnThreads(problem: Problem, options: ChainOptions, workers: number, hooks: ChainsHooks): Promise<SolveResult[]> {
+function runOnThreads(
+  problem: Problem,
+  options: ChainOptions,
+  workers: number,
+  hooks: ChainsHooks,
+): Promise<{ results: SolveResult[]; shares: number }> {
   const stop = new SharedArrayBuffer(4);
   const flag = new Int32Array(stop);
   const seed = options.seed ?? 1;
+  const marks = hooks.share === false ? [] : shareMarks(options.budget ?? SOLVE_DEFAULTS.budget);
+  const rounds = new ShareRounds(problem, workers);
   const module = workerModule();
   // One wall-clock start for every chain (milliseconds since the epoch, comparable across
   // threads): a chain whose thread took longer to start does not run on past the others.
@@ -141,10 +170,17 @@ function runOnThreads(problem: Problem, options: ChainOptions, workers: number, 
   const latest: (Progress | undefined)[] = new Array<Progress | undefined>(workers).fill(undefined);
   const results: (SolveResult | undefined)[] = new Array<SolveResult | undefined>(workers).fill(undefined);
   const threads: Worker[] = [];
-  const onAbort = (): void => void Atomics.store(flag, 0, 1);
+  const deliver = (deliveries: readonly ShareDelivery[]): void => {
+    for (const d of deliveries) threads[d.chain]?.postMessage({ type: "share", plan: d.plan } satisfies ChainReply);
+  };
+  // A stop lets the chains waiting at a mark go on at once (they then see the flag and end).
+  const onAbort = (): void => {
+    Atomics.store(flag, 0, 1);
+    deliver(rounds.release());
+  };
   if (hooks.signal?.aborted) onAbort();
   hooks.signal?.addEventListener("abort", onAbort);
-  return new Promise<SolveResult[]>((resolve, reject) => {
+  return new Promise<{ results: SolveResult[]; shares: number }>((resolve, reject) => {
     let left = workers;
     let failed = false;
     const fail = (message: string): void => {
@@ -155,21 +191,25 @@ function runOnThreads(problem: Problem, options: ChainOptions, workers: number, 
       reject(new Error(message));
     };
     for (let chain = 0; chain < workers; chain++) {
-      const request: ChainRequest = { problem, options: { ...options, seed: chainSeed(seed, chain), startedAt }, chain, stop };
+      const request: ChainRequest = { problem, options: { ...options, seed: chainSeed(seed, chain), startedAt }, chain, marks, stop };
       const t = new Worker(module.url, { workerData: request, eval: module.eval });
       threads.push(t);
       t.on("message", (m: ChainMessage) => {
         if (m.type === "progress") {
           latest[m.chain] = m.progress;
           if (hooks.onProgress) hooks.onProgress(combineProgress(latest));
+        } else if (m.type === "mark") {
+          deliver(rounds.arrive(m.chain, m.plan));
+          if (Atomics.load(flag, 0) !== 0) deliver(rounds.release());
         } else if (m.type === "error") {
           fail(`chain ${m.chain}: ${m.message}`);
         } else {
           results[m.chain] = m.result;
           void t.terminate();
+          deliver(rounds.leave(m.chain, m.result.plan));
           if (--left === 0 && !failed) {
             hooks.signal?.removeEventListener("abort", onAbort);
-            resolve(results as SolveResult[]);
+            resolve({ results: results as SolveResult[], shares: rounds.rounds });
           }
         }
       });

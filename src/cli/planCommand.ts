@@ -186,7 +186,9 @@ export async function runPlan(workbook: string, opts: PlanOptions, settings: Rea
   ];
   if (chains > 1) {
     const total = result.chains.reduce((sum, c) => sum + c.stats.moves, 0);
-    lines.push(`Chains: ${chains} on worker threads, ${total} moves in all; the plan is chain ${result.chain + 1}'s`);
+    lines.push(
+      `Chains: ${chains} on worker threads, ${total} moves in all, the best plan shared ${result.shares} times; the plan is chain ${result.chain + 1}'s`,
+    );
   }
   if (book.skippedCharts.length > 0) {
     lines.push("Route chart: not drawn in the file (exceljs cannot write charts); the Excel add-in draws it.");

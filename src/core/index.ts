@@ -7,6 +7,8 @@ export { buildMatrix, userMatrix, type BuildMatrixOptions } from "./geo/buildMat
 export { solve, createSolver, type Solver, type SolveResult, type RunStats } from "./solve.js";
 export { comparePlans } from "./comparePlans.js";
 export { chainSeed, combineProgress, keptChain } from "./chains.js";
+export { SHARE_AT, shareMarks, ShareRounds, type ShareDelivery, type ShareMark } from "./shareRounds.js";
+export { SharingChain, type ChainState } from "./sharingChain.js";
 export { summariseRuns, type RunsSummary, type SeededRun } from "./summariseRuns.js";
 export { evaluatePlan } from "./schedule/evaluatePlan.js";
 export { unservableStops } from "./schedule/unservableStops.js";

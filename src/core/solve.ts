@@ -2,7 +2,7 @@ import { acceptanceProbability } from "./anneal/acceptanceProbability.js";
 import { resolveCooling, temperatureAt } from "./anneal/resolveCooling.js";
 import { isWorseMove } from "./anneal/sampleUphill.js";
 import { ROUTE_MINIMISATION_SHARE, ROUTE_MINIMISATION_STALL } from "./constants.js";
-import type { Problem } from "./model.js";
+import type { Plan, Problem } from "./model.js";
 import { eliminateRoute } from "./moves/eliminateRoute.js";
 import { applyMove, Move, proposeMove } from "./moves/proposeMove.js";
 import { SOLVE_DEFAULTS, type Progress, type SolveOptions } from "./options.js";
@@ -302,8 +302,50 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     return done;
   }
 
+  /**
+   * Continue from another plan of the same problem (a plan another chain found): its routes
+   * replace the current ones, every stop it leaves out goes to the pool, and the best plan
+   * takes it when it is better. Moves, temperature, penalty weights and the random generator
+   * stay where they are, so the run goes on at the same point of its schedule. Not while the
+   * route-minimisation phase runs (it owns the routes then): false, and nothing changes.
+   */
+  function adopt(plan: Plan): boolean {
+    const V = state.routes.length;
+    for (const r of plan.routes) {
+      if (!Number.isInteger(r.vehicle) || r.vehicle < 0 || r.vehicle >= V)
+        throw new RangeError(`adopt: route of vehicle ${r.vehicle} is not a vehicle of this problem (0 to ${V - 1})`);
+      for (const visit of r.visits) {
+        if (!(visit.stop >= 0 && visit.stop < cp.n) || state.routeOf[visit.stop] === -2)
+          throw new RangeError(`adopt: stop ${visit.stop} cannot be on a route of this problem`);
+      }
+    }
+    if (minimiser) return false;
+    for (let v = 0; v < V; v++) {
+      const r = state.routes[v]!;
+      if (r.len === 0) continue;
+      const stops = Array.from(r.nodes.subarray(1, r.len + 1));
+      state.setRoute(v, []);
+      for (const s of stops) state.addToPool(s);
+    }
+    for (const r of plan.routes) {
+      if (r.visits.length > 0)
+        state.setRoute(
+          r.vehicle,
+          r.visits.map((visit) => visit.stop),
+        );
+    }
+    best.consider(state);
+    // The restart at the phase's fleet counts from here.
+    feasibleAt = moves;
+    // In the quench, the steepest descent starts again from the adopted plan.
+    if (descent) descent = new FinalDescent(state, moveNb, active, () => best.consider(state));
+    progress = makeProgress();
+    return true;
+  }
+
   return {
     step,
+    adopt,
     get progress() {
       return progress;
     },

@@ -1,8 +1,9 @@
 /**
- * The pane's side of the solver worker: starts runs, forwards stop, and turns sample requests
- * into promises. Only plain data crosses (the Problem's typed arrays are structured-cloned).
+ * The pane's side of the solver worker: starts runs, forwards stop and the shared plans of a
+ * pool's rounds, and turns sample requests into promises. Only plain data crosses (the
+ * Problem's typed arrays are structured-cloned).
  */
-import type { Issue, Problem, Progress, SolveResult } from "../core/index.js";
+import type { Issue, Plan, Problem, Progress, ShareMark, SolveResult } from "../core/index.js";
 import type { FromWorker, ToWorker, WorkerSolveOptions } from "./workerProtocol.js";
 
 /** Figures of one run besides the solver's own. */
@@ -14,6 +15,8 @@ export interface RunFigures {
 /** Callbacks of one run. */
 export interface RunHandlers {
   onProgress(progress: Progress): void;
+  /** The run reached a mark (a run started with marks) with this best plan; answer with `share`. */
+  onMark?(plan: Plan): void;
   onResult(result: SolveResult, stopped: boolean, figures?: RunFigures): void;
   onError(message: string, issues: readonly Issue[]): void;
 }
@@ -32,20 +35,36 @@ export class WorkerError extends Error {
 /** What a pool of chains needs from one worker's client (`SolverClient`, or a stand-in in tests). */
 export interface ChainClient {
   readonly running: boolean;
-  start(problem: Problem, options: WorkerSolveOptions, handlers: RunHandlers): number;
+  start(problem: Problem, options: WorkerSolveOptions, handlers: RunHandlers, marks?: readonly ShareMark[]): number;
+  /** The plan of the round the run waits for at its mark (none: go on as it was). */
+  share(plan: Plan | undefined): void;
   stop(): void;
+}
+
+/**
+ * What the client needs of a worker: a Web Worker, or in tests an in-process stand-in that
+ * passes messages to the same engine host (`createEngineHost`).
+ */
+export interface WorkerPort {
+  postMessage(message: ToWorker): void;
+  onmessage: ((event: { data: FromWorker }) => void) | null;
+  onerror: ((event: { message?: string }) => void) | null;
 }
 
 /** Talks to one solver worker. */
 export class SolverClient implements ChainClient {
-  private readonly worker: Worker;
+  private readonly worker: WorkerPort;
   private nextId = 1;
   private run: { runId: number; handlers: RunHandlers } | undefined;
   private readonly requests = new Map<number, { resolve: (m: FromWorker) => void; reject: (e: Error) => void }>();
 
-  constructor() {
-    this.worker = new Worker(new URL("./solverWorker.ts", import.meta.url));
-    this.worker.onmessage = (e: MessageEvent<FromWorker>) => this.receive(e.data);
+  /**
+   * @param port - the worker to talk to; by default a new solver Web Worker (webpack finds the
+   *   worker script by the literal `new Worker(new URL(...))` below, so it stays in that form)
+   */
+  constructor(port?: WorkerPort) {
+    this.worker = port ?? (new Worker(new URL("./solverWorker.ts", import.meta.url)) as unknown as WorkerPort);
+    this.worker.onmessage = (e) => this.receive(e.data);
     this.worker.onerror = (e) => {
       const message = `The solver worker failed: ${e.message || "unknown error"}`;
       this.run?.handlers.onError(message, []);
@@ -68,11 +87,16 @@ export class SolverClient implements ChainClient {
    * @param handlers - progress, result and error callbacks
    * @returns the run id
    */
-  start(problem: Problem, options: WorkerSolveOptions, handlers: RunHandlers): number {
+  start(problem: Problem, options: WorkerSolveOptions, handlers: RunHandlers, marks?: readonly ShareMark[]): number {
     const runId = this.nextId++;
     this.run = { runId, handlers };
-    this.post({ type: "start", runId, problem, options });
+    this.post({ type: "start", runId, problem, options, ...(marks && marks.length > 0 ? { marks } : {}) });
     return runId;
+  }
+
+  /** Send the round's plan to the run waiting at its mark. */
+  share(plan: Plan | undefined): void {
+    if (this.run) this.post({ type: "share", runId: this.run.runId, plan });
   }
 
   /** Ask the running run to stop after its current slice; the best plan so far comes back as its result. */
@@ -124,6 +148,7 @@ export class SolverClient implements ChainClient {
     const run = this.run;
     if (!run || !("runId" in m) || m.runId !== run.runId) return;
     if (m.type === "progress") run.handlers.onProgress(m.progress);
+    else if (m.type === "mark") run.handlers.onMark?.(m.plan);
     else if (m.type === "result") {
       this.run = undefined;
       run.handlers.onResult(m.result, m.stopped, { peakHeapBytes: m.peakHeapBytes });

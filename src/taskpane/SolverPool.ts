@@ -1,12 +1,25 @@
 /**
- * Several solver Web Workers running independent chains of one run (the pane's Workers field):
- * chain k gets `chainSeed(seed, k)` and the whole budget, every chain starts from the same clock
- * moment (`startedAt`), progress is combined (`combineProgress`) and the plan kept is the core's
- * choice (`keptChain`), so the same seed, move budget and number of workers give the plan the
- * CLI's `--workers` gives. Stop stops them all; an error in one stops the others and is reported
- * once, after all have ended.
+ * Several solver Web Workers running the chains of one run (the pane's Workers field): chain k
+ * gets `chainSeed(seed, k)` and the whole budget, every chain starts from the same clock moment
+ * (`startedAt`), at the marks of the budget (`shareMarks`) every chain reports its best plan and
+ * continues from the best of them (`ShareRounds`), progress is combined (`combineProgress`) and
+ * the plan kept is the core's choice (`keptChain`), so the same seed, move budget and number of
+ * workers give the plan the CLI's `--workers` gives. Stop stops them all; an error in one stops
+ * the others and is reported once, after all have ended.
  */
-import { chainSeed, combineProgress, keptChain, type Issue, type Problem, type Progress, type SolveResult } from "../core/index.js";
+import {
+  chainSeed,
+  combineProgress,
+  keptChain,
+  shareMarks,
+  ShareRounds,
+  SOLVE_DEFAULTS,
+  type Issue,
+  type Problem,
+  type Progress,
+  type ShareDelivery,
+  type SolveResult,
+} from "../core/index.js";
 import type { ChainClient, RunFigures } from "./SolverClient.js";
 import type { WorkerSolveOptions } from "./workerProtocol.js";
 
@@ -18,6 +31,8 @@ export interface PoolResult extends SolveResult {
   readonly chains: readonly SolveResult[];
   /** Largest JS heap any one worker reported (bytes); undefined when the browser reports none in a worker. */
   readonly peakHeapBytes?: number | undefined;
+  /** Times the chains shared their best plan (0 for one worker). */
+  readonly shares: number;
 }
 
 /** Callbacks of one pool run. */
@@ -80,6 +95,11 @@ export class SolverPool {
     let failure: { message: string; issues: readonly Issue[] } | undefined;
     let left = workers;
     const seed = options.seed ?? 1;
+    const marks = workers > 1 ? shareMarks(options.budget ?? SOLVE_DEFAULTS.budget) : [];
+    const rounds = new ShareRounds(problem, workers);
+    const deliver = (deliveries: readonly ShareDelivery[]): void => {
+      for (const d of deliveries) this.clients[d.chain]!.share(d.plan);
+    };
     const ended = (): void => {
       if (--left > 0) return;
       this.current = undefined;
@@ -91,34 +111,52 @@ export class SolverPool {
       );
       const known = heaps.filter((h): h is number => h !== undefined);
       handlers.onResult(
-        { ...done[kept]!, chain: kept, chains: done, peakHeapBytes: known.length > 0 ? Math.max(...known) : undefined },
+        {
+          ...done[kept]!,
+          chain: kept,
+          chains: done,
+          peakHeapBytes: known.length > 0 ? Math.max(...known) : undefined,
+          shares: rounds.rounds,
+        },
         run.stopped,
       );
     };
     for (let k = 0; k < workers; k++) {
       const chainOptions: WorkerSolveOptions = { ...options, seed: chainSeed(seed, k), ...(workers > 1 ? { startedAt } : {}) };
-      this.clients[k]!.start(problem, chainOptions, {
-        onProgress: (p) => {
-          latest[k] = p;
-          if (!failure) handlers.onProgress(workers === 1 ? p : combineProgress(latest));
+      this.clients[k]!.start(
+        problem,
+        chainOptions,
+        {
+          onProgress: (p) => {
+            latest[k] = p;
+            if (!failure) handlers.onProgress(workers === 1 ? p : combineProgress(latest));
+          },
+          onMark: (plan) => {
+            deliver(rounds.arrive(k, plan));
+            // Stopped or failed meanwhile: let it go on at once (it then ends).
+            if (run.stopped || failure) deliver(rounds.release());
+          },
+          onResult: (result, stopped, figures?: RunFigures) => {
+            results[k] = result;
+            heaps[k] = figures?.peakHeapBytes;
+            if (stopped) run.stopped = true;
+            deliver(rounds.leave(k, result.plan));
+            ended();
+          },
+          onError: (message, issues) => {
+            if (!failure) {
+              failure = {
+                message: workers === 1 ? message : `Worker ${k + 1} of ${workers} failed, so the run was stopped: ${message}`,
+                issues,
+              };
+              for (let j = 0; j < workers; j++) if (j !== k) this.clients[j]!.stop();
+            }
+            deliver(rounds.leave(k));
+            ended();
+          },
         },
-        onResult: (result, stopped, figures?: RunFigures) => {
-          results[k] = result;
-          heaps[k] = figures?.peakHeapBytes;
-          if (stopped) run.stopped = true;
-          ended();
-        },
-        onError: (message, issues) => {
-          if (!failure) {
-            failure = {
-              message: workers === 1 ? message : `Worker ${k + 1} of ${workers} failed, so the run was stopped: ${message}`,
-              issues,
-            };
-            for (let j = 0; j < workers; j++) if (j !== k) this.clients[j]!.stop();
-          }
-          ended();
-        },
-      });
+        marks,
+      );
     }
   }
 

@@ -52,17 +52,19 @@ export function showFinished(d: PaneDom, result: SolveResult | PoolResult, stopp
 }
 
 /**
- * The Workers figure after a run: how many chains ran, their moves together, and whose plan is kept.
+ * The Workers figure after a run: how many chains ran, how often they shared their best plan,
+ * their moves together, and whose plan is kept.
  *
  * @param result - a run's result (one chain, or the pool's with every chain)
- * @returns e.g. "2; the plan is chain 2's (1,234,567 moves in all)"
+ * @returns e.g. "2, the best plan shared 7 times; the plan is chain 2's (1,234,567 moves in all)"
  * @example workersText(oneChainResult) // => "1 (52,000 moves)"
  */
 export function workersText(result: SolveResult | PoolResult): string {
   const chains = "chains" in result ? result.chains : [result];
   const moves = chains.reduce((s, c) => s + c.stats.moves, 0).toLocaleString("en");
   if (chains.length === 1) return `1 (${moves} moves)`;
-  return `${chains.length}; the plan is chain ${("chain" in result ? result.chain : 0) + 1}'s (${moves} moves in all)`;
+  const shares = "shares" in result ? result.shares : 0;
+  return `${chains.length}, the best plan shared ${shares} times; the plan is chain ${("chain" in result ? result.chain : 0) + 1}'s (${moves} moves in all)`;
 }
 
 /**

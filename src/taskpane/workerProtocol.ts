@@ -5,14 +5,19 @@
  *
  * A run is sliced: the host calls `solver.step(sliceMoves)`, then yields through `defer`, so a
  * `stop` message that arrived meanwhile is seen before the next slice (the worker's event loop
- * delivers it between two deferred callbacks).
+ * delivers it between two deferred callbacks). A run of several chains (`SolverPool`) is sent the
+ * marks where chains share: at each the host posts its best plan (`mark`) and waits for the
+ * round's plan (`share`), as `SharingChain` says; a `stop` while it waits ends the run at once.
  */
 import {
   createSolver,
   sampleMeanUphill,
+  SharingChain,
   validateProblem,
   type Issue,
+  type Plan,
   type Problem,
+  type ShareMark,
   type Progress,
   type SolveOptions,
   type SolveResult,
@@ -24,8 +29,17 @@ export type WorkerSolveOptions = Partial<Omit<SolveOptions, "now" | "onProgress"
 
 /** Messages from the pane to the worker. */
 export type ToWorker =
-  | { readonly type: "start"; readonly runId: number; readonly problem: Problem; readonly options: WorkerSolveOptions }
+  | {
+      readonly type: "start";
+      readonly runId: number;
+      readonly problem: Problem;
+      readonly options: WorkerSolveOptions;
+      /** Where this chain reports its best plan and waits for the round's (absent: a chain on its own). */
+      readonly marks?: readonly ShareMark[];
+    }
   | { readonly type: "stop"; readonly runId: number }
+  /** The plan of the round to continue from (or none), after the run posted `mark`. */
+  | { readonly type: "share"; readonly runId: number; readonly plan: Plan | undefined }
   | {
       readonly type: "sample";
       readonly requestId: number;
@@ -37,6 +51,8 @@ export type ToWorker =
 /** Messages from the worker to the pane. */
 export type FromWorker =
   | { readonly type: "progress"; readonly runId: number; readonly progress: Progress }
+  /** The run reached a mark with this best plan and waits for `share`. */
+  | { readonly type: "mark"; readonly runId: number; readonly plan: Plan }
   | {
       readonly type: "result";
       readonly runId: number;
@@ -108,7 +124,9 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
   }
   const sliceMoves = Math.max(1, Math.floor(deps.sliceMoves ?? 20_000));
   const progressEveryMs = deps.progressEveryMs ?? 200;
-  let run: { runId: number; solver: Solver; stopRequested: boolean; lastProgressMs: number; peakHeapBytes?: number } | undefined;
+  let run:
+    | { runId: number; solver: Solver; chain: SharingChain; stopRequested: boolean; lastProgressMs: number; peakHeapBytes?: number }
+    | undefined;
   const sampleHeap = (current: NonNullable<typeof run>): void => {
     const used = deps.heapUsedBytes?.();
     if (used !== undefined && Number.isFinite(used)) current.peakHeapBytes = Math.max(current.peakHeapBytes ?? 0, used);
@@ -150,7 +168,8 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
     if (!current || current.runId !== runId) return;
     if (current.stopRequested) return finish(true);
     try {
-      const done = current.solver.step(sliceMoves);
+      const at = current.chain.advance(sliceMoves);
+      const done = at === "done";
       sampleHeap(current);
       const nowMs = deps.now();
       if (done || nowMs - current.lastProgressMs >= progressEveryMs) {
@@ -158,6 +177,8 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
         post({ type: "progress", runId, progress: { ...current.solver.progress } });
       }
       if (done) return finish(false);
+      // At a mark: report the best plan and wait for the round's (`share` defers the next slice).
+      if (at === "mark") return post({ type: "mark", runId, plan: current.chain.best() });
     } catch (err) {
       run = undefined;
       return fail({ runId }, err);
@@ -177,7 +198,8 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
     } catch (err) {
       return fail({ runId: msg.runId }, err);
     }
-    run = { runId: msg.runId, solver, stopRequested: false, lastProgressMs: -Infinity };
+    const chain = new SharingChain(msg.problem, solver, msg.marks ?? []);
+    run = { runId: msg.runId, solver, chain, stopRequested: false, lastProgressMs: -Infinity };
     sampleHeap(run);
     deps.defer(() => slice(msg.runId));
   };
@@ -190,8 +212,24 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
         case "start":
           return start(msg);
         case "stop":
-          if (run && run.runId === msg.runId) run.stopRequested = true;
+          if (run && run.runId === msg.runId) {
+            run.stopRequested = true;
+            // Waiting at a mark, no slice is pending to see the stop: end now.
+            if (run.chain.waiting) finish(true);
+          }
           return;
+        case "share": {
+          const current = run;
+          if (!current || current.runId !== msg.runId || !current.chain.waiting) return;
+          try {
+            current.chain.resume(msg.plan);
+          } catch (err) {
+            run = undefined;
+            return fail({ runId: msg.runId }, err);
+          }
+          deps.defer(() => slice(msg.runId));
+          return;
+        }
         case "sample": {
           const issues = safeValidate(msg.problem);
           if (issues.length > 0) return fail(ids, "The problem has defects; nothing was sampled.", issues);
@@ -203,7 +241,7 @@ export function createEngineHost(deps: EngineHostDeps): EngineHost {
           return post({ type: "sampled", requestId: msg.requestId, ...sampled });
         }
         default:
-          return fail(ids, `Unknown message ${JSON.stringify(typeOf(message))}: expected start, stop or sample.`);
+          return fail(ids, `Unknown message ${JSON.stringify(typeOf(message))}: expected start, stop, share or sample.`);
       }
     } catch (err) {
       fail(ids, err);

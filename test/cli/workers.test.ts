@@ -4,7 +4,7 @@ import { promisify } from "node:util";
 import { describe, expect, it } from "vitest";
 import { chainSeed, combineProgress, parseWorkers, runChains } from "../../src/cli/chains.js";
 import { main } from "../../src/cli/main.js";
-import { comparePlans, parseSolomon, solomonToProblem, solve, type Problem, type Progress } from "../../src/core/index.js";
+import { comparePlans, parseSolomon, shareMarks, solomonToProblem, solve, type Problem, type Progress } from "../../src/core/index.js";
 import { checkPlan } from "../core/checkPlan.js";
 import { fixtureText } from "../reference/benchmarksDir.js";
 import { captureIO, demoCopy } from "../workbook/harness.js";
@@ -19,19 +19,36 @@ const summary = (plan: { routes: readonly { vehicle: number; visits: readonly { 
   totals: plan.totals,
 });
 
-describe("independent chains (--workers)", () => {
-  it("two chains give the identical plan twice for the same seed and move budget, and it is the better chain's", async () => {
+describe("chains that share their best plan (--workers)", () => {
+  it("two chains give the identical plan twice for the same seed and move budget, chain by chain, and it is the better chain's", async () => {
     const a = await runChains(problem, { seed: 5, budget: BUDGET }, 2);
     const b = await runChains(problem, { seed: 5, budget: BUDGET }, 2);
     expect(summary(b.plan)).toEqual(summary(a.plan));
     expect(b.chain).toBe(a.chain);
     expect(a.chains).toHaveLength(2);
-    // Chain 0 is exactly the one-chain run of the run's seed, chain 1 that of the derived seed.
-    expect(summary(a.chains[0]!.plan)).toEqual(summary(solve(problem, { seed: 5, budget: BUDGET }).plan));
-    expect(summary(a.chains[1]!.plan)).toEqual(summary(solve(problem, { seed: chainSeed(5, 1), budget: BUDGET }).plan));
+    for (const k of [0, 1]) expect(summary(b.chains[k]!.plan)).toEqual(summary(a.chains[k]!.plan));
+    // They shared at every mark of the move budget.
+    expect(a.shares).toBe(shareMarks(BUDGET).length);
+    expect(a.shares).toBeGreaterThan(0);
     for (const c of a.chains) expect(comparePlans(problem, a.plan, c.plan)).toBeLessThanOrEqual(0);
     // Re-checked by the independent checker written for the tests.
     expect(checkPlan(problem, a.plan)).toEqual([]);
+  }, 120_000);
+
+  it("three sharing chains give the identical plan twice too", async () => {
+    const a = await runChains(problem, { seed: 8, budget: { moves: 9_000 } }, 3);
+    const b = await runChains(problem, { seed: 8, budget: { moves: 9_000 } }, 3);
+    expect(summary(b.plan)).toEqual(summary(a.plan));
+    expect(b.chains.map((c) => summary(c.plan))).toEqual(a.chains.map((c) => summary(c.plan)));
+    expect(checkPlan(problem, a.plan)).toEqual([]);
+  }, 120_000);
+
+  it("independent chains (the bench's comparison) are each the one-chain run of their seed", async () => {
+    const a = await runChains(problem, { seed: 5, budget: BUDGET }, 2, { share: false });
+    expect(a.shares).toBe(0);
+    // Chain 0 is exactly the one-chain run of the run's seed, chain 1 that of the derived seed.
+    expect(summary(a.chains[0]!.plan)).toEqual(summary(solve(problem, { seed: 5, budget: BUDGET }).plan));
+    expect(summary(a.chains[1]!.plan)).toEqual(summary(solve(problem, { seed: chainSeed(5, 1), budget: BUDGET }).plan));
   }, 120_000);
 
   it("one chain is exactly the plan of solve with the same options", async () => {
@@ -107,7 +124,7 @@ describe("kiln plan --workers", () => {
     expect(keyLines(await run(["--workers", "1"]))).toEqual(keyLines(plain));
     const two = await run(["--workers", "2"]);
     expect(keyLines(await run(["--workers", "2"]))).toEqual(keyLines(two));
-    expect(two).toMatch(/Chains: 2 on worker threads, \d+ moves in all; the plan is chain [12]'s/);
+    expect(two).toMatch(/Chains: 2 on worker threads, \d+ moves in all, the best plan shared 7 times; the plan is chain [12]'s/);
   }, 120_000);
 
   it("refuses a bad --workers with exit 2 and one line", async () => {

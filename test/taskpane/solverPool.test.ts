@@ -1,17 +1,17 @@
 import { describe, expect, it } from "vitest";
 import { runChains } from "../../src/cli/chains.js";
 import {
-  chainSeed,
   comparePlans,
   keptChain,
   parseSolomon,
+  shareMarks,
   solomonToProblem,
   solve,
   type Issue,
   type Problem,
   type Progress,
 } from "../../src/core/index.js";
-import type { ChainClient, RunHandlers } from "../../src/taskpane/SolverClient.js";
+import { SolverClient, type ChainClient, type RunHandlers, type WorkerPort } from "../../src/taskpane/SolverClient.js";
 import { SolverPool, type PoolResult } from "../../src/taskpane/SolverPool.js";
 import { defaultPaneWorkers } from "../../src/taskpane/settingsFromForm.js";
 import { createEngineHost, type FromWorker, type WorkerSolveOptions } from "../../src/taskpane/workerProtocol.js";
@@ -23,46 +23,35 @@ const problem: Problem = solomonToProblem(parseSolomon(fixtureText("R101.txt")))
 const epochMs = (): number => performance.timeOrigin + performance.now();
 
 /**
- * A worker's client over the same engine host the pane's Web Worker runs (`createEngineHost`),
- * with messages passed in this process and slices yielded through setImmediate, as a stand-in for
- * `SolverClient` (which needs a browser's Worker).
+ * A worker in this process for the real `SolverClient`: the same engine host the pane's Web
+ * Worker runs (`createEngineHost`), messages structured-cloned both ways as a Worker's are and
+ * delivered on later turns of the event loop, slices yielded through setImmediate.
  */
-class HostClient implements ChainClient {
-  private run: { runId: number; handlers: RunHandlers } | undefined;
-  private nextId = 1;
-  private readonly host = createEngineHost({
-    post: (m) => setImmediate(() => this.receive(m)),
+function inProcessWorker(): WorkerPort {
+  const port: WorkerPort = {
+    postMessage: (m) => {
+      const copy = structuredClone(m);
+      setImmediate(() => host.handle(copy));
+    },
+    onmessage: null,
+    onerror: null,
+  };
+  const host = createEngineHost({
+    post: (m) => {
+      const copy = structuredClone(m);
+      setImmediate(() => port.onmessage?.({ data: copy }));
+    },
     now: epochMs,
     defer: (cb) => setImmediate(cb),
     sliceMoves: 2000,
     progressEveryMs: 0,
     heapUsedBytes: () => process.memoryUsage().heapUsed,
   });
-  get running(): boolean {
-    return this.run !== undefined;
-  }
-  start(problem: Problem, options: WorkerSolveOptions, handlers: RunHandlers): number {
-    const runId = this.nextId++;
-    this.run = { runId, handlers };
-    this.host.handle({ type: "start", runId, problem, options });
-    return runId;
-  }
-  stop(): void {
-    if (this.run) this.host.handle({ type: "stop", runId: this.run.runId });
-  }
-  private receive(m: FromWorker): void {
-    const run = this.run;
-    if (!run || !("runId" in m) || m.runId !== run.runId) return;
-    if (m.type === "progress") run.handlers.onProgress(m.progress);
-    else if (m.type === "result") {
-      this.run = undefined;
-      run.handlers.onResult(m.result, m.stopped, { peakHeapBytes: m.peakHeapBytes });
-    } else if (m.type === "error") {
-      this.run = undefined;
-      run.handlers.onError(m.message, m.issues);
-    }
-  }
+  return port;
 }
+
+/** The pane's own client class over a worker in this process. */
+const inProcessClient = (): SolverClient => new SolverClient(inProcessWorker());
 
 /** A worker that fails its run after a while (as a worker whose script throws would). */
 class FailingClient implements ChainClient {
@@ -79,6 +68,7 @@ class FailingClient implements ChainClient {
     }, 50);
     return 1;
   }
+  share(): void {}
   stop(): void {}
 }
 
@@ -109,17 +99,17 @@ const routesOf = (plan: PoolResult["plan"]): unknown => plan.routes.map((r) => [
 describe("the pane's pool of solver workers", () => {
   it("two workers with a move budget give the CLI's --workers 2 plan, chain by chain, and keep the better chain's", async () => {
     const options = { seed: 9, budget: { moves: 12_000 } };
-    const pool = new SolverPool(new HostClient(), () => new HostClient());
+    const pool = new SolverPool(inProcessClient(), () => inProcessClient());
     const out = await runPool(pool, options, 2);
     if (!("result" in out)) throw new Error(out.error);
     const cli = await runChains(problem, options, 2);
     expect(routesOf(out.result.plan)).toEqual(routesOf(cli.plan));
     expect(out.result.chain).toBe(cli.chain);
-    // Each chain is the one-chain run of its seed (chainSeed), and the kept one is the best by comparePlans.
+    // The chains shared at every mark of the budget, as the CLI's did, and each chain ended on the CLI's chain's plan.
+    expect(out.result.shares).toBe(shareMarks(options.budget).length);
+    expect(cli.shares).toBe(out.result.shares);
     for (const k of [0, 1]) {
-      expect(routesOf(out.result.chains[k]!.plan)).toEqual(
-        routesOf(solve(problem, { seed: chainSeed(9, k), budget: options.budget }).plan),
-      );
+      expect(routesOf(out.result.chains[k]!.plan)).toEqual(routesOf(cli.chains[k]!.plan));
       expect(comparePlans(problem, out.result.plan, out.result.chains[k]!.plan)).toBeLessThanOrEqual(0);
     }
     expect(out.result.chain).toBe(
@@ -141,7 +131,7 @@ describe("the pane's pool of solver workers", () => {
   }, 120_000);
 
   it("Stop stops every worker and keeps the exact best plan any of them had", async () => {
-    const pool = new SolverPool(new HostClient(), () => new HostClient());
+    const pool = new SolverPool(inProcessClient(), () => inProcessClient());
     const huge = { moves: 500_000_000 };
     const out = await runPool(pool, { seed: 4, budget: huge }, 3, (p) => {
       if (p.moves > 20_000) pool.stop();
@@ -157,8 +147,45 @@ describe("the pane's pool of solver workers", () => {
     expect(pool.running).toBe(false);
   }, 120_000);
 
+  it("Stop while a worker waits at a mark ends it at once with the exact plan it reported there", async () => {
+    const sent: FromWorker[] = [];
+    let wake: () => void = () => {};
+    const host = createEngineHost({
+      post: (m) => {
+        sent.push(m);
+        wake();
+      },
+      now: epochMs,
+      defer: (cb) => setImmediate(cb),
+      sliceMoves: 2000,
+    });
+    const until = (type: FromWorker["type"]): Promise<FromWorker> =>
+      new Promise((resolve) => {
+        const look = (): void => {
+          const m = sent.find((x) => x.type === type);
+          if (m) resolve(m);
+          else wake = look;
+        };
+        look();
+      });
+    host.handle({ type: "start", runId: 1, problem, options: { seed: 3, budget: { moves: 500_000_000 } }, marks: [{ moves: 5_000 }] });
+    const mark = await until("mark");
+    expect(host.busy).toBe(true);
+    host.handle({ type: "stop", runId: 1 });
+    const result = sent.find((m) => m.type === "result");
+    if (mark.type !== "mark" || result?.type !== "result") throw new Error("expected a mark, then a result at once");
+    expect(result.stopped).toBe(true);
+    // At the mark (the route-minimisation phase ends a slice on a whole pop, so it may pass the mark a little).
+    expect(result.result.stats.moves).toBeGreaterThanOrEqual(5_000);
+    expect(result.result.stats.moves).toBeLessThan(500_000_000);
+    expect(routesOf(result.result.plan)).toEqual(routesOf(mark.plan));
+    // Re-checked by the independent checker written for the tests.
+    expect(checkPlan(problem, result.result.plan)).toEqual([]);
+    expect(host.busy).toBe(false);
+  }, 120_000);
+
   it("an error in one worker stops the others and is reported once, naming the worker, after all have ended", async () => {
-    const others = [new HostClient(), new HostClient()];
+    const others = [inProcessClient(), inProcessClient()];
     const made = [new FailingClient(), others[1]!];
     const pool = new SolverPool(others[0]!, () => made.shift()!);
     const out = await runPool(pool, { seed: 2, budget: { moves: 500_000_000 } }, 3);
@@ -168,7 +195,7 @@ describe("the pane's pool of solver workers", () => {
   }, 120_000);
 
   it("one worker reports the problem's own defects as the single worker did", async () => {
-    const pool = new SolverPool(new HostClient(), () => new HostClient());
+    const pool = new SolverPool(inProcessClient(), () => inProcessClient());
     const broken: Problem = { ...problem, vehicles: [] };
     const out = await new Promise<Outcome>((resolve) =>
       pool.start(
@@ -188,7 +215,7 @@ describe("the pane's pool of solver workers", () => {
   });
 
   it("refuses a worker count outside the Workers field's range", () => {
-    const pool = new SolverPool(new HostClient(), () => new HostClient());
+    const pool = new SolverPool(inProcessClient(), () => inProcessClient());
     const h = { onProgress: () => {}, onResult: () => {}, onError: () => {} };
     for (const bad of [0, 65, 1.5]) expect(() => pool.start(problem, {}, bad, h, 0)).toThrow(RangeError);
   });
@@ -208,8 +235,10 @@ describe("the run figures of several workers", () => {
     const { workersText, memoryText } = await import("../../src/taskpane/runProgress.js");
     const one = solve(problem, { seed: 1, budget: { moves: 500 } });
     expect(workersText(one)).toBe(`1 (${one.stats.moves.toLocaleString("en")} moves)`);
-    const two = { ...one, chain: 1, chains: [one, one], peakHeapBytes: 41 * 2 ** 20 };
-    expect(workersText(two)).toBe(`2; the plan is chain 2's (${(2 * one.stats.moves).toLocaleString("en")} moves in all)`);
+    const two = { ...one, chain: 1, chains: [one, one], peakHeapBytes: 41 * 2 ** 20, shares: 7 };
+    expect(workersText(two)).toBe(
+      `2, the best plan shared 7 times; the plan is chain 2's (${(2 * one.stats.moves).toLocaleString("en")} moves in all)`,
+    );
     expect(memoryText(two)).toBe("41 MB JS heap (largest worker)");
     expect(memoryText({ ...two, peakHeapBytes: undefined })).toMatch(/^not available: /);
   });

@@ -154,7 +154,7 @@ describe("worker protocol", () => {
     const first = sent[0]!;
     if (first.type === "error") {
       expect(first.requestId).toBe(4);
-      expect(first.message).toMatch(/start, stop or sample/);
+      expect(first.message).toMatch(/start, stop, share or sample/);
     }
   });
 

@@ -40,6 +40,15 @@ export interface SolveResult {
 export interface Solver {
   /** Run up to `maxMoves` moves; true when the run is finished (budget used or aborted). */
   step(maxMoves: number): boolean;
+  /**
+   * Continue from `plan` (a plan of the same problem, e.g. another chain's best) at the same
+   * point of the schedule: the moves, temperature, penalty weights and random generator are
+   * kept; the best plan takes `plan` when it is better.
+   *
+   * @returns true when adopted; false while the route-minimisation phase runs (nothing changes)
+   * @throws RangeError when a route names a vehicle or stop the problem does not have
+   */
+  adopt(plan: Plan): boolean;
   readonly progress: Progress;
   /** The best plan so far (exactly re-evaluated), with the run's numbers. */
   result(): SolveResult;
