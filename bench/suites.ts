@@ -19,12 +19,19 @@
  * prints one row per instance with both results side by side, written to
  * `bench/results/<name>-<date>.json` (default name "workers-A-vs-B").
  *
+ *   npm run bench -- --suite solomon --seconds 8 --sharing 2
+ *
+ * `--sharing N` runs every instance once with N independent chains and once with N chains that
+ * share their best plan at the marks of the budget (the product's behaviour), at the same
+ * wall-clock seconds, side by side (default name "sharing-N").
+ *
  * Small GEO instances (burma14, ulysses16, ulysses22) always get 1 s; the others `--seconds`
  * (default 30). EUC_2D instances run only when named with `--only`. The benchmark folder is
  * `KILN_BENCHMARKS_DIR` when set, otherwise `../shared/benchmarks` beside the checkout;
  * `--fixtures` runs the six committed reference instances of test/fixtures/reference instead.
  */
 import { existsSync, readFileSync, readdirSync, statSync } from "node:fs";
+import { loadavg } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import type { SolomonBenchRecord, TsplibBenchRecord } from "../src/cli/benchCommand.js";
@@ -76,6 +83,8 @@ async function runSuites(argv: string[]): Promise<number> {
     .option("--only <NAMES>", "comma-separated instance names")
     .option("--workers <N>", "independent chains per instance on worker threads (default 1)")
     .option("--equal-time <A,B>", "run every instance with A and with B workers at the same seconds and compare them side by side")
+    .option("--sharing <N>", "run every instance with N independent and with N sharing chains at the same seconds, side by side")
+    .option("--moves <K>", "with --sharing: a budget of K moves per chain instead of seconds (the same work, whatever the load)")
     .option("--fixtures", "run the committed reference instances (test/fixtures/reference) instead of the benchmark folder")
     .option("--name <NAME>", "results file name: bench/results/<NAME>-<date>.json (default suites, or workers-A-vs-B)")
     .exitOverride();
@@ -94,18 +103,27 @@ async function runSuites(argv: string[]): Promise<number> {
     workers?: string;
     fixtures?: boolean;
     equalTime?: string;
+    sharing?: string;
+    moves?: string;
     name?: string;
   }>();
   const errors: string[] = [];
   const parsedWorkers = parseWorkers(opts.workers);
   if ("error" in parsedWorkers) errors.push(parsedWorkers.error);
   const workers = "workers" in parsedWorkers ? parsedWorkers.workers : 1;
-  const pair = opts.equalTime !== undefined ? parsePair(opts.equalTime) : undefined;
+  const pair =
+    opts.equalTime !== undefined ? parsePair(opts.equalTime) : opts.sharing !== undefined ? parseSharing(opts.sharing) : undefined;
+  const pairFlag = opts.equalTime !== undefined ? "--equal-time" : "--sharing";
   if (pair && "error" in pair) errors.push(pair.error);
-  if (pair && opts.workers !== undefined) errors.push("give --workers or --equal-time, not both");
-  if (pair && opts.cpuClock) errors.push("--equal-time compares at equal wall-clock time: leave out --cpu-clock");
-  if (pair && opts.seeds !== "1") errors.push("--equal-time runs the one seed of --seed: leave out --seeds");
-  const name = opts.name ?? (pair && "counts" in pair ? `workers-${pair.counts[0]}-vs-${pair.counts[1]}` : "suites");
+  if (opts.equalTime !== undefined && opts.sharing !== undefined) errors.push("give --equal-time or --sharing, not both");
+  if (pair && opts.workers !== undefined) errors.push(`give --workers or ${pairFlag}, not both`);
+  if (pair && opts.cpuClock) errors.push(`${pairFlag} compares at equal wall-clock time: leave out --cpu-clock`);
+  if (pair && opts.seeds !== "1") errors.push(`${pairFlag} runs the one seed of --seed: leave out --seeds`);
+  const name = opts.name ?? (pair && "configs" in pair ? pair.name + (opts.moves !== undefined ? "-moves" : "") : "suites");
+  const movesBudget = opts.moves !== undefined ? Number(opts.moves) : undefined;
+  if (movesBudget !== undefined && opts.sharing === undefined) errors.push("--moves goes with --sharing (the other modes count seconds)");
+  if (movesBudget !== undefined && !(Number.isInteger(movesBudget) && movesBudget >= 1000))
+    errors.push(`--moves: "${opts.moves}" is not a whole number of at least 1000`);
   if (!/^[\w.-]+$/.test(name)) errors.push(`--name: "${name}" may hold only letters, digits, ".", "_" and "-"`);
   if (opts.fixtures) suiteDir = () => FIXTURES_DIR;
   const flags = settingFlags({ seconds: opts.seconds, seed: opts.seed });
@@ -159,8 +177,10 @@ async function runSuites(argv: string[]): Promise<number> {
       ? "using the compiled CLI in dist/cli (worker threads start as in the product)\n"
       : "using the sources through tsx: dist/cli is missing or older than src/ (npm run build:cli); each worker thread compiles TypeScript as it starts, which costs it time\n",
   );
-  if (pair && "counts" in pair) {
+  if (pair && "configs" in pair) {
     const compared: [Row, Row][] = [];
+    // The machine's load (1-minute average of runnable processes) before and after: a shared machine is noisy.
+    const loadBefore = loadavg()[0]!;
     for (const job of jobs) {
       const loaded = await loadBenchFile(job.file);
       if ("errors" in loaded) {
@@ -168,15 +188,18 @@ async function runSuites(argv: string[]): Promise<number> {
         return 2;
       }
       const both: Row[] = [];
-      for (const count of pair.counts) {
-        process.stderr.write(`${job.name}: ${job.seconds} s, ${count} worker(s) ...\n`);
+      for (const config of pair.configs) {
+        const count = config.workers;
+        const budget = movesBudget !== undefined ? { moves: movesBudget } : { seconds: job.seconds };
+        process.stderr.write(`${job.name}: ${"moves" in budget ? `${budget.moves} moves` : `${budget.seconds} s`}, ${config.label} ...\n`);
         const rss = rssSampler();
         const started = performance.now();
         const { record, evaluations, moves } = await benchInstance(loaded, {
           seed,
-          budget: { seconds: job.seconds },
+          budget,
           now: () => performance.now(),
           workers: count,
+          share: config.share,
         });
         const wallS = (performance.now() - started) / 1000;
         both.push(toRow(job.name, seed, count, wallS, rss.stop(), record, evaluations, moves));
@@ -184,16 +207,20 @@ async function runSuites(argv: string[]): Promise<number> {
       compared.push([both[0]!, both[1]!]);
     }
     const environment = benchEnvironment();
-    process.stdout.write(pairTable(compared, pair.counts) + "\n");
+    process.stdout.write(pairTable(compared, pair.configs) + "\n");
     process.stdout.write(
-      `\nNode ${environment.node}, ${environment.cpuModel} (${environment.cpuCount} cores), seed ${seed}, ${seconds} s per instance for both\n`,
+      `\nNode ${environment.node}, ${environment.cpuModel} (${environment.cpuCount} cores), seed ${seed}, ` +
+        `${movesBudget !== undefined ? `${movesBudget} moves per chain` : `${seconds} s per instance`} for both, ` +
+        `load average ${loadBefore.toFixed(1)} before and ${loadavg()[0]!.toFixed(1)} after\n`,
     );
     const written = writeResults(name, {
-      bench: "equal-time",
+      bench: opts.sharing !== undefined ? "sharing" : "equal-time",
       environment,
       seed,
-      seconds,
-      workers: pair.counts,
+      ...(movesBudget !== undefined ? { movesPerChain: movesBudget } : { seconds }),
+      loadAverage: { before: loadBefore, after: loadavg()[0]! },
+      workers: pair.configs.map((c) => c.workers),
+      sharing: pair.configs.map((c) => c.share),
       rows: compared.map(([a, b]) => ({
         instance: a.instance,
         reference: a.reference,
@@ -400,7 +427,7 @@ function newestMtime(dir: string): number {
  * @returns the two counts, or the error line
  * @example parsePair("1,2") // => { counts: [1, 2] }
  */
-function parsePair(text: string): { counts: [number, number] } | { error: string } {
+function parsePair(text: string): { configs: [PairConfig, PairConfig]; name: string } | { error: string } {
   const parts = text.split(",").map((p) => p.trim());
   if (parts.length !== 2) return { error: `--equal-time: "${text}" is not two worker counts; give them as A,B, e.g. --equal-time 1,2` };
   const counts: number[] = [];
@@ -409,7 +436,36 @@ function parsePair(text: string): { counts: [number, number] } | { error: string
     if ("error" in w) return { error: w.error.replace(/^--workers/, "--equal-time") };
     counts.push(w.workers);
   }
-  return { counts: [counts[0]!, counts[1]!] };
+  const config = (n: number): PairConfig => ({ label: `${n} worker${n === 1 ? "" : "s"}`, tag: String(n), workers: n, share: true });
+  return { configs: [config(counts[0]!), config(counts[1]!)], name: `workers-${counts[0]}-vs-${counts[1]}` };
+}
+
+/** One side of a side-by-side comparison: its column label, its tag in the "better" column, its chains. */
+interface PairConfig {
+  readonly label: string;
+  readonly tag: string;
+  readonly workers: number;
+  readonly share: boolean;
+}
+
+/**
+ * Read `--sharing N`: N independent chains against N chains that share, N checked like `--workers`.
+ *
+ * @param text - the option text
+ * @returns the two sides, or the error line
+ * @example parseSharing("2").configs[1] // => { label: "2 sharing", tag: "shared", workers: 2, share: true }
+ */
+function parseSharing(text: string): { configs: [PairConfig, PairConfig]; name: string } | { error: string } {
+  const w = parseWorkers(text);
+  if ("error" in w) return { error: w.error.replace(/^--workers/, "--sharing") };
+  if (w.workers < 2) return { error: `--sharing: ${text} chain cannot share with another; give 2 or more` };
+  return {
+    configs: [
+      { label: `${w.workers} independent`, tag: "independent", workers: w.workers, share: false },
+      { label: `${w.workers} sharing`, tag: "shared", workers: w.workers, share: true },
+    ],
+    name: `sharing-${w.workers}`,
+  };
 }
 
 /**
@@ -417,11 +473,11 @@ function parsePair(text: string): { counts: [number, number] } | { error: string
  * vehicles of each, the distance gap of each to the best-known, and which one is better by the
  * hierarchical order (vehicles first, then distance; an infeasible plan loses to a feasible one).
  */
-function pairTable(pairs: readonly [Row, Row][], counts: readonly [number, number]): string {
-  const [a, b] = counts;
-  const w = (n: number): string => `${n} worker${n === 1 ? "" : "s"}`;
+function pairTable(pairs: readonly [Row, Row][], configs: readonly [PairConfig, PairConfig]): string {
+  const [a, b] = configs.map((c) => c.tag) as [string, string];
+  const [la, lb] = configs.map((c) => c.label) as [string, string];
   const lines = [
-    `| instance | best-known (vehicles / distance) | ${w(a)}: vehicles / distance | ${w(b)}: vehicles / distance | gap % (${a}) | gap % (${b}) | better | moves (${a}) | moves (${b}) | peak RSS MB (${a} / ${b}) |`,
+    `| instance | best-known (vehicles / distance) | ${la}: vehicles / distance | ${lb}: vehicles / distance | gap % (${a}) | gap % (${b}) | better | moves (${a}) | moves (${b}) | peak RSS MB (${a} / ${b}) |`,
     "|---|---:|---:|---:|---:|---:|:---:|---:|---:|---:|",
   ];
   const cell = (r: Row): string => {

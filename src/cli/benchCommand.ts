@@ -161,7 +161,8 @@ export async function loadBenchFile(path: string): Promise<BenchInstance | { err
 
 /**
  * Solves one benchmark instance with the engine and builds its JSON record (`benchRecord`).
- * With several workers the chains run on worker threads and the best plan is kept (`runChains`).
+ * With several workers the chains run on worker threads, share their best plan at the marks of the
+ * budget (unless `share` is false) and the best plan is kept (`runChains`).
  *
  * @param instance - a loaded instance
  * @param options - seed, budget, clock, an optional sink for progress lines, chains (default 1)
@@ -171,12 +172,21 @@ export async function loadBenchFile(path: string): Promise<BenchInstance | { err
  */
 export async function benchInstance(
   instance: BenchInstance,
-  options: { seed: number; budget: Budget; now: () => number; progress?: ((s: string) => void) | undefined; workers?: number },
+  options: {
+    seed: number;
+    budget: Budget;
+    now: () => number;
+    progress?: ((s: string) => void) | undefined;
+    workers?: number;
+    /** False: independent chains (the bench's comparison); default true, as in the product. */
+    share?: boolean;
+  },
 ): Promise<{ record: SolomonBenchRecord | TsplibBenchRecord; stats: RunStats; plan: Plan; evaluations: number; moves: number }> {
   const problem: Problem = instance.format === "tsplib" ? tsplibToProblem(instance.inst) : solomonToProblem(instance.inst);
   const sink = options.progress;
   const result = await runChains(problem, { seed: options.seed, budget: options.budget }, options.workers ?? 1, {
     now: options.now,
+    ...(options.share === false ? { share: false } : {}),
     ...(sink
       ? {
           onProgress: (p) =>

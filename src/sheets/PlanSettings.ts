@@ -48,7 +48,7 @@ export interface PlanSettings {
   readonly breakFrom?: number;
   readonly breakTo?: number;
   /**
-   * Independent annealing chains run at once, one per worker (thread); the best plan is kept.
+   * Annealing chains run at once, one per worker (thread), sharing their best plan at marks of the budget; the best plan is kept.
    * Absent: one chain (the CLI's default; the pane starts its field at the browser's cores minus one).
    */
   readonly workers?: number;

@@ -326,7 +326,7 @@ export const SETTING_FIELDS: Readonly<Record<SettingKey, SettingField>> = {
     flag: "workers",
     valueName: "N",
     sheetKeys: ["workers", "chains", "workerchains"],
-    help: "independent annealing chains run at once, one per worker (thread); each gets the whole budget and the best plan is kept; the same seed, move budget and workers give the same plan",
+    help: "annealing chains run at once, one per worker (thread); each gets the whole budget, they share their best plan at seven marks of it, and the best plan is kept; the same seed, move budget and workers give the same plan",
     min: 1,
     max: 64,
     integer: true,
