@@ -45,6 +45,17 @@ function solomonRoutes(problem: Problem, plan: Plan): number[][] {
   return plan.routes.filter((r) => r.visits.length > 0).map((r) => r.visits.map((v) => Number(problem.stops[v.stop]!.id)));
 }
 
+/** The plan breaks no rule: re-checked by the independent evaluator and by the independent Solomon checker. */
+function expectFeasible(text: string, problem: Problem, plan: Plan): void {
+  expect(
+    evaluatePlan(
+      problem,
+      plan.routes.map((r) => r.visits.map((v) => v.stop)),
+    ).violations,
+  ).toEqual([]);
+  expect(checkSolomonPlan(readRawSolomon(text), solomonRoutes(problem, plan)).violations).toEqual([]);
+}
+
 /** The phase alone on the run's first plan: prepared as `solve` prepares it, then `run` in slices of `slice`. */
 function minimise(text: string, seed: number, limit: number, slice: number) {
   const problem = solomonToProblem(parseSolomon(text));
@@ -65,14 +76,7 @@ describe("route-minimisation phase (ejection pool, squeeze, ejections, perturbat
     expect(lowerBound).toBe(2);
     expect(phase.finished).toBe(true);
     expect(plan.routes.filter((r) => r.visits.length > 0)).toHaveLength(2);
-    // Re-checked by the independent evaluator and by the independent Solomon checker.
-    expect(
-      evaluatePlan(
-        problem,
-        plan.routes.map((r) => r.visits.map((v) => v.stop)),
-      ).violations,
-    ).toEqual([]);
-    expect(checkSolomonPlan(readRawSolomon(RING), solomonRoutes(problem, plan)).violations).toEqual([]);
+    expectFeasible(RING, problem, plan);
   });
 
   it("removes routes of Solomon R101 with squeeze and ejections, and the plan stays feasible", () => {
@@ -85,13 +89,7 @@ describe("route-minimisation phase (ejection pool, squeeze, ejections, perturbat
     expect(used).toBeGreaterThanOrEqual(8);
     expect(phase.squeezed + phase.ejections).toBeGreaterThan(0);
     expect(plan.unassigned).toEqual([]);
-    expect(
-      evaluatePlan(
-        problem,
-        plan.routes.map((r) => r.visits.map((v) => v.stop)),
-      ).violations,
-    ).toEqual([]);
-    expect(checkSolomonPlan(readRawSolomon(R101), solomonRoutes(problem, plan)).violations).toEqual([]);
+    expectFeasible(R101, problem, plan);
   });
 
   it("is deterministic per seed and move budget, however its work is sliced", () => {
