@@ -1,37 +1,7 @@
-import type { Random } from "../anneal/createRandom.js";
 import { applyMove, Move, proposeMove } from "../moves/proposeMove.js";
 import type { SearchState } from "../moves/SearchState.js";
 import type { Neighbours } from "../neighbours/buildNeighbours.js";
-
-/**
- * The choices `proposeMove` draws, given in turn instead of at random: a stop, one of its
- * neighbours, then the move kind and its variant. Feeding every combination enumerates the
- * whole neighbourhood of a stop with the very moves the annealer draws.
- */
-class Choices implements Random {
-  readonly values = new Float64Array(7);
-  private at = 0;
-
-  set(neighbour: number, roll: number, kind: number, a: number, b: number, c: number): void {
-    const v = this.values;
-    v[0] = 0;
-    v[1] = neighbour;
-    v[2] = roll;
-    v[3] = kind;
-    v[4] = a;
-    v[5] = b;
-    v[6] = c;
-    this.at = 0;
-  }
-
-  next(): number {
-    return this.values[this.at++] ?? 0.5;
-  }
-
-  int(): number {
-    return this.values[this.at++] ?? 0;
-  }
-}
+import { ROLL_PAIR, ScriptedChoices } from "./scriptedChoices.js";
 
 /**
  * Variants after the kind: (a, b, c) of the kinds' own draws. Relocate and swap draw nothing;
@@ -57,8 +27,6 @@ const VARIANTS: readonly (readonly [number, number, number, number])[] = [
 ];
 /** Variants from here on differ only within a route (between routes they repeat earlier ones). */
 const WITHIN_ROUTE_ONLY = 9;
-/** A roll past the pool and open-route draws of `proposeMove` (0.07): a move between two stops. */
-const ROLL_PAIR = 0.5;
 
 /**
  * Steepest descent over the granular neighbourhood: for each stop in turn, every move
@@ -70,7 +38,7 @@ const ROLL_PAIR = 0.5;
 export class FinalDescent {
   /** True once a whole sweep improved nothing. */
   finished = false;
-  private readonly choices = new Choices();
+  private readonly choices = new ScriptedChoices();
   private readonly one = new Int32Array(1);
   private readonly mv = new Move();
   private readonly bestMv = new Move();

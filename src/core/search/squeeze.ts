@@ -4,6 +4,7 @@ import { applyMove, Move, MoveKind, proposeMove } from "../moves/proposeMove.js"
 import { R_SIZE, R_VIOL } from "../moves/routeResults.js";
 import type { SearchState } from "../moves/SearchState.js";
 import type { Neighbours } from "../neighbours/buildNeighbours.js";
+import { ROLL_PAIR, ScriptedChoices } from "./scriptedChoices.js";
 
 /** Routes up to this length are tried at every position; longer ones next to the stop's neighbours. */
 const FULL_SCAN_LEN = 60;
@@ -13,35 +14,6 @@ const EPS = 1e-7;
 const SQUEEZE_STEPS = 30;
 /** Nearest neighbours of each stop the squeeze pairs it with (the first of the granular lists). */
 const SQUEEZE_NEIGHBOURS = 10;
-
-/**
- * Scripted draws for `proposeMove`: the stop (index 0 of a one-stop list), one neighbour, a
- * roll past the pool and open-route draws, then the move kind and its variant. Feeding the
- * combinations in turn enumerates the moves of one stop with its neighbours.
- */
-class Script implements Random {
-  private readonly values = new Float64Array(6);
-  private at = 0;
-
-  set(neighbour: number, kind: number, a: number, b: number): void {
-    const v = this.values;
-    v[0] = 0;
-    v[1] = neighbour;
-    v[2] = 0.5;
-    v[3] = kind;
-    v[4] = a;
-    v[5] = b;
-    this.at = 0;
-  }
-
-  next(): number {
-    return this.values[this.at++] ?? 0.5;
-  }
-
-  int(): number {
-    return this.values[this.at++] ?? 0;
-  }
-}
 
 /** Moves between two placed stops the squeeze tries: relocate, swap, 2-opt* both ways, or-opt. */
 const SQUEEZE_MOVES: readonly (readonly [number, number, number])[] = [
@@ -68,7 +40,7 @@ export class StopInserter {
   private readonly pieces = new Int32Array(12);
   private readonly feasibleV: number[] = [];
   private readonly feasibleCut: number[] = [];
-  private readonly script = new Script();
+  private readonly script = new ScriptedChoices();
   private readonly one = new Int32Array(1);
   private readonly mv = new Move();
   private readonly bestMv = new Move();
@@ -154,7 +126,7 @@ export class StopInserter {
       for (let k = 0; k < K; k++) {
         for (let i = 0; i < SQUEEZE_MOVES.length; i++) {
           const [kind, a, b] = SQUEEZE_MOVES[i]!;
-          script.set(k, kind, a, b);
+          script.set(k, ROLL_PAIR, kind, a, b, 0.5);
           if (!proposeMove(state, nb, script, mv, one)) continue;
           this.work++;
           if (mv.poolIn >= 0 || mv.poolOut >= 0 || mv.usedDelta > 0) continue;
@@ -171,7 +143,7 @@ export class StopInserter {
     if (bestU < 0) return false;
     one[0] = bestU;
     const [kind, a, b] = SQUEEZE_MOVES[bestKey % SQUEEZE_MOVES.length]!;
-    script.set(Math.floor(bestKey / SQUEEZE_MOVES.length), kind, a, b);
+    script.set(Math.floor(bestKey / SQUEEZE_MOVES.length), ROLL_PAIR, kind, a, b, 0.5);
     proposeMove(state, nb, script, this.bestMv, one);
     this.work++;
     this.save(this.bestMv.vA);
