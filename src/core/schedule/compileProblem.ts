@@ -237,8 +237,16 @@ export function compileProblem(problem: Problem, computeKmFrom: number = COMPUTE
   }
   const replan = compileEarlier(problem, compatible, unservableReason, unservedCost, optional);
   if (replan.locked.some((x) => x === 1)) anyIncompatible = true;
+  const ends = endDepotArcs(m.distanceKm, m.travelMin, L, endLoc);
+  // Every field written out, no spread: built with spreads, each compiled problem got a hidden
+  // class of its own in V8, so the hot loops' reads of it turned megamorphic after a few runs in
+  // one process (the bench, the pane's worker) and ran at half speed.
   return {
-    ...replan,
+    replanning: replan.replanning,
+    homeVehicle: replan.homeVehicle,
+    homeRank: replan.homeRank,
+    stabilityCost: replan.stabilityCost,
+    locked: replan.locked,
     problem,
     n,
     vehicleCount: V,
@@ -250,7 +258,8 @@ export function compileProblem(problem: Problem, computeKmFrom: number = COMPUTE
     places: computablePlaces(problem, computeKmFrom),
     travelDivisor: arcs.divisor > 0 ? arcs.divisor : 1,
     travelMultiplier: arcs.multiplier,
-    ...endDepotArcs(m.distanceKm, m.travelMin, L, endLoc),
+    toEnd: ends.toEnd,
+    endDepot: ends.endDepot,
     stopLoc,
     serviceMin,
     earliestMin,
