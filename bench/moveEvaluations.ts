@@ -21,6 +21,8 @@
  *
  * Sizes are interleaved (every size once per round), and the in-run rate of the largest size
  * over the smallest is printed with the table, taken within each round (median over rounds).
+ * Every rate is given per wall second and per CPU second of this process (`process.cpuUsage`):
+ * on a shared machine the wall figures follow the load, the CPU figures much less.
  * `--label NAME` also writes the figures to `bench/results/moveEvaluations-NAME-<date>.json`.
  *
  * Run: npx tsx bench/moveEvaluations.ts   (writes bench/out/moveEvaluations.json)
@@ -119,7 +121,13 @@ function withEarlier(p: Problem): Problem {
   return { ...p, earlier: { routes, stabilityCost: 20, locked: [0] } };
 }
 
-function raw(problem: Problem, seconds: number): number {
+/** CPU milliseconds of this process so far (user + system). */
+function cpuMs(): number {
+  const c = process.cpuUsage();
+  return (c.user + c.system) / 1000;
+}
+
+function raw(problem: Problem, seconds: number): { wall: number; cpu: number } {
   const cp = compileProblem(problem);
   const w = initialWeights(cp);
   const state = new SearchState(cp, w.wTime, w.wLoad);
@@ -130,6 +138,7 @@ function raw(problem: Problem, seconds: number): number {
   const active = Int32Array.from({ length: cp.n }, (_, i) => i);
   let evaluations = 0;
   const start = performance.now();
+  const cpuStart = cpuMs();
   let sink = 0;
   while (performance.now() - start < seconds * 1000) {
     for (let k = 0; k < 10_000; k++) {
@@ -140,24 +149,34 @@ function raw(problem: Problem, seconds: number): number {
     }
   }
   if (Number.isNaN(sink)) console.warn("NaN delta seen");
-  return evaluations / ((performance.now() - start) / 1000);
+  const wallMs = performance.now() - start;
+  return { wall: evaluations / (wallMs / 1000), cpu: evaluations / ((cpuMs() - cpuStart) / 1000) };
 }
 
 /** Repetitions per size (`--repeat N`, default 5): the table gives medians, the JSON every run. */
 const repeatAt = process.argv.indexOf("--repeat");
 const REPEAT = repeatAt > 0 ? Math.max(1, Number(process.argv[repeatAt + 1]) || 5) : 5;
 
-function inRun(problem: Problem, moves: number): { perSecond: number; cost: number; feasible: boolean } {
+function inRun(problem: Problem, moves: number): { perSecond: number; perCpuSecond: number; cost: number; feasible: boolean } {
   const solver = createSolver(problem, { seed: 1, budget: { moves } });
   let stepMs = 0;
+  let stepCpuMs = 0;
   for (;;) {
     const t = performance.now();
+    const c = cpuMs();
     const done = solver.step(20_000);
     stepMs += performance.now() - t;
+    stepCpuMs += cpuMs() - c;
     if (done) break;
   }
   const result = solver.result();
-  return { perSecond: result.stats.evaluations / (stepMs / 1000), cost: result.plan.totals.cost, feasible: result.plan.feasible };
+  const e = result.stats.evaluations;
+  return {
+    perSecond: e / (stepMs / 1000),
+    perCpuSecond: e / (stepCpuMs / 1000),
+    cost: result.plan.totals.cost,
+    feasible: result.plan.feasible,
+  };
 }
 
 function median(values: readonly number[]): number {
@@ -173,10 +192,14 @@ const rows: {
   vehicles: number;
   rawPerSecond: number;
   inRunPerSecond: number;
+  rawPerCpuSecond: number;
+  inRunPerCpuSecond: number;
   runCost: number;
   feasible: boolean;
   rawRuns: number[];
   inRunRuns: number[];
+  rawCpuRuns: number[];
+  inRunCpuRuns: number[];
 }[] = [];
 // Every size in each round (sizes interleaved), so that a change in the machine's load between
 // rounds touches every size alike and the ratio of two sizes can be taken within one round.
@@ -188,14 +211,19 @@ const cases = SIZES.flatMap((n) => {
     problem: mode === "plain" ? plain : withEarlier(plain),
     rawRuns: [] as number[],
     inRunRuns: [] as number[],
-    last: { perSecond: 0, cost: 0, feasible: false },
+    rawCpuRuns: [] as number[],
+    inRunCpuRuns: [] as number[],
+    last: { perSecond: 0, perCpuSecond: 0, cost: 0, feasible: false },
   }));
 });
 for (let r = 0; r < REPEAT; r++) {
   for (const c of cases) {
-    c.rawRuns.push(Math.round(raw(c.problem, 1)));
+    const r = raw(c.problem, 1);
+    c.rawRuns.push(Math.round(r.wall));
+    c.rawCpuRuns.push(Math.round(r.cpu));
     c.last = inRun(c.problem, Math.max(10_000, 2 * c.rawRuns[c.rawRuns.length - 1]!));
     c.inRunRuns.push(Math.round(c.last.perSecond));
+    c.inRunCpuRuns.push(Math.round(c.last.perCpuSecond));
   }
 }
 for (const c of cases)
@@ -205,33 +233,53 @@ for (const c of cases)
     vehicles: c.problem.vehicles.length,
     rawPerSecond: Math.round(median(c.rawRuns)),
     inRunPerSecond: Math.round(median(c.inRunRuns)),
+    rawPerCpuSecond: Math.round(median(c.rawCpuRuns)),
+    inRunPerCpuSecond: Math.round(median(c.inRunCpuRuns)),
     runCost: Math.round(c.last.cost),
     feasible: c.last.feasible,
     rawRuns: c.rawRuns,
     inRunRuns: c.inRunRuns,
+    rawCpuRuns: c.rawCpuRuns,
+    inRunCpuRuns: c.inRunCpuRuns,
   });
 // In-run rate of the largest size over the smallest, within each round (plain mode), median.
 const plainCases = cases.filter((c) => c.mode === "plain");
 const smallest = plainCases[0];
 const largest = plainCases[plainCases.length - 1];
 const ratios = smallest && largest && largest !== smallest ? largest.inRunRuns.map((x, r) => x / smallest.inRunRuns[r]!) : [];
+const cpuRatios = smallest && largest && largest !== smallest ? largest.inRunCpuRuns.map((x, r) => x / smallest.inRunCpuRuns[r]!) : [];
 console.log(
   `Medians of ${REPEAT} runs per size (raw: 1 s each; in run: a createSolver run of about 2 s of moves each); rules: ${RULES}${REPLAN ? "; plain and re-plan" : ""}.`,
 );
-console.log("| mode | stops | vehicles | raw evaluations/s | in-run evaluations/s | in-run plan cost | feasible |");
-console.log("|:---|---:|---:|---:|---:|---:|:---|");
+console.log(
+  "| mode | stops | vehicles | raw evaluations/s | in-run evaluations/s | raw per CPU second | in-run per CPU second | in-run plan cost | feasible |",
+);
+console.log("|:---|---:|---:|---:|---:|---:|---:|---:|:---|");
+const fmt = (x: number): string => x.toLocaleString("en");
 for (const r of rows)
   console.log(
-    `| ${r.mode} | ${r.stops} | ${r.vehicles} | ${r.rawPerSecond.toLocaleString("en")} | ${r.inRunPerSecond.toLocaleString("en")} | ${r.runCost} | ${r.feasible} |`,
+    `| ${r.mode} | ${r.stops} | ${r.vehicles} | ${fmt(r.rawPerSecond)} | ${fmt(r.inRunPerSecond)} | ${fmt(r.rawPerCpuSecond)} | ${fmt(r.inRunPerCpuSecond)} | ${r.runCost} | ${r.feasible} |`,
   );
+const percent = (xs: number[]): string => xs.map((x) => `${(100 * x).toFixed(0)}%`).join(", ");
 if (ratios.length > 0)
   console.log(
-    `In-run rate at ${largest!.n} stops over ${smallest!.n} stops: ${(100 * median(ratios)).toFixed(0)}% (ratio within each round, median of ${ratios.length}: ${ratios.map((x) => `${(100 * x).toFixed(0)}%`).join(", ")})`,
+    `In-run rate at ${largest!.n} stops over ${smallest!.n} stops: ${(100 * median(ratios)).toFixed(0)}% per wall second, ${(100 * median(cpuRatios)).toFixed(0)}% per CPU second (ratio within each round, median of ${ratios.length}: ${percent(ratios)}; per CPU second ${percent(cpuRatios)})`,
   );
 mkdirSync(new URL("./out/", import.meta.url), { recursive: true });
 writeFileSync(
   new URL("./out/moveEvaluations.json", import.meta.url),
-  JSON.stringify({ node: process.version, rules: RULES, replan: REPLAN, rows, inRunRatioLargestToSmallest: ratios }, null, 2),
+  JSON.stringify(
+    {
+      node: process.version,
+      rules: RULES,
+      replan: REPLAN,
+      rows,
+      inRunRatioLargestToSmallest: ratios,
+      inRunCpuRatioLargestToSmallest: cpuRatios,
+    },
+    null,
+    2,
+  ),
 );
 /** `--label NAME` (or `--replan`): the figures also go to `bench/results/moveEvaluations-<label>-<date>.json`. */
 const labelAt = process.argv.indexOf("--label");
@@ -246,6 +294,7 @@ if (LABEL) {
     rules: RULES,
     rows,
     inRunRatioLargestToSmallest: { rounds: ratios, median: ratios.length > 0 ? median(ratios) : null },
+    inRunCpuRatioLargestToSmallest: { rounds: cpuRatios, median: cpuRatios.length > 0 ? median(cpuRatios) : null },
   });
   console.log(`Written ${path}`);
 }
