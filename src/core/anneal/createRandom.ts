@@ -19,19 +19,39 @@ export interface Random {
  */
 export function createRandom(seed: number | string): Random {
   const base = seedrandom(String(seed));
-  let a = base.int32() >>> 0;
-  let b = base.int32() >>> 0;
-  let c = base.int32() >>> 0;
-  let d = base.int32() >>> 0 || 1;
-  const next = (): number => {
-    const t = (((a + b) | 0) + d) | 0;
-    d = (d + 1) | 0;
-    a = b ^ (b >>> 9);
-    b = (c + (c << 3)) | 0;
-    c = (c << 21) | (c >>> 11);
-    c = (c + t) | 0;
+  const a = base.int32() >>> 0;
+  const b = base.int32() >>> 0;
+  const c = base.int32() >>> 0;
+  const d = base.int32() >>> 0 || 1;
+  const rng = new Sfc32(a | 0, b | 0, c | 0, d | 0);
+  for (let i = 0; i < 12; i++) rng.next();
+  return rng;
+}
+
+/**
+ * sfc32's state and step. A class, so that every run's generator shares one hidden class and
+ * one `next` (generators made of closures gave each run its own functions, and the move loop's
+ * calls to them stopped being inlined once a process had made a few).
+ */
+class Sfc32 implements Random {
+  constructor(
+    private a: number,
+    private b: number,
+    private c: number,
+    private d: number,
+  ) {}
+
+  next(): number {
+    const t = (((this.a + this.b) | 0) + this.d) | 0;
+    this.d = (this.d + 1) | 0;
+    this.a = this.b ^ (this.b >>> 9);
+    this.b = (this.c + (this.c << 3)) | 0;
+    this.c = (this.c << 21) | (this.c >>> 11);
+    this.c = (this.c + t) | 0;
     return (t >>> 0) / 4294967296;
-  };
-  for (let i = 0; i < 12; i++) next();
-  return { next, int: (n: number) => Math.floor(next() * n) };
+  }
+
+  int(n: number): number {
+    return Math.floor(this.next() * n);
+  }
 }
