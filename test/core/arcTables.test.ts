@@ -158,11 +158,18 @@ describe("RouteArrays rebuilt after an edit equals one built from scratch", () =
     "cumSvc",
     "cumWin",
   ] as const;
+  /** Kept only while the route has a stop with a window (`RouteArrays.windowed`). */
+  const WINDOW_FIELDS = new Set<string>(["preD", "preTW", "preE", "preL", "sufD", "sufTW", "sufE", "sufL"]);
 
   it.each([
     ["generated, shared minutes", randomInstance(3, { stops: 30, vehicles: 3 }), undefined],
     ["generated, km computed from the places", randomInstance(3, { stops: 30, vehicles: 3 }), 2],
     ["Solomon C101", solomonToProblem(parseSolomon(fixture("C101.txt"))), undefined],
+    // No stop with a window: the route keeps no window summaries (TSPLIB, invented windowless day).
+    ["TSPLIB ulysses22", tsplibToProblem(parseTsplib(fixture("ulysses22.tsp"))), undefined],
+    ["generated, no windows", randomInstance(4, { stops: 30, vehicles: 3, windows: false }), undefined],
+    // Every third stop with a window: routes go from no window to some and back.
+    ["generated, some windows", someWindows(randomInstance(5, { stops: 30, vehicles: 3 })), undefined],
   ])("%s: 3 000 random inserts, removals, swaps and reversals", (_, problem, computeKmFrom) => {
     const cp = compileProblem(problem, computeKmFrom);
     if (computeKmFrom !== undefined) expect(cp.places).toBeDefined();
@@ -205,7 +212,11 @@ describe("RouteArrays rebuilt after an edit equals one built from scratch", () =
         expect(route.legKm[i]).toBe(problem.matrix.distanceKm[a * L + b]);
         expect(route.legMinR[i]).toBe(problem.matrix.travelMin[b * L + a]);
       }
+      // A route holds window summaries exactly when some stop on it has a window.
+      expect(route.windowed).toBe(stops.some((s) => cp.windowed[s] === 1));
+      expect(fresh.windowed).toBe(route.windowed);
       for (const f of FIELDS) {
+        if (!route.windowed && WINDOW_FIELDS.has(f)) continue;
         const first = f.startsWith("suf") || f.startsWith("leg") ? 1 : 0;
         for (let i = first; i <= stops.length; i++) {
           const got = route[f][i]!;
@@ -219,3 +230,8 @@ describe("RouteArrays rebuilt after an edit equals one built from scratch", () =
     }
   });
 });
+
+/** The instance with the windows of all but every third stop opened (never binding). */
+function someWindows(p: Problem): Problem {
+  return { ...p, stops: p.stops.map((s, i) => (i % 3 === 0 ? s : { ...s, windows: [{ earliestMin: 0, latestMin: Infinity }] })) };
+}

@@ -47,7 +47,9 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   let last = cp.startLoc[v]!;
   let k = 0;
   for (let d = 0; d < dims; d++) load[d] = 0;
-  if (m > 0 && pieces[0] === v && pieces[1] === 1 && pieces[3] === 0) {
+  // The route's own prefix, from its window summaries (a route without windows keeps none: its
+  // pieces are all summed from prefix sums below).
+  if (m > 0 && pieces[0] === v && pieces[1] === 1 && pieces[3] === 0 && state.routes[v]!.windowed) {
     const r = state.routes[v]!;
     const j = pieces[2]!;
     aD = r.preD[j]!;
@@ -88,7 +90,7 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
       const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
       kmIn = P ? placeKm(P, last, firstLoc) : Dm[last * L + firstLoc]!;
       tIn = (derived ? (kmIn / dv) * mu : T[last * L + firstLoc]!) * f;
-      if (sameSpeed && !rev && j === r.len) {
+      if (sameSpeed && !rev && j === r.len && r.windowed) {
         d2 = r.sufD[i]!;
         tw2 = r.sufTW[i]!;
         e2 = r.sufE[i]!;

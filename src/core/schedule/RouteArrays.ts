@@ -15,10 +15,18 @@ const W = new WindowSummary();
  * `pre*[i]` summarises positions 0..i (start depot included); `suf*[i]` summarises
  * stops i..len (end depot excluded, so lateness at the end depot stays separable).
  * Additive quantities (distance, travel, service, load, windowed-stop count) are prefix sums.
+ *
+ * The window summaries (`pre*` and `suf*` but `preLoad`) are kept only while the route holds a
+ * stop with a window that can bind (`windowed`): a stretch of stops without one is summarised
+ * exactly by its prefix sums (duration = service + travel, no warp, open window), so a route
+ * without windows (a TSPLIB tour, a day without windows) skips the two O(len) passes over
+ * them after every move, and its readers take the prefix sums instead.
  */
 export class RouteArrays {
   capacity = 0;
   len = 0;
+  /** True while some stop on the route has a window that can bind: only then are `pre*`/`suf*` (but `preLoad`) current. */
+  windowed = false;
   nodes: Int32Array = new Int32Array(0);
   locs: Int32Array = new Int32Array(0);
   preD: Float64Array = new Float64Array(0);
@@ -148,23 +156,34 @@ export class RouteArrays {
       legMinR[i] = derived ? (kmR / dv) * mu : T[b * L + a]!;
     }
     const { preD, preTW, preE, preL, preLoad, cumDist, cumDistR, cumTrav, cumTravR, cumSvc, cumWin } = this;
-    preD[0] = 0;
-    preTW[0] = 0;
-    preE[0] = cp.shiftStartMin[v]!;
-    preL[0] = cp.shiftEndMin[v]!;
     cumDist[0] = cumDistR[0] = cumTrav[0] = cumTravR[0] = cumSvc[0] = 0;
     cumWin[0] = 0;
     for (let d = 0; d < dims; d++) preLoad[d] = 0;
     for (let i = lo; i <= len; i++) {
       const s = this.nodes[i]!;
-      const t = legMin[i]! * f;
-      cumTrav[i] = cumTrav[i - 1]! + t;
+      cumTrav[i] = cumTrav[i - 1]! + legMin[i]! * f;
       cumTravR[i] = cumTravR[i - 1]! + legMinR[i]! * f;
       cumDist[i] = cumDist[i - 1]! + legKm[i]!;
       cumDistR[i] = cumDistR[i - 1]! + legKmR[i]!;
       cumSvc[i] = cumSvc[i - 1]! + cp.serviceMin[s]!;
       cumWin[i] = cumWin[i - 1]! + cp.windowed[s]!;
       for (let d = 0; d < dims; d++) preLoad[i * dims + d] = preLoad[(i - 1) * dims + d]! + cp.demand[s * dims + d]!;
+    }
+    if (cp.anyPickup) this.rebuildPickups(lo, hi);
+    const windowed = cumWin[len]! > 0;
+    if (windowed && !this.windowed) {
+      // The summaries were not kept while the route had no window: all of them now.
+      lo = 1;
+      hi = len;
+    }
+    this.windowed = windowed;
+    if (!windowed) return;
+    preD[0] = 0;
+    preTW[0] = 0;
+    preE[0] = cp.shiftStartMin[v]!;
+    preL[0] = cp.shiftEndMin[v]!;
+    for (let i = lo; i <= len; i++) {
+      const s = this.nodes[i]!;
       // Prefix(i-1) then stop i.
       concatWindows(
         W,
@@ -172,7 +191,7 @@ export class RouteArrays {
         preTW[i - 1]!,
         preE[i - 1]!,
         preL[i - 1]!,
-        t,
+        legMin[i]! * f,
         cp.serviceMin[s]!,
         0,
         cp.earliestMin[s]!,
@@ -183,7 +202,6 @@ export class RouteArrays {
       preE[i] = W.earliest;
       preL[i] = W.latest;
     }
-    if (cp.anyPickup) this.rebuildPickups(lo, hi);
     const { sufD, sufTW, sufE, sufL } = this;
     if (len > 0 && hi >= len) {
       const s = this.nodes[len]!;

@@ -145,7 +145,10 @@ export class EjectionSearch {
     if (i > cut && this.loadFits()) {
       // Keep every stop from route position i on: O(1) on the route's suffix summary.
       const a = t + this.travel(last, r.locs[i]!);
-      if (r.sufTW[i]! <= EPS && (!cp.hardWindows || a <= r.sufL[i]! + EPS) && this.offer(count, sum)) return;
+      // A route without windows keeps no window summaries: its suffixes have no warp and never close.
+      const warp = r.windowed ? r.sufTW[i]! : 0;
+      const latest = r.windowed ? r.sufL[i]! : Infinity;
+      if (warp <= EPS && (!cp.hardWindows || a <= latest + EPS) && this.offer(count, sum)) return;
     }
     const x = i === cut ? this.s : i < cut ? r.nodes[i + 1]! : r.nodes[i]!;
     const loc = cp.stopLoc[x]!;
