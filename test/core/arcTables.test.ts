@@ -67,6 +67,16 @@ describe("compiled arc tables read the matrix's own numbers", () => {
     const km = Array.from({ length: L }, (_, i) => Array.from({ length: L }, (_, j) => generated.matrix.distanceKm[i * L + j]!));
     const min = km.map((row, i) => row.map((d, j) => d * 1.7 + ((i + j) % 3)));
     expect(compileProblem({ ...generated, matrix: userMatrix(km, min) }).travelFromKm).toBe(false);
+    // The same arcs both ways (a great-circle matrix, TSPLIB's symmetric instances, Solomon's
+    // Euclidean distances): one copy of the reversed legs; one arc longer one way is enough to keep two.
+    expect(compileProblem(generated).symmetric).toBe(true);
+    expect(compileProblem(tsp).symmetric).toBe(true);
+    expect(compileProblem(solomon).symmetric).toBe(true);
+    expect(compileProblem({ ...generated, matrix: userMatrix(km, min) }).symmetric).toBe(true);
+    const oneWay = km.map((row, i) => row.map((d, j) => (i === 2 && j === 5 ? d + 0.5 : d)));
+    expect(compileProblem({ ...generated, matrix: userMatrix(oneWay) }).symmetric).toBe(false);
+    const minOneWay = min.map((row, i) => row.map((d, j) => (i === 5 && j === 2 ? d + 1 : d)));
+    expect(compileProblem({ ...generated, matrix: userMatrix(km, minOneWay) }).symmetric).toBe(false);
     // One entry off by a rounding step is enough to keep both tables.
     const t = generated.matrix.travelMin.slice();
     t[5] = t[5]! + t[5]! * Number.EPSILON;
@@ -168,6 +178,8 @@ describe("RouteArrays rebuilt after an edit equals one built from scratch", () =
     // No stop with a window: the route keeps no window summaries (TSPLIB, invented windowless day).
     ["TSPLIB ulysses22", tsplibToProblem(parseTsplib(fixture("ulysses22.tsp"))), undefined],
     ["generated, no windows", randomInstance(4, { stops: 30, vehicles: 3, windows: false }), undefined],
+    // One-way arcs (an invented matrix, each arc up to 30% longer one way): reversed legs kept apart.
+    ["generated, one-way arcs", oneWayArcs(randomInstance(6, { stops: 30, vehicles: 3 })), undefined],
     // Every third stop with a window: routes go from no window to some and back.
     ["generated, some windows", someWindows(randomInstance(5, { stops: 30, vehicles: 3 })), undefined],
   ])("%s: 3 000 random inserts, removals, swaps and reversals", (_, problem, computeKmFrom) => {
@@ -234,4 +246,13 @@ describe("RouteArrays rebuilt after an edit equals one built from scratch", () =
 /** The instance with the windows of all but every third stop opened (never binding). */
 function someWindows(p: Problem): Problem {
   return { ...p, stops: p.stops.map((s, i) => (i % 3 === 0 ? s : { ...s, windows: [{ earliestMin: 0, latestMin: Infinity }] })) };
+}
+
+/** The instance on a matrix whose arcs from a lower to a higher index are up to 30% longer (invented, asymmetric). */
+function oneWayArcs(p: Problem): Problem {
+  const L = p.matrix.size;
+  const km = Array.from({ length: L }, (_, i) =>
+    Array.from({ length: L }, (_, j) => p.matrix.distanceKm[i * L + j]! * (i < j ? 1 + ((i * 7 + j) % 10) / 33 : 1)),
+  );
+  return { ...p, matrix: userMatrix(km) };
 }

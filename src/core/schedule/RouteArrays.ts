@@ -48,7 +48,9 @@ export class RouteArrays {
    * The matrix entries of the leg into position i (from i-1), as stored (minutes at the
    * reference speed, before the vehicle's factor), and of the reversed leg (i -> i-1). Kept so
    * that rebuilding after a move reads the matrix only for the legs the move created, and a
-   * walk over a piece reads its legs from here.
+   * walk over a piece reads its legs from here. On a symmetric matrix (`cp.symmetric`) the
+   * reversed legs and their prefix sums (`legKmR`, `legMinR`, `cumDistR`, `cumTravR`) are the
+   * forward arrays themselves, kept once.
    */
   legKm: Float64Array = new Float64Array(0);
   legMin: Float64Array = new Float64Array(0);
@@ -98,7 +100,12 @@ export class RouteArrays {
     if (tail > 0 && count !== old) {
       const from = old - tail + 2;
       const to = count - tail + 2;
-      for (const a of [this.legKm, this.legMin, this.legKmR, this.legMinR]) a.copyWithin(to, from, old + 1);
+      this.legKm.copyWithin(to, from, old + 1);
+      this.legMin.copyWithin(to, from, old + 1);
+      if (!this.cp.symmetric) {
+        this.legKmR.copyWithin(to, from, old + 1);
+        this.legMinR.copyWithin(to, from, old + 1);
+      }
     }
     this.len = count;
     for (let i = head; i < count; i++) nodes[i + 1] = stops[i]!;
@@ -144,15 +151,17 @@ export class RouteArrays {
     const derived = cp.travelFromKm;
     const dv = cp.travelDivisor;
     const mu = cp.travelMultiplier;
+    const symmetric = cp.symmetric;
     for (let i = lo, end = Math.min(legHi, len); i <= end; i++) {
       const a = locs[i - 1]!;
       const b = locs[i]!;
       // Computed on a large great-circle matrix (symmetric: one computation), else read.
       const km = P ? placeKm(P, a, b) : Dm[a * L + b]!;
-      const kmR = P ? km : Dm[b * L + a]!;
       legKm[i] = km;
-      legKmR[i] = kmR;
       legMin[i] = derived ? (km / dv) * mu : T[a * L + b]!;
+      if (symmetric) continue; // the reversed legs are these arrays
+      const kmR = P ? km : Dm[b * L + a]!;
+      legKmR[i] = kmR;
       legMinR[i] = derived ? (kmR / dv) * mu : T[b * L + a]!;
     }
     const { preD, preTW, preE, preL, preLoad, cumDist, cumDistR, cumTrav, cumTravR, cumSvc, cumWin } = this;
@@ -162,9 +171,11 @@ export class RouteArrays {
     for (let i = lo; i <= len; i++) {
       const s = this.nodes[i]!;
       cumTrav[i] = cumTrav[i - 1]! + legMin[i]! * f;
-      cumTravR[i] = cumTravR[i - 1]! + legMinR[i]! * f;
       cumDist[i] = cumDist[i - 1]! + legKm[i]!;
-      cumDistR[i] = cumDistR[i - 1]! + legKmR[i]!;
+      if (!symmetric) {
+        cumTravR[i] = cumTravR[i - 1]! + legMinR[i]! * f;
+        cumDistR[i] = cumDistR[i - 1]! + legKmR[i]!;
+      }
       cumSvc[i] = cumSvc[i - 1]! + cp.serviceMin[s]!;
       cumWin[i] = cumWin[i - 1]! + cp.windowed[s]!;
       for (let d = 0; d < dims; d++) preLoad[i * dims + d] = preLoad[(i - 1) * dims + d]! + cp.demand[s * dims + d]!;
@@ -289,9 +300,9 @@ export class RouteArrays {
     this.sufE = F(size);
     this.sufL = F(size);
     this.cumDist = F(size);
-    this.cumDistR = F(size);
     this.cumTrav = F(size);
-    this.cumTravR = F(size);
+    this.cumDistR = this.cp.symmetric ? this.cumDist : F(size);
+    this.cumTravR = this.cp.symmetric ? this.cumTrav : F(size);
     this.cumSvc = F(size);
     this.cumWin = I(size);
     const keep = (old: Float64Array): Float64Array => {
@@ -301,8 +312,8 @@ export class RouteArrays {
     };
     this.legKm = keep(this.legKm);
     this.legMin = keep(this.legMin);
-    this.legKmR = keep(this.legKmR);
-    this.legMinR = keep(this.legMinR);
+    this.legKmR = this.cp.symmetric ? this.legKm : keep(this.legKmR);
+    this.legMinR = this.cp.symmetric ? this.legMin : keep(this.legMinR);
     this.preLoad = F(size * this.cp.dims);
     if (this.cp.anyPickup) {
       this.prePick = F(size * this.cp.dims);

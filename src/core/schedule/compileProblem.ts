@@ -1,7 +1,7 @@
 import type { Problem } from "../model.js";
 import { compileEarlier } from "./compileEarlier.js";
 import type { Places } from "../geo/placeKm.js";
-import { computablePlaces, COMPUTE_KM_FROM_LOCATIONS, endDepotArcs, scanMatrix } from "./compiledArcs.js";
+import { computablePlaces, COMPUTE_KM_FROM_LOCATIONS, endDepotArcs, scanMatrix, symmetricArcs } from "./compiledArcs.js";
 import { reachable, reasonFor } from "./unservableReasons.js";
 
 /**
@@ -33,6 +33,8 @@ export interface CompiledProblem {
   readonly places: Places | undefined;
   readonly travelDivisor: number;
   readonly travelMultiplier: number;
+  /** Every arc costs bitwise the same both ways, km and minutes (`symmetricArcs`). */
+  readonly symmetric: boolean;
   /**
    * Arcs into the vehicles' end depots, laid out by depot: `toEnd[(endDepot[v] * L + loc) * 2]`
    * is `distanceKm[loc * L + endLoc[v]]` and the next entry the `travelMin` of that arc (copies,
@@ -238,6 +240,7 @@ export function compileProblem(problem: Problem, computeKmFrom: number = COMPUTE
   const replan = compileEarlier(problem, compatible, unservableReason, unservedCost, optional);
   if (replan.locked.some((x) => x === 1)) anyIncompatible = true;
   const ends = endDepotArcs(m.distanceKm, m.travelMin, L, endLoc);
+  const places = computablePlaces(problem, computeKmFrom);
   // Every field written out, no spread: built with spreads, each compiled problem got a hidden
   // class of its own in V8, so the hot loops' reads of it turned megamorphic after a few runs in
   // one process (the bench, the pane's worker) and ran at half speed.
@@ -255,9 +258,10 @@ export function compileProblem(problem: Problem, computeKmFrom: number = COMPUTE
     travelMin: m.travelMin,
     distanceKm: m.distanceKm,
     travelFromKm: arcs.divisor > 0,
-    places: computablePlaces(problem, computeKmFrom),
+    places,
     travelDivisor: arcs.divisor > 0 ? arcs.divisor : 1,
     travelMultiplier: arcs.multiplier,
+    symmetric: symmetricArcs(m.distanceKm, m.travelMin, L, places !== undefined, arcs.divisor > 0),
     toEnd: ends.toEnd,
     endDepot: ends.endDepot,
     stopLoc,

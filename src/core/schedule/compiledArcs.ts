@@ -29,6 +29,35 @@ export function computablePlaces(problem: Problem, fromLocations = COMPUTE_KM_FR
   return p;
 }
 
+/** Up to this many locations `symmetricArcs` compares the tables entry by entry (a larger scan would cost the setup). */
+const SYMMETRY_SCAN_MAX_LOCATIONS = 2048;
+
+/**
+ * True when every arc costs bitwise the same both ways, in km and in minutes: then a route's
+ * reversed legs and their prefix sums are its forward ones (`RouteArrays` keeps one copy). A
+ * matrix whose km are computed from the places (`computablePlaces`: `placeKm` measures from the
+ * lower index, so both ways alike) with minutes derived from km is symmetric without a scan;
+ * other tables are compared up to `SYMMETRY_SCAN_MAX_LOCATIONS` locations, and larger ones are
+ * taken as asymmetric (both copies kept, the same numbers).
+ */
+export function symmetricArcs(
+  km: Float64Array,
+  min: Float64Array,
+  L: number,
+  computedFromPlaces: boolean,
+  minutesFromKm: boolean,
+): boolean {
+  if (computedFromPlaces && minutesFromKm) return true;
+  if (L > SYMMETRY_SCAN_MAX_LOCATIONS) return false;
+  for (let i = 0; i < L; i++) {
+    for (let j = i + 1; j < L; j++) {
+      // A NaN entry never compares equal, so such a matrix keeps both copies.
+      if (km[i * L + j] !== km[j * L + i] || min[i * L + j] !== min[j * L + i]) return false;
+    }
+  }
+  return true;
+}
+
 /** Largest number of entries (2 per arc) of the end-depot table; beyond it the matrix is read. */
 const TO_END_MAX_ENTRIES = 1 << 23;
 
