@@ -34,8 +34,13 @@ export class SearchState {
   /** Results of the last `evaluate` per slot. */
   readonly out = new Float64Array(2 * R_SIZE);
   used = 0;
-  /** 1 for routes written since the last `clearDirty` (lets a snapshot copy only those). */
+  /**
+   * 1 for routes written since the best plan last copied them (lets a snapshot copy only those);
+   * the first `dirtyCount` entries of `dirtyList` name them, so the copy does not scan the fleet.
+   */
   readonly dirty: Uint8Array;
+  readonly dirtyList: Int32Array;
+  dirtyCount = 0;
   /** Running sums over routes of unpenalised cost and violation; stops that must be served but sit in the pool. */
   realSum = 0;
   violSum = 0;
@@ -76,6 +81,8 @@ export class SearchState {
     this.poolIndex = new Int32Array(cp.n).fill(-1);
     this.rStats = new Float64Array(V * R_SIZE);
     this.dirty = new Uint8Array(V).fill(1);
+    this.dirtyList = Int32Array.from({ length: V }, (_, v) => v);
+    this.dirtyCount = V;
     this.scratchLoad = new Float64Array(cp.dims);
     this.rulesStops = new Int32Array(cp.n + 1);
     this.rulesLoad = new Float64Array(cp.dims);
@@ -291,7 +298,10 @@ export class SearchState {
   private write(v: number, stops: Int32Array, count: number, slot: number, from = 1, to = count): void {
     const route = this.routes[v]!;
     const wasUsed = route.len > 0;
-    this.dirty[v] = 1;
+    if (!this.dirty[v]) {
+      this.dirty[v] = 1;
+      this.dirtyList[this.dirtyCount++] = v;
+    }
     let lo = from;
     let hi = to;
     if (count === route.len && count > 0) {

@@ -104,12 +104,13 @@ export class BestPlan {
 
   /** Copy the routes changed since the previous copy (every accepted move marks its routes). */
   private take(state: SearchState): void {
-    for (let v = 0; v < state.routes.length; v++) {
-      if (!state.dirty[v]) continue;
+    for (let k = 0; k < state.dirtyCount; k++) {
+      const v = state.dirtyList[k]!;
       const r = state.routes[v]!;
       this.routes[v] = Array.from(r.nodes.subarray(1, r.len + 1));
       state.dirty[v] = 0;
     }
+    state.dirtyCount = 0;
     this.pool = Array.from(state.pool.subarray(0, state.poolSize));
   }
 }
