@@ -219,19 +219,7 @@ export class SearchState {
     const head = pieces[2]!;
     const tail = pieces[last + 1]!;
     const stops = this.tmp[0]!;
-    let c = head;
-    for (let k = 1; k < m - 1; k++) {
-      const src = pieces[4 * k]!;
-      const i = pieces[4 * k + 1]!;
-      if (src < 0) {
-        stops[c++] = i;
-        continue;
-      }
-      const j = pieces[4 * k + 2]!;
-      const nodes = this.routes[src]!.nodes;
-      if (pieces[4 * k + 3]) for (let p = j; p >= i; p--) stops[c++] = nodes[p]!;
-      else for (let p = i; p <= j; p++) stops[c++] = nodes[p]!;
-    }
+    this.materialise(pieces, m - 1, stops, 1, head);
     this.write(v, stops, len, 0, head + 1, tail - 1);
     return true;
   }
@@ -273,13 +261,13 @@ export class SearchState {
 
   /**
    * Write the stops of a candidate route, given as pieces (source route, from, to, reversed; or
-   * -1 and a single stop), into `into`.
+   * -1 and a single stop), into `into`: pieces `first`..`m - 1`, from index `at` on.
    *
-   * @returns how many stops were written
+   * @returns the index after the last stop written (how many were written, from the defaults)
    */
-  materialise(pieces: Int32Array, m: number, into: Int32Array): number {
-    let c = 0;
-    for (let k = 0; k < m; k++) {
+  materialise(pieces: Int32Array, m: number, into: Int32Array, first = 0, at = 0): number {
+    let c = at;
+    for (let k = first; k < m; k++) {
       const src = pieces[4 * k]!;
       const i = pieces[4 * k + 1]!;
       if (src < 0) {
