@@ -1,5 +1,20 @@
 import { placeKm } from "../geo/placeKm.js";
 import { concatWindows, WindowSummary } from "../schedule/concatWindows.js";
+import {
+  CUM_DIST,
+  CUM_SVC,
+  CUM_TRAV,
+  CUM_WIN,
+  LEG_MIN,
+  PRE_D,
+  PRE_E,
+  PRE_L,
+  PRE_TW,
+  SUF_D,
+  SUF_E,
+  SUF_L,
+  SUF_TW,
+} from "../schedule/RouteArrays.js";
 import { penalisedCost } from "./penalisedCost.js";
 import { applyRouteRules } from "./routeRules.js";
 import { R_COST, R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_SIZE, R_STOPTW } from "./routeResults.js";
@@ -39,6 +54,7 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   const f = cp.travelFactor[v]!;
   const dims = cp.dims;
   const load = state.scratchLoad;
+  const routes = state.routes;
   let aD = 0;
   let aTW = 0;
   let aE = cp.shiftStartMin[v]!;
@@ -46,20 +62,24 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   let dist = 0;
   let last = cp.startLoc[v]!;
   let k = 0;
-  for (let d = 0; d < dims; d++) load[d] = 0;
   // The route's own prefix, from its window summaries (a route without windows keeps none: its
   // pieces are all summed from prefix sums below).
-  if (m > 0 && pieces[0] === v && pieces[1] === 1 && pieces[3] === 0 && state.routes[v]!.windowed) {
-    const r = state.routes[v]!;
+  const own = routes[v]!;
+  if (m > 0 && pieces[0] === v && pieces[1] === 1 && pieces[3] === 0 && own.windowed) {
+    const a = own.data;
     const j = pieces[2]!;
-    aD = r.preD[j]!;
-    aTW = r.preTW[j]!;
-    aE = r.preE[j]!;
-    aL = r.preL[j]!;
-    dist = r.cumDist[j]!;
-    last = r.locs[j]!;
-    for (let d = 0; d < dims; d++) load[d] = r.preLoad[j * dims + d]!;
+    const o = j * own.stride;
+    aD = a[o + PRE_D]!;
+    aTW = a[o + PRE_TW]!;
+    aE = a[o + PRE_E]!;
+    aL = a[o + PRE_L]!;
+    dist = a[o + CUM_DIST]!;
+    last = own.locs[j]!;
+    const ol = o + own.oLoad;
+    for (let d = 0; d < dims; d++) load[d] = a[ol + d]!;
     k = 1;
+  } else {
+    for (let d = 0; d < dims; d++) load[d] = 0;
   }
   for (; k < m; k++) {
     const src = pieces[4 * k]!;
@@ -85,18 +105,23 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     } else {
       const j = pieces[4 * k + 2]!;
       const rev = pieces[4 * k + 3]! !== 0;
-      const r = state.routes[src]!;
+      const r = routes[src]!;
+      const a = r.data;
+      const S = r.stride;
+      const oi = i * S;
+      const oj = j * S;
       const sameSpeed = cp.travelFactor[src] === f;
       const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
       kmIn = P ? placeKm(P, last, firstLoc) : Dm[last * L + firstLoc]!;
       tIn = (derived ? (kmIn / dv) * mu : T[last * L + firstLoc]!) * f;
       if (sameSpeed && !rev && j === r.len && r.windowed) {
-        d2 = r.sufD[i]!;
-        tw2 = r.sufTW[i]!;
-        e2 = r.sufE[i]!;
-        l2 = r.sufL[i]!;
-      } else if (sameSpeed && r.cumWin[j]! - r.cumWin[i - 1]! === 0) {
-        d2 = r.cumSvc[j]! - r.cumSvc[i - 1]! + (rev ? r.cumTravR[j]! - r.cumTravR[i]! : r.cumTrav[j]! - r.cumTrav[i]!);
+        d2 = a[oi + SUF_D]!;
+        tw2 = a[oi + SUF_TW]!;
+        e2 = a[oi + SUF_E]!;
+        l2 = a[oi + SUF_L]!;
+      } else if (sameSpeed && a[oj + CUM_WIN]! - a[oi - S + CUM_WIN]! === 0) {
+        d2 =
+          a[oj + CUM_SVC]! - a[oi - S + CUM_SVC]! + (rev ? a[oj + r.oTravR]! - a[oi + r.oTravR]! : a[oj + CUM_TRAV]! - a[oi + CUM_TRAV]!);
       } else {
         // Walk the piece: binding windows or another speed. Its legs come from the route's own
         // copies of the matrix entries (forward into p, or reversed out of p + 1).
@@ -109,7 +134,7 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
             e2 = cp.earliestMin[s]!;
             l2 = cp.latestMin[s]!;
           } else {
-            const t = (rev ? r.legMinR[p + 1]! : r.legMin[p]!) * f;
+            const t = (rev ? a[(p + 1) * S + r.oLegMinR]! : a[p * S + LEG_MIN]!) * f;
             concatWindows(W, d2, tw2, e2, l2, t, cp.serviceMin[s]!, 0, cp.earliestMin[s]!, cp.latestMin[s]!);
             d2 = W.duration;
             tw2 = W.timeWarp;
@@ -118,15 +143,20 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
           }
         }
       }
-      dist += kmIn + (rev ? r.cumDistR[j]! - r.cumDistR[i]! : r.cumDist[j]! - r.cumDist[i]!);
-      for (let d = 0; d < dims; d++) load[d] = load[d]! + r.preLoad[j * dims + d]! - r.preLoad[(i - 1) * dims + d]!;
+      dist += kmIn + (rev ? a[oj + r.oDistR]! - a[oi + r.oDistR]! : a[oj + CUM_DIST]! - a[oi + CUM_DIST]!);
+      const lj = oj + r.oLoad;
+      const li = oi - S + r.oLoad;
+      for (let d = 0; d < dims; d++) load[d] = load[d]! + a[lj + d]! - a[li + d]!;
       last = rev ? r.locs[i]! : r.locs[j]!;
     }
-    concatWindows(W, aD, aTW, aE, aL, tIn, d2, tw2, e2, l2);
-    aD = W.duration;
-    aTW = W.timeWarp;
-    aE = W.earliest;
-    aL = W.latest;
+    // concatWindows(aD, aTW, aE, aL; tIn; d2, tw2, e2, l2), written out: the same operations.
+    const delta = aD - aTW + tIn;
+    const wait = Math.max(e2 - delta - aL, 0);
+    const warp = Math.max(aE + delta - l2, 0);
+    aD = aD + (d2 + tIn + wait);
+    aTW = aTW + (tw2 + warp);
+    aE = Math.max(e2 - delta, aE) - wait;
+    aL = Math.min(l2 - delta, aL) + warp;
   }
   // End depot: its lateness is overtime, kept apart from lateness at stops.
   const endLoc = cp.endLoc[v]!;

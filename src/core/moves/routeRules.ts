@@ -1,4 +1,5 @@
 import type { CompiledProblem } from "../schedule/compileProblem.js";
+import { CUM_TRAV } from "../schedule/RouteArrays.js";
 import { scheduleRoute } from "../schedule/timeRoute.js";
 import { R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_SIZE, R_STOPTW } from "./routeResults.js";
 import type { SearchState } from "./SearchState.js";
@@ -118,7 +119,9 @@ function drivingMin(state: SearchState, v: number, pieces: Int32Array, m: number
     const r = state.routes[src]!;
     const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
     total += T[last * L + firstLoc]! * f;
-    const inside = rev ? r.cumTravR[j]! - r.cumTravR[i]! : r.cumTrav[j]! - r.cumTrav[i]!;
+    const a = r.data;
+    const S = r.stride;
+    const inside = rev ? a[j * S + r.oTravR]! - a[i * S + r.oTravR]! : a[j * S + CUM_TRAV]! - a[i * S + CUM_TRAV]!;
     total += (inside * f) / cp.travelFactor[src]!;
     last = rev ? r.locs[i]! : r.locs[j]!;
   }
@@ -143,7 +146,8 @@ function pickupExcess(state: SearchState, v: number, pieces: Int32Array, m: numb
     const j = pieces[4 * k + 2]!;
     const rev = pieces[4 * k + 3]! !== 0;
     const r = state.routes[src]!;
-    const whole = (i: number, j: number, d: number): number => r.preLoad[j * dims + d]! - r.preLoad[(i - 1) * dims + d]!;
+    const whole = (i: number, j: number, d: number): number =>
+      r.data[j * r.stride + r.oLoad + d]! - r.data[(i - 1) * r.stride + r.oLoad + d]!;
     const picked = (i: number, j: number, d: number): number => r.prePick[j * dims + d]! - r.prePick[(i - 1) * dims + d]!;
     if (!rev && i === 1) {
       for (let d = 0; d < dims; d++) join(D, P, M, d, whole(1, j, d), picked(1, j, d), r.preMax[j * dims + d]!);

@@ -6,17 +6,64 @@ import { concatWindows, WindowSummary } from "./concatWindows.js";
 const W = new WindowSummary();
 
 /**
+ * Offsets of a position's numbers in `RouteArrays.data`: position `i` of a route starts at
+ * `i * stride`. One array per route with the numbers of a position side by side, so that an
+ * evaluation reads one or two cache lines per position it looks at instead of one per
+ * separate array (and one array header instead of some twenty).
+ */
+export const PRE_D = 0;
+export const PRE_TW = 1;
+export const PRE_E = 2;
+export const PRE_L = 3;
+export const CUM_DIST = 4;
+export const CUM_TRAV = 5;
+export const CUM_SVC = 6;
+export const CUM_WIN = 7;
+export const SUF_D = 8;
+export const SUF_TW = 9;
+export const SUF_E = 10;
+export const SUF_L = 11;
+export const LEG_KM = 12;
+export const LEG_MIN = 13;
+/** Where the reversed legs and their prefix sums go when the matrix is not symmetric. */
+const OWN_REVERSED = 14;
+
+/** The names of a position's numbers, for readers outside the hot loops (tests, tools). */
+export type RouteField =
+  | "preD"
+  | "preTW"
+  | "preE"
+  | "preL"
+  | "sufD"
+  | "sufTW"
+  | "sufE"
+  | "sufL"
+  | "cumDist"
+  | "cumDistR"
+  | "cumTrav"
+  | "cumTravR"
+  | "cumSvc"
+  | "cumWin"
+  | "legKm"
+  | "legMin"
+  | "legKmR"
+  | "legMinR";
+
+/**
  * One vehicle's route during the search, with prefix and suffix segment summaries
  * (duration, time warp, earliest and latest start; Vidal, Crainic, Gendreau & Prins 2013,
  * "A hybrid genetic algorithm with adaptive diversity management for a large class of
  * vehicle routing problems with time-windows", Computers & Operations Research 40(1)).
  *
  * Position 0 is the start depot, 1..len the stops, len+1 the end depot.
- * `pre*[i]` summarises positions 0..i (start depot included); `suf*[i]` summarises
+ * `pre*` at i summarises positions 0..i (start depot included); `suf*` at i summarises
  * stops i..len (end depot excluded, so lateness at the end depot stays separable).
  * Additive quantities (distance, travel, service, load, windowed-stop count) are prefix sums.
+ * Every number of position i is in `data` at `i * stride + offset` (`PRE_D`, ..., `LEG_MIN`;
+ * the reversed legs and their prefix sums at `oLegKmR`, `oLegMinR`, `oDistR`, `oTravR`; the
+ * `dims` prefix loads from `oLoad`).
  *
- * The window summaries (`pre*` and `suf*` but `preLoad`) are kept only while the route holds a
+ * The window summaries (`pre*` and `suf*`) are kept only while the route holds a
  * stop with a window that can bind (`windowed`): a stretch of stops without one is summarised
  * exactly by its prefix sums (duration = service + travel, no warp, open window), so a route
  * without windows (a TSPLIB tour, a day without windows) skips the two O(len) passes over
@@ -25,39 +72,24 @@ const W = new WindowSummary();
 export class RouteArrays {
   capacity = 0;
   len = 0;
-  /** True while some stop on the route has a window that can bind: only then are `pre*`/`suf*` (but `preLoad`) current. */
+  /** True while some stop on the route has a window that can bind: only then are `pre*`/`suf*` current. */
   windowed = false;
   nodes: Int32Array = new Int32Array(0);
   locs: Int32Array = new Int32Array(0);
-  preD: Float64Array = new Float64Array(0);
-  preTW: Float64Array = new Float64Array(0);
-  preE: Float64Array = new Float64Array(0);
-  preL: Float64Array = new Float64Array(0);
-  sufD: Float64Array = new Float64Array(0);
-  sufTW: Float64Array = new Float64Array(0);
-  sufE: Float64Array = new Float64Array(0);
-  sufL: Float64Array = new Float64Array(0);
-  /** Sum over k=1..i of the leg (k-1 -> k): forward, and reversed (k -> k-1). */
-  cumDist: Float64Array = new Float64Array(0);
-  cumDistR: Float64Array = new Float64Array(0);
-  cumTrav: Float64Array = new Float64Array(0);
-  cumTravR: Float64Array = new Float64Array(0);
-  cumSvc: Float64Array = new Float64Array(0);
-  cumWin: Int32Array = new Int32Array(0);
+  /** `(capacity + 2) * stride` numbers: every position's summaries side by side (offsets above). */
+  data: Float64Array = new Float64Array(0);
+  /** Numbers per position. */
+  readonly stride: number;
   /**
-   * The matrix entries of the leg into position i (from i-1), as stored (minutes at the
-   * reference speed, before the vehicle's factor), and of the reversed leg (i -> i-1). Kept so
-   * that rebuilding after a move reads the matrix only for the legs the move created, and a
-   * walk over a piece reads its legs from here. On a symmetric matrix (`cp.symmetric`) the
-   * reversed legs and their prefix sums (`legKmR`, `legMinR`, `cumDistR`, `cumTravR`) are the
-   * forward arrays themselves, kept once.
+   * Offsets of the reversed legs (i -> i-1) and their prefix sums. On a symmetric matrix
+   * (`cp.symmetric`) they are the forward offsets: the reversed legs are the forward ones, kept once.
    */
-  legKm: Float64Array = new Float64Array(0);
-  legMin: Float64Array = new Float64Array(0);
-  legKmR: Float64Array = new Float64Array(0);
-  legMinR: Float64Array = new Float64Array(0);
-  /** `(len + 2) * dims` prefix loads. */
-  preLoad: Float64Array = new Float64Array(0);
+  readonly oDistR: number;
+  readonly oTravR: number;
+  readonly oLegKmR: number;
+  readonly oLegMinR: number;
+  /** Offset of the `dims` prefix loads. */
+  readonly oLoad: number;
   /**
    * Only when some stop collects (`cp.anyPickup`), `(len + 2) * dims` each: prefix pickups, and
    * the highest load over stops 1..i (`preMax`) and over stops i..len (`sufMax`) counted as
@@ -75,7 +107,68 @@ export class RouteArrays {
     readonly cp: CompiledProblem,
     readonly vehicle: number,
   ) {
+    const own = !cp.symmetric;
+    this.oDistR = own ? OWN_REVERSED : CUM_DIST;
+    this.oTravR = own ? OWN_REVERSED + 1 : CUM_TRAV;
+    this.oLegKmR = own ? OWN_REVERSED + 2 : LEG_KM;
+    this.oLegMinR = own ? OWN_REVERSED + 3 : LEG_MIN;
+    this.oLoad = own ? OWN_REVERSED + 4 : OWN_REVERSED;
+    this.stride = this.oLoad + cp.dims;
     this.ensure(8);
+  }
+
+  /**
+   * One number of position `i` by name (for tests and tools; the hot loops read `data`).
+   *
+   * @param field - which number
+   * @param i - the position (0 start depot, 1..len stops)
+   * @returns the number as stored
+   * @example route.value("cumDist", route.len) // => km from the start depot to the last stop
+   */
+  value(field: RouteField, i: number): number {
+    return this.data[i * this.stride + this.offset(field)]!;
+  }
+
+  /** Offset of a named number in a position's block. */
+  private offset(field: RouteField): number {
+    switch (field) {
+      case "preD":
+        return PRE_D;
+      case "preTW":
+        return PRE_TW;
+      case "preE":
+        return PRE_E;
+      case "preL":
+        return PRE_L;
+      case "sufD":
+        return SUF_D;
+      case "sufTW":
+        return SUF_TW;
+      case "sufE":
+        return SUF_E;
+      case "sufL":
+        return SUF_L;
+      case "cumDist":
+        return CUM_DIST;
+      case "cumDistR":
+        return this.oDistR;
+      case "cumTrav":
+        return CUM_TRAV;
+      case "cumTravR":
+        return this.oTravR;
+      case "cumSvc":
+        return CUM_SVC;
+      case "cumWin":
+        return CUM_WIN;
+      case "legKm":
+        return LEG_KM;
+      case "legMin":
+        return LEG_MIN;
+      case "legKmR":
+        return this.oLegKmR;
+      case "legMinR":
+        return this.oLegMinR;
+    }
   }
 
   /**
@@ -98,13 +191,23 @@ export class RouteArrays {
     let tail = 0;
     while (tail < both - head && nodes[old - tail] === stops[count - 1 - tail]) tail++;
     if (tail > 0 && count !== old) {
+      // The legs into positions from..old move to to..: forwards when they move down, else backwards.
       const from = old - tail + 2;
       const to = count - tail + 2;
-      this.legKm.copyWithin(to, from, old + 1);
-      this.legMin.copyWithin(to, from, old + 1);
-      if (!this.cp.symmetric) {
-        this.legKmR.copyWithin(to, from, old + 1);
-        this.legMinR.copyWithin(to, from, old + 1);
+      const a = this.data;
+      const S = this.stride;
+      const own = !this.cp.symmetric;
+      const n = old + 1 - from;
+      for (let k = 0; k < n; k++) {
+        const q = to < from ? k : n - 1 - k;
+        const src = (from + q) * S;
+        const dst = (to + q) * S;
+        a[dst + LEG_KM] = a[src + LEG_KM]!;
+        a[dst + LEG_MIN] = a[src + LEG_MIN]!;
+        if (own) {
+          a[dst + this.oLegKmR] = a[src + this.oLegKmR]!;
+          a[dst + this.oLegMinR] = a[src + this.oLegMinR]!;
+        }
       }
     }
     this.len = count;
@@ -139,11 +242,14 @@ export class RouteArrays {
     const f = cp.travelFactor[v]!;
     const dims = cp.dims;
     const locs = this.locs;
+    const nodes = this.nodes;
     locs[0] = cp.startLoc[v]!;
-    this.nodes[0] = -1;
-    this.nodes[len + 1] = -1;
+    nodes[0] = -1;
+    nodes[len + 1] = -1;
     locs[len + 1] = cp.endLoc[v]!;
-    const { legKm, legMin, legKmR, legMinR } = this;
+    const a = this.data;
+    const S = this.stride;
+    const { oDistR, oTravR, oLegKmR, oLegMinR, oLoad } = this;
     const L = cp.locationCount;
     const T = cp.travelMin;
     const Dm = cp.distanceKm;
@@ -153,35 +259,40 @@ export class RouteArrays {
     const mu = cp.travelMultiplier;
     const symmetric = cp.symmetric;
     for (let i = lo, end = Math.min(legHi, len); i <= end; i++) {
-      const a = locs[i - 1]!;
-      const b = locs[i]!;
+      const x = locs[i - 1]!;
+      const y = locs[i]!;
+      const o = i * S;
       // Computed on a large great-circle matrix (symmetric: one computation), else read.
-      const km = P ? placeKm(P, a, b) : Dm[a * L + b]!;
-      legKm[i] = km;
-      legMin[i] = derived ? (km / dv) * mu : T[a * L + b]!;
-      if (symmetric) continue; // the reversed legs are these arrays
-      const kmR = P ? km : Dm[b * L + a]!;
-      legKmR[i] = kmR;
-      legMinR[i] = derived ? (kmR / dv) * mu : T[b * L + a]!;
+      const km = P ? placeKm(P, x, y) : Dm[x * L + y]!;
+      a[o + LEG_KM] = km;
+      a[o + LEG_MIN] = derived ? (km / dv) * mu : T[x * L + y]!;
+      if (symmetric) continue; // the reversed legs are these numbers
+      const kmR = P ? km : Dm[y * L + x]!;
+      a[o + oLegKmR] = kmR;
+      a[o + oLegMinR] = derived ? (kmR / dv) * mu : T[y * L + x]!;
     }
-    const { preD, preTW, preE, preL, preLoad, cumDist, cumDistR, cumTrav, cumTravR, cumSvc, cumWin } = this;
-    cumDist[0] = cumDistR[0] = cumTrav[0] = cumTravR[0] = cumSvc[0] = 0;
-    cumWin[0] = 0;
-    for (let d = 0; d < dims; d++) preLoad[d] = 0;
+    a[CUM_DIST] = a[oDistR] = a[CUM_TRAV] = a[oTravR] = a[CUM_SVC] = 0;
+    a[CUM_WIN] = 0;
+    for (let d = 0; d < dims; d++) a[oLoad + d] = 0;
+    const serviceMin = cp.serviceMin;
+    const stopWindowed = cp.windowed;
+    const demand = cp.demand;
     for (let i = lo; i <= len; i++) {
-      const s = this.nodes[i]!;
-      cumTrav[i] = cumTrav[i - 1]! + legMin[i]! * f;
-      cumDist[i] = cumDist[i - 1]! + legKm[i]!;
+      const s = nodes[i]!;
+      const o = i * S;
+      const b = o - S;
+      a[o + CUM_TRAV] = a[b + CUM_TRAV]! + a[o + LEG_MIN]! * f;
+      a[o + CUM_DIST] = a[b + CUM_DIST]! + a[o + LEG_KM]!;
       if (!symmetric) {
-        cumTravR[i] = cumTravR[i - 1]! + legMinR[i]! * f;
-        cumDistR[i] = cumDistR[i - 1]! + legKmR[i]!;
+        a[o + oTravR] = a[b + oTravR]! + a[o + oLegMinR]! * f;
+        a[o + oDistR] = a[b + oDistR]! + a[o + oLegKmR]!;
       }
-      cumSvc[i] = cumSvc[i - 1]! + cp.serviceMin[s]!;
-      cumWin[i] = cumWin[i - 1]! + cp.windowed[s]!;
-      for (let d = 0; d < dims; d++) preLoad[i * dims + d] = preLoad[(i - 1) * dims + d]! + cp.demand[s * dims + d]!;
+      a[o + CUM_SVC] = a[b + CUM_SVC]! + serviceMin[s]!;
+      a[o + CUM_WIN] = a[b + CUM_WIN]! + stopWindowed[s]!;
+      for (let d = 0; d < dims; d++) a[o + oLoad + d] = a[b + oLoad + d]! + demand[s * dims + d]!;
     }
     if (cp.anyPickup) this.rebuildPickups(lo, hi);
-    const windowed = cumWin[len]! > 0;
+    const windowed = a[len * S + CUM_WIN]! > 0;
     if (windowed && !this.windowed) {
       // The summaries were not kept while the route had no window: all of them now.
       lo = 1;
@@ -189,58 +300,53 @@ export class RouteArrays {
     }
     this.windowed = windowed;
     if (!windowed) return;
-    preD[0] = 0;
-    preTW[0] = 0;
-    preE[0] = cp.shiftStartMin[v]!;
-    preL[0] = cp.shiftEndMin[v]!;
+    a[PRE_D] = 0;
+    a[PRE_TW] = 0;
+    a[PRE_E] = cp.shiftStartMin[v]!;
+    a[PRE_L] = cp.shiftEndMin[v]!;
+    const earliestMin = cp.earliestMin;
+    const latestMin = cp.latestMin;
     for (let i = lo; i <= len; i++) {
-      const s = this.nodes[i]!;
+      const s = nodes[i]!;
+      const o = i * S;
+      const b = o - S;
       // Prefix(i-1) then stop i.
       concatWindows(
         W,
-        preD[i - 1]!,
-        preTW[i - 1]!,
-        preE[i - 1]!,
-        preL[i - 1]!,
-        legMin[i]! * f,
-        cp.serviceMin[s]!,
+        a[b + PRE_D]!,
+        a[b + PRE_TW]!,
+        a[b + PRE_E]!,
+        a[b + PRE_L]!,
+        a[o + LEG_MIN]! * f,
+        serviceMin[s]!,
         0,
-        cp.earliestMin[s]!,
-        cp.latestMin[s]!,
+        earliestMin[s]!,
+        latestMin[s]!,
       );
-      preD[i] = W.duration;
-      preTW[i] = W.timeWarp;
-      preE[i] = W.earliest;
-      preL[i] = W.latest;
+      a[o + PRE_D] = W.duration;
+      a[o + PRE_TW] = W.timeWarp;
+      a[o + PRE_E] = W.earliest;
+      a[o + PRE_L] = W.latest;
     }
-    const { sufD, sufTW, sufE, sufL } = this;
     if (len > 0 && hi >= len) {
-      const s = this.nodes[len]!;
-      sufD[len] = cp.serviceMin[s]!;
-      sufTW[len] = 0;
-      sufE[len] = cp.earliestMin[s]!;
-      sufL[len] = cp.latestMin[s]!;
+      const s = nodes[len]!;
+      const o = len * S;
+      a[o + SUF_D] = serviceMin[s]!;
+      a[o + SUF_TW] = 0;
+      a[o + SUF_E] = earliestMin[s]!;
+      a[o + SUF_L] = latestMin[s]!;
     }
     for (let i = Math.min(hi, len - 1); i >= 1; i--) {
-      const s = this.nodes[i]!;
-      const t = cumTrav[i + 1]! - cumTrav[i]!;
+      const s = nodes[i]!;
+      const o = i * S;
+      const n = o + S;
+      const t = a[n + CUM_TRAV]! - a[o + CUM_TRAV]!;
       // Stop i then suffix(i+1).
-      concatWindows(
-        W,
-        cp.serviceMin[s]!,
-        0,
-        cp.earliestMin[s]!,
-        cp.latestMin[s]!,
-        t,
-        sufD[i + 1]!,
-        sufTW[i + 1]!,
-        sufE[i + 1]!,
-        sufL[i + 1]!,
-      );
-      sufD[i] = W.duration;
-      sufTW[i] = W.timeWarp;
-      sufE[i] = W.earliest;
-      sufL[i] = W.latest;
+      concatWindows(W, serviceMin[s]!, 0, earliestMin[s]!, latestMin[s]!, t, a[n + SUF_D]!, a[n + SUF_TW]!, a[n + SUF_E]!, a[n + SUF_L]!);
+      a[o + SUF_D] = W.duration;
+      a[o + SUF_TW] = W.timeWarp;
+      a[o + SUF_E] = W.earliest;
+      a[o + SUF_L] = W.latest;
     }
   }
 
@@ -249,7 +355,7 @@ export class RouteArrays {
     const cp = this.cp;
     const dims = cp.dims;
     const len = this.len;
-    const { prePick, preMax, sufMax, preLoad } = this;
+    const { prePick, preMax, sufMax, data, stride, oLoad } = this;
     for (let d = 0; d < dims; d++) prePick[d] = preMax[d] = 0;
     for (let i = lo; i <= len; i++) {
       const s = this.nodes[i]!;
@@ -267,7 +373,7 @@ export class RouteArrays {
       for (let d = 0; d < dims; d++) {
         const q = cp.demand[s * dims + d]!;
         const p = cp.pickup[s * dims + d]!;
-        const restQ = preLoad[len * dims + d]! - preLoad[i * dims + d]!;
+        const restQ = data[len * stride + oLoad + d]! - data[i * stride + oLoad + d]!;
         // Stop i then stops i+1..len: max(max(q, p) + D2, p + M2).
         sufMax[i * dims + d] = Math.max(Math.max(q, p) + restQ, p + sufMax[(i + 1) * dims + d]!);
       }
@@ -291,30 +397,9 @@ export class RouteArrays {
     const locs = I(size);
     locs.set(this.locs);
     this.locs = locs;
-    this.preD = F(size);
-    this.preTW = F(size);
-    this.preE = F(size);
-    this.preL = F(size);
-    this.sufD = F(size);
-    this.sufTW = F(size);
-    this.sufE = F(size);
-    this.sufL = F(size);
-    this.cumDist = F(size);
-    this.cumTrav = F(size);
-    this.cumDistR = this.cp.symmetric ? this.cumDist : F(size);
-    this.cumTravR = this.cp.symmetric ? this.cumTrav : F(size);
-    this.cumSvc = F(size);
-    this.cumWin = I(size);
-    const keep = (old: Float64Array): Float64Array => {
-      const a = F(size);
-      a.set(old);
-      return a;
-    };
-    this.legKm = keep(this.legKm);
-    this.legMin = keep(this.legMin);
-    this.legKmR = this.cp.symmetric ? this.legKm : keep(this.legKmR);
-    this.legMinR = this.cp.symmetric ? this.legMin : keep(this.legMinR);
-    this.preLoad = F(size * this.cp.dims);
+    const data = F(size * this.stride);
+    data.set(this.data);
+    this.data = data;
     if (this.cp.anyPickup) {
       this.prePick = F(size * this.cp.dims);
       this.preMax = F(size * this.cp.dims);

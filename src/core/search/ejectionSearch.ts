@@ -1,6 +1,7 @@
 import type { Random } from "../anneal/createRandom.js";
 import { R_VIOL } from "../moves/routeResults.js";
 import type { SearchState } from "../moves/SearchState.js";
+import { SUF_L, SUF_TW } from "../schedule/RouteArrays.js";
 
 /** Most stops one insertion may eject (Nagata & Bräysy 2009 use k_max = 5; from memory). */
 export const EJECT_MAX = 5;
@@ -87,7 +88,7 @@ export class EjectionSearch {
       this.f = cp.travelFactor[v]!;
       const dims = cp.dims;
       for (let d = 0; d < dims; d++) {
-        this.total[d] = r.preLoad[r.len * dims + d]! + cp.demand[s * dims + d]!;
+        this.total[d] = r.data[r.len * r.stride + r.oLoad + d]! + cp.demand[s * dims + d]!;
         this.removed[d] = 0;
       }
       for (let cut = 0; cut <= r.len && this.nodes < NODE_LIMIT; cut++) {
@@ -146,8 +147,8 @@ export class EjectionSearch {
       // Keep every stop from route position i on: O(1) on the route's suffix summary.
       const a = t + this.travel(last, r.locs[i]!);
       // A route without windows keeps no window summaries: its suffixes have no warp and never close.
-      const warp = r.windowed ? r.sufTW[i]! : 0;
-      const latest = r.windowed ? r.sufL[i]! : Infinity;
+      const warp = r.windowed ? r.data[i * r.stride + SUF_TW]! : 0;
+      const latest = r.windowed ? r.data[i * r.stride + SUF_L]! : Infinity;
       if (warp <= EPS && (!cp.hardWindows || a <= latest + EPS) && this.offer(count, sum)) return;
     }
     const x = i === cut ? this.s : i < cut ? r.nodes[i + 1]! : r.nodes[i]!;
