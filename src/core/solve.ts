@@ -35,6 +35,23 @@ const QUENCH_FROM = 0.95;
 const RESTART_MOVES_PER_STOP = 2000;
 
 /**
+ * Metropolis on a worse move: `r < acceptanceProbability("metropolis", dE, T)` for a draw `r` of
+ * the run's generator (a multiple of 2^-32) and dE > 0, the same decision without the exponential
+ * where it cannot matter: for dE > 23 T, exp(-dE / T) is below 1.1e-10, under the generator's
+ * smallest step above 0 (2.3e-10), so only a draw of 0 could accept.
+ *
+ * @param r - the draw, uniform in [0, 1) in steps of 2^-32
+ * @param dE - the cost change (> 0)
+ * @param temperature - T >= 0
+ * @returns whether the move is accepted
+ * @example acceptsUphill(0.5, 20, 90) // => true (0.5 < exp(-20 / 90) = 0.80)
+ */
+export function acceptsUphill(r: number, dE: number, temperature: number): boolean {
+  if (r > 0 && temperature >= 0 && dE > 23 * temperature) return false;
+  return r < acceptanceProbability("metropolis", dE, temperature);
+}
+
+/**
  * Plan routes by simulated annealing (Kirkpatrick, Gelatt & Vecchi 1983) with Metropolis or
  * logistic acceptance over relocate, swap, 2-opt, 2-opt*, or-opt and pool moves in a granular
  * neighbourhood, time-warp and load penalties that adapt so the search crosses infeasible
@@ -262,6 +279,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
         const dE = mv.delta;
         let accept: boolean;
         if (metropolis && dE <= 0) accept = true;
+        else if (metropolis) accept = acceptsUphill(rng.next(), dE, temperature);
         else accept = rng.next() < acceptanceProbability(o.rule, dE, temperature);
         if (dE > 0 && isWorseMove(state, mv)) {
           worseSinceReport++;

@@ -1,5 +1,6 @@
 import type { Random } from "../anneal/createRandom.js";
 import type { Neighbours } from "../neighbours/buildNeighbours.js";
+import type { CompiledProblem } from "../schedule/compileProblem.js";
 import { MAX_PIECES, RESULT_COUNT, RESULT_SIZE, type SearchState } from "./SearchState.js";
 
 /** The kinds of move between two placed stops, drawn uniformly (pool and open-route moves are drawn before). */
@@ -66,7 +67,7 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
   if (ru < 0) {
     if (rv < 0) return false;
     // Insert u from the pool next to v.
-    if (!cp.compatible[u * V + rv]) return false;
+    if (!mayServe(cp, u, rv)) return false;
     const q = state.posOf[v]!;
     const len = state.routes[rv]!.len;
     const after = rng.next() < 0.5;
@@ -88,7 +89,7 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
     let m = piece(A, 0, ru, 1, p - 1, 0);
     if (rv === -1) {
       // Serve v instead of u.
-      if (!cp.compatible[v * V + ru]) return false;
+      if (!mayServe(cp, v, ru)) return false;
       m = single(A, m, v);
       mv.poolIn = v;
     }
@@ -101,7 +102,7 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
   if (roll < 0.07 && state.used < V) {
     // Open an empty route with u.
     const w = rng.int(V);
-    if (state.routes[w]!.len !== 0 || !cp.compatible[u * V + w]) return false;
+    if (state.routes[w]!.len !== 0 || !mayServe(cp, u, w)) return false;
     let m = piece(A, 0, ru, 1, p - 1, 0);
     m = piece(A, m, ru, p + 1, a, 0);
     mv.vA = ru;
@@ -115,55 +116,79 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
   const rb = state.routes[rv]!;
   const b = rb.len;
   const kind = rng.int(5);
-  if (ru !== rv) {
-    mv.vA = ru;
-    mv.vB = rv;
-    switch (kind) {
-      case MoveKind.relocateAfter:
-      case MoveKind.relocateBefore: {
-        if (!cp.compatible[u * V + rv]) return false;
-        const cut = kind === MoveKind.relocateAfter ? q : q - 1;
-        mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), ru, p + 1, a, 0);
-        let m = piece(B, 0, rv, 1, cut, 0);
-        m = piece(B, m, ru, p, p, 0);
-        mv.mB = piece(B, m, rv, cut + 1, b, 0);
-        break;
-      }
-      case MoveKind.swap: {
-        if (!cp.compatible[u * V + rv] || !cp.compatible[v * V + ru]) return false;
-        let m = piece(A, 0, ru, 1, p - 1, 0);
-        m = piece(A, m, rv, q, q, 0);
-        mv.mA = piece(A, m, ru, p + 1, a, 0);
-        m = piece(B, 0, rv, 1, q - 1, 0);
-        m = piece(B, m, ru, p, p, 0);
-        mv.mB = piece(B, m, rv, q + 1, b, 0);
-        break;
-      }
-      case MoveKind.twoOpt: {
-        // 2-opt*: exchange tails so that u is followed by v (or v by u).
-        if (rng.next() < 0.5) {
-          if (!fits(state, rv, q, b, ru) || !fits(state, ru, p + 1, a, rv)) return false;
-          mv.mA = piece(A, piece(A, 0, ru, 1, p, 0), rv, q, b, 0);
-          mv.mB = piece(B, piece(B, 0, rv, 1, q - 1, 0), ru, p + 1, a, 0);
-        } else {
-          if (!fits(state, ru, p, a, rv) || !fits(state, rv, q + 1, b, ru)) return false;
-          mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), rv, q + 1, b, 0);
-          mv.mB = piece(B, piece(B, 0, rv, 1, q, 0), ru, p, a, 0);
-        }
-        break;
-      }
-      default: {
-        const c = 2 + rng.int(2);
-        if (p + c - 1 > a || !fits(state, ru, p, p + c - 1, rv)) return false;
-        const rev = rng.next() < 0.5 ? 1 : 0;
-        mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), ru, p + c, a, 0);
-        let m = piece(B, 0, rv, 1, q, 0);
-        m = piece(B, m, ru, p, p + c - 1, rev);
-        mv.mB = piece(B, m, rv, q + 1, b, 0);
-      }
+  return ru !== rv ? betweenRoutes(state, rng, mv, kind, u, v, ru, rv, p, q, a, b) : withinRoute(state, rng, mv, kind, ru, p, q, a);
+}
+
+/** A move of `proposeMove` between u's route `ru` (u at `p`, `a` stops) and v's route `rv` (v at `q`, `b` stops). */
+function betweenRoutes(
+  state: SearchState,
+  rng: Random,
+  mv: Move,
+  kind: number,
+  u: number,
+  v: number,
+  ru: number,
+  rv: number,
+  p: number,
+  q: number,
+  a: number,
+  b: number,
+): boolean {
+  const cp = state.cp;
+  const A = mv.piecesA;
+  const B = mv.piecesB;
+  mv.vA = ru;
+  mv.vB = rv;
+  switch (kind) {
+    case MoveKind.relocateAfter:
+    case MoveKind.relocateBefore: {
+      if (!mayServe(cp, u, rv)) return false;
+      const cut = kind === MoveKind.relocateAfter ? q : q - 1;
+      mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), ru, p + 1, a, 0);
+      let m = piece(B, 0, rv, 1, cut, 0);
+      m = piece(B, m, ru, p, p, 0);
+      mv.mB = piece(B, m, rv, cut + 1, b, 0);
+      break;
     }
-    return finish(state, mv);
+    case MoveKind.swap: {
+      if (!mayServe(cp, u, rv) || !mayServe(cp, v, ru)) return false;
+      let m = piece(A, 0, ru, 1, p - 1, 0);
+      m = piece(A, m, rv, q, q, 0);
+      mv.mA = piece(A, m, ru, p + 1, a, 0);
+      m = piece(B, 0, rv, 1, q - 1, 0);
+      m = piece(B, m, ru, p, p, 0);
+      mv.mB = piece(B, m, rv, q + 1, b, 0);
+      break;
+    }
+    case MoveKind.twoOpt: {
+      // 2-opt*: exchange tails so that u is followed by v (or v by u).
+      if (rng.next() < 0.5) {
+        if (!fits(state, rv, q, b, ru) || !fits(state, ru, p + 1, a, rv)) return false;
+        mv.mA = piece(A, piece(A, 0, ru, 1, p, 0), rv, q, b, 0);
+        mv.mB = piece(B, piece(B, 0, rv, 1, q - 1, 0), ru, p + 1, a, 0);
+      } else {
+        if (!fits(state, ru, p, a, rv) || !fits(state, rv, q + 1, b, ru)) return false;
+        mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), rv, q + 1, b, 0);
+        mv.mB = piece(B, piece(B, 0, rv, 1, q, 0), ru, p, a, 0);
+      }
+      break;
+    }
+    default: {
+      const c = 2 + rng.int(2);
+      if (p + c - 1 > a || !fits(state, ru, p, p + c - 1, rv)) return false;
+      const rev = rng.next() < 0.5 ? 1 : 0;
+      mv.mA = piece(A, piece(A, 0, ru, 1, p - 1, 0), ru, p + c, a, 0);
+      let m = piece(B, 0, rv, 1, q, 0);
+      m = piece(B, m, ru, p, p + c - 1, rev);
+      mv.mB = piece(B, m, rv, q + 1, b, 0);
+    }
   }
+  return finish(state, mv);
+}
+
+/** A move of `proposeMove` inside route `ru` (`a` stops) between u at `p` and v at `q`. */
+function withinRoute(state: SearchState, rng: Random, mv: Move, kind: number, ru: number, p: number, q: number, a: number): boolean {
+  const A = mv.piecesA;
   mv.vA = ru;
   let m = 0;
   switch (kind) {
@@ -294,7 +319,11 @@ function fits(state: SearchState, r: number, i: number, j: number, w: number): b
   const cp = state.cp;
   if (!cp.anyIncompatible) return true;
   const nodes = state.routes[r]!.nodes;
-  const V = cp.vehicleCount;
-  for (let p = i; p <= j; p++) if (!cp.compatible[nodes[p]! * V + w]) return false;
+  for (let p = i; p <= j; p++) if (!mayServe(cp, nodes[p]!, w)) return false;
   return true;
+}
+
+/** May vehicle `w` serve stop `s`? The table is read only for a stop some vehicle may not serve. */
+function mayServe(cp: CompiledProblem, s: number, w: number): boolean {
+  return cp.everyVehicle[s] === 1 || cp.compatible[s * cp.vehicleCount + w] === 1;
 }

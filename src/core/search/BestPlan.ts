@@ -13,8 +13,15 @@ export class BestPlan {
   key1 = Infinity;
   key2 = Infinity;
   feasibleFound = false;
-  private readonly routes: number[][];
-  private pool: number[] = [];
+  /**
+   * The best plan's stops per vehicle (the first `lengths[v]` of `routes[v]`) and its pool (the
+   * first `poolCount` of `pool`): buffers reused from copy to copy, grown when a route outgrows
+   * its buffer, so a copy allocates nothing.
+   */
+  private readonly routes: Int32Array[];
+  private readonly lengths: Int32Array;
+  private readonly pool: Int32Array;
+  private poolCount = 0;
   /**
    * The search times a stop with several windows on their hull (first opening to last close),
    * so a plan it finds feasible can still arrive in a gap between windows: before such a plan
@@ -26,7 +33,9 @@ export class BestPlan {
     private readonly problem: Problem,
     private readonly cp: CompiledProblem,
   ) {
-    this.routes = Array.from({ length: cp.vehicleCount }, () => []);
+    this.routes = Array.from({ length: cp.vehicleCount }, () => new Int32Array(8));
+    this.lengths = new Int32Array(cp.vehicleCount);
+    this.pool = new Int32Array(cp.n);
     this.multiWindow = problem.stops.some((s) => s.windows.length > 1);
   }
 
@@ -61,7 +70,7 @@ export class BestPlan {
       for (const s of stops) state.addToPool(s);
     }
     this.routes.forEach((stops, v) => {
-      if (stops.length > 0) state.setRoute(v, stops);
+      if (this.lengths[v]! > 0) state.setRoute(v, stops, this.lengths[v]);
     });
   }
 
@@ -73,7 +82,7 @@ export class BestPlan {
     for (let s = 0; s < cp.n; s++) {
       if (cp.unservableReason[s]) unassigned.push({ stop: s, reason: cp.unservableReason[s]! });
     }
-    for (const s of this.pool) {
+    for (const s of this.pool.subarray(0, this.poolCount)) {
       const stop = problem.stops[s]!;
       unassigned.push({
         stop: s,
@@ -84,7 +93,8 @@ export class BestPlan {
       });
     }
     unassigned.sort((a, b) => a.stop - b.stop);
-    return evaluatePlan(problem, this.routes, unassigned);
+    const routes = this.routes.map((stops, v) => Array.from(stops.subarray(0, this.lengths[v])));
+    return evaluatePlan(problem, routes, unassigned);
   }
 
   private improvesFeasibleBest(state: SearchState): boolean {
@@ -107,10 +117,15 @@ export class BestPlan {
     for (let k = 0; k < state.dirtyCount; k++) {
       const v = state.dirtyList[k]!;
       const r = state.routes[v]!;
-      this.routes[v] = Array.from(r.nodes.subarray(1, r.len + 1));
+      if (this.routes[v]!.length < r.len) this.routes[v] = new Int32Array(Math.max(r.len, 2 * this.routes[v]!.length));
+      const into = this.routes[v]!;
+      const nodes = r.nodes;
+      for (let i = 0; i < r.len; i++) into[i] = nodes[i + 1]!;
+      this.lengths[v] = r.len;
       state.dirty[v] = 0;
     }
     state.dirtyCount = 0;
-    this.pool = Array.from(state.pool.subarray(0, state.poolSize));
+    for (let i = 0; i < state.poolSize; i++) this.pool[i] = state.pool[i]!;
+    this.poolCount = state.poolSize;
   }
 }
