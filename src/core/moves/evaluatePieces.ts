@@ -1,5 +1,4 @@
 import { placeKm } from "../geo/placeKm.js";
-import { concatWindows, WindowSummary } from "../schedule/concatWindows.js";
 import {
   CUM_DIST,
   CUM_SVC,
@@ -20,18 +19,17 @@ import { applyRouteRules } from "./routeRules.js";
 import { R_COST, R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_SIZE, R_STOPTW } from "./routeResults.js";
 import type { SearchState } from "./SearchState.js";
 
-/** The summary `concatWindows` writes (one at a time: nothing here calls back). */
-const W = new WindowSummary();
-
 /**
  * Penalised cost of vehicle `v` driving the concatenation of `m` pieces in `pieces`
  * (4 ints each: route, from, to, reversed; route -1: the one stop `from`); the route results
  * go to `state.out` at `slot`. Segment summaries are concatenated (Vidal et al. 2013,
  * `concatWindows`) without copying stops: forward prefixes and suffixes of the same vehicle
  * cost O(1); other pieces O(1) too when they hold no binding window (prefix sums), else
- * O(piece length). Allocation-free: this is the hot path. A pool stop is a piece of one stop,
- * so the loop concatenates in one place (which also keeps the body small enough for the
- * engine to inline `concatWindows` at each call).
+ * O(piece length). Allocation-free: this is the hot path. `concatWindows`' formulas are
+ * written out here (the same operations), and the leg into a piece is computed in one place
+ * for every kind of piece (a pool stop is a piece of one stop): a number passed to or returned
+ * from a call the engine does not inline is boxed, which on a large day allocated some
+ * 50 MB per second.
  *
  * @param state - the search state (routes, weights, scratch)
  * @param v - the vehicle that would drive the route
@@ -84,36 +82,32 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   for (; k < m; k++) {
     const src = pieces[4 * k]!;
     const i = pieces[4 * k + 1]!;
-    // The piece's summary (d2, tw2, e2, l2), the leg into it and where it ends.
+    const j = pieces[4 * k + 2]!;
+    const rev = pieces[4 * k + 3]! !== 0;
+    // The leg into the piece (one place that computes or reads it, so that the engine inlines it).
+    const r = src < 0 ? own : routes[src]!;
+    const firstLoc = src < 0 ? cp.stopLoc[i]! : rev ? r.locs[j]! : r.locs[i]!;
+    const kmIn = P ? placeKm(P, last, firstLoc) : Dm[last * L + firstLoc]!;
+    const tIn = (derived ? (kmIn / dv) * mu : T[last * L + firstLoc]!) * f;
+    // The piece's summary (d2, tw2, e2, l2) and where it ends.
     let d2: number;
     let tw2 = 0;
     let e2 = -Infinity;
     let l2 = Infinity;
-    let kmIn: number;
-    let tIn: number;
     if (src < 0) {
       // One pool stop.
-      const loc = cp.stopLoc[i]!;
-      kmIn = P ? placeKm(P, last, loc) : Dm[last * L + loc]!;
-      tIn = (derived ? (kmIn / dv) * mu : T[last * L + loc]!) * f;
       d2 = cp.serviceMin[i]!;
       e2 = cp.earliestMin[i]!;
       l2 = cp.latestMin[i]!;
       dist += kmIn;
       for (let d = 0; d < dims; d++) load[d] = load[d]! + cp.demand[i * dims + d]!;
-      last = loc;
+      last = firstLoc;
     } else {
-      const j = pieces[4 * k + 2]!;
-      const rev = pieces[4 * k + 3]! !== 0;
-      const r = routes[src]!;
       const a = r.data;
       const S = r.stride;
       const oi = i * S;
       const oj = j * S;
       const sameSpeed = cp.travelFactor[src] === f;
-      const firstLoc = rev ? r.locs[j]! : r.locs[i]!;
-      kmIn = P ? placeKm(P, last, firstLoc) : Dm[last * L + firstLoc]!;
-      tIn = (derived ? (kmIn / dv) * mu : T[last * L + firstLoc]!) * f;
       if (sameSpeed && !rev && j === r.len && r.windowed) {
         d2 = a[oi + SUF_D]!;
         tw2 = a[oi + SUF_TW]!;
@@ -125,22 +119,25 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
       } else {
         // Walk the piece: binding windows or another speed. Its legs come from the route's own
         // copies of the matrix entries (forward into p, or reversed out of p + 1).
-        d2 = 0;
-        for (let q = 0; q <= j - i; q++) {
+        const first = r.nodes[rev ? j : i]!;
+        d2 = cp.serviceMin[first]!;
+        e2 = cp.earliestMin[first]!;
+        l2 = cp.latestMin[first]!;
+        for (let q = 1; q <= j - i; q++) {
           const p = rev ? j - q : i + q;
           const s = r.nodes[p]!;
-          if (q === 0) {
-            d2 = cp.serviceMin[s]!;
-            e2 = cp.earliestMin[s]!;
-            l2 = cp.latestMin[s]!;
-          } else {
-            const t = (rev ? a[(p + 1) * S + r.oLegMinR]! : a[p * S + LEG_MIN]!) * f;
-            concatWindows(W, d2, tw2, e2, l2, t, cp.serviceMin[s]!, 0, cp.earliestMin[s]!, cp.latestMin[s]!);
-            d2 = W.duration;
-            tw2 = W.timeWarp;
-            e2 = W.earliest;
-            l2 = W.latest;
-          }
+          const t = (rev ? a[(p + 1) * S + r.oLegMinR]! : a[p * S + LEG_MIN]!) * f;
+          const sd = cp.serviceMin[s]!;
+          const se = cp.earliestMin[s]!;
+          const sl = cp.latestMin[s]!;
+          // concatWindows(d2, tw2, e2, l2; t; sd, 0, se, sl), written out: the same operations.
+          const delta = d2 - tw2 + t;
+          const wait = Math.max(se - delta - l2, 0);
+          const warp = Math.max(e2 + delta - sl, 0);
+          d2 = d2 + (sd + t + wait);
+          tw2 = tw2 + (0 + warp);
+          e2 = Math.max(se - delta, e2) - wait;
+          l2 = Math.min(sl - delta, l2) + warp;
         }
       }
       dist += kmIn + (rev ? a[oj + r.oDistR]! - a[oi + r.oDistR]! : a[oj + CUM_DIST]! - a[oi + CUM_DIST]!);
@@ -172,10 +169,13 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     kmEnd = Dm[last * L + endLoc]!;
     tEnd = T[last * L + endLoc]! * f;
   }
-  // The end depot is a segment of no duration whose window is the shift.
-  concatWindows(W, aD, aTW, aE, aL, tEnd, 0, 0, cp.shiftStartMin[v]!, cp.shiftEndMin[v]!);
-  const endTW = W.joinWarp;
-  const duration = W.duration;
+  // The end depot is a segment of no duration whose window is the shift: concatWindows(aD, aTW,
+  // aE, aL; tEnd; 0, 0, shift start, shift end) written out, of which the duration and the
+  // warp added at the depot are used.
+  const endDelta = aD - aTW + tEnd;
+  const endWait = Math.max(cp.shiftStartMin[v]! - endDelta - aL, 0);
+  const endTW = Math.max(aE + endDelta - cp.shiftEndMin[v]!, 0);
+  const duration = aD + (0 + tEnd + endWait);
   dist += kmEnd;
   let excess = 0;
   for (let d = 0; d < dims; d++) {
