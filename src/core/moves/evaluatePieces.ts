@@ -1,4 +1,5 @@
 import { placeKm } from "../geo/placeKm.js";
+import { ROW_DEMAND, ROW_EARLIEST, ROW_LATEST, ROW_SERVICE } from "../schedule/compileProblem.js";
 import {
   CUM_DIST,
   CUM_SVC,
@@ -53,6 +54,8 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   const dims = cp.dims;
   const load = state.scratchLoad;
   const routes = state.routes;
+  const rows = cp.stopRows;
+  const SR = cp.stopStride;
   let aD = 0;
   let aTW = 0;
   let aE = cp.shiftStartMin[v]!;
@@ -96,11 +99,12 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     let l2 = Infinity;
     if (src < 0) {
       // One pool stop.
-      d2 = cp.serviceMin[i]!;
-      e2 = cp.earliestMin[i]!;
-      l2 = cp.latestMin[i]!;
+      const o = i * SR;
+      d2 = rows[o + ROW_SERVICE]!;
+      e2 = rows[o + ROW_EARLIEST]!;
+      l2 = rows[o + ROW_LATEST]!;
       dist += kmIn;
-      for (let d = 0; d < dims; d++) load[d] = load[d]! + cp.demand[i * dims + d]!;
+      for (let d = 0; d < dims; d++) load[d] = load[d]! + rows[o + ROW_DEMAND + d]!;
       last = firstLoc;
     } else {
       const a = r.data;
@@ -119,17 +123,17 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
       } else {
         // Walk the piece: binding windows or another speed. Its legs come from the route's own
         // copies of the matrix entries (forward into p, or reversed out of p + 1).
-        const first = r.nodes[rev ? j : i]!;
-        d2 = cp.serviceMin[first]!;
-        e2 = cp.earliestMin[first]!;
-        l2 = cp.latestMin[first]!;
+        const first = r.nodes[rev ? j : i]! * SR;
+        d2 = rows[first + ROW_SERVICE]!;
+        e2 = rows[first + ROW_EARLIEST]!;
+        l2 = rows[first + ROW_LATEST]!;
         for (let q = 1; q <= j - i; q++) {
           const p = rev ? j - q : i + q;
-          const s = r.nodes[p]!;
+          const s = r.nodes[p]! * SR;
           const t = (rev ? a[(p + 1) * S + r.oLegMinR]! : a[p * S + LEG_MIN]!) * f;
-          const sd = cp.serviceMin[s]!;
-          const se = cp.earliestMin[s]!;
-          const sl = cp.latestMin[s]!;
+          const sd = rows[s + ROW_SERVICE]!;
+          const se = rows[s + ROW_EARLIEST]!;
+          const sl = rows[s + ROW_LATEST]!;
           // concatWindows(d2, tw2, e2, l2; t; sd, 0, se, sl), written out: the same operations.
           const delta = d2 - tw2 + t;
           const wait = Math.max(se - delta - l2, 0);

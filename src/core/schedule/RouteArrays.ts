@@ -1,9 +1,5 @@
 import { placeKm } from "../geo/placeKm.js";
-import type { CompiledProblem } from "./compileProblem.js";
-import { concatWindows, WindowSummary } from "./concatWindows.js";
-
-/** The summary `concatWindows` writes (one at a time: nothing here calls back). */
-const W = new WindowSummary();
+import { ROW_DEMAND, ROW_EARLIEST, ROW_LATEST, ROW_SERVICE, ROW_WINDOWED, type CompiledProblem } from "./compileProblem.js";
 
 /**
  * Offsets of a position's numbers in `RouteArrays.data`: position `i` of a route starts at
@@ -274,11 +270,11 @@ export class RouteArrays {
     a[CUM_DIST] = a[oDistR] = a[CUM_TRAV] = a[oTravR] = a[CUM_SVC] = 0;
     a[CUM_WIN] = 0;
     for (let d = 0; d < dims; d++) a[oLoad + d] = 0;
-    const serviceMin = cp.serviceMin;
-    const stopWindowed = cp.windowed;
-    const demand = cp.demand;
+    // The stops' numbers side by side (`cp.stopRows`): one or two cache lines per stop.
+    const rows = cp.stopRows;
+    const SR = cp.stopStride;
     for (let i = lo; i <= len; i++) {
-      const s = nodes[i]!;
+      const s = nodes[i]! * SR;
       const o = i * S;
       const b = o - S;
       a[o + CUM_TRAV] = a[b + CUM_TRAV]! + a[o + LEG_MIN]! * f;
@@ -287,9 +283,9 @@ export class RouteArrays {
         a[o + oTravR] = a[b + oTravR]! + a[o + oLegMinR]! * f;
         a[o + oDistR] = a[b + oDistR]! + a[o + oLegKmR]!;
       }
-      a[o + CUM_SVC] = a[b + CUM_SVC]! + serviceMin[s]!;
-      a[o + CUM_WIN] = a[b + CUM_WIN]! + stopWindowed[s]!;
-      for (let d = 0; d < dims; d++) a[o + oLoad + d] = a[b + oLoad + d]! + demand[s * dims + d]!;
+      a[o + CUM_SVC] = a[b + CUM_SVC]! + rows[s + ROW_SERVICE]!;
+      a[o + CUM_WIN] = a[b + CUM_WIN]! + rows[s + ROW_WINDOWED]!;
+      for (let d = 0; d < dims; d++) a[o + oLoad + d] = a[b + oLoad + d]! + rows[s + ROW_DEMAND + d]!;
     }
     if (cp.anyPickup) this.rebuildPickups(lo, hi);
     const windowed = a[len * S + CUM_WIN]! > 0;
@@ -304,49 +300,54 @@ export class RouteArrays {
     a[PRE_TW] = 0;
     a[PRE_E] = cp.shiftStartMin[v]!;
     a[PRE_L] = cp.shiftEndMin[v]!;
-    const earliestMin = cp.earliestMin;
-    const latestMin = cp.latestMin;
+    // concatWindows (Vidal et al. 2013) written out below, the same operations: a call the
+    // engine does not inline would box every number passed to it.
     for (let i = lo; i <= len; i++) {
-      const s = nodes[i]!;
+      const s = nodes[i]! * SR;
       const o = i * S;
       const b = o - S;
-      // Prefix(i-1) then stop i.
-      concatWindows(
-        W,
-        a[b + PRE_D]!,
-        a[b + PRE_TW]!,
-        a[b + PRE_E]!,
-        a[b + PRE_L]!,
-        a[o + LEG_MIN]! * f,
-        serviceMin[s]!,
-        0,
-        earliestMin[s]!,
-        latestMin[s]!,
-      );
-      a[o + PRE_D] = W.duration;
-      a[o + PRE_TW] = W.timeWarp;
-      a[o + PRE_E] = W.earliest;
-      a[o + PRE_L] = W.latest;
+      // Prefix(i-1), the leg, then stop i.
+      const pD = a[b + PRE_D]!;
+      const pTW = a[b + PRE_TW]!;
+      const pE = a[b + PRE_E]!;
+      const pL = a[b + PRE_L]!;
+      const t = a[o + LEG_MIN]! * f;
+      const e = rows[s + ROW_EARLIEST]!;
+      const l = rows[s + ROW_LATEST]!;
+      const delta = pD - pTW + t;
+      const wait = Math.max(e - delta - pL, 0);
+      const warp = Math.max(pE + delta - l, 0);
+      a[o + PRE_D] = pD + (rows[s + ROW_SERVICE]! + t + wait);
+      a[o + PRE_TW] = pTW + (0 + warp);
+      a[o + PRE_E] = Math.max(e - delta, pE) - wait;
+      a[o + PRE_L] = Math.min(l - delta, pL) + warp;
     }
     if (len > 0 && hi >= len) {
-      const s = nodes[len]!;
+      const s = nodes[len]! * SR;
       const o = len * S;
-      a[o + SUF_D] = serviceMin[s]!;
+      a[o + SUF_D] = rows[s + ROW_SERVICE]!;
       a[o + SUF_TW] = 0;
-      a[o + SUF_E] = earliestMin[s]!;
-      a[o + SUF_L] = latestMin[s]!;
+      a[o + SUF_E] = rows[s + ROW_EARLIEST]!;
+      a[o + SUF_L] = rows[s + ROW_LATEST]!;
     }
     for (let i = Math.min(hi, len - 1); i >= 1; i--) {
-      const s = nodes[i]!;
+      const s = nodes[i]! * SR;
       const o = i * S;
       const n = o + S;
       const t = a[n + CUM_TRAV]! - a[o + CUM_TRAV]!;
-      // Stop i then suffix(i+1).
-      concatWindows(W, serviceMin[s]!, 0, earliestMin[s]!, latestMin[s]!, t, a[n + SUF_D]!, a[n + SUF_TW]!, a[n + SUF_E]!, a[n + SUF_L]!);
-      a[o + SUF_D] = W.duration;
-      a[o + SUF_TW] = W.timeWarp;
-      a[o + SUF_E] = W.earliest;
-      a[o + SUF_L] = W.latest;
+      // Stop i, the leg, then suffix(i+1).
+      const svc = rows[s + ROW_SERVICE]!;
+      const e = rows[s + ROW_EARLIEST]!;
+      const l = rows[s + ROW_LATEST]!;
+      const nE = a[n + SUF_E]!;
+      const nL = a[n + SUF_L]!;
+      const delta = svc - 0 + t;
+      const wait = Math.max(nE - delta - l, 0);
+      const warp = Math.max(e + delta - nL, 0);
+      a[o + SUF_D] = svc + (a[n + SUF_D]! + t + wait);
+      a[o + SUF_TW] = 0 + (a[n + SUF_TW]! + warp);
+      a[o + SUF_E] = Math.max(nE - delta, e) - wait;
+      a[o + SUF_L] = Math.min(nL - delta, l) + warp;
     }
   }
 

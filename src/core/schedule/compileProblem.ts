@@ -5,6 +5,16 @@ import { computablePlaces, COMPUTE_KM_FROM_LOCATIONS, endDepotArcs, scanMatrix, 
 import { reachable, reasonFor } from "./unservableReasons.js";
 
 /**
+ * Offsets in `CompiledProblem.stopRows`: a stop's service minutes, window hull, window flag and
+ * `dims` demands side by side, the numbers the move loop reads about a stop.
+ */
+export const ROW_SERVICE = 0;
+export const ROW_EARLIEST = 1;
+export const ROW_LATEST = 2;
+export const ROW_WINDOWED = 3;
+export const ROW_DEMAND = 4;
+
+/**
  * A problem flattened into typed arrays for the search: one index space for stops
  * (0..n-1) and vehicles (0..V-1), window hulls, demands with an extra "stop count"
  * dimension that carries `maxStops`, per-vehicle travel factors and a compatibility table.
@@ -52,6 +62,14 @@ export interface CompiledProblem {
   readonly windowed: Uint8Array;
   /** `n * dims` demands; the last dimension is 1 (one stop). */
   readonly demand: Float64Array;
+  /**
+   * `serviceMin`, `earliestMin`, `latestMin`, `windowed` and `demand` again, stop by stop
+   * (`stopRows[s * stopStride + ROW_SERVICE]`, ..., `ROW_DEMAND + d`): the same numbers laid out
+   * for the move loop, which reads them together for stops scattered over a large day (one or
+   * two cache lines per stop instead of five).
+   */
+  readonly stopRows: Float64Array;
+  readonly stopStride: number;
   /** `n * dims` pickups (collected at the stop); the last dimension is 0. */
   readonly pickup: Float64Array;
   /** True when some stop collects something (load then varies along the route). */
@@ -245,6 +263,16 @@ export function compileProblem(problem: Problem, computeKmFrom: number = COMPUTE
   }
   const replan = compileEarlier(problem, compatible, unservableReason, unservedCost, optional);
   if (replan.locked.some((x) => x === 1)) anyIncompatible = true;
+  const stopStride = ROW_DEMAND + dims;
+  const stopRows = new Float64Array(n * stopStride);
+  for (let i = 0; i < n; i++) {
+    const o = i * stopStride;
+    stopRows[o + ROW_SERVICE] = serviceMin[i]!;
+    stopRows[o + ROW_EARLIEST] = earliestMin[i]!;
+    stopRows[o + ROW_LATEST] = latestMin[i]!;
+    stopRows[o + ROW_WINDOWED] = windowed[i]!;
+    for (let d = 0; d < dims; d++) stopRows[o + ROW_DEMAND + d] = demand[i * dims + d]!;
+  }
   const everyVehicle = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
     let all = 1;
@@ -282,6 +310,8 @@ export function compileProblem(problem: Problem, computeKmFrom: number = COMPUTE
     latestMin,
     windowed,
     demand,
+    stopRows,
+    stopStride,
     pickup,
     anyPickup,
     loadScale,
