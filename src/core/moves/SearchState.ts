@@ -150,7 +150,7 @@ export class SearchState {
     this.violSum = 0;
     for (let v = 0; v < this.routes.length; v++) {
       const o = v * R_SIZE;
-      this.rStats[o + R_COST] = penalisedCost(this, v, this.rStats, o);
+      penalisedCost(this, v, this.rStats, o);
       this.realSum += this.rStats[o + R_REAL]!;
       this.violSum += this.rStats[o + R_VIOL]!;
     }
@@ -162,15 +162,16 @@ export class SearchState {
    * Allocation-free: this is the hot path (see `evaluatePieces`).
    */
   evaluate(v: number, pieces: Int32Array, m: number, slot: number): number {
-    if (this.fullEvaluation) return this.evaluateFully(v, pieces, m, slot);
-    return evaluatePieces(this, v, pieces, m, slot);
+    if (this.fullEvaluation) this.evaluateFully(v, pieces, m, slot);
+    else evaluatePieces(this, v, pieces, m, slot);
+    return this.out[slot * R_SIZE + R_COST]!;
   }
 
   /**
    * The same result as `evaluate` without segment summaries: the candidate route is written
    * out and evaluated as a chain of single stops, every arc read from the matrix (O(route)).
    */
-  evaluateFully(v: number, pieces: Int32Array, m: number, slot: number): number {
+  evaluateFully(v: number, pieces: Int32Array, m: number, slot: number): void {
     const stops = this.tmp[2]!;
     const count = this.materialise(pieces, m, stops);
     const chain = (this.fullChain ??= new Int32Array(4 * (this.cp.n + 1)));
@@ -182,7 +183,7 @@ export class SearchState {
       chain[4 * i + 3] = 0;
     }
     this.fullEvaluations++;
-    return evaluatePieces(this, v, chain, count, slot);
+    evaluatePieces(this, v, chain, count, slot);
   }
 
   /**

@@ -17,7 +17,7 @@ import {
 } from "../schedule/RouteArrays.js";
 import { penalisedCost } from "./penalisedCost.js";
 import { applyRouteRules } from "./routeRules.js";
-import { R_COST, R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_SIZE, R_STOPTW } from "./routeResults.js";
+import { R_COUNT, R_DIST, R_DUTY, R_ENDTW, R_EXCESS, R_MOVED, R_SIZE, R_STOPTW } from "./routeResults.js";
 import type { SearchState } from "./SearchState.js";
 
 /**
@@ -36,10 +36,11 @@ import type { SearchState } from "./SearchState.js";
  * @param v - the vehicle that would drive the route
  * @param pieces - the pieces, 4 ints each
  * @param m - number of pieces
- * @param slot - 0 or 1: where in `state.out` the results go
- * @returns the penalised cost (vehicle weight excluded)
+ * @param slot - 0 or 1: where in `state.out` the results go; the penalised cost (vehicle weight
+ *   excluded) at `R_COST` (not returned: a number returned from a call the engine does not
+ *   inline is boxed, an allocation per evaluation)
  */
-export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array, m: number, slot: number): number {
+export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array, m: number, slot: number): void {
   const cp = state.cp;
   const L = cp.locationCount;
   const T = cp.travelMin;
@@ -196,7 +197,5 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   out[o + R_DUTY] = duration - aTW - endTW;
   out[o + R_MOVED] = 0;
   if (state.rulesOn[v]) applyRouteRules(state, v, pieces, m, slot);
-  const cost = penalisedCost(state, v, out, o);
-  out[o + R_COST] = cost;
-  return cost;
+  penalisedCost(state, v, out, o);
 }
