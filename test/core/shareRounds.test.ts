@@ -62,20 +62,31 @@ describe("the rounds of sharing chains", () => {
 });
 
 describe("a chain that shares (SharingChain, solver.adopt)", () => {
-  it("stops exactly at a mark of moves, adopts a better plan there and goes on at the same point of its schedule", () => {
+  it("stops at a mark of moves (the same move on every run), adopts a better plan there and goes on at the same point of its schedule", () => {
     const budget = { moves: 80_000 };
     const marks = [{ moves: 40_000 }];
     const a = new SharingChain(problem, createSolver(problem, { seed: 1, budget }), marks);
     const b = new SharingChain(problem, createSolver(problem, { seed: 2, budget }), marks);
+    const stoppedAt: number[] = [];
     for (const c of [a, b]) {
       let at = c.advance(3_000);
       while (at === "running") at = c.advance(3_000);
       expect(at).toBe("mark");
-      expect(c.solver.progress.moves).toBe(40_000);
+      // At the mark, or past it by the rest of one route-minimisation pop (a slice of that phase
+      // ends on a whole pop, so that plans do not depend on how a run is sliced).
+      expect(c.solver.progress.moves).toBeGreaterThanOrEqual(40_000);
+      expect(c.solver.progress.moves).toBeLessThan(40_000 + 5_000);
+      stoppedAt.push(c.solver.progress.moves);
       // Both have a plan that keeps every rule by then (R101 has them within a few thousand moves).
       expect(c.best().totals.mustServeUnassigned).toBe(0);
       expect(() => c.advance(1)).toThrow(RangeError);
     }
+    // The same seed stops at the same move however it is sliced (here 1 000 moves a slice).
+    const again = new SharingChain(problem, createSolver(problem, { seed: 1, budget }), marks);
+    let atAgain = again.advance(1_000);
+    while (atAgain === "running") atAgain = again.advance(1_000);
+    expect(again.solver.progress.moves).toBe(stoppedAt[0]);
+    expect(routesOf(again.best())).toEqual(routesOf(a.best()));
     const [winner, loser] = comparePlans(problem, a.best(), b.best()) <= 0 ? [a, b] : [b, a];
     const shared = winner.best();
     const before = { ...loser.solver.progress };
