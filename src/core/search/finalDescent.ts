@@ -73,34 +73,11 @@ export class FinalDescent {
     const { state, nb, choices, one, mv } = this;
     let used = 0;
     while (!this.finished && used < limit && used < quota) {
-      one[0] = this.active[this.at]!;
-      const inPool = state.routeOf[one[0]]! === -1;
-      let best = -1e-9;
-      let bestKey = -1;
-      // With the granular neighbourhood off, every servable stop is a neighbour.
-      const K = nb.all ? nb.all.length : nb.k;
-      const count = inPool ? 2 : VARIANTS.length;
-      const ru = state.routeOf[one[0]]!;
-      for (let k = 0; k < K; k++) {
-        const v = nb.all ? nb.all[k]! : nb.list[one[0] * nb.k + k]!;
-        const n = v >= 0 && state.routeOf[v] === ru ? count : Math.min(count, WITHIN_ROUTE_ONLY);
-        for (let i = 0; i < n && used < limit - 1; i++) {
-          this.choose(k, i, inPool);
-          if (!proposeMove(state, nb, choices, mv, one)) continue;
-          used++;
-          if (mv.delta < best) {
-            best = mv.delta;
-            bestKey = k * VARIANTS.length + i;
-          }
-        }
-      }
-      if (used >= limit - 1 && bestKey < 0) break;
-      if (bestKey >= 0) {
-        // Evaluate the best again: its route results must be the last ones in `state.out`.
-        this.choose(Math.floor(bestKey / VARIANTS.length), bestKey % VARIANTS.length, inPool);
-        proposeMove(state, nb, choices, this.bestMv, one);
-        used++;
-        applyMove(state, this.bestMv);
+      const stop = this.active[this.at]!;
+      const found = examineStop(state, nb, stop, limit - used, choices, one, mv, this.bestMv);
+      used += found.used;
+      if (found.stopped) break;
+      if (found.applied) {
         this.improved();
         this.improvedInSweep = true;
       }
@@ -112,13 +89,86 @@ export class FinalDescent {
     }
     return used;
   }
+}
 
-  private choose(k: number, i: number, inPool: boolean): void {
-    if (inPool) this.choices.set(k, i === 0 ? 0.25 : 0.75, 0, 0, 0, 0);
-    else {
-      const [kind, a, b, c] = VARIANTS[i]!;
-      this.choices.set(k, ROLL_PAIR, kind, a, b, c);
+/** What `examineStop` did. */
+export interface Examined {
+  /** Evaluations used. */
+  used: number;
+  /** True when the best improving move was applied (it is then in `bestMv`). */
+  applied: boolean;
+  /** True when the limit ran out before every move of the stop was evaluated (nothing applied). */
+  stopped: boolean;
+}
+
+/**
+ * One step of a steepest descent at one stop: every move `proposeMove` can make between
+ * `stop` and one of its neighbours (every kind and variant the annealer draws) is evaluated,
+ * and the one that lowers the penalised cost most is applied (`bestMv` then holds it, as
+ * evaluated before it was applied). Deterministic: the moves are enumerated in a fixed order.
+ *
+ * @param state - the solution, changed in place when a move is applied
+ * @param nb - neighbour lists (`nb.all` when the granular neighbourhood is off)
+ * @param stop - the stop examined (on a route or in the pool)
+ * @param limit - evaluations allowed (at least 1 is kept for applying the best move)
+ * @param choices - scratch choices; `one`, `mv`, `bestMv` scratch too
+ * @param beforeApply - called with the best move just before it is applied (its pieces still
+ *   name the positions of the routes as they are)
+ * @param neighbours - how many of the stop's nearest neighbours to look at (default: all; with
+ *   the granular neighbourhood off, every partner is looked at)
+ * @returns the evaluations used and whether a move was applied
+ * @example examineStop(state, nb, 7, 1e6, new ScriptedChoices(), new Int32Array(1), new Move(), new Move()).applied
+ */
+export function examineStop(
+  state: SearchState,
+  nb: Neighbours,
+  stop: number,
+  limit: number,
+  choices: ScriptedChoices,
+  one: Int32Array,
+  mv: Move,
+  bestMv: Move,
+  beforeApply?: (mv: Move) => void,
+  neighbours = Infinity,
+): Examined {
+  let used = 0;
+  one[0] = stop;
+  const ru = state.routeOf[stop]!;
+  const inPool = ru === -1;
+  let best = -1e-9;
+  let bestKey = -1;
+  // With the granular neighbourhood off, every servable stop is a neighbour.
+  const K = nb.all ? nb.all.length : Math.min(neighbours, nb.k);
+  const count = inPool ? 2 : VARIANTS.length;
+  for (let k = 0; k < K; k++) {
+    const v = nb.all ? nb.all[k]! : nb.list[stop * nb.k + k]!;
+    const n = v >= 0 && state.routeOf[v] === ru ? count : Math.min(count, WITHIN_ROUTE_ONLY);
+    for (let i = 0; i < n && used < limit - 1; i++) {
+      choose(choices, k, i, inPool);
+      if (!proposeMove(state, nb, choices, mv, one)) continue;
+      used++;
+      if (mv.delta < best) {
+        best = mv.delta;
+        bestKey = k * VARIANTS.length + i;
+      }
     }
+  }
+  if (used >= limit - 1 && bestKey < 0) return { used, applied: false, stopped: true };
+  if (bestKey < 0) return { used, applied: false, stopped: false };
+  // Evaluate the best again: its route results must be the last ones in `state.out`.
+  choose(choices, Math.floor(bestKey / VARIANTS.length), bestKey % VARIANTS.length, inPool);
+  proposeMove(state, nb, choices, bestMv, one);
+  used++;
+  beforeApply?.(bestMv);
+  applyMove(state, bestMv);
+  return { used, applied: true, stopped: false };
+}
+
+function choose(choices: ScriptedChoices, k: number, i: number, inPool: boolean): void {
+  if (inPool) choices.set(k, i === 0 ? 0.25 : 0.75, 0, 0, 0, 0);
+  else {
+    const [kind, a, b, c] = VARIANTS[i]!;
+    choices.set(k, ROLL_PAIR, kind, a, b, c);
   }
 }
 
