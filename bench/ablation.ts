@@ -5,7 +5,7 @@
  * test/fixtures/reference, each solved at equal time by
  *   - the engine as shipped (one chain),
  *   - the engine with each part switched off in turn by its `SolveOptions` switch (granular
- *     neighbourhood, O(1) move evaluation, route minimisation, adaptive penalties), and
+ *     neighbourhood, O(1) move evaluation, route minimisation, adaptive penalties, kick phase), and
  *   - a plain textbook annealer (bench/textbookAnnealer.ts).
  * Prints a markdown table and writes bench/results/ablation-<date>.json.
  *
@@ -46,6 +46,7 @@ const VARIANTS: readonly { name: string; options: ChainOptions }[] = [
   { name: "no O(1) evaluation", options: { incrementalEvaluation: false } },
   { name: "no route minimisation", options: { routeMinimisation: false } },
   { name: "no adaptive penalties", options: { adaptivePenalties: false } },
+  { name: "no kick phase", options: { kickPhase: false } },
 ];
 
 interface AblationRow {

@@ -2,6 +2,7 @@ import {
   sampleMeanUphill,
   calibrateTemperatures,
   describeProfile,
+  endOfRunText,
   profile,
   type ProfilePoint,
   ROUTE_MINIMISATION_SHARE,
@@ -84,6 +85,7 @@ export async function runProfileOf(
           `Vehicles first: a route-minimisation phase (ejection pool, squeeze, ejections) uses up to ${Math.round(100 * ROUTE_MINIMISATION_SHARE)}% of the budget before the annealing (less when it reaches the lower bound on vehicles or saves none for a while); the schedule below then runs over the rest.`,
         ]
       : []),
+    endOfRunText(),
     "",
     ...profileTable(points),
     "",

@@ -1,4 +1,4 @@
-import type { Progress } from "../core/index.js";
+import { RUN_PHASE_LABELS, type Progress } from "../core/index.js";
 import type { CliIO } from "./CliIO.js";
 
 /** A one-line progress display of a run. */
@@ -38,7 +38,7 @@ export function progressBar(io: CliIO, width = 24): ProgressBar {
  *
  * @param p - the run's progress
  * @param width - bar width in characters
- * @returns e.g. "[######------]  50%  T 12.3  best 456.78  acc 21%"
+ * @returns e.g. "[######------]  50%  T 12.3  best 456.78  acc 21%  annealing" (the phase when reported)
  * @example progressLine({ fraction: 0.5, temperature: 12.3, bestCost: 456.78, acceptanceRate: 0.21, ... }, 12)
  */
 export function progressLine(p: Progress, width: number): string {
@@ -47,6 +47,7 @@ export function progressLine(p: Progress, width: number): string {
   const best = Number.isFinite(p.bestCost) ? p.bestCost.toFixed(2) : "none feasible yet";
   return (
     `[${"#".repeat(filled)}${"-".repeat(width - filled)}] ${String(Math.round(f * 100)).padStart(3)}%` +
-    `  T ${p.temperature.toPrecision(3)}  best ${best}  acc ${Math.round(p.acceptanceRate * 100)}%`
+    `  T ${p.temperature.toPrecision(3)}  best ${best}  acc ${Math.round(p.acceptanceRate * 100)}%` +
+    (p.phase ? `  ${RUN_PHASE_LABELS[p.phase]}` : "")
   );
 }

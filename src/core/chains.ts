@@ -40,8 +40,8 @@ export function keptChain(problem: Problem, plans: readonly Plan[]): number {
 
 /**
  * One progress of several chains: the moves of all, the best cost any chain has found, the
- * budget fraction and elapsed time of the slowest chain, chain 0's temperature (every chain
- * follows the same schedule) and the mean acceptance shares.
+ * budget fraction and elapsed time of the slowest chain, chain 0's temperature and phase (every
+ * chain follows the same schedule) and the mean acceptance shares.
  *
  * @param latest - each chain's latest progress (undefined before its first report)
  * @returns the combined progress (fraction 0 until every chain has reported)
@@ -59,6 +59,7 @@ export function combineProgress(latest: readonly (Progress | undefined)[]): Prog
     acceptanceRate: mean(ps.map((p) => p.acceptanceRate)),
     ...(worse.length > 0 ? { worseAccepted: mean(worse) } : {}),
     elapsedMs: Math.max(0, ...ps.map((p) => p.elapsedMs)),
+    ...((latest[0] ?? ps[0])?.phase !== undefined ? { phase: (latest[0] ?? ps[0])!.phase } : {}),
   };
 }
 

@@ -19,4 +19,5 @@ export { calibrateTemperatures } from "./anneal/calibrateTemperatures.js";
 export { resolveCooling, temperatureAt, type ResolvedCooling } from "./anneal/resolveCooling.js";
 export { profile, type ProfilePoint } from "./anneal/profile.js";
 export { describeProfile } from "./anneal/describeProfile.js";
+export { endOfRunText } from "./search/endOfRun.js";
 export * from "./formats/index.js";

@@ -39,6 +39,21 @@ export interface AbortFlag {
   readonly aborted: boolean;
 }
 
+/**
+ * The part of a run under way: the route-minimisation phase (vehicles first), the annealing
+ * (the user's cooling schedule), the kick phase at the end (`SolveOptions.kickPhase`), or the
+ * quench (no worse move kept: a steepest descent from the best plan, then random improving moves).
+ */
+export type RunPhase = "routeMinimisation" | "annealing" | "kicks" | "quench";
+
+/** The words the pane and the CLI show for each `RunPhase`. */
+export const RUN_PHASE_LABELS: Readonly<Record<RunPhase, string>> = {
+  routeMinimisation: "route minimisation",
+  annealing: "annealing",
+  kicks: "kick phase",
+  quench: "quench",
+};
+
 /** What a run reports while it goes. */
 export interface Progress {
   readonly moves: number;
@@ -56,6 +71,8 @@ export interface Progress {
    */
   readonly worseAccepted?: number | undefined;
   readonly elapsedMs: number;
+  /** The part of the run under way (absent in reports made before it was known). */
+  readonly phase?: RunPhase | undefined;
 }
 
 /** Options of `solve`. */
@@ -114,6 +131,12 @@ export interface SolveOptions {
    * stay at their initial values (`initialWeights`) for the whole run.
    */
   readonly adaptivePenalties: boolean;
+  /**
+   * The kick phase at the end of the run (`KickSearch`: an iterated local search from the best
+   * plan, double-bridge kicks and a descent around them). Off: the run ends with the quench
+   * instead (a steepest descent from the best plan, then random improving moves).
+   */
+  readonly kickPhase: boolean;
 }
 
 /** The geometric factor when neither it nor moves per level is given: 0.94 is a usual choice (common practice). */
@@ -134,4 +157,5 @@ export const SOLVE_DEFAULTS: Omit<SolveOptions, "now" | "onProgress" | "signal" 
   incrementalEvaluation: true,
   routeMinimisation: true,
   adaptivePenalties: true,
+  kickPhase: true,
 };

@@ -12,7 +12,8 @@ import type { Budget } from "./options.js";
 
 /**
  * The fractions of the budget at which chains share their best plan: eight epochs, the last
- * mark before the quench (`QUENCH_FROM` = 0.95 in solve.ts) so every chain quenches on its own.
+ * mark before the quench (`QUENCH_FROM` = 0.95 in search/endOfRun.ts) so every chain quenches on
+ * its own; the kick phase (from `KICK_FROM` = 0.8) starts again from a plan shared at 0.875.
  */
 export const SHARE_AT: readonly number[] = [0.125, 0.25, 0.375, 0.5, 0.625, 0.75, 0.875];
 

@@ -9,7 +9,9 @@ import { SOLVE_DEFAULTS, type Progress, type SolveOptions } from "./options.js";
 import { adaptPenalties, ADAPT_EVERY } from "./search/adaptPenalties.js";
 import { BestPlan } from "./search/BestPlan.js";
 import { EliminationSchedule } from "./search/EliminationSchedule.js";
+import { annealingEnds, QUENCH_FROM } from "./search/endOfRun.js";
 import { FinalDescent } from "./search/finalDescent.js";
+import { KickSearch } from "./search/kickSearch.js";
 import { prepareRun } from "./search/prepareRun.js";
 import { RouteMinimiser } from "./search/routeMinimisation.js";
 import { keepHardRules } from "./schedule/keepHardRules.js";
@@ -20,13 +22,6 @@ export type { RunStats, SolveResult, Solver } from "./search/runTypes.js";
 /** Moves between clock and abort checks, and between temperature updates. */
 const CLOCK_EVERY = 256;
 const TEMPERATURE_EVERY = 16;
-/**
- * The last part of the budget runs at temperature 0 (descent): the calibrated end temperature
- * matches the mean uphill change of the first plan, which is far larger than the changes near
- * a good plan, so without it the run would end on a plan slightly above its local optimum.
- * The quench starts from the best feasible plan with a steepest descent (`finalDescent`).
- */
-const QUENCH_FROM = 0.95;
 /**
  * At the route-minimisation phase's fleet, a chain that has broken a rule for this many moves
  * per stop goes back to the best plan with the initial penalty weights (measured on Solomon
@@ -149,6 +144,11 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   let done = active.length === 0;
   let polished = false;
   let descent: FinalDescent | undefined;
+  let kicks: KickSearch | undefined;
+  let kickCount = 0;
+  let kicksKept = 0;
+  /** Where the annealing schedule stops governing the run: the kick phase or the quench starts. */
+  let kickFrom = annealingEnds(o.kickPhase);
   const metropolis = o.rule === "metropolis";
   let progress: Progress = makeProgress();
 
@@ -162,6 +162,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
       acceptanceRate: movesSinceReport > 0 ? acceptedSinceReport / movesSinceReport : 0,
       worseAccepted: worseSinceReport > 0 ? worseAcceptedSinceReport / worseSinceReport : undefined,
       elapsedMs,
+      phase: minimiser ? "routeMinimisation" : kicks ? "kicks" : polished ? "quench" : "annealing",
     };
   }
 
@@ -194,6 +195,14 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     return done;
   }
 
+  /** End the kick phase (its numbers go to the run's statistics); random improving moves follow. */
+  function endKicks(): void {
+    if (!kicks) return;
+    kickCount += kicks.kicks;
+    kicksKept += kicks.kept;
+    kicks = undefined;
+  }
+
   /**
    * End the route-minimisation phase: back to the best plan (fewest vehicles) when a removal
    * was under way, and the cooling schedule fitted again to the moves left for the annealing.
@@ -206,7 +215,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     fixedFleet = best.feasibleFound;
     minimiser = undefined;
     phaseMoves = moves;
-    phaseFraction = Math.min(fraction, QUENCH_FROM);
+    phaseFraction = Math.min(fraction, kickFrom);
     if (phaseMoves === 0) return;
     const left =
       budgetMoves !== undefined
@@ -260,17 +269,37 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
         if (checkClock()) break;
         continue;
       }
+      if (kicks) {
+        // The kick phase, in slices of whole stops; its evaluations count as moves of the budget.
+        const left = budgetMoves !== undefined ? budgetMoves - moves : Number.MAX_SAFE_INTEGER;
+        const used = kicks.run(left, maxMoves - k);
+        moves += used;
+        movesSinceReport += used;
+        evaluations += used;
+        k += Math.max(0, used - 1);
+        if (kicks.finished || used === 0) endKicks();
+        if (budgetMoves !== undefined) fraction = Math.min(1, moves / budgetMoves);
+        if (checkClock()) break;
+        continue;
+      }
       moves++;
       movesSinceReport++;
       if (moves % TEMPERATURE_EVERY === 0) {
         if (budgetMoves !== undefined) fraction = moves / budgetMoves;
         const annealFraction = phaseFraction > 0 ? (fraction - phaseFraction) / (1 - phaseFraction) : fraction;
-        temperature = fraction >= QUENCH_FROM ? 0 : temperatureAt(cooling, moves - phaseMoves, annealFraction);
-        if (!polished && fraction >= QUENCH_FROM) {
-          // The quench starts from the best feasible plan, with a steepest descent on it.
+        if (!polished && fraction >= kickFrom && o.kickPhase && state.used > 1 && kickFrom < QUENCH_FROM) {
+          // Kicks measured mixed on fleets with windows (Solomon): a plan of several routes
+          // anneals on to the quench instead.
+          kickFrom = QUENCH_FROM;
+        }
+        temperature = fraction >= kickFrom ? 0 : temperatureAt(cooling, moves - phaseMoves, annealFraction);
+        if (!polished && fraction >= kickFrom) {
+          // The quench starts from the best feasible plan, with a steepest descent on it, or
+          // the kick phase with its descent from that plan.
           polished = true;
           if (best.feasibleFound) best.restore(state);
-          descent = new FinalDescent(state, moveNb, active, () => best.consider(state));
+          if (kickFrom < QUENCH_FROM) kicks = new KickSearch(state, moveNb, active, rng, cp.hierarchical, () => best.consider(state));
+          else descent = new FinalDescent(state, moveNb, active, () => best.consider(state));
           continue;
         }
       }
@@ -357,6 +386,10 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     feasibleAt = moves;
     // In the quench, the steepest descent starts again from the adopted plan.
     if (descent) descent = new FinalDescent(state, moveNb, active, () => best.consider(state));
+    if (kicks) {
+      endKicks();
+      kicks = new KickSearch(state, moveNb, active, rng, cp.hierarchical, () => best.consider(state));
+    }
     progress = makeProgress();
     return true;
   }
@@ -384,6 +417,8 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
           fullRouteEvaluations: state.fullEvaluations,
           routeEliminations,
           penaltyUpdates,
+          kicks: kickCount + (kicks?.kicks ?? 0),
+          kicksKept: kicksKept + (kicks?.kept ?? 0),
           ...(run.movesPerSecond === undefined ? {} : { measuredMovesPerSecond: run.movesPerSecond }),
         },
       };

@@ -3,7 +3,7 @@
  * problem in the worker, then draws temperature and acceptance over the run from the form's
  * schedule (computed here: a profile is a closed form of about a hundred points).
  */
-import { calibrateTemperatures, describeProfile, profile, type Progress } from "../core/index.js";
+import { calibrateTemperatures, describeProfile, endOfRunText, profile, type Progress } from "../core/index.js";
 import type { ReadResult } from "../sheets/ReadResult.js";
 import { CoolingPlot } from "./CoolingPlot.js";
 import { readForm, type PaneDom } from "./paneDom.js";
@@ -106,7 +106,7 @@ export class CoolingPreview {
       this.plot.show(points);
       const assumed =
         s.moves === undefined ? ` (about ${formatCount(budgetMoves)} moves in ${s.seconds} s at the speed measured on this computer)` : "";
-      d.coolingReading.textContent = `${describeProfile(points, s.rule)}${assumed}`;
+      d.coolingReading.textContent = `${describeProfile(points, s.rule)}${assumed} ${endOfRunText()}`;
       d.coolingReading.classList.add("ok");
       d.coolingReading.dataset.meanUphill = String(this.meanUphill);
     } catch (err) {

@@ -63,6 +63,7 @@ export function paneDom() {
     statBest: $("stat-best"),
     statAccept: $("stat-accept"),
     statTemp: $("stat-temp"),
+    statPhase: $("stat-phase"),
     statWorkers: $("stat-workers"),
     statMemory: $("stat-memory"),
     convergencePlot: $("convergence-plot"),

@@ -1,8 +1,8 @@
 /**
  * The running optimization's read-out: progress bar, elapsed and remaining time, current and
- * best cost, acceptance rate, temperature and the convergence plot.
+ * best cost, acceptance rate, temperature, the part of the run under way and the convergence plot.
  */
-import type { Progress, SolveResult } from "../core/index.js";
+import { RUN_PHASE_LABELS, type Progress, type SolveResult } from "../core/index.js";
 import type { ConvergencePlot } from "./ConvergencePlot.js";
 import { formatDuration } from "./formatClock.js";
 import type { PaneDom } from "./paneDom.js";
@@ -28,6 +28,7 @@ export function showProgress(d: PaneDom, convergence: ConvergencePlot, p: Progre
   d.statBest.textContent = Number.isFinite(p.bestCost) ? formatCost(p.bestCost) : "none feasible yet";
   d.statAccept.textContent = p.worseAccepted === undefined ? "–" : `${(p.worseAccepted * 100).toFixed(1)}%`;
   d.statTemp.textContent = p.temperature.toPrecision(3);
+  d.statPhase.textContent = p.phase ? RUN_PHASE_LABELS[p.phase] : "–";
   d.statWorkers.textContent = `${workers} running, ${p.moves.toLocaleString("en")} moves in all`;
   convergence.add(p);
 }
@@ -46,6 +47,7 @@ export function showFinished(d: PaneDom, result: SolveResult | PoolResult, stopp
   d.progressBar.parentElement?.setAttribute("aria-valuenow", "100");
   d.statElapsed.textContent = formatDuration(result.stats.elapsedMs / 1000);
   d.statRemaining.textContent = stopped ? "stopped" : "finished";
+  d.statPhase.textContent = stopped ? "stopped" : "finished";
   d.statBest.textContent = formatCost(result.plan.totals.cost);
   d.statWorkers.textContent = workersText(result);
   d.statMemory.textContent = memoryText(result);

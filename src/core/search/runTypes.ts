@@ -26,6 +26,9 @@ export interface RunStats {
   fullRouteEvaluations: number;
   routeEliminations: number;
   penaltyUpdates: number;
+  /** Kicks of the kick phase (`SolveOptions.kickPhase`) and how many of them were kept. */
+  kicks: number;
+  kicksKept: number;
   /** Moves per second measured before a seconds run (see `measureMoveRate`); absent for a move budget. */
   measuredMovesPerSecond?: number;
 }

@@ -1,0 +1,335 @@
+import type { Random } from "../anneal/createRandom.js";
+import { applyMove, Move, proposeMove } from "../moves/proposeMove.js";
+import { MAX_PIECES, type SearchState } from "../moves/SearchState.js";
+import type { Neighbours } from "../neighbours/buildNeighbours.js";
+import { examineStop } from "./finalDescent.js";
+import { ROLL_PAIR, ScriptedChoices } from "./scriptedChoices.js";
+
+/**
+ * Longest of the three stretches a double-bridge kick exchanges (stops). Short stretches keep
+ * the kick local, so the descent after it has few stops to look at (10 against 30 tried on TSPLIB
+ * gr202 and gr431 at 10 CPU s, seed 1: better on gr202, worse on gr431; 30 kept).
+ */
+const KICK_STRETCH = 30;
+/**
+ * Neighbours of a stop the descent looks at (of the run's granular lists): the nearest 8, as
+ * neighbour-list 2-opt usually does (common practice; on gr202 and gr431 at 10 CPU s, seed 1:
+ * about twice the kicks of all 20 and shorter tours, 0.35% and 0.56% against 0.45% and 0.74%).
+ */
+const KICK_NEIGHBOURS = 8;
+/** Routes shorter than this get a kick between routes instead of a double bridge. */
+const BRIDGE_MIN_STOPS = 8;
+/** Moves of a kick between routes (relocate or swap of nearby stops, forced). */
+const CROSS_KICK_MOVES = 2;
+
+/**
+ * An iterated local search on a plan (Lourenço, Martin & Stützle, "Iterated Local Search",
+ * Handbook of Metaheuristics, 2003; from memory): a local optimum is kicked out of its valley
+ * and a descent brings it to a nearby local optimum, which is kept when it is not worse than the
+ * one before (otherwise the routes the iteration changed are put back).
+ *
+ * - The kick: within a route of at least `BRIDGE_MIN_STOPS` stops, a double bridge (Martin, Otto
+ *   & Felten 1991; from memory) on three consecutive short stretches B C D after a random stop,
+ *   so the route P B C D Q becomes P D C B Q (four legs replaced, none of the stretches turned,
+ *   which 2-opt and or-opt cannot undo in one move); in a fleet, every other kick is instead
+ *   `CROSS_KICK_MOVES` random relocates or swaps between a stop and its neighbours on other
+ *   routes, applied whatever they cost.
+ * - The descent: steepest moves per stop (`examineStop`: every move the annealer can draw
+ *   between the stop and its `KICK_NEIGHBOURS` nearest neighbours) on a queue of stops that starts with the stops at the
+ *   kick's ends; a stop whose neighbours on its route change goes back on the queue, every other
+ *   stop keeps its don't-look bit (Bentley 1992, "Fast algorithms for geometric traveling
+ *   salesman problems"; from memory). The first descent looks at every stop.
+ * - Acceptance: by the run's order of plans, on the plan's own numbers: a feasible plan before
+ *   an infeasible one, then (vehicles first) fewer vehicles, then the cost; among infeasible
+ *   plans the penalised total. Equal is accepted, so the search can drift along a plateau.
+ *
+ * The evaluation is the generic exact one (windows, capacity, shifts, breaks, rules), and the
+ * caller's best plan sees every plan the search applies (`improved`), so the run never returns a
+ * plan worse than the one the search started from. Deterministic: the run's generator draws the
+ * kicks, and `run` may be called in any slices, the evaluations are the same.
+ */
+export class KickSearch {
+  /** True when no kick is possible (no route long enough, no neighbour on another route). */
+  finished = false;
+  /** Kicks made and kicks whose result was kept (for the run's statistics). */
+  kicks = 0;
+  kept = 0;
+  private readonly choices = new ScriptedChoices();
+  private readonly one = new Int32Array(1);
+  private readonly mv = new Move();
+  private readonly bestMv = new Move();
+  private readonly queue: Int32Array;
+  private readonly queued: Uint8Array;
+  private head = 0;
+  private size = 0;
+  /** Routes changed since the kick, with their stops before it (for the undo). */
+  private readonly saved: (number[] | undefined)[];
+  private readonly savedList: number[] = [];
+  /** Whether a kick is under way (its descent not yet judged), and the plan's numbers before it. */
+  private inKick = false;
+  private beforeFeasible = false;
+  private beforeUsed = 0;
+  private beforeCost = 0;
+  private failedKicks = 0;
+  /** Stops at the ends of the pieces of the move being applied (two routes of `MAX_PIECES` pieces). */
+  private readonly ends = new Int32Array(4 * MAX_PIECES);
+  private endCount = 0;
+
+  /**
+   * @param state - the solution, changed in place (start it on the plan to improve)
+   * @param nb - neighbour lists
+   * @param active - the stops that may move
+   * @param rng - the run's generator (draws the kicks)
+   * @param hierarchical - vehicles first (fewer vehicles before a lower cost)
+   * @param improved - called after each applied move (e.g. to keep the best plan)
+   */
+  constructor(
+    private readonly state: SearchState,
+    private readonly nb: Neighbours,
+    private readonly active: Int32Array,
+    private readonly rng: Random,
+    private readonly hierarchical: boolean,
+    private readonly improved: () => void,
+  ) {
+    const n = state.cp.n;
+    this.queue = new Int32Array(n);
+    this.queued = new Uint8Array(n);
+    this.saved = new Array<number[] | undefined>(state.routes.length);
+    if (active.length === 0) this.finished = true;
+    for (let i = 0; i < active.length; i++) this.push(active[i]!);
+  }
+
+  /**
+   * Kick and descend until `limit` evaluations are used (never more) or at least `quota` are
+   * (checked between stops), or no kick is possible.
+   *
+   * @param limit - evaluations the budget still allows
+   * @param quota - evaluations after which to pause
+   * @returns the evaluations used
+   */
+  run(limit: number, quota: number): number {
+    const { state, nb, choices, one, mv, bestMv } = this;
+    let used = 0;
+    while (!this.finished && used < limit && used < quota) {
+      if (this.size > 0) {
+        const stop = this.pop();
+        const found = examineStop(state, nb, stop, limit - used, choices, one, mv, bestMv, this.prepare, KICK_NEIGHBOURS);
+        used += found.used;
+        if (found.stopped) {
+          this.push(stop);
+          break;
+        }
+        if (found.applied) this.settle();
+        continue;
+      }
+      // A local optimum: judge the kick that led here, then kick again.
+      if (this.inKick) this.judge();
+      used += this.kick();
+    }
+    return used;
+  }
+
+  /** Keep the descent's result when it is not worse than the plan before the kick, else undo. */
+  private judge(): void {
+    const state = this.state;
+    this.inKick = false;
+    const feasible = state.isFeasible();
+    let keep: boolean;
+    if (this.beforeFeasible) {
+      if (!feasible) keep = false;
+      else if (this.hierarchical && state.used !== this.beforeUsed) keep = state.used < this.beforeUsed;
+      else keep = state.realCost() <= this.beforeCost + 1e-9 * Math.max(1, Math.abs(this.beforeCost));
+    } else {
+      keep = feasible || state.total() <= this.beforeCost + 1e-9 * Math.max(1, Math.abs(this.beforeCost));
+    }
+    if (keep) this.kept++;
+    else this.undo();
+    this.forget();
+  }
+
+  /** Put back the routes the kick and its descent changed. */
+  private undo(): void {
+    const state = this.state;
+    for (const v of this.savedList) {
+      const r = state.routes[v]!;
+      if (r.len === 0) continue;
+      const stops = Array.from(r.nodes.subarray(1, r.len + 1));
+      state.setRoute(v, []);
+      for (const s of stops) state.addToPool(s);
+    }
+    for (const v of this.savedList) {
+      const stops = this.saved[v]!;
+      if (stops.length > 0) state.setRoute(v, stops);
+    }
+  }
+
+  private forget(): void {
+    for (const v of this.savedList) this.saved[v] = undefined;
+    this.savedList.length = 0;
+  }
+
+  /** Remember route `v` as it is before the iteration first changes it. */
+  private save(v: number): void {
+    if (v < 0 || this.saved[v] !== undefined) return;
+    const r = this.state.routes[v]!;
+    this.saved[v] = Array.from(r.nodes.subarray(1, r.len + 1));
+    this.savedList.push(v);
+  }
+
+  /**
+   * Make one kick from a random stop; returns the evaluations used (at least 1, so a run of
+   * failed kicks still spends its budget).
+   */
+  private kick(): number {
+    const state = this.state;
+    const rng = this.rng;
+    const u = this.active[rng.int(this.active.length)]!;
+    const ru = state.routeOf[u]!;
+    const feasible = state.isFeasible();
+    this.beforeFeasible = feasible;
+    this.beforeUsed = state.used;
+    this.beforeCost = feasible ? state.realCost() : state.total();
+    const multi = state.used > 1;
+    let used = 1;
+    let done = false;
+    if (ru >= 0) {
+      const long = state.routes[ru]!.len >= BRIDGE_MIN_STOPS;
+      if (long && (!multi || rng.next() < 0.5)) done = this.bridge(ru, u);
+      else if (multi) {
+        const made = this.crossKick(u);
+        used = Math.max(1, made);
+        done = made > 0;
+      }
+    }
+    if (done) {
+      this.kicks++;
+      this.failedKicks = 0;
+      this.inKick = true;
+    } else if (++this.failedKicks > 1000 + 10 * this.active.length) {
+      this.finished = true;
+    }
+    return used;
+  }
+
+  /** Double bridge P B C D Q -> P D C B Q on route `r` from stop `u` (stretches of 1..KICK_STRETCH stops). */
+  private bridge(r: number, u: number): boolean {
+    const state = this.state;
+    const rng = this.rng;
+    const len = state.routes[r]!.len;
+    const most = Math.max(1, Math.min(KICK_STRETCH, Math.floor(len / 3)));
+    const l1 = 1 + rng.int(most);
+    const l2 = 1 + rng.int(most);
+    const l3 = 1 + rng.int(most);
+    const start = Math.max(1, Math.min(state.posOf[u]!, len - (l1 + l2 + l3) + 1));
+    const b = start;
+    const c = b + l1;
+    const d = c + l2;
+    const q = d + l3;
+    const pieces = this.mv.piecesA;
+    let m = 0;
+    m = piece(pieces, m, r, 1, b - 1);
+    m = piece(pieces, m, r, d, q - 1);
+    m = piece(pieces, m, r, c, d - 1);
+    m = piece(pieces, m, r, b, c - 1);
+    m = piece(pieces, m, r, q, len);
+    this.save(r);
+    // The ends of the stretches are the stops whose legs change.
+    const nodes = state.routes[r]!.nodes;
+    const touched = [b - 1, b, c - 1, c, d - 1, d, q - 1, q];
+    const stops = touched.filter((p) => p >= 1 && p <= len).map((p) => nodes[p]!);
+    state.evaluate(r, pieces, m, 0);
+    state.apply(r, pieces, m, -1, pieces, 0);
+    for (const s of stops) this.push(s);
+    this.improved();
+    return true;
+  }
+
+  /**
+   * `CROSS_KICK_MOVES` relocates or swaps between `u` and random neighbours on other routes,
+   * applied whatever they cost; returns the evaluations used (0 when no such move exists).
+   */
+  private crossKick(u: number): number {
+    const { state, nb, rng, choices, one, mv } = this;
+    const K = nb.all ? nb.all.length : nb.k;
+    let used = 0;
+    let made = 0;
+    for (let t = 0; t < 4 * CROSS_KICK_MOVES && made < CROSS_KICK_MOVES; t++) {
+      const k = rng.int(K);
+      const v = nb.all ? nb.all[k]! : nb.list[u * nb.k + k]!;
+      const ru = state.routeOf[u]!;
+      if (v < 0 || ru < 0 || state.routeOf[v]! < 0 || state.routeOf[v] === ru) continue;
+      one[0] = u;
+      choices.set(k, ROLL_PAIR, rng.int(3), 0, 0.25, 0.25);
+      if (!proposeMove(state, nb, choices, mv, one)) continue;
+      used++;
+      this.prepare(mv);
+      applyMove(state, mv);
+      this.settle();
+      made++;
+    }
+    return made > 0 ? used : 0;
+  }
+
+  /**
+   * Before a move is applied: save the routes it changes (for the undo) and note the stops at
+   * its pieces' ends (their legs change; they go back on the queue afterwards).
+   */
+  private readonly prepare = (mv: Move): void => {
+    const state = this.state;
+    this.save(mv.vA);
+    this.save(mv.vB);
+    let e = collectEnds(state, mv.piecesA, mv.mA, this.ends, 0);
+    if (mv.vB >= 0) e = collectEnds(state, mv.piecesB, mv.mB, this.ends, e);
+    this.endCount = e;
+  };
+
+  /** After a move is applied: queue the stops noted by `prepare` and tell the caller. */
+  private settle(): void {
+    for (let i = 0; i < this.endCount; i++) this.push(this.ends[i]!);
+    this.improved();
+  }
+
+  private push(s: number): void {
+    if (this.queued[s]) return;
+    this.queued[s] = 1;
+    const n = this.queue.length;
+    this.queue[(this.head + this.size) % n] = s;
+    this.size++;
+  }
+
+  private pop(): number {
+    const s = this.queue[this.head]!;
+    this.head = (this.head + 1) % this.queue.length;
+    this.size--;
+    this.queued[s] = 0;
+    return s;
+  }
+}
+
+/** Write the first and last stop of each piece (as they are before the move) into `out` from `e`. */
+function collectEnds(state: SearchState, pieces: Int32Array, m: number, out: Int32Array, e: number): number {
+  for (let k = 0; k < m; k++) {
+    const src = pieces[4 * k]!;
+    const i = pieces[4 * k + 1]!;
+    if (src < 0) {
+      out[e++] = i;
+      continue;
+    }
+    const nodes = state.routes[src]!.nodes;
+    out[e++] = nodes[i]!;
+    const j = pieces[4 * k + 2]!;
+    if (j !== i) out[e++] = nodes[j]!;
+  }
+  return e;
+}
+
+/** Append piece (route, i..j) when not empty; returns the new count. */
+function piece(buf: Int32Array, m: number, route: number, i: number, j: number): number {
+  if (i > j) return m;
+  const o = 4 * m;
+  buf[o] = route;
+  buf[o + 1] = i;
+  buf[o + 2] = j;
+  buf[o + 3] = 0;
+  return m + 1;
+}
