@@ -196,6 +196,22 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
   }
 
   /** End the kick phase (its numbers go to the run's statistics); random improving moves follow. */
+  /**
+   * One slice of a phase that works in whole steps (final descent, kicks) within the moves the
+   * budget has left; its evaluations count as moves of the budget.
+   *
+   * @returns the evaluations it used
+   */
+  function runSlice(phase: { run(limit: number, quota: number): number }, quota: number): number {
+    const left = budgetMoves !== undefined ? budgetMoves - moves : Number.MAX_SAFE_INTEGER;
+    const used = phase.run(left, quota);
+    moves += used;
+    movesSinceReport += used;
+    evaluations += used;
+    if (budgetMoves !== undefined) fraction = Math.min(1, moves / budgetMoves);
+    return used;
+  }
+
   function endKicks(): void {
     if (!kicks) return;
     kickCount += kicks.kicks;
@@ -257,28 +273,18 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
       }
       if (descent) {
         // The final descent, in slices of whole stops (the same evaluations however the run is
-        // sliced); its evaluations count as moves of the budget.
-        const left = budgetMoves !== undefined ? budgetMoves - moves : Number.MAX_SAFE_INTEGER;
-        const used = descent.run(left, maxMoves - k);
-        moves += used;
-        movesSinceReport += used;
-        evaluations += used;
+        // sliced).
+        const used = runSlice(descent, maxMoves - k);
         k += Math.max(0, used - 1);
         if (descent.finished || used === 0) descent = undefined;
-        if (budgetMoves !== undefined) fraction = Math.min(1, moves / budgetMoves);
         if (checkClock()) break;
         continue;
       }
       if (kicks) {
-        // The kick phase, in slices of whole stops; its evaluations count as moves of the budget.
-        const left = budgetMoves !== undefined ? budgetMoves - moves : Number.MAX_SAFE_INTEGER;
-        const used = kicks.run(left, maxMoves - k);
-        moves += used;
-        movesSinceReport += used;
-        evaluations += used;
+        // The kick phase, in slices of whole stops.
+        const used = runSlice(kicks, maxMoves - k);
         k += Math.max(0, used - 1);
         if (kicks.finished || used === 0) endKicks();
-        if (budgetMoves !== undefined) fraction = Math.min(1, moves / budgetMoves);
         if (checkClock()) break;
         continue;
       }
@@ -367,13 +373,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
       }
     }
     if (minimiser) return false;
-    for (let v = 0; v < V; v++) {
-      const r = state.routes[v]!;
-      if (r.len === 0) continue;
-      const stops = Array.from(r.nodes.subarray(1, r.len + 1));
-      state.setRoute(v, []);
-      for (const s of stops) state.addToPool(s);
-    }
+    for (let v = 0; v < V; v++) if (state.routes[v]!.len > 0) state.emptyRoute(v);
     for (const r of plan.routes) {
       if (r.visits.length > 0)
         state.setRoute(

@@ -225,6 +225,19 @@ export class SearchState {
     return true;
   }
 
+  /**
+   * Empty route `v` into the pool and return its stops in visiting order.
+   *
+   * @example for (const s of state.emptyRoute(v)) reinsert(s)
+   */
+  emptyRoute(v: number): number[] {
+    const r = this.routes[v]!;
+    const stops = Array.from(r.nodes.subarray(1, r.len + 1));
+    this.setRoute(v, []);
+    for (const s of stops) this.addToPool(s);
+    return stops;
+  }
+
   /** Put stop `s` (not on a route) into the pool. */
   addToPool(s: number): void {
     if (this.poolIndex[s]! >= 0) return;

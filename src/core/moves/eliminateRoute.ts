@@ -38,10 +38,7 @@ export function eliminateRoute(state: SearchState, nb: Neighbours, rng: Random):
     }
   }
   if (victim < 0 || state.used < 2) return -1;
-  const r = state.routes[victim]!;
-  const stops = Array.from(r.nodes.subarray(1, r.len + 1));
-  state.setRoute(victim, []);
-  for (const s of stops) state.addToPool(s);
+  const stops = state.emptyRoute(victim);
   for (let i = stops.length - 1; i > 0; i--) {
     const j = rng.int(i + 1);
     [stops[i], stops[j]] = [stops[j]!, stops[i]!];

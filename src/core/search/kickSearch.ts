@@ -150,13 +150,7 @@ export class KickSearch {
   /** Put back the routes the kick and its descent changed. */
   private undo(): void {
     const state = this.state;
-    for (const v of this.savedList) {
-      const r = state.routes[v]!;
-      if (r.len === 0) continue;
-      const stops = Array.from(r.nodes.subarray(1, r.len + 1));
-      state.setRoute(v, []);
-      for (const s of stops) state.addToPool(s);
-    }
+    for (const v of this.savedList) if (state.routes[v]!.len > 0) state.emptyRoute(v);
     for (const v of this.savedList) {
       const stops = this.saved[v]!;
       if (stops.length > 0) state.setRoute(v, stops);

@@ -145,10 +145,7 @@ export class RouteMinimiser {
     for (let v = 0; v < cp.vehicleCount; v++) if (state.routes[v]!.len > 0 && !cp.locked[v]) candidates.push(v);
     if (candidates.length === 0 || state.used < 2) return false;
     const v = candidates[this.rng.int(candidates.length)]!;
-    const r = state.routes[v]!;
-    const stops = Array.from(r.nodes.subarray(1, r.len + 1));
-    state.setRoute(v, []);
-    for (const s of stops) state.addToPool(s);
+    const stops = state.emptyRoute(v);
     // Last in, first out: the route's first stop is inserted first.
     for (let k = stops.length - 1; k >= 0; k--) this.ep.push(stops[k]!);
     this.p.fill(1);
