@@ -114,8 +114,7 @@ export function constructPlan(state: SearchState, nb: Neighbours): void {
       cost = bestAny;
     }
     if (route < 0 || (cp.optional[s] && cost > cp.unservedCost[s]!)) continue;
-    const r = state.routes[route]!;
-    const stops = Array.from(r.nodes.subarray(1, r.len + 1));
+    const stops = state.routes[route]!.stops();
     stops.splice(at, 0, s);
     state.setRoute(route, stops);
   }

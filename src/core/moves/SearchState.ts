@@ -231,8 +231,7 @@ export class SearchState {
    * @example for (const s of state.emptyRoute(v)) reinsert(s)
    */
   emptyRoute(v: number): number[] {
-    const r = this.routes[v]!;
-    const stops = Array.from(r.nodes.subarray(1, r.len + 1));
+    const stops = this.routes[v]!.stops();
     this.setRoute(v, []);
     for (const s of stops) this.addToPool(s);
     return stops;

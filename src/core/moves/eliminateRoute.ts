@@ -73,7 +73,7 @@ export function eliminateRoute(state: SearchState, nb: Neighbours, rng: Random):
     }
     if (bestRoute < 0) continue;
     const route = state.routes[bestRoute]!;
-    const next = Array.from(route.nodes.subarray(1, route.len + 1));
+    const next = route.stops();
     next.splice(bestCut, 0, s);
     state.setRoute(bestRoute, next);
   }

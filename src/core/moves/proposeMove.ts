@@ -295,7 +295,13 @@ function finish(state: SearchState, mv: Move): boolean {
 }
 
 /** Append piece (route, i..j) when not empty; returns the new count. */
-function piece(buf: Int32Array, m: number, route: number, i: number, j: number, rev: number): number {
+/**
+ * Append the piece (route, i..j, reversed when `rev` is 1) to `buf` when it holds a stop.
+ *
+ * @returns the new number of pieces
+ * @example m = piece(mv.piecesA, m, r, 1, p - 1, 0)
+ */
+export function piece(buf: Int32Array, m: number, route: number, i: number, j: number, rev: number): number {
   if (i > j) return m;
   const o = 4 * m;
   buf[o] = route;

@@ -114,6 +114,16 @@ export class RouteArrays {
   }
 
   /**
+   * The route's stops in visiting order, as a new array (a copy: the route's own buffer changes
+   * with every move).
+   *
+   * @example const before = route.stops()
+   */
+  stops(): number[] {
+    return Array.from(this.nodes.subarray(1, this.len + 1));
+  }
+
+  /**
    * One number of position `i` by name (for tests and tools; the hot loops read `data`).
    *
    * @param field - which number

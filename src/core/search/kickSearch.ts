@@ -1,5 +1,5 @@
 import type { Random } from "../anneal/createRandom.js";
-import { applyMove, Move, proposeMove } from "../moves/proposeMove.js";
+import { applyMove, Move, piece, proposeMove } from "../moves/proposeMove.js";
 import { MAX_PIECES, type SearchState } from "../moves/SearchState.js";
 import type { Neighbours } from "../neighbours/buildNeighbours.js";
 import { examineStop } from "./finalDescent.js";
@@ -165,8 +165,7 @@ export class KickSearch {
   /** Remember route `v` as it is before the iteration first changes it. */
   private save(v: number): void {
     if (v < 0 || this.saved[v] !== undefined) return;
-    const r = this.state.routes[v]!;
-    this.saved[v] = Array.from(r.nodes.subarray(1, r.len + 1));
+    this.saved[v] = this.state.routes[v]!.stops();
     this.savedList.push(v);
   }
 
@@ -221,11 +220,11 @@ export class KickSearch {
     const q = d + l3;
     const pieces = this.mv.piecesA;
     let m = 0;
-    m = piece(pieces, m, r, 1, b - 1);
-    m = piece(pieces, m, r, d, q - 1);
-    m = piece(pieces, m, r, c, d - 1);
-    m = piece(pieces, m, r, b, c - 1);
-    m = piece(pieces, m, r, q, len);
+    m = piece(pieces, m, r, 1, b - 1, 0);
+    m = piece(pieces, m, r, d, q - 1, 0);
+    m = piece(pieces, m, r, c, d - 1, 0);
+    m = piece(pieces, m, r, b, c - 1, 0);
+    m = piece(pieces, m, r, q, len, 0);
     this.save(r);
     // The ends of the stretches are the stops whose legs change.
     const nodes = state.routes[r]!.nodes;
@@ -315,15 +314,4 @@ function collectEnds(state: SearchState, pieces: Int32Array, m: number, out: Int
     if (j !== i) out[e++] = nodes[j]!;
   }
   return e;
-}
-
-/** Append piece (route, i..j) when not empty; returns the new count. */
-function piece(buf: Int32Array, m: number, route: number, i: number, j: number): number {
-  if (i > j) return m;
-  const o = 4 * m;
-  buf[o] = route;
-  buf[o + 1] = i;
-  buf[o + 2] = j;
-  buf[o + 3] = 0;
-  return m + 1;
 }

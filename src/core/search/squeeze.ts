@@ -115,7 +115,7 @@ export class StopInserter {
   private improve(r: number): boolean {
     const { state, nb, script, one, mv } = this;
     const route = state.routes[r]!;
-    const stops = Array.from(route.nodes.subarray(1, route.len + 1));
+    const stops = route.stops();
     const K = Math.min(SQUEEZE_NEIGHBOURS, nb.all ? nb.all.length : nb.k);
     let bestPen = -EPS;
     let bestCost = Infinity;
@@ -162,8 +162,7 @@ export class StopInserter {
 
   private save(v: number): void {
     if (this.saved.has(v)) return;
-    const r = this.state.routes[v]!;
-    this.saved.set(v, Array.from(r.nodes.subarray(1, r.len + 1)));
+    this.saved.set(v, this.state.routes[v]!.stops());
   }
 
   /** Put pool stop `s` on route `v` after `cut` stops. */
