@@ -195,7 +195,6 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     return done;
   }
 
-  /** End the kick phase (its numbers go to the run's statistics); random improving moves follow. */
   /**
    * One slice of a phase that works in whole steps (final descent, kicks) within the moves the
    * budget has left; its evaluations count as moves of the budget.
@@ -212,6 +211,7 @@ export function createSolver(problem: Problem, options: Partial<SolveOptions> = 
     return used;
   }
 
+  /** End the kick phase (its numbers go to the run's statistics); random improving moves follow. */
   function endKicks(): void {
     if (!kicks) return;
     kickCount += kicks.kicks;

@@ -225,6 +225,12 @@ export class SearchState {
     return true;
   }
 
+  /** Forget which routes were written (after a snapshot copied them). */
+  clearDirty(): void {
+    for (let k = 0; k < this.dirtyCount; k++) this.dirty[this.dirtyList[k]!] = 0;
+    this.dirtyCount = 0;
+  }
+
   /**
    * Empty route `v` into the pool and return its stops in visiting order.
    *

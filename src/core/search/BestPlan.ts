@@ -62,13 +62,7 @@ export class BestPlan {
 
   /** Put the best plan back into `state` (its routes and pool). */
   restore(state: SearchState): void {
-    for (let v = 0; v < state.routes.length; v++) {
-      const r = state.routes[v]!;
-      if (r.len === 0) continue;
-      const stops = Array.from(r.nodes.subarray(1, r.len + 1));
-      state.setRoute(v, []);
-      for (const s of stops) state.addToPool(s);
-    }
+    for (let v = 0; v < state.routes.length; v++) if (state.routes[v]!.len > 0) state.emptyRoute(v);
     this.routes.forEach((stops, v) => {
       if (this.lengths[v]! > 0) state.setRoute(v, stops, this.lengths[v]);
     });
@@ -107,7 +101,7 @@ export class BestPlan {
     return (
       evaluatePlan(
         this.problem,
-        state.routes.map((r) => Array.from(r.nodes.subarray(1, r.len + 1))),
+        state.routes.map((r) => r.stops()),
       ).violations.length === 0
     );
   }
@@ -122,9 +116,8 @@ export class BestPlan {
       const nodes = r.nodes;
       for (let i = 0; i < r.len; i++) into[i] = nodes[i + 1]!;
       this.lengths[v] = r.len;
-      state.dirty[v] = 0;
     }
-    state.dirtyCount = 0;
+    state.clearDirty();
     for (let i = 0; i < state.poolSize; i++) this.pool[i] = state.pool[i]!;
     this.poolCount = state.poolSize;
   }
