@@ -31,8 +31,7 @@ import { mkdirSync, writeFileSync } from "node:fs";
 import { createRandom } from "../src/core/anneal/createRandom.js";
 import { initialWeights } from "../src/core/anneal/initialWeights.js";
 import { constructPlan } from "../src/core/construct/constructPlan.js";
-import { buildMatrix } from "../src/core/geo/buildMatrix.js";
-import type { Problem, Stop, Vehicle } from "../src/core/model.js";
+import type { Problem } from "../src/core/model.js";
 import { Move, proposeMove } from "../src/core/moves/proposeMove.js";
 import { SearchState } from "../src/core/moves/SearchState.js";
 import { buildNeighbours } from "../src/core/neighbours/buildNeighbours.js";
@@ -40,50 +39,7 @@ import { compileProblem } from "../src/core/schedule/compileProblem.js";
 import { createSolver, solve } from "../src/core/solve.js";
 import { loadavg } from "node:os";
 import { benchEnvironment, writeResults } from "./results.js";
-
-function instance(n: number): Problem {
-  const rng = createRandom(`bench-${n}`);
-  const locations = [
-    { lat: 53.96, lon: -1.08 },
-    { lat: 53.99, lon: -1.0 },
-  ];
-  for (let i = 0; i < n; i++) locations.push({ lat: 53.96 + (rng.next() - 0.5) * 0.5, lon: -1.08 + (rng.next() - 0.5) * 0.8 });
-  const stops: Stop[] = Array.from({ length: n }, (_, i) => {
-    const e = 480 + rng.int(420);
-    return {
-      id: `S${i}`,
-      name: `S${i}`,
-      location: i + 2,
-      demand: [1 + rng.int(20), rng.int(3)],
-      windows: [{ earliestMin: e, latestMin: e + 60 + rng.int(180) }],
-      serviceMin: 5 + rng.int(10),
-    };
-  });
-  const vehicleCount = Math.max(2, Math.ceil(n / 12));
-  const vehicles: Vehicle[] = Array.from({ length: vehicleCount }, (_, k) => ({
-    id: `V${k}`,
-    capacity: [150, 20],
-    startLocation: k % 2,
-    endLocation: k % 2,
-    shiftStartMin: 420,
-    shiftEndMin: 1140,
-    fixedCost: 50,
-    costPerKm: 0.8,
-    costPerHour: 20,
-    speedKmh: k % 3 === 0 ? 35 : 45,
-  }));
-  return {
-    locations,
-    stops,
-    vehicles,
-    loadDimensions: ["kg", "crates"],
-    matrix: buildMatrix(locations),
-    referenceSpeedKmh: 40,
-    hardWindows: true,
-    lateCostPerMin: 0,
-    objective: "weighted",
-  };
-}
+import { moveEvaluationsDay } from "./moveEvaluationsDay.js";
 
 /** `--rules` of the command line: which of the dispatcher's rules to add. */
 const rulesAt = process.argv.indexOf("--rules");
@@ -204,7 +160,7 @@ const rows: {
 // Every size in each round (sizes interleaved), so that a change in the machine's load between
 // rounds touches every size alike and the ratio of two sizes can be taken within one round.
 const cases = SIZES.flatMap((n) => {
-  const plain = withRules(instance(n), RULES);
+  const plain = withRules(moveEvaluationsDay(n), RULES);
   return (REPLAN ? (["plain", "re-plan"] as const) : (["plain"] as const)).map((mode) => ({
     n,
     mode,

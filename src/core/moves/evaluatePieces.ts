@@ -63,6 +63,12 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   let aL = cp.shiftEndMin[v]!;
   let dist = 0;
   let last = cp.startLoc[v]!;
+  // The loads of the first three dimensions in locals (a day's dimensions plus the stop count
+  // fit: most problems have one or two), further ones in `load`: a typed array element is read
+  // and written through memory, with its bounds checked, at every piece.
+  let q0 = 0;
+  let q1 = 0;
+  let q2 = 0;
   let k = 0;
   // The route's own prefix, from its window summaries (a route without windows keeps none: its
   // pieces are all summed from prefix sums below).
@@ -78,10 +84,17 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
     dist = a[o + CUM_DIST]!;
     last = own.locs[j]!;
     const ol = o + own.oLoad;
-    for (let d = 0; d < dims; d++) load[d] = a[ol + d]!;
+    q0 = a[ol]!;
+    if (dims > 1) {
+      q1 = a[ol + 1]!;
+      if (dims > 2) {
+        q2 = a[ol + 2]!;
+        for (let d = 3; d < dims; d++) load[d] = a[ol + d]!;
+      }
+    }
     k = 1;
   } else {
-    for (let d = 0; d < dims; d++) load[d] = 0;
+    for (let d = 3; d < dims; d++) load[d] = 0;
   }
   for (; k < m; k++) {
     const src = pieces[4 * k]!;
@@ -105,7 +118,15 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
       e2 = rows[o + ROW_EARLIEST]!;
       l2 = rows[o + ROW_LATEST]!;
       dist += kmIn;
-      for (let d = 0; d < dims; d++) load[d] = load[d]! + rows[o + ROW_DEMAND + d]!;
+      const od = o + ROW_DEMAND;
+      q0 = q0 + rows[od]!;
+      if (dims > 1) {
+        q1 = q1 + rows[od + 1]!;
+        if (dims > 2) {
+          q2 = q2 + rows[od + 2]!;
+          for (let d = 3; d < dims; d++) load[d] = load[d]! + rows[od + d]!;
+        }
+      }
       last = firstLoc;
     } else {
       const a = r.data;
@@ -148,7 +169,14 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
       dist += kmIn + (rev ? a[oj + r.oDistR]! - a[oi + r.oDistR]! : a[oj + CUM_DIST]! - a[oi + CUM_DIST]!);
       const lj = oj + r.oLoad;
       const li = oi - S + r.oLoad;
-      for (let d = 0; d < dims; d++) load[d] = load[d]! + a[lj + d]! - a[li + d]!;
+      q0 = q0 + a[lj]! - a[li]!;
+      if (dims > 1) {
+        q1 = q1 + a[lj + 1]! - a[li + 1]!;
+        if (dims > 2) {
+          q2 = q2 + a[lj + 2]! - a[li + 2]!;
+          for (let d = 3; d < dims; d++) load[d] = load[d]! + a[lj + d]! - a[li + d]!;
+        }
+      }
       last = rev ? r.locs[i]! : r.locs[j]!;
     }
     // concatWindows(aD, aTW, aE, aL; tIn; d2, tw2, e2, l2), written out: the same operations.
@@ -182,14 +210,30 @@ export function evaluatePieces(state: SearchState, v: number, pieces: Int32Array
   const endTW = Math.max(aE + endDelta - cp.shiftEndMin[v]!, 0);
   const duration = aD + (0 + tEnd + endWait);
   dist += kmEnd;
+  // Excess load summed over the dimensions in order, as the loop over `load` did.
+  const cap = cp.capacity;
+  const scale = cp.loadScale;
+  const cv = v * dims;
   let excess = 0;
-  for (let d = 0; d < dims; d++) {
-    const over = load[d]! - cp.capacity[v * dims + d]!;
-    if (over > 0) excess += over / cp.loadScale[d]!;
+  let over = q0 - cap[cv]!;
+  if (over > 0) excess += over / scale[0]!;
+  if (dims > 1) {
+    over = q1 - cap[cv + 1]!;
+    if (over > 0) excess += over / scale[1]!;
+    if (dims > 2) {
+      over = q2 - cap[cv + 2]!;
+      if (over > 0) excess += over / scale[2]!;
+      for (let d = 3; d < dims; d++) {
+        over = load[d]! - cap[cv + d]!;
+        if (over > 0) excess += over / scale[d]!;
+      }
+    }
   }
+  // The last dimension counts the stops.
+  const count = dims === 1 ? q0 : dims === 2 ? q1 : dims === 3 ? q2 : load[dims - 1]!;
   const o = slot * R_SIZE;
   const out = state.out;
-  out[o + R_COUNT] = m === 0 ? 0 : load[dims - 1]!;
+  out[o + R_COUNT] = m === 0 ? 0 : count;
   out[o + R_STOPTW] = aTW;
   out[o + R_ENDTW] = endTW;
   out[o + R_EXCESS] = excess;

@@ -48,6 +48,14 @@ export class Move {
  * @example if (proposeMove(state, nb, rng, mv) && mv.delta < 0) applyMove(state, mv)
  */
 export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv: Move, active?: Int32Array): boolean {
+  // Evaluated in one place after the pieces are drawn: so the engine inlines the evaluation here
+  // once, and the small `piece` calls into `betweenRoutes` and `withinRoute` (evaluating at every
+  // return of those used up their inlining budget, and each piece was a call).
+  return drawMove(state, nb, rng, mv, active) && finish(state, mv);
+}
+
+/** The draw of `proposeMove`: the move's pieces and pool changes, not yet evaluated; false when invalid. */
+function drawMove(state: SearchState, nb: Neighbours, rng: Random, mv: Move, active?: Int32Array): boolean {
   const cp = state.cp;
   const u = active ? active[rng.int(active.length)]! : rng.int(cp.n);
   if (state.routeOf[u]! < -1) return false;
@@ -79,7 +87,7 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
     mv.vA = rv;
     mv.mA = m;
     mv.poolIn = u;
-    return finish(state, mv);
+    return true;
   }
   const p = state.posOf[u]!;
   const ra = state.routes[ru]!;
@@ -97,7 +105,7 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
     mv.vA = ru;
     mv.mA = piece(A, m, ru, p + 1, a, 0);
     mv.poolOut = u;
-    return finish(state, mv);
+    return true;
   }
   if (roll < 0.07 && state.used < V) {
     // Open an empty route with u.
@@ -109,7 +117,7 @@ export function proposeMove(state: SearchState, nb: Neighbours, rng: Random, mv:
     mv.mA = m;
     mv.vB = w;
     mv.mB = piece(B, 0, ru, p, p, 0);
-    return finish(state, mv);
+    return true;
   }
   if (rv < 0) return false;
   const q = state.posOf[v]!;
@@ -183,7 +191,7 @@ function betweenRoutes(
       mv.mB = piece(B, m, rv, q + 1, b, 0);
     }
   }
-  return finish(state, mv);
+  return true;
 }
 
 /** A move of `proposeMove` inside route `ru` (`a` stops) between u at `p` and v at `q`. */
@@ -262,7 +270,7 @@ function withinRoute(state: SearchState, rng: Random, mv: Move, kind: number, ru
     }
   }
   mv.mA = m;
-  return finish(state, mv);
+  return true;
 }
 
 /**

@@ -295,7 +295,19 @@ export class RouteArrays {
       }
       a[o + CUM_SVC] = a[b + CUM_SVC]! + rows[s + ROW_SERVICE]!;
       a[o + CUM_WIN] = a[b + CUM_WIN]! + rows[s + ROW_WINDOWED]!;
-      for (let d = 0; d < dims; d++) a[o + oLoad + d] = a[b + oLoad + d]! + rows[s + ROW_DEMAND + d]!;
+      // The loads: the first three dimensions written out (most problems have at most three,
+      // the stop count included), as `evaluatePieces` reads them.
+      const ol = o + oLoad;
+      const bl = b + oLoad;
+      const sd = s + ROW_DEMAND;
+      a[ol] = a[bl]! + rows[sd]!;
+      if (dims > 1) {
+        a[ol + 1] = a[bl + 1]! + rows[sd + 1]!;
+        if (dims > 2) {
+          a[ol + 2] = a[bl + 2]! + rows[sd + 2]!;
+          for (let d = 3; d < dims; d++) a[ol + d] = a[bl + d]! + rows[sd + d]!;
+        }
+      }
     }
     if (cp.anyPickup) this.rebuildPickups(lo, hi);
     const windowed = a[len * S + CUM_WIN]! > 0;
