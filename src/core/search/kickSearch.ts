@@ -36,7 +36,9 @@ const CROSS_KICK_MOVES = 2;
  *   routes, applied whatever they cost.
  * - The descent: steepest moves per stop (`examineStop`: every move the annealer can draw
  *   between the stop and its `KICK_NEIGHBOURS` nearest neighbours) on a queue of stops that starts with the stops at the
- *   kick's ends; a stop whose neighbours on its route change goes back on the queue, every other
+ *   kick's ends; a stop whose neighbours on its route change (`collectJunctions`: the stops that
+ *   meet at the joins of a move's pieces and did not follow one another before; a stop that
+ *   stays first or last keeps its leg to the depot) goes back on the queue, every other
  *   stop keeps its don't-look bit (Bentley 1992, "Fast algorithms for geometric traveling
  *   salesman problems"; from memory). The first descent looks at every stop.
  * - Acceptance: by the run's order of plans, on the plan's own numbers: a feasible plan before
@@ -71,8 +73,8 @@ export class KickSearch {
   private beforeUsed = 0;
   private beforeCost = 0;
   private failedKicks = 0;
-  /** Stops at the ends of the pieces of the move being applied (two routes of `MAX_PIECES` pieces). */
-  private readonly ends = new Int32Array(4 * MAX_PIECES);
+  /** Stops whose neighbours the move being applied changes (two routes of `MAX_PIECES` pieces: two per join and one at the end). */
+  private readonly ends = new Int32Array(4 * MAX_PIECES + 2);
   private endCount = 0;
 
   /**
@@ -264,15 +266,15 @@ export class KickSearch {
   }
 
   /**
-   * Before a move is applied: save the routes it changes (for the undo) and note the stops at
-   * its pieces' ends (their legs change; they go back on the queue afterwards).
+   * Before a move is applied: save the routes it changes (for the undo) and note the stops whose
+   * neighbours it changes (they go back on the queue afterwards).
    */
   private readonly prepare = (mv: Move): void => {
     const state = this.state;
     this.save(mv.vA);
     this.save(mv.vB);
-    let e = collectEnds(state, mv.piecesA, mv.mA, this.ends, 0);
-    if (mv.vB >= 0) e = collectEnds(state, mv.piecesB, mv.mB, this.ends, e);
+    let e = collectJunctions(state, mv.vA, mv.piecesA, mv.mA, this.ends, 0);
+    if (mv.vB >= 0) e = collectJunctions(state, mv.vB, mv.piecesB, mv.mB, this.ends, e);
     this.endCount = e;
   };
 
@@ -299,19 +301,40 @@ export class KickSearch {
   }
 }
 
-/** Write the first and last stop of each piece (as they are before the move) into `out` from `e`. */
-function collectEnds(state: SearchState, pieces: Int32Array, m: number, out: Int32Array, e: number): number {
+/**
+ * Write into `out` from `e` the stops of route `v`'s new content (`m` pieces, read while the
+ * state is as before the move) whose neighbour on the route changes: at each join of two pieces,
+ * and at the depot at either end, the two stops that meet there when they did not follow one
+ * another before (a stop from the pool always counts). Inside a reversed piece the neighbours
+ * stay the same stops.
+ *
+ * @returns the new end of `out`
+ */
+function collectJunctions(state: SearchState, v: number, pieces: Int32Array, m: number, out: Int32Array, e: number): number {
+  const { routeOf, posOf } = state;
+  let prev = -1;
   for (let k = 0; k < m; k++) {
     const src = pieces[4 * k]!;
     const i = pieces[4 * k + 1]!;
-    if (src < 0) {
-      out[e++] = i;
-      continue;
+    let first = i;
+    let last = i;
+    if (src >= 0) {
+      const nodes = state.routes[src]!.nodes;
+      const j = pieces[4 * k + 2]!;
+      const rev = pieces[4 * k + 3]!;
+      first = nodes[rev ? j : i]!;
+      last = nodes[rev ? i : j]!;
     }
-    const nodes = state.routes[src]!.nodes;
-    out[e++] = nodes[i]!;
-    const j = pieces[4 * k + 2]!;
-    if (j !== i) out[e++] = nodes[j]!;
+    const followed =
+      prev < 0
+        ? routeOf[first] === v && posOf[first] === 1
+        : routeOf[prev]! >= 0 && routeOf[first] === routeOf[prev] && posOf[first] === posOf[prev]! + 1;
+    if (!followed) {
+      if (prev >= 0) out[e++] = prev;
+      out[e++] = first;
+    }
+    prev = last;
   }
+  if (prev >= 0 && !(routeOf[prev] === v && posOf[prev] === state.routes[v]!.len)) out[e++] = prev;
   return e;
 }
