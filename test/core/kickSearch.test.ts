@@ -65,6 +65,33 @@ describe("kick phase (iterated local search from the best plan)", () => {
     });
   }
 
+  it("a kick's worse result is kept by the Metropolis rule (here at a temperature of the mean leg, to see it often), yet the best plan is the lowest plan applied and ends on the TSPLIB95 optimum of ulysses22, 7013, seeds 1-3", () => {
+    let keptWorse = 0;
+    for (const seed of [1, 2, 3]) {
+      const { inst, problem, state, best, rng, nb, active } = randomTour("ulysses22", seed);
+      let lowest = Infinity;
+      const search = new KickSearch(
+        state,
+        nb,
+        active,
+        rng,
+        false,
+        () => {
+          best.consider(state);
+          lowest = Math.min(lowest, state.realCost());
+        },
+        1,
+      );
+      // A fixed budget, well past the optimum: the search goes on kicking, and drifting, from it.
+      for (let used = 0, got = 1; got > 0 && used < 1_000_000; used += got) got = search.run(1_000_000 - used, 10_000);
+      keptWorse += search.keptWorse;
+      const stops = best.plan().routes[0]!.visits.map((v) => v.stop);
+      expect(tspLength(inst, problem, stops), `seed ${seed}`).toBe(OPTIMA.ulysses22);
+      expect(best.key2, `seed ${seed}`).toBeCloseTo(lowest, 6);
+    }
+    expect(keptWorse).toBeGreaterThan(0);
+  });
+
   it("never returns a plan worse than the one it started from, and every plan it returns keeps the rules (Solomon C101, R101, RC201; independent checker)", () => {
     for (const name of ["C101", "R101", "RC201"]) {
       const problem = solomonToProblem(parseSolomon(fixture(`${name}.txt`)));
