@@ -35,13 +35,13 @@ export function annealingEnds(kickPhase: boolean): number {
  * says that the schedule shown governs only the part before.
  *
  * @param kickPhase - whether the kick phase is on (default: on, as `SOLVE_DEFAULTS`)
- * @returns e.g. "The last 20% of the run keeps no worse move for a plan of one route: kicks and ..."
+ * @returns e.g. "The last 20% of the run, for a plan of one route: kicks and descents from the best plan, ..."
  * @example endOfRunText(false) // => "The last 5% of the run keeps no worse move: a descent from the best plan (quench)."
  */
 export function endOfRunText(kickPhase = true): string {
   const share = `${Math.round((1 - annealingEnds(kickPhase)) * 100)}%`;
   const quench = `${Math.round((1 - QUENCH_FROM) * 100)}%`;
   return kickPhase
-    ? `The last ${share} of the run keeps no worse move for a plan of one route: kicks and descents from the best plan (kick phase); with several routes the last ${quench}: a descent from the best plan (quench).`
+    ? `The last ${share} of the run, for a plan of one route: kicks and descents from the best plan, keeping a result that is no worse and now and then one slightly worse, while the run keeps the best plan found (kick phase); with several routes the last ${quench} keeps no worse move: a descent from the best plan (quench).`
     : `The last ${quench} of the run keeps no worse move: a descent from the best plan (quench).`;
 }
