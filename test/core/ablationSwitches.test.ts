@@ -10,6 +10,7 @@ import { compileProblem } from "../../src/core/schedule/compileProblem.js";
 import { solve } from "../../src/core/solve.js";
 import { checkSolomonPlan, readRawSolomon } from "../reference/solomonChecker.js";
 import { penalisedFromPlan } from "./penalisedFromPlan.js";
+import { randomStart } from "./randomStart.js";
 import { randomInstance } from "./randomInstance.js";
 
 // Solomon (1987) C101 and R101 are committed fixtures (test/fixtures/reference, sources in its README).
@@ -76,9 +77,7 @@ describe("ablation switches of SolveOptions (each changes what the search does)"
     const state = new SearchState(cp, 3, 7);
     state.fullEvaluation = true;
     const rng = createRandom(5);
-    const init: number[][] = problem.vehicles.map(() => []);
-    for (let s = 0; s < cp.n; s++) init[rng.int(cp.vehicleCount)]!.push(s);
-    init.forEach((r, v) => state.setRoute(v, r));
+    randomStart(state, rng);
     const nb = buildNeighbours(cp, 6);
     const mv = new Move();
     let before = penalisedFromPlan(problem, cp, state);

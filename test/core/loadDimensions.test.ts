@@ -7,6 +7,7 @@ import { SearchState } from "../../src/core/moves/SearchState.js";
 import { buildNeighbours } from "../../src/core/neighbours/buildNeighbours.js";
 import { compileProblem } from "../../src/core/schedule/compileProblem.js";
 import { penalisedFromPlan } from "./penalisedFromPlan.js";
+import { randomStart } from "./randomStart.js";
 import { randomInstance } from "./randomInstance.js";
 
 /**
@@ -35,9 +36,7 @@ describe("loads of any number of dimensions in the move evaluation", () => {
       expect(cp.dims).toBe(count + 1);
       const state = new SearchState(cp, 3, 7);
       const rng = createRandom(count + 11);
-      const init: number[][] = problem.vehicles.map(() => []);
-      for (let s = 0; s < cp.n; s++) init[rng.int(cp.vehicleCount)]!.push(s);
-      init.forEach((r, v) => state.setRoute(v, r));
+      randomStart(state, rng);
       const nb = buildNeighbours(cp, 6);
       const mv = new Move();
       let before = penalisedFromPlan(problem, cp, state);

@@ -5,6 +5,7 @@ import { SearchState } from "../../src/core/moves/SearchState.js";
 import { buildNeighbours } from "../../src/core/neighbours/buildNeighbours.js";
 import { compileProblem } from "../../src/core/schedule/compileProblem.js";
 import { penalisedFromPlan } from "./penalisedFromPlan.js";
+import { randomStart } from "./randomStart.js";
 import { randomInstance } from "./randomInstance.js";
 
 function checkOnce(state: SearchState, n: number): void {
@@ -29,9 +30,7 @@ describe("incremental move evaluation (segment concatenation, Vidal et al. 2013)
       state.vehicleWeight = c.seed === 4 ? 500 : 0;
       const rng = createRandom(c.seed);
       // Random start: every stop on a random vehicle.
-      const init: number[][] = problem.vehicles.map(() => []);
-      for (let s = 0; s < cp.n; s++) if (!(c.optional && rng.next() < 0.2)) init[rng.int(cp.vehicleCount)]!.push(s);
-      init.forEach((r, v) => state.setRoute(v, r));
+      randomStart(state, rng, () => c.optional === true && rng.next() < 0.2);
       const nb = buildNeighbours(cp, 6);
       const mv = new Move();
       let before = penalisedFromPlan(problem, cp, state);
