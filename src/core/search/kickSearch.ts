@@ -148,7 +148,10 @@ export class KickSearch {
     return used;
   }
 
-  /** Keep the descent's result when it is not worse than the plan before the kick, else undo. */
+  /**
+   * Keep the descent's result when it is not worse than the plan before the kick, or, worse with
+   * the same vehicles and feasible, with the Metropolis probability of `temperatureShare`; else undo.
+   */
   private judge(): void {
     const state = this.state;
     this.inKick = false;
