@@ -302,7 +302,6 @@ function finish(state: SearchState, mv: Move): boolean {
   return true;
 }
 
-/** Append piece (route, i..j) when not empty; returns the new count. */
 /**
  * Append the piece (route, i..j, reversed when `rev` is 1) to `buf` when it holds a stop.
  *
