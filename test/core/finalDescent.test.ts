@@ -1,6 +1,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { createRandom } from "../../src/core/anneal/createRandom.js";
+import { randomOrder } from "./randomStart.js";
 import { parseTsplib, tsplibToProblem } from "../../src/core/formats/index.js";
 import { SearchState } from "../../src/core/moves/SearchState.js";
 import { buildNeighbours } from "../../src/core/neighbours/buildNeighbours.js";
@@ -90,12 +91,7 @@ describe("final descent (steepest descent over the moves the annealer draws)", (
 
   for (const seed of [1, 2, 3]) {
     it(`ends a random ulysses22 tour on a 2-opt and or-opt local optimum, first and last legs included (independent check, seed ${seed})`, () => {
-      const rng = createRandom(seed);
-      const order = Array.from({ length: 21 }, (_, s) => s);
-      for (let i = order.length - 1; i > 0; i--) {
-        const j = rng.int(i + 1);
-        [order[i], order[j]] = [order[j]!, order[i]!];
-      }
+      const order = randomOrder(21, createRandom(seed));
       const { state, nb } = stateWith(order);
       const start = length([0, ...order.map((s) => s + 1)]);
       let applied = 0;

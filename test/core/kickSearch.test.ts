@@ -1,6 +1,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { createRandom } from "../../src/core/anneal/createRandom.js";
+import { randomOrder } from "./randomStart.js";
 import { parseSolomon, parseTsplib, solomonToProblem, tsplibToProblem } from "../../src/core/formats/index.js";
 import { tsplibTourLength } from "../../src/core/formats/tsplibTourLength.js";
 import type { Problem } from "../../src/core/model.js";
@@ -23,12 +24,8 @@ function randomTour(name: keyof typeof OPTIMA, seed: number) {
   const problem = tsplibToProblem(inst);
   const cp = compileProblem(problem);
   const state = new SearchState(cp, 1, 1);
-  const order = Array.from({ length: cp.n }, (_, s) => s);
   const rng = createRandom(seed);
-  for (let i = order.length - 1; i > 0; i--) {
-    const j = rng.int(i + 1);
-    [order[i], order[j]] = [order[j]!, order[i]!];
-  }
+  const order = randomOrder(cp.n, rng);
   state.setRoute(0, order);
   const best = new BestPlan(problem, cp);
   best.consider(state);

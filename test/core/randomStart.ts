@@ -16,3 +16,21 @@ export function randomStart(state: SearchState, rng: Random, leaveOut: (stop: nu
   for (let s = 0; s < cp.n; s++) if (!leaveOut(s)) init[rng.int(cp.vehicleCount)]!.push(s);
   init.forEach((r, v) => state.setRoute(v, r));
 }
+
+/**
+ * The stops `0..n-1` in a random order (a Fisher-Yates shuffle from the end), for a random
+ * tour in tests.
+ *
+ * @param n - number of stops
+ * @param rng - the test's random generator
+ * @returns the shuffled stop numbers
+ * @example state.setRoute(0, randomOrder(cp.n, createRandom(1)))
+ */
+export function randomOrder(n: number, rng: Random): number[] {
+  const order = Array.from({ length: n }, (_, s) => s);
+  for (let i = order.length - 1; i > 0; i--) {
+    const j = rng.int(i + 1);
+    [order[i], order[j]] = [order[j]!, order[i]!];
+  }
+  return order;
+}

@@ -1,6 +1,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { createRandom } from "../../src/core/anneal/createRandom.js";
+import { randomOrder } from "./randomStart.js";
 import { parseSolomon, parseTsplib, solomonToProblem, tsplibToProblem } from "../../src/core/formats/index.js";
 import { tsplibTourLength } from "../../src/core/formats/tsplibTourLength.js";
 import type { Problem } from "../../src/core/model.js";
@@ -15,12 +16,8 @@ const fixture = (name: string): string => readFileSync(new URL(`../fixtures/refe
 function randomState(problem: Problem, seed: number) {
   const cp = compileProblem(problem);
   const state = new SearchState(cp, 1, 1);
-  const order = Array.from({ length: cp.n }, (_, s) => s);
   const rng = createRandom(seed);
-  for (let i = order.length - 1; i > 0; i--) {
-    const j = rng.int(i + 1);
-    [order[i], order[j]] = [order[j]!, order[i]!];
-  }
+  const order = randomOrder(cp.n, rng);
   state.setRoute(0, order);
   return { cp, state, active: Int32Array.from(order.keys()), nb: buildNeighbours(cp, 20), rng };
 }
