@@ -25,7 +25,10 @@ const ANSWERS = new Map<string, GeocodeCandidate[]>([
   ["Clay Street, Brickfield", [at(52.087, 5.125, "Clay Street, Brickfield", { precision: "street" })]],
   [
     "Market Square",
-    [at(52.089, 5.121, "Market Square, Brickfield", { confidence: 0.8 }), at(52.35, 5.68, "Market Square, Far Kilnsey", { confidence: 0.78 })],
+    [
+      at(52.089, 5.121, "Market Square, Brickfield", { confidence: 0.8 }),
+      at(52.35, 5.68, "Market Square, Far Kilnsey", { confidence: 0.78 }),
+    ],
   ],
   ["Nowhere Road 9, Brickfield", []],
   ["Depot Road, Brickfield", [at(52.08, 5.11, "Depot Road, Brickfield", { precision: "street" })]],
