@@ -15,13 +15,13 @@
  * work on a loaded machine.
  */
 import { existsSync, readFileSync } from "node:fs";
-import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { Command } from "commander";
 import { benchRecord, loadBenchFile, type BenchInstance } from "../src/cli/benchCommand.js";
 import { settingFlags } from "../src/cli/settingFlags.js";
 import { type ChainOptions, runChains } from "../src/cli/chains.js";
 import { solomonToProblem, tsplibToProblem, type Plan } from "../src/core/index.js";
+import { BENCHMARKS_DIR } from "./benchmarksDir.js";
 import { benchEnvironment, cpuClock, rssSampler, writeResults } from "./results.js";
 import { textbookAnneal } from "./textbookAnnealer.js";
 
@@ -34,9 +34,6 @@ const INSTANCES = [
   ["solomon", "RC201", "txt"],
 ] as const;
 
-const SHARED = process.env["KILN_BENCHMARKS_DIR"]
-  ? resolve(process.env["KILN_BENCHMARKS_DIR"]) + "/"
-  : fileURLToPath(new URL("../../shared/benchmarks/", import.meta.url));
 const FIXTURES = fileURLToPath(new URL("../test/fixtures/reference/", import.meta.url));
 
 /** Engine variants: each switchable part off in turn (the ablation switches of `SolveOptions`). */
@@ -100,9 +97,11 @@ async function main(argv: string[]): Promise<number> {
   }
   const seconds = flags.overrides.seconds ?? 10;
   const seed = flags.overrides.seed ?? 1;
-  const shared = existsSync(SHARED + "solomon/C101.txt");
-  const dir = shared ? { tsplib: SHARED + "tsplib/", solomon: SHARED + "solomon/" } : { tsplib: FIXTURES, solomon: FIXTURES };
-  process.stderr.write(`instances from ${shared ? SHARED : FIXTURES}\n`);
+  const shared = existsSync(BENCHMARKS_DIR + "solomon/C101.txt");
+  const dir = shared
+    ? { tsplib: BENCHMARKS_DIR + "tsplib/", solomon: BENCHMARKS_DIR + "solomon/" }
+    : { tsplib: FIXTURES, solomon: FIXTURES };
+  process.stderr.write(`instances from ${shared ? BENCHMARKS_DIR : FIXTURES}\n`);
   const refs = references(dir);
   const now = opts.cpuClock ? cpuClock() : (): number => performance.now();
 

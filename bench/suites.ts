@@ -32,17 +32,15 @@
  */
 import { existsSync, readFileSync, readdirSync, statSync } from "node:fs";
 import { loadavg } from "node:os";
-import { join, resolve } from "node:path";
+import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import type { SolomonBenchRecord, TsplibBenchRecord } from "../src/cli/benchCommand.js";
 import { Command } from "commander";
 import { settingFlags } from "../src/cli/settingFlags.js";
 import { parseWorkers } from "../src/cli/chains.js";
+import { BENCHMARKS_DIR } from "./benchmarksDir.js";
 import { benchEnvironment, cpuClock, rssSampler, writeResults } from "./results.js";
 
-const BENCHMARKS_DIR = process.env["KILN_BENCHMARKS_DIR"]
-  ? resolve(process.env["KILN_BENCHMARKS_DIR"]) + "/"
-  : fileURLToPath(new URL("../../shared/benchmarks/", import.meta.url));
 /** The committed reference instances: one flat folder standing for both suite folders. */
 const FIXTURES_DIR = fileURLToPath(new URL("../test/fixtures/reference/", import.meta.url));
 let suiteDir = (suite: "tsplib" | "solomon"): string => BENCHMARKS_DIR + suite + "/";
