@@ -27,6 +27,7 @@ import { BENCHMARKS_DIR } from "./benchmarksDir.js";
 interface Row {
   instance: string;
   seed: number;
+  workers?: number;
   reference: number;
   referenceVehicles?: number;
   vehicles?: number;
@@ -126,11 +127,17 @@ function recheckTsplib(row: Row, dir: string): { problems: string[]; length: num
 const dir = BENCHMARKS_DIR;
 let disagreements = 0;
 for (const file of process.argv.slice(2)) {
-  const rows = (JSON.parse(readFileSync(file, "utf8")) as { rows: Row[] }).rows;
-  const seeds = [...new Set(rows.map((r) => r.seed))];
-  for (const seed of seeds) {
-    const solomon = rows.filter((r) => r.seed === seed && r.record.format === "solomon");
-    const tsplib = rows.filter((r) => r.seed === seed && r.record.format === "tsplib");
+  // Side-by-side files (`--equal-time`, `--sharing`) hold each instance's runs under `runs`.
+  const rows = (JSON.parse(readFileSync(file, "utf8")) as { rows: (Row | { runs: Row[] })[] }).rows.flatMap((r) =>
+    "runs" in r ? r.runs : [r],
+  );
+  const groups = [...new Set(rows.map((r) => `${r.seed}/${r.workers ?? 1}`))];
+  for (const group of groups) {
+    const [seed, workers] = group.split("/").map(Number) as [number, number];
+    const mine = rows.filter((r) => r.seed === seed && (r.workers ?? 1) === workers);
+    const solomon = mine.filter((r) => r.record.format === "solomon");
+    const tsplib = mine.filter((r) => r.record.format === "tsplib");
+    const label = `seed ${seed}${workers > 1 ? `, ${workers} workers` : ""}`;
     if (solomon.length > 0) {
       let feasible = 0;
       let vehicles = 0;
@@ -138,7 +145,7 @@ for (const file of process.argv.slice(2)) {
       const gaps: number[] = [];
       for (const row of solomon) {
         const c = recheckSolomon(row, dir);
-        for (const p of c.problems) console.log(`${file}: ${row.instance} seed ${seed}: ${p}`);
+        for (const p of c.problems) console.log(`${file}: ${row.instance} ${label}: ${p}`);
         disagreements += c.problems.length;
         if (c.problems.length === 0) feasible++;
         vehicles += c.vehicles;
@@ -147,18 +154,18 @@ for (const file of process.argv.slice(2)) {
       }
       const mean = gaps.reduce((a, b) => a + b, 0) / Math.max(1, gaps.length);
       console.log(
-        `${file} seed ${seed}: Solomon ${solomon.length} plans, ${feasible} re-checked feasible, ${vehicles} vehicles (best-known ${best}), best-known count on ${gaps.length}, mean gap over those ${mean >= 0 ? "+" : ""}${mean.toFixed(2)}%`,
+        `${file} ${label}: Solomon ${solomon.length} plans, ${feasible} re-checked feasible, ${vehicles} vehicles (best-known ${best}), best-known count on ${gaps.length}, mean gap over those ${mean >= 0 ? "+" : ""}${mean.toFixed(2)}%`,
       );
     }
     if (tsplib.length > 0) {
       const parts: string[] = [];
       for (const row of tsplib) {
         const c = recheckTsplib(row, dir);
-        for (const p of c.problems) console.log(`${file}: ${row.instance} seed ${seed}: ${p}`);
+        for (const p of c.problems) console.log(`${file}: ${row.instance} ${label}: ${p}`);
         disagreements += c.problems.length;
         parts.push(`${row.instance} ${((100 * (c.length - row.reference)) / row.reference).toFixed(2)}%`);
       }
-      console.log(`${file} seed ${seed}: TSPLIB lengths re-summed, gaps ${parts.join(", ")}`);
+      console.log(`${file} ${label}: TSPLIB lengths re-summed, gaps ${parts.join(", ")}`);
     }
   }
 }
