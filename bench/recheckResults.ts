@@ -20,7 +20,7 @@
  *
  * Run: npx tsx bench/recheckResults.ts bench/results/<file>.json [more files]
  */
-import { readFileSync } from "node:fs";
+import { existsSync, readFileSync } from "node:fs";
 import { join } from "node:path";
 import { BENCHMARKS_DIR } from "./benchmarksDir.js";
 
@@ -125,6 +125,10 @@ function recheckTsplib(row: Row, dir: string): { problems: string[]; length: num
 }
 
 const dir = BENCHMARKS_DIR;
+if (!existsSync(dir)) {
+  console.error(`The benchmark folder ${dir} is absent: put ../shared/benchmarks beside the checkout or set KILN_BENCHMARKS_DIR.`);
+  process.exit(2);
+}
 let disagreements = 0;
 for (const file of process.argv.slice(2)) {
   // Side-by-side files (`--equal-time`, `--sharing`) hold each instance's runs under `runs`.
