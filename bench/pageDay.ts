@@ -4,8 +4,9 @@
  * server, starts the pane's own worker script and sends it the day as the pane would (a `start`
  * message of `workerProtocol.ts`; the matrix's typed arrays reach the page as bytes from a second
  * loopback server and are structured-cloned into the worker, as the pane's are), then waits for
- * the result. Measured: wall seconds from the
- * message to the result, the worker's own heap figure where the browser gives one (Chromium's
+ * the result. Measured: seconds from handing the problem to the worker (the budget counts from
+ * there, `startedAt`, as in the pane) to the result, and of the whole exchange with the bench's
+ * transfer of the bytes; the worker's own heap figure where the browser gives one (Chromium's
  * `performance.memory` exists in pages only, so none), and the peak resident memory of the
  * browser's renderer processes (`VmHWM` in /proc, the kernel's peak: the page and its worker live
  * in one renderer), feasibility re-checked by `evaluatePlan` here.
@@ -29,6 +30,9 @@ export interface PageDayRow {
   stops: number;
   vehicles: number;
   budgetSeconds: number;
+  /** Seconds from handing the problem to the worker (the pane's press of Optimize, `startedAt`) to its result. */
+  postToResultSeconds: number;
+  /** Seconds of the whole exchange, including the bench's own transfer of the matrix bytes into the page. */
   wallSeconds: number;
   moves: number;
   feasible: boolean;
@@ -91,14 +95,16 @@ export async function runPageDays(days: readonly { problem: Problem; seconds: nu
         // No named inner functions here: tsx would wrap them in a helper the page does not have.
         const answer = await page.evaluate(
           ({ scriptUrl, base, rest, size, userSupplied, seconds }) =>
-            new Promise<{ result?: unknown; peakHeapBytes?: number; error?: string }>((resolve) => {
+            new Promise<{ result?: unknown; peakHeapBytes?: number; error?: string; postToResultMs?: number }>((resolve) => {
               const worker = new Worker(scriptUrl);
+              let postedAt = 0;
               worker.addEventListener(
                 "message",
                 (e: MessageEvent<{ type: string; result?: unknown; peakHeapBytes?: number; message?: string }>) => {
                   if (e.data.type === "result")
                     resolve({
                       result: e.data.result,
+                      postToResultMs: performance.timeOrigin + performance.now() - postedAt,
                       ...(e.data.peakHeapBytes !== undefined ? { peakHeapBytes: e.data.peakHeapBytes } : {}),
                     });
                   else if (e.data.type === "error") resolve({ error: e.data.message ?? "error" });
@@ -106,7 +112,9 @@ export async function runPageDays(days: readonly { problem: Problem; seconds: nu
               );
               worker.addEventListener("error", (e) => resolve({ error: e.message || "worker failed" }));
               void Promise.all(["km", "min"].map((n) => fetch(`${base}/${n}`).then((r) => r.arrayBuffer()))).then(
-                ([km, min]) =>
+                ([km, min]) => {
+                  // As the pane does: the budget counts from the moment the problem is handed over.
+                  postedAt = performance.timeOrigin + performance.now();
                   worker.postMessage({
                     type: "start",
                     runId: 1,
@@ -114,8 +122,9 @@ export async function runPageDays(days: readonly { problem: Problem; seconds: nu
                       ...rest,
                       matrix: { size, distanceKm: new Float64Array(km!), travelMin: new Float64Array(min!), userSupplied },
                     },
-                    options: { seed: 1, budget: { seconds } },
-                  }),
+                    options: { seed: 1, budget: { seconds }, startedAt: postedAt },
+                  });
+                },
                 (e: unknown) => resolve({ error: String(e) }),
               );
             }),
@@ -133,6 +142,7 @@ export async function runPageDays(days: readonly { problem: Problem; seconds: nu
           stops: problem.stops.length,
           vehicles: problem.vehicles.length,
           budgetSeconds: seconds,
+          postToResultSeconds: Math.round((answer.postToResultMs ?? NaN) / 100) / 10,
           wallSeconds: Math.round(wallS * 10) / 10,
           moves: result.stats.moves,
           feasible: result.plan.feasible && check.violations.length === 0,

@@ -214,6 +214,32 @@ describe("the pane's pool of solver workers", () => {
     expect("issues" in out && out.issues.length).toBeGreaterThan(0);
   });
 
+  it("one worker counts a seconds budget from the press of Optimize: the time the problem takes to reach it is inside the budget", async () => {
+    const pool = new SolverPool(inProcessClient(), () => inProcessClient());
+    // Pressed 1.5 s ago (as if copying a large matrix into the worker had taken that long).
+    const pressedAt = epochMs() - 1_500;
+    const handedOver = epochMs();
+    const out = await new Promise<Outcome>((resolve) =>
+      pool.start(
+        problem,
+        { seed: 1, budget: { seconds: 2 } },
+        1,
+        {
+          onProgress: () => {},
+          onResult: (result, stopped) => resolve({ result, stopped, progress: [] }),
+          onError: (error, issues) => resolve({ error, issues }),
+        },
+        pressedAt,
+      ),
+    );
+    const arrived = epochMs();
+    if (!("result" in out)) throw new Error(out.error);
+    // The run's clock started at the press, so it reports at least the 2 s budget ...
+    expect(out.result.stats.elapsedMs).toBeGreaterThanOrEqual(2_000);
+    // ... and searched for well under 2 s after the hand-over (about 0.5 s; slack for a busy machine).
+    expect(arrived - handedOver).toBeLessThan(1_900);
+  }, 30_000);
+
   it("refuses a worker count outside the Workers field's range", () => {
     const pool = new SolverPool(inProcessClient(), () => inProcessClient());
     const h = { onProgress: () => {}, onResult: () => {}, onError: () => {} };
