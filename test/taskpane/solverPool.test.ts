@@ -74,11 +74,18 @@ class FailingClient implements ChainClient {
 
 type Outcome = { result: PoolResult; stopped: boolean; progress: Progress[] } | { error: string; issues: readonly Issue[] };
 
-function runPool(pool: SolverPool, options: WorkerSolveOptions, workers: number, onProgress?: (p: Progress) => void): Promise<Outcome> {
+function runPool(
+  pool: SolverPool,
+  options: WorkerSolveOptions,
+  workers: number,
+  onProgress?: (p: Progress) => void,
+  startedAt = epochMs(),
+  of: Problem = problem,
+): Promise<Outcome> {
   const progress: Progress[] = [];
   return new Promise((resolve) =>
     pool.start(
-      problem,
+      of,
       options,
       workers,
       {
@@ -89,7 +96,7 @@ function runPool(pool: SolverPool, options: WorkerSolveOptions, workers: number,
         onResult: (result, stopped) => resolve({ result, stopped, progress }),
         onError: (error, issues) => resolve({ error, issues }),
       },
-      epochMs(),
+      startedAt,
     ),
   );
 }
@@ -197,19 +204,7 @@ describe("the pane's pool of solver workers", () => {
   it("one worker reports the problem's own defects as the single worker did", async () => {
     const pool = new SolverPool(inProcessClient(), () => inProcessClient());
     const broken: Problem = { ...problem, vehicles: [] };
-    const out = await new Promise<Outcome>((resolve) =>
-      pool.start(
-        broken,
-        { seed: 1, budget: { moves: 100 } },
-        1,
-        {
-          onProgress: () => {},
-          onResult: (result, stopped) => resolve({ result, stopped, progress: [] }),
-          onError: (error, issues) => resolve({ error, issues }),
-        },
-        epochMs(),
-      ),
-    );
+    const out = await runPool(pool, { seed: 1, budget: { moves: 100 } }, 1, undefined, epochMs(), broken);
     expect(out).toMatchObject({ error: expect.stringMatching(/defect/) });
     expect("issues" in out && out.issues.length).toBeGreaterThan(0);
   });
@@ -219,19 +214,7 @@ describe("the pane's pool of solver workers", () => {
     // Pressed 1.5 s ago (as if copying a large matrix into the worker had taken that long).
     const pressedAt = epochMs() - 1_500;
     const handedOver = epochMs();
-    const out = await new Promise<Outcome>((resolve) =>
-      pool.start(
-        problem,
-        { seed: 1, budget: { seconds: 2 } },
-        1,
-        {
-          onProgress: () => {},
-          onResult: (result, stopped) => resolve({ result, stopped, progress: [] }),
-          onError: (error, issues) => resolve({ error, issues }),
-        },
-        pressedAt,
-      ),
-    );
+    const out = await runPool(pool, { seed: 1, budget: { seconds: 2 } }, 1, undefined, pressedAt);
     const arrived = epochMs();
     if (!("result" in out)) throw new Error(out.error);
     // The run's clock started at the press, so it reports at least the 2 s budget ...
