@@ -122,8 +122,9 @@ export class SolverPool {
       );
     };
     for (let k = 0; k < workers; k++) {
-      // Every chain, one or several, counts its seconds from the press of Optimize, so the time
-      // the problem takes to reach the worker (a copy of the matrix) is inside the budget.
+      // Every chain, one or several, counts its seconds from `startedAt` (the pane stamps it as it
+      // starts the run), so the time the problem takes to reach the worker (a copy of the matrix)
+      // is inside the budget.
       const chainOptions: WorkerSolveOptions = { ...options, seed: chainSeed(seed, k), startedAt };
       this.clients[k]!.start(
         problem,
